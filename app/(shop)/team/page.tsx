@@ -1,0 +1,28 @@
+import type { Metadata } from 'next';
+import { InviteForm } from '@/features/accounts/components/invite-form';
+import { TeamList } from '@/features/accounts/components/team-list';
+import { listPendingInvites } from '@/features/accounts/server/invites';
+import { listTeam } from '@/features/accounts/server/team';
+import { PageHeader } from '@/features/ui/page';
+import { requireMember } from '@/server/auth/guard';
+
+export const metadata: Metadata = { title: 'Team' };
+
+export default async function TeamPage() {
+  const member = await requireMember('team.manage');
+  const [members, invites] = await Promise.all([listTeam(member.shopId), listPendingInvites(member.shopId)]);
+  return (
+    <>
+      <PageHeader title="Team" />
+      <div className="grid gap-8 md:grid-cols-[2fr_1fr]">
+        <TeamList members={members} invites={invites} />
+        <section aria-labelledby="invite-heading" className="rounded-xl border-2 border-paper-line p-4">
+          <h2 id="invite-heading" className="mb-3 text-xl font-bold">
+            Invite someone
+          </h2>
+          <InviteForm />
+        </section>
+      </div>
+    </>
+  );
+}

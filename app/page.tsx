@@ -1,0 +1,6 @@
+import { redirect } from 'next/navigation';
+import { getCurrentMember } from '@/server/auth/session';
+
+export default async function Home() {
+  redirect((await getCurrentMember()) ? '/board' : '/sign-in');
+}

@@ -1,0 +1,2 @@
+export * from './shops';
+export * from './auth';

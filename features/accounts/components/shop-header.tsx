@@ -1,0 +1,43 @@
+import Link from 'next/link';
+import { can } from '@/server/auth/permissions';
+import { ROLE_LABELS } from '@/server/auth/permissions';
+import type { Member } from '@/server/auth/session';
+import { signOut } from '../actions/sign-out';
+
+const linkClass = 'inline-flex min-h-touch items-center rounded-lg px-3 font-semibold hover:bg-work-dark';
+
+/** Top bar for every shop page; it shows only the places this member can use. */
+export function ShopHeader({ member, shopName, mailbox }: { member: Member; shopName: string; mailbox: boolean }) {
+  return (
+    <header className="bg-work text-white">
+      <div className="mx-auto flex max-w-5xl flex-wrap items-center justify-between gap-2 px-3 py-2">
+        <p className="font-black tracking-tight">
+          Ringpass <span className="font-semibold opacity-90">· {shopName}</span>
+        </p>
+        <nav aria-label="Main" className="flex flex-wrap items-center gap-1">
+          <Link href="/board" className={linkClass}>
+            Board
+          </Link>
+          {can(member.role, 'team.manage') ? (
+            <Link href="/team" className={linkClass}>
+              Team
+            </Link>
+          ) : null}
+          {mailbox ? (
+            <Link href="/mailbox" className={linkClass}>
+              Mailbox
+            </Link>
+          ) : null}
+          <form action={signOut}>
+            <button type="submit" className={`${linkClass} border-2 border-white`}>
+              Sign out
+            </button>
+          </form>
+        </nav>
+      </div>
+      <p className="mx-auto max-w-5xl px-3 pb-2 text-sm">
+        Signed in as {member.name} ({ROLE_LABELS[member.role]})
+      </p>
+    </header>
+  );
+}

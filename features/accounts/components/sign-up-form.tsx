@@ -1,0 +1,29 @@
+'use client';
+
+import { Button } from '@/features/ui/button';
+import { TextField } from '@/features/ui/field';
+import { FormMessage } from '@/features/ui/form-message';
+import { useFormAction } from '@/features/ui/use-form-action';
+import { signUp } from '../actions/sign-up';
+
+export function SignUpForm() {
+  const { state, formAction, pending, errors, value } = useFormAction(signUp);
+  return (
+    <form action={formAction} noValidate className="flex flex-col gap-4">
+      <FormMessage state={state} />
+      <TextField label="Shop name" name="shopName" autoComplete="organization" required defaultValue={value('shopName')} errors={errors('shopName')} />
+      <TextField label="Your name" name="name" autoComplete="name" required defaultValue={value('name')} errors={errors('name')} />
+      <TextField label="E-mail" name="email" type="email" autoComplete="email" required defaultValue={value('email')} errors={errors('email')} />
+      <TextField
+        label="Password"
+        name="password"
+        type="password"
+        autoComplete="new-password"
+        required
+        hint="At least 12 characters. A short sentence works well."
+        errors={errors('password')}
+      />
+      <Button disabled={pending}>{pending ? 'Creating your shop…' : 'Create shop and sign in'}</Button>
+    </form>
+  );
+}

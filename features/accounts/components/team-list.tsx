@@ -1,0 +1,49 @@
+import Link from 'next/link';
+import { ROLE_LABELS } from '@/server/auth/permissions';
+import type { PendingInvite } from '../server/invites';
+import type { TeamMember } from '../server/team';
+import { RevokeInviteButton } from './revoke-invite-button';
+
+export function TeamList({ members, invites }: { members: TeamMember[]; invites: PendingInvite[] }) {
+  return (
+    <div className="flex flex-col gap-8">
+      <section aria-labelledby="members-heading">
+        <h2 id="members-heading" className="mb-3 text-xl font-bold">
+          Members ({members.length})
+        </h2>
+        <ul className="divide-y-2 divide-paper-line rounded-xl border-2 border-paper-line">
+          {members.map((m) => (
+            <li key={m.id}>
+              <Link href={`/team/${m.id}`} className="flex min-h-touch flex-wrap items-center justify-between gap-2 p-3 hover:bg-paper-dim">
+                <span>
+                  <span className="font-semibold">{m.name}</span> <span className="text-ink-soft">{m.email}</span>
+                </span>
+                <span className="rounded-full border-2 border-ink px-3 py-0.5 text-sm font-semibold">{ROLE_LABELS[m.role]}</span>
+              </Link>
+            </li>
+          ))}
+        </ul>
+      </section>
+      <section aria-labelledby="invites-heading">
+        <h2 id="invites-heading" className="mb-3 text-xl font-bold">
+          Pending invites ({invites.length})
+        </h2>
+        {invites.length === 0 ? (
+          <p className="text-ink-soft">No invites waiting. Invite a technician or apprentice below.</p>
+        ) : (
+          <ul className="divide-y-2 divide-paper-line rounded-xl border-2 border-paper-line">
+            {invites.map((i) => (
+              <li key={i.id} className="flex flex-wrap items-center justify-between gap-2 p-3">
+                <span>
+                  <span className="font-semibold">{i.email}</span> — {ROLE_LABELS[i.role]}, expires{' '}
+                  <time dateTime={i.expiresAt}>{new Date(i.expiresAt).toUTCString()}</time>
+                </span>
+                <RevokeInviteButton inviteId={i.id} email={i.email} />
+              </li>
+            ))}
+          </ul>
+        )}
+      </section>
+    </div>
+  );
+}

@@ -1,0 +1,62 @@
+import 'server-only';
+import { eq } from 'drizzle-orm';
+import { getDb } from '@/db';
+import { shops, users } from '@/db/schema';
+import { burnPasswordCheck, hashPassword, verifyPassword } from '@/server/auth/password';
+import { clearAccountFailures, recordFailure, retryAfterMinutes } from '@/server/auth/throttle';
+import { DomainError } from '@/server/errors';
+import type { SignInInput, SignUpInput } from '../schemas';
+
+const EMAIL_TAKEN = 'An account with this e-mail already exists. Sign in instead.';
+
+/** A new shop and its first lead, in one transaction. */
+export async function createShopWithLead(input: SignUpInput): Promise<{ userId: string; shopId: string }> {
+  const passwordHash = await hashPassword(input.password);
+  const db = getDb();
+  const existing = await db.select({ id: users.id }).from(users).where(eq(users.email, input.email));
+  if (existing.length) throw new DomainError('conflict', EMAIL_TAKEN, { email: [EMAIL_TAKEN] });
+  try {
+    return await db.transaction(async (tx) => {
+      const [shop] = await tx.insert(shops).values({ name: input.shopName }).returning({ id: shops.id });
+      const [user] = await tx
+        .insert(users)
+        .values({ shopId: shop!.id, email: input.email, name: input.name, role: 'lead', passwordHash })
+        .returning({ id: users.id });
+      return { userId: user!.id, shopId: shop!.id };
+    });
+  } catch (error) {
+    // Two sign-ups racing for one address: the unique index decides.
+    if ((error as { cause?: { code?: string } }).cause?.code === '23505' || (error as { code?: string }).code === '23505') {
+      throw new DomainError('conflict', EMAIL_TAKEN, { email: [EMAIL_TAKEN] });
+    }
+    throw error;
+  }
+}
+
+const WRONG = 'Wrong e-mail or password.';
+
+/**
+ * Checks a password with throttling per account and per address. The same message for an unknown
+ * address and a wrong password, and the same time spent, so sign-in does not reveal accounts.
+ */
+export async function authenticate(input: SignInInput, address: string): Promise<{ userId: string }> {
+  const keys = { account: input.email, address };
+  const wait = await retryAfterMinutes(keys);
+  if (wait > 0) {
+    throw new DomainError(
+      'rate_limited',
+      `Too many failed sign-ins. Try again later (in about ${wait} minute${wait === 1 ? '' : 's'}).`,
+    );
+  }
+  const [user] = await getDb()
+    .select({ id: users.id, passwordHash: users.passwordHash, removedAt: users.removedAt })
+    .from(users)
+    .where(eq(users.email, input.email));
+  const valid = user ? await verifyPassword(user.passwordHash, input.password) : (await burnPasswordCheck(input.password), false);
+  if (!user || !valid || user.removedAt) {
+    await recordFailure(keys);
+    throw new DomainError('unauthenticated', WRONG);
+  }
+  await clearAccountFailures(input.email);
+  return { userId: user.id };
+}

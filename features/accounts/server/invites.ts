@@ -1,0 +1,105 @@
+import 'server-only';
+import { createHash, randomBytes } from 'node:crypto';
+import { and, desc, eq, gt, isNull, sql } from 'drizzle-orm';
+import { getDb } from '@/db';
+import { invites, shops, users, type Role } from '@/db/schema';
+import { hashPassword } from '@/server/auth/password';
+import type { Member } from '@/server/auth/session';
+import { env } from '@/server/env.mjs';
+import { DomainError, notFound } from '@/server/errors';
+import { sendMail } from '@/server/mail/mailer';
+import type { AcceptInviteInput, InviteInput } from '../schemas';
+import { inviteMail } from './invite-mail';
+
+export type PendingInvite = { id: string; email: string; role: Role; expiresAt: string };
+
+const hashToken = (token: string) => createHash('sha256').update(token).digest('hex');
+const HAS_ACCOUNT = 'This address already has a Ringpass account.';
+export const INVITE_UNUSABLE =
+  'This invite link has expired, was revoked or was already used. Ask your lead for a new one.';
+
+const usable = () =>
+  and(isNull(invites.acceptedAt), isNull(invites.revokedAt), gt(invites.expiresAt, sql`now()`));
+
+/**
+ * Creates an invite and e-mails its link. A newer invite to the same address replaces the older
+ * one. If the e-mail cannot be sent the invite is removed again, so nothing half-done remains.
+ */
+export async function createInvite(actor: Member, input: InviteInput): Promise<PendingInvite> {
+  const db = getDb();
+  const [existing] = await db.select({ id: users.id }).from(users).where(eq(users.email, input.email));
+  if (existing) throw new DomainError('conflict', HAS_ACCOUNT, { email: [HAS_ACCOUNT] });
+
+  const token = randomBytes(32).toString('base64url');
+  const expiresAt = new Date(Date.now() + env().INVITE_TTL_HOURS * 3_600_000);
+  const invite = await db.transaction(async (tx) => {
+    await tx
+      .update(invites)
+      .set({ revokedAt: new Date() })
+      .where(and(eq(invites.shopId, actor.shopId), eq(invites.email, input.email), usable()));
+    const [row] = await tx
+      .insert(invites)
+      .values({ shopId: actor.shopId, email: input.email, role: input.role, tokenHash: hashToken(token), invitedById: actor.userId, expiresAt })
+      .returning({ id: invites.id });
+    return row!;
+  });
+
+  const [shop] = await db.select({ name: shops.name }).from(shops).where(eq(shops.id, actor.shopId));
+  const link = new URL(`/invite/${token}`, env().APP_URL).toString();
+  try {
+    await sendMail({ to: input.email, ...inviteMail({ shopName: shop?.name ?? 'your shop', inviterName: actor.name, role: input.role, link, expiresAt }) });
+  } catch (error) {
+    console.error('[invite] mail failed', error);
+    await db.delete(invites).where(eq(invites.id, invite.id));
+    throw new DomainError('invalid', 'The invite e-mail could not be sent, so no invite was created. Try again in a moment.');
+  }
+  return { id: invite.id, email: input.email, role: input.role, expiresAt: expiresAt.toISOString() };
+}
+
+export async function listPendingInvites(shopId: string): Promise<PendingInvite[]> {
+  const rows = await getDb()
+    .select({ id: invites.id, email: invites.email, role: invites.role, expiresAt: invites.expiresAt })
+    .from(invites)
+    .where(and(eq(invites.shopId, shopId), usable()))
+    .orderBy(desc(invites.createdAt));
+  return rows.map((r) => ({ ...r, expiresAt: r.expiresAt.toISOString() }));
+}
+
+export async function revokeInvite(actor: Member, inviteId: string): Promise<void> {
+  const rows = await getDb()
+    .update(invites)
+    .set({ revokedAt: new Date() })
+    .where(and(eq(invites.id, inviteId), eq(invites.shopId, actor.shopId), usable()))
+    .returning({ id: invites.id });
+  if (!rows.length) throw notFound('That invite');
+}
+
+/** What the invite page shows before the person accepts; null when the link cannot be used. */
+export async function findUsableInvite(token: string) {
+  const [row] = await getDb()
+    .select({ email: invites.email, role: invites.role, shopName: shops.name })
+    .from(invites)
+    .innerJoin(shops, eq(shops.id, invites.shopId))
+    .where(and(eq(invites.tokenHash, hashToken(token)), usable()));
+  return row ?? null;
+}
+
+/** Uses the invite exactly once (a conditional update wins the race) and creates the account. */
+export async function acceptInvite(input: AcceptInviteInput): Promise<{ userId: string }> {
+  const passwordHash = await hashPassword(input.password);
+  return getDb().transaction(async (tx) => {
+    const [invite] = await tx
+      .update(invites)
+      .set({ acceptedAt: new Date() })
+      .where(and(eq(invites.tokenHash, hashToken(input.token)), usable()))
+      .returning({ shopId: invites.shopId, email: invites.email, role: invites.role });
+    if (!invite) throw new DomainError('invalid', INVITE_UNUSABLE);
+    const [taken] = await tx.select({ id: users.id }).from(users).where(eq(users.email, invite.email));
+    if (taken) throw new DomainError('conflict', HAS_ACCOUNT);
+    const [user] = await tx
+      .insert(users)
+      .values({ shopId: invite.shopId, email: invite.email, name: input.name, role: invite.role, passwordHash })
+      .returning({ id: users.id });
+    return { userId: user!.id };
+  });
+}

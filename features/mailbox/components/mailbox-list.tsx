@@ -1,0 +1,43 @@
+import type { ReactNode } from 'react';
+import type { SinkMessage } from '@/server/mail/mailbox';
+
+/** Turns bare links in a plain-text mail into links, so an invite can be followed. */
+function linkify(text: string): ReactNode[] {
+  return text.split(/(https?:\/\/\S+)/g).map((part, i) =>
+    /^https?:\/\//.test(part) ? (
+      <a key={i} href={part} className="break-all font-semibold text-work underline">
+        {part}
+      </a>
+    ) : (
+      part
+    ),
+  );
+}
+
+export function MailboxList({ messages }: { messages: SinkMessage[] }) {
+  return (
+    <main className="mx-auto w-full max-w-3xl p-4">
+      <h1 className="text-2xl font-bold">Mailbox</h1>
+      <p className="mb-6 rounded-lg border-2 border-caution bg-caution-tint p-3 text-caution-ink">
+        Development only: every e-mail the app sent to the local mail sink, newest first. Nothing here was delivered.
+      </p>
+      {messages.length === 0 ? (
+        <p>No e-mail sent yet. Invite someone from the Team page and it shows up here.</p>
+      ) : (
+        <ol className="flex flex-col gap-4">
+          {messages.map((m) => (
+            <li key={m.id}>
+              <article className="rounded-xl border-2 border-paper-line p-4" aria-label={`${m.subject} to ${m.to.join(', ')}`}>
+                <h2 className="text-lg font-bold">{m.subject}</h2>
+                <p className="text-sm text-ink-soft">
+                  To {m.to.join(', ')} · <time dateTime={m.receivedAt}>{new Date(m.receivedAt).toUTCString()}</time>
+                </p>
+                <p className="mt-3 whitespace-pre-wrap">{linkify(m.text)}</p>
+              </article>
+            </li>
+          ))}
+        </ol>
+      )}
+    </main>
+  );
+}

@@ -1,0 +1,87 @@
+import 'server-only';
+import { unstable_rethrow } from 'next/navigation';
+import { z } from 'zod';
+import { can, type Permission } from '@/server/auth/permissions';
+import { getCurrentMember, type Member } from '@/server/auth/session';
+import { DomainError } from '@/server/errors';
+
+export type FieldErrors = Record<string, string[] | undefined>;
+export type ActionResult<T> =
+  | { ok: true; data: T; message?: string }
+  | { ok: false; message: string; fieldErrors?: FieldErrors; values?: Record<string, string> };
+
+// Never echoed back into a form after a failed submit.
+const SECRET_FIELDS = new Set(['password', 'newPassword', 'currentPassword']);
+
+function formToObject(form: FormData): Record<string, unknown> {
+  const out: Record<string, unknown> = {};
+  for (const [key, value] of form.entries()) {
+    if (key.startsWith('$ACTION')) continue;
+    out[key] = typeof value === 'string' ? value : value;
+  }
+  return out;
+}
+
+function echo(raw: Record<string, unknown>): Record<string, string> {
+  const values: Record<string, string> = {};
+  for (const [key, value] of Object.entries(raw)) {
+    if (typeof value === 'string' && !SECRET_FIELDS.has(key)) values[key] = value;
+  }
+  return values;
+}
+
+function failure(error: unknown, raw: Record<string, unknown>): ActionResult<never> {
+  unstable_rethrow(error); // redirect(), notFound() and friends must reach Next.
+  if (error instanceof DomainError) {
+    return { ok: false, message: error.message, fieldErrors: error.fields, values: echo(raw) };
+  }
+  console.error('[action] unexpected failure', error);
+  return { ok: false, message: 'Something went wrong on our side. Nothing was saved; try again.', values: echo(raw) };
+}
+
+async function parseAndRun<S extends z.ZodType, T>(
+  schema: S,
+  payload: FormData | unknown,
+  run: (input: z.output<S>) => Promise<T>,
+): Promise<ActionResult<T>> {
+  const raw = payload instanceof FormData ? formToObject(payload) : ((payload ?? {}) as Record<string, unknown>);
+  const parsed = schema.safeParse(raw);
+  if (!parsed.success) {
+    return {
+      ok: false,
+      message: 'Check the highlighted fields.',
+      fieldErrors: z.flattenError(parsed.error).fieldErrors as FieldErrors,
+      values: echo(raw),
+    };
+  }
+  try {
+    return { ok: true, data: await run(parsed.data) };
+  } catch (error) {
+    return failure(error, raw);
+  }
+}
+
+/**
+ * The one way to write a server action for signed-in members, in this order: session, role
+ * permission, zod validation, the data call. Rows are scoped by shop inside `run`.
+ * Usable with useActionState (prev, formData) and called directly with an object.
+ */
+export function memberAction<S extends z.ZodType, T>(
+  options: { permission: Permission; schema: S },
+  run: (input: z.output<S>, member: Member) => Promise<T>,
+) {
+  return async (_prev: unknown, payload: FormData | z.input<S>): Promise<ActionResult<T>> => {
+    const member = await getCurrentMember();
+    if (!member) return { ok: false, message: 'Your session has ended. Sign in again.' };
+    if (!can(member.role, options.permission)) {
+      return { ok: false, message: 'Your role does not allow this.' };
+    }
+    return parseAndRun(options.schema, payload, (input) => run(input, member));
+  };
+}
+
+/** For the few actions used signed out (sign-up, sign-in, accepting an invite). */
+export function publicAction<S extends z.ZodType, T>(schema: S, run: (input: z.output<S>) => Promise<T>) {
+  return async (_prev: unknown, payload: FormData | z.input<S>): Promise<ActionResult<T>> =>
+    parseAndRun(schema, payload, run);
+}

@@ -1,0 +1,38 @@
+import 'server-only';
+import { forbidden, redirect } from 'next/navigation';
+import { DomainError } from '@/server/errors';
+import { can, type Permission } from './permissions';
+import { getCurrentMember, sessionCookieName, validateSessionId, type Member } from './session';
+
+/**
+ * For pages and layouts: the signed-in member, or a redirect to sign-in; a member without the
+ * permission gets the 403 page. Every shop page calls it itself (layouts do not protect pages).
+ */
+export async function requireMember(permission: Permission = 'board.view'): Promise<Member> {
+  const member = await getCurrentMember();
+  if (!member) redirect('/sign-in');
+  if (!can(member.role, permission)) forbidden();
+  return member;
+}
+
+function readCookie(header: string | null, name: string): string | undefined {
+  if (!header) return undefined;
+  for (const part of header.split(';')) {
+    const [key, ...rest] = part.trim().split('=');
+    if (key === name) return decodeURIComponent(rest.join('='));
+  }
+  return undefined;
+}
+
+/** For route handlers: reads the cookie from the request itself and throws a DomainError. */
+export async function requireMemberForRequest(
+  request: Request,
+  permission: Permission,
+): Promise<Member> {
+  const result = await validateSessionId(readCookie(request.headers.get('cookie'), sessionCookieName()));
+  if (!result) throw new DomainError('unauthenticated', 'Sign in to continue.');
+  if (!can(result.member.role, permission)) {
+    throw new DomainError('forbidden', 'Your role does not allow this.');
+  }
+  return result.member;
+}

@@ -1,0 +1,50 @@
+/**
+ * A local SMTP sink for development and tests: accepts every message on 127.0.0.1 and stores it
+ * as JSON in a folder that the development-only Mailbox page reads. Runs as part of the start
+ * script and the test setup; the app talks to it through nodemailer exactly as to a real relay.
+ * (server/dev/ holds processes, not app modules, so these files do not import 'server-only'.)
+ */
+import { randomUUID } from 'node:crypto';
+import { mkdirSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
+import { simpleParser } from 'mailparser';
+import { SMTPServer } from 'smtp-server';
+
+export type MailSink = { port: number; close: () => Promise<void> };
+
+export async function startMailSink(options: { port: number; dir: string }): Promise<MailSink> {
+  mkdirSync(options.dir, { recursive: true });
+  const server = new SMTPServer({
+    authOptional: true,
+    disabledCommands: ['STARTTLS'],
+    logger: false,
+    onData(stream, session, callback) {
+      simpleParser(stream)
+        .then((mail) => {
+          const receivedAt = new Date().toISOString();
+          const id = randomUUID();
+          const record = {
+            id,
+            receivedAt,
+            from: mail.from?.text ?? session.envelope.mailFrom?.toString() ?? '',
+            to: session.envelope.rcptTo.map((r) => r.address),
+            subject: mail.subject ?? '',
+            text: mail.text ?? '',
+          };
+          // Name sorts by time so the Mailbox can list newest first without reading every file.
+          const name = `${receivedAt.replace(/[:.]/g, '-')}-${id}.json`;
+          writeFileSync(path.join(options.dir, name), JSON.stringify(record, null, 2));
+          callback();
+        })
+        .catch((error: Error) => callback(error));
+    },
+  });
+  await new Promise<void>((resolve, reject) => {
+    server.once('error', reject);
+    server.listen(options.port, '127.0.0.1', () => resolve());
+  });
+  return {
+    port: options.port,
+    close: () => new Promise<void>((resolve) => server.close(() => resolve())),
+  };
+}

@@ -1,0 +1,78 @@
+/**
+ * `npm start` and `npm run dev`: everything one machine needs to serve Ringpass with its demo shop.
+ *   1. PostgreSQL: DATABASE_URL when it is set, else the project's own cluster (db/cluster.ts);
+ *   2. migrations, then the demo shop;
+ *   3. mail: SMTP_URL when it is set, else the local sink and the Mailbox page;
+ *   4. `next build` + `next start` (or `next dev`) on 127.0.0.1:3000, with the demo sign-ins printed.
+ */
+import { spawn, spawnSync } from 'node:child_process';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { clusterUrl, ensureDatabase, startCluster } from '@/db/cluster';
+import { migrateDatabase } from '@/db/migrate';
+import { DEMO_PASSWORD, DEMO_PEOPLE, DEMO_SHOP, seedDemoShop } from '@/db/seed';
+import { startMailSink } from './mail-sink';
+
+const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
+const PORT = 3000;
+const SINK_PORT = 2525;
+const NEXT = path.join(ROOT, 'node_modules', '.bin', 'next');
+
+async function main(mode: 'start' | 'dev') {
+  const env: NodeJS.ProcessEnv = { ...process.env, APP_URL: process.env.APP_URL ?? `http://127.0.0.1:${PORT}` };
+
+  if (!env.DATABASE_URL) {
+    await startCluster();
+    await ensureDatabase('ringpass');
+    env.DATABASE_URL = clusterUrl('ringpass');
+  }
+  process.env.DATABASE_URL = env.DATABASE_URL;
+  await migrateDatabase(env.DATABASE_URL);
+  const seeded = await seedDemoShop(env.DATABASE_URL);
+
+  let closeSink = async () => {};
+  if (!env.SMTP_URL) {
+    const dir = path.join(ROOT, '.data', 'mailbox');
+    const sink = await startMailSink({ port: SINK_PORT, dir });
+    closeSink = sink.close;
+    env.SMTP_URL = `smtp://127.0.0.1:${SINK_PORT}`;
+    env.MAILBOX_DIR = dir;
+  }
+  // Plain http on 127.0.0.1: the cookie cannot be Secure. A deployment behind TLS leaves this unset.
+  if (env.APP_URL?.startsWith('http://')) env.COOKIE_SECURE ??= 'false';
+
+  if (mode === 'start') {
+    console.log('[start] building the app (next build)…');
+    const build = spawnSync(NEXT, ['build'], { cwd: ROOT, env: { ...env, NODE_ENV: 'production' }, stdio: 'inherit' });
+    if (build.status !== 0) throw new Error('next build failed');
+  }
+
+  const child = spawn(NEXT, [mode, '-H', '127.0.0.1', '-p', String(PORT)], {
+    cwd: ROOT,
+    env: { ...env, NODE_ENV: mode === 'start' ? 'production' : 'development' },
+    stdio: 'inherit',
+  });
+
+  console.log(`\nRingpass: ${env.APP_URL}  (${seeded.created ? 'demo shop created' : 'demo shop already there'})`);
+  console.log(`Demo shop "${DEMO_SHOP}", password for everyone: ${DEMO_PASSWORD}`);
+  for (const p of DEMO_PEOPLE) console.log(`  ${p.role.padEnd(10)} ${p.email}`);
+  if (env.MAILBOX_DIR) console.log(`Mail goes to the local sink: ${env.APP_URL}/mailbox`);
+  console.log('Stop with Ctrl+C; the database keeps running (npm run db:stop).\n');
+
+  const stop = (signal: NodeJS.Signals) => child.kill(signal);
+  process.on('SIGINT', stop);
+  process.on('SIGTERM', stop);
+  child.on('exit', (code) => {
+    void closeSink().finally(() => process.exit(code ?? 0));
+  });
+}
+
+const mode = process.argv[2];
+if (mode !== 'start' && mode !== 'dev') {
+  console.error('usage: tsx server/dev/stack.ts start | dev');
+  process.exit(2);
+}
+main(mode).catch((error: unknown) => {
+  console.error(`[start] ${error instanceof Error ? error.message : String(error)}`);
+  process.exit(1);
+});

@@ -1,0 +1,49 @@
+// The one place that reads process.env. Validated once with zod; next.config.mjs imports it
+// so a bad configuration stops the build and the server with a readable list.
+// (A .mjs file because next.config.mjs loads it without a TypeScript loader; that is also why it
+// cannot carry `import 'server-only'`. Nothing in the browser bundle imports it.)
+import { z } from 'zod';
+
+const bool = z
+  .enum(['true', 'false', '1', '0'])
+  .transform((v) => v === 'true' || v === '1');
+
+const schema = z.object({
+  NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
+  DATABASE_URL: z
+    .string()
+    .regex(/^postgres(ql)?:\/\//, 'must be a postgres:// connection URL'),
+  APP_URL: z.url().default('http://127.0.0.1:3000'),
+  SMTP_URL: z.string().regex(/^smtps?:\/\//, 'must be an smtp:// or smtps:// URL'),
+  MAIL_FROM: z.string().min(3).default('Ringpass <no-reply@ringpass.test>'),
+  MAILBOX_DIR: z.string().min(1).optional(),
+  COOKIE_SECURE: bool.optional(),
+  SESSION_ABSOLUTE_HOURS: z.coerce.number().int().min(1).max(24 * 90).default(24 * 14),
+  INVITE_TTL_HOURS: z.coerce.number().int().min(1).max(24 * 30).default(72),
+});
+
+/** @typedef {z.infer<typeof schema>} Env */
+
+/** @returns {Env} */
+function parseEnv() {
+  const parsed = schema.safeParse(process.env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  - ${i.path.join('.') || '(env)'}: ${i.message}`);
+    throw new Error(`Ringpass configuration is invalid:\n${lines.join('\n')}`);
+  }
+  return parsed.data;
+}
+
+/** @type {Env | undefined} */
+let cached;
+
+/** The validated environment, parsed on first use. */
+export function env() {
+  cached ??= parseEnv();
+  return cached;
+}
+
+/** Validates without caching: for next.config.mjs and the start scripts. */
+export function assertEnv() {
+  parseEnv();
+}

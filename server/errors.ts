@@ -1,0 +1,26 @@
+import 'server-only';
+
+export type DomainErrorCode =
+  | 'invalid'
+  | 'unauthenticated'
+  | 'forbidden'
+  | 'not_found'
+  | 'conflict'
+  | 'rate_limited';
+
+/**
+ * An expected failure with a message fit to show the user. Actions and route handlers turn it
+ * into their own shape; anything else that is thrown is a bug and is logged, not shown.
+ */
+export class DomainError extends Error {
+  constructor(
+    readonly code: DomainErrorCode,
+    message: string,
+    readonly fields?: Record<string, string[]>,
+  ) {
+    super(message);
+    this.name = 'DomainError';
+  }
+}
+
+export const notFound = (what = 'That record') => new DomainError('not_found', `${what} was not found.`);

@@ -1,0 +1,113 @@
+import 'server-only';
+import { z } from 'zod';
+import { requireMemberForRequest } from '@/server/auth/guard';
+import type { Permission } from '@/server/auth/permissions';
+import type { Member } from '@/server/auth/session';
+import { env } from '@/server/env.mjs';
+import { DomainError, type DomainErrorCode } from '@/server/errors';
+
+/** The one error shape of the JSON API. */
+export type ApiError = { error: { code: string; message: string; fields?: Record<string, string[]> } };
+
+const STATUS: Record<DomainErrorCode, number> = {
+  invalid: 400,
+  unauthenticated: 401,
+  forbidden: 403,
+  not_found: 404,
+  conflict: 409,
+  rate_limited: 429,
+};
+
+export function errorResponse(error: DomainError): Response {
+  const body: ApiError = { error: { code: error.code, message: error.message } };
+  if (error.fields) body.error.fields = error.fields;
+  return Response.json(body, { status: STATUS[error.code] });
+}
+
+const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
+
+/**
+ * Next checks the origin of server actions only. A mutating route handler accepts a request only
+ * when its Origin is this app's own (the configured APP_URL or the Host it was sent to).
+ */
+export function assertSameOrigin(request: Request) {
+  if (SAFE_METHODS.has(request.method)) return;
+  const origin = request.headers.get('origin');
+  const host = request.headers.get('host');
+  const allowed = new Set([new URL(env().APP_URL).origin]);
+  if (host) {
+    const proto = request.headers.get('x-forwarded-proto') ?? new URL(request.url).protocol.replace(':', '');
+    allowed.add(`${proto}://${host}`);
+  }
+  if (!origin || !allowed.has(origin)) {
+    throw new DomainError('forbidden', 'Cross-origin request refused: send it from the Ringpass app (Origin header).');
+  }
+}
+
+async function readJson(request: Request): Promise<unknown> {
+  const text = await request.text();
+  if (!text) return {};
+  try {
+    return JSON.parse(text);
+  } catch {
+    throw new DomainError('invalid', 'The request body is not valid JSON.');
+  }
+}
+
+function validate<S extends z.ZodType>(schema: S, value: unknown, what: string): z.output<S> {
+  const parsed = schema.safeParse(value);
+  if (parsed.success) return parsed.data;
+  const fields: Record<string, string[]> = {};
+  for (const issue of parsed.error.issues) {
+    const key = issue.path.join('.') || what;
+    (fields[key] ??= []).push(issue.message);
+  }
+  throw new DomainError('invalid', `The ${what} has errors; see fields.`, fields);
+}
+
+type Context<P, B, Q> = { request: Request; member: Member; params: P; body: B; query: Q };
+
+/**
+ * The one way to write a route handler: origin check for writes, session and role, params
+ * (a malformed id is simply not found), query and body through zod, then the feature call.
+ * Domain errors map to their status; anything else is a 500 with no detail.
+ */
+export function apiRoute<
+  PS extends z.ZodType = z.ZodType<Record<string, string>>,
+  BS extends z.ZodType = z.ZodUnknown,
+  QS extends z.ZodType = z.ZodUnknown,
+>(
+  options: { permission: Permission; params?: PS; body?: BS; query?: QS; status?: number },
+  run: (ctx: Context<z.output<PS>, z.output<BS>, z.output<QS>>) => Promise<unknown>,
+) {
+  return async (request: Request, context: { params: Promise<Record<string, string | string[]>> }) => {
+    try {
+      assertSameOrigin(request);
+      const member = await requireMemberForRequest(request, options.permission);
+      const rawParams = (await context?.params) ?? {};
+      let params = rawParams as z.output<PS>;
+      if (options.params) {
+        const parsed = options.params.safeParse(rawParams);
+        if (!parsed.success) throw new DomainError('not_found', 'That record was not found.');
+        params = parsed.data;
+      }
+      const url = new URL(request.url);
+      const query = options.query
+        ? validate(options.query, Object.fromEntries(url.searchParams), 'query')
+        : (undefined as z.output<QS>);
+      const body = options.body
+        ? validate(options.body, await readJson(request), 'body')
+        : (undefined as z.output<BS>);
+      const data = await run({ request, member, params, body, query });
+      if (data instanceof Response) return data;
+      return Response.json(data ?? { ok: true }, { status: options.status ?? 200 });
+    } catch (error) {
+      if (error instanceof DomainError) return errorResponse(error);
+      console.error('[api] unexpected failure', error);
+      return Response.json(
+        { error: { code: 'internal', message: 'Something went wrong on our side.' } } satisfies ApiError,
+        { status: 500 },
+      );
+    }
+  };
+}
