@@ -1,5 +1,5 @@
 import 'server-only';
-import { z } from 'zod';
+import type { z } from 'zod';
 import { requireMemberForRequest } from '@/server/auth/guard';
 import type { Permission } from '@/server/auth/permissions';
 import type { Member } from '@/server/auth/session';

@@ -1,0 +1,52 @@
+import drizzle from 'eslint-plugin-drizzle';
+import nextVitals from 'eslint-config-next/core-web-vitals';
+import nextTs from 'eslint-config-next/typescript';
+import tseslint from 'typescript-eslint';
+
+const productFeatures = ['accounts', 'board', 'mailbox', 'plans'];
+// Shared by every feature: the engine and the UI primitives.
+const shared = ['torque-plan', 'ui'];
+
+const featureIslands = productFeatures.map((name) => ({
+  target: `./features/${name}`,
+  from: './features',
+  except: [`./${name}`, ...shared.map((s) => `./${s}`)],
+  message: 'Product features do not import each other; they meet in app/.',
+}));
+
+const config = [
+  { ignores: ['.next/**', '.next-e2e/**', 'node_modules/**', '.data/**', 'next-env.d.ts', 'db/migrations/**', 'test-results/**', 'playwright-report/**'] },
+  ...nextVitals,
+  ...nextTs,
+  {
+    files: ['**/*.ts', '**/*.tsx'],
+    languageOptions: {
+      parserOptions: { projectService: true, tsconfigRootDir: import.meta.dirname },
+    },
+    plugins: { drizzle, '@typescript-eslint': tseslint.plugin },
+    rules: {
+      '@typescript-eslint/no-floating-promises': 'error',
+      '@typescript-eslint/no-misused-promises': ['error', { checksVoidReturn: { attributes: false } }],
+      '@typescript-eslint/consistent-type-imports': ['error', { fixStyle: 'inline-type-imports' }],
+      'import/no-cycle': 'error',
+      'drizzle/enforce-delete-with-where': ['error', { drizzleObjectName: ['db', 'tx', 'getDb()'] }],
+      'drizzle/enforce-update-with-where': ['error', { drizzleObjectName: ['db', 'tx', 'getDb()'] }],
+      'import/no-restricted-paths': [
+        'error',
+        {
+          zones: [
+            ...featureIslands,
+            { target: './features', from: './app', message: 'features must not import app/.' },
+            { target: './server', from: './app', message: 'server must not import app/.' },
+            { target: './db', from: './app', message: 'db must not import app/.' },
+            { target: './server', from: './features', message: 'server must not import features/.' },
+            { target: './db', from: './features', message: 'db must not import features/.' },
+            { target: './features/torque-plan', from: './server', message: 'The engine is pure: no server code.' },
+            { target: './features/torque-plan', from: './db', message: 'The engine is pure: no database.' },
+          ],
+        },
+      ],
+    },
+  },
+];
+export default config;

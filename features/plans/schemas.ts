@@ -1,0 +1,51 @@
+import { z } from 'zod';
+import { MAX_BOLTS, MIN_BOLTS, TORQUE_UNITS, type TorqueUnit } from '@/features/torque-plan';
+
+const torqueUnit = z.enum(['lbf-ft', 'lbf-in', 'Nm'] satisfies readonly TorqueUnit[], { error: `Use one of: ${TORQUE_UNITS.join(', ')}.` });
+
+const torque = z.object({
+  value: z.number({ error: 'Give the torque as a number.' }).positive({ error: 'The torque must be greater than zero.' }),
+  unit: torqueUnit,
+});
+
+export const patternSchema = z.discriminatedUnion(
+  'kind',
+  [
+    z.object({ kind: z.literal('cross') }),
+    z.object({ kind: z.literal('skip'), step: z.number().int({ error: 'The skip step must be a whole number.' }) }),
+    z.object({ kind: z.literal('sequential') }),
+  ],
+  { error: 'The pattern must be cross, skip (with a step) or sequential.' },
+);
+
+export const inlineWrenchSchema = z.object({
+  id: z.string().min(1).max(80),
+  min: z.number().nonnegative(),
+  max: z.number().positive(),
+  unit: torqueUnit,
+  graduation: z.number().positive(),
+  kind: z.enum(['click', 'beam', 'dial', 'digital']),
+});
+
+export const torquePlanRequestSchema = z
+  .object({
+    boltCount: z
+      .number({ error: 'Give the bolt count as a number.' })
+      .int({ error: 'The bolt count must be a whole number.' })
+      .min(MIN_BOLTS, { error: `The bolt count must be from ${MIN_BOLTS} to ${MAX_BOLTS}.` })
+      .max(MAX_BOLTS, { error: `The bolt count must be from ${MIN_BOLTS} to ${MAX_BOLTS}.` }),
+    pattern: patternSchema,
+    start: z.number().int().min(1).optional(),
+    final: torque,
+    fractions: z.array(z.number()).min(1).max(10).optional(),
+    checkPass: z.boolean().optional(),
+    minFractionOfMax: z.number().min(0).lt(1).optional(),
+    wrenchIds: z.array(z.uuid({ error: 'Wrench ids are the tool crib ids.' })).max(50).optional(),
+    wrenches: z.array(inlineWrenchSchema).max(50).optional(),
+  })
+  .refine((b) => (b.wrenchIds?.length ?? 0) + (b.wrenches?.length ?? 0) > 0, {
+    error: 'Give the wrenches to choose from: wrenchIds from the tool crib, or inline wrenches.',
+    path: ['wrenches'],
+  });
+
+export type TorquePlanRequest = z.infer<typeof torquePlanRequestSchema>;

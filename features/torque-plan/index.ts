@@ -1,0 +1,30 @@
+// The torque-plan engine's public API: pure functions, no I/O, usable on the server, in the
+// browser and in tests. Other code imports from here only.
+export { TorquePlanError } from './errors';
+export {
+  convertPressure,
+  convertTorque,
+  formatTorque,
+  isPressureUnit,
+  isTorqueUnit,
+  PRESSURE_UNITS,
+  TORQUE_UNITS,
+  UNIT_LABELS,
+  type Pressure,
+  type PressureUnit,
+  type Torque,
+  type TorqueUnit,
+} from './units';
+export { MAX_BOLTS, MIN_BOLTS, PUBLISHED_CROSS, spreadCross, tighteningSequence, type Pattern } from './sequence';
+export { DEFAULT_FRACTIONS, passPlan, type PlannedPass } from './pass-plan';
+export {
+  chooseWrench,
+  DEFAULT_MIN_FRACTION_OF_MAX,
+  tolerancePct,
+  verifyReading,
+  type Wrench,
+  type WrenchChoice,
+} from './wrench';
+export { axleMismatch, circumferenceAllowancePct, tireDiameter, type TireConstruction, type TireSize } from './tire';
+export { arrowDirection, WHEEL_POSITIONS, type ArrowDirection, type WheelPosition } from './direction';
+export { planTorque, type TorquePlan, type TorquePlanInput } from './plan';
