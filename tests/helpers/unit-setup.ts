@@ -1,0 +1,5 @@
+import { cleanup } from '@testing-library/react';
+import { afterEach } from 'vitest';
+
+afterEach(() => cleanup());
+import '@testing-library/jest-dom/vitest';

@@ -1,0 +1,103 @@
+import { eq } from 'drizzle-orm';
+import { describe, expect, it } from 'vitest';
+import { getDb } from '@/db';
+import { sessions, users } from '@/db/schema';
+import { signIn } from '@/features/accounts/actions/sign-in';
+import { signUp } from '@/features/accounts/actions/sign-up';
+import { createSessionCookie, validateSessionId } from '@/server/auth/session';
+import { createTestShop, PASSWORD } from '@/tests/helpers/factories';
+import { cookieAttributes, cookieValue, resetNextRequest, setRequestAddress } from '@/tests/helpers/next-request';
+
+const SESSION = 'ringpass_session';
+
+async function expectRedirect(call: Promise<unknown>, to: string) {
+  await expect(call).rejects.toMatchObject({ digest: expect.stringContaining(to) });
+}
+
+describe('sign-up', () => {
+  it('creates the shop and its first lead, signs them in with an httpOnly Lax cookie', async () => {
+    resetNextRequest();
+    await expectRedirect(signUp(null, { shopName: 'Gravel Pit Tires', name: 'Rosa Vent', email: 'Rosa@Gravel.test', password: 'a long enough password' }), '/board');
+    const [user] = await getDb().select().from(users).where(eq(users.email, 'rosa@gravel.test'));
+    expect(user).toMatchObject({ role: 'lead', name: 'Rosa Vent' });
+    expect(user!.passwordHash).toMatch(/^\$argon2id\$v=19\$m=19456,t=2,p=1\$/);
+    expect(cookieValue(SESSION)).toBeTruthy();
+    expect(cookieAttributes(SESSION)).toMatchObject({ httpOnly: true, sameSite: 'lax' });
+  });
+
+  it('refuses bad input field by field and creates nothing', async () => {
+    const before = await getDb().$count(users);
+    const result = await signUp(null, { shopName: '', name: '', email: 'not-an-email', password: 'short' });
+    expect(result).toMatchObject({ ok: false, fieldErrors: { shopName: [expect.any(String)], name: ['Enter a name.'], email: [expect.stringMatching(/valid e-mail/)], password: ['Use at least 12 characters.'] } });
+    expect(await getDb().$count(users)).toBe(before);
+  });
+
+  it('refuses an address that already has an account', async () => {
+    const shop = await createTestShop();
+    const result = await signUp(null, { shopName: 'Copy', name: 'X', email: shop.lead.email, password: 'a long enough password' });
+    expect(result).toMatchObject({ ok: false, fieldErrors: { email: [expect.stringMatching(/already exists/)] } });
+  });
+});
+
+describe('sign-in', () => {
+  it('signs in with the right password', async () => {
+    const shop = await createTestShop();
+    resetNextRequest();
+    await expectRedirect(signIn(null, { email: shop.technician.email, password: PASSWORD }), '/board');
+    expect((await validateSessionId(cookieValue(SESSION)))?.member).toMatchObject({ userId: shop.technician.userId, role: 'technician' });
+  });
+
+  it('says "wrong e-mail or password" for both a wrong password and an unknown address', async () => {
+    const shop = await createTestShop();
+    resetNextRequest('198.51.100.1');
+    expect(await signIn(null, { email: shop.lead.email, password: 'nope' })).toMatchObject({ ok: false, message: 'Wrong e-mail or password.' });
+    expect(await signIn(null, { email: 'nobody@nowhere.test', password: 'nope' })).toMatchObject({ ok: false, message: 'Wrong e-mail or password.' });
+    expect(cookieValue(SESSION)).toBeUndefined();
+  });
+
+  it('refuses the sixth wrong password in a row with "try again later", even from a new address, and even with the right password', async () => {
+    const shop = await createTestShop();
+    for (let i = 1; i <= 5; i++) {
+      setRequestAddress(`198.51.100.${10 + i}`);
+      expect(await signIn(null, { email: shop.lead.email, password: `wrong-${i}` })).toMatchObject({ message: 'Wrong e-mail or password.' });
+    }
+    setRequestAddress('198.51.100.99');
+    expect(await signIn(null, { email: shop.lead.email, password: 'wrong-6' })).toMatchObject({ ok: false, message: expect.stringMatching(/Try again later/) });
+    expect(await signIn(null, { email: shop.lead.email, password: PASSWORD })).toMatchObject({ ok: false, message: expect.stringMatching(/Try again later/) });
+  });
+
+  it('a success ends the run of failures', async () => {
+    const shop = await createTestShop();
+    resetNextRequest('192.0.2.50');
+    for (let i = 0; i < 4; i++) await signIn(null, { email: shop.lead.email, password: 'wrong' });
+    await expectRedirect(signIn(null, { email: shop.lead.email, password: PASSWORD }), '/board');
+    for (let i = 0; i < 4; i++) expect(await signIn(null, { email: shop.lead.email, password: 'wrong' })).toMatchObject({ message: 'Wrong e-mail or password.' });
+  });
+
+  it('throttles one address trying many accounts', async () => {
+    resetNextRequest('192.0.2.77');
+    let last: unknown;
+    for (let i = 0; i < 31; i++) last = await signIn(null, { email: `guess-${i}@nowhere.test`, password: 'x' });
+    expect(last).toMatchObject({ message: expect.stringMatching(/Try again later/) });
+  });
+});
+
+describe('sessions', () => {
+  it('end at their absolute lifetime however active they are', async () => {
+    const shop = await createTestShop();
+    const cookie = await createSessionCookie(shop.lead.userId);
+    expect(await validateSessionId(cookie.value)).not.toBeNull();
+    await getDb().update(sessions).set({ absoluteExpiresAt: new Date(Date.now() - 1000) }).where(eq(sessions.id, cookie.value));
+    expect(await validateSessionId(cookie.value)).toBeNull();
+    expect(await getDb().$count(sessions, eq(sessions.id, cookie.value))).toBe(0);
+  });
+
+  it('a removed member is signed out and cannot sign in', async () => {
+    const shop = await createTestShop();
+    const cookie = await createSessionCookie(shop.technician.userId);
+    await getDb().update(users).set({ removedAt: new Date() }).where(eq(users.id, shop.technician.userId));
+    expect(await validateSessionId(cookie.value)).toBeNull();
+    resetNextRequest('192.0.2.90');
+    expect(await signIn(null, { email: shop.technician.email, password: PASSWORD })).toMatchObject({ ok: false });
+  });
+});

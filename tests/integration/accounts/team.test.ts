@@ -1,0 +1,124 @@
+import { eq } from 'drizzle-orm';
+import { describe, expect, it } from 'vitest';
+import { getDb } from '@/db';
+import { invites, users } from '@/db/schema';
+import { acceptTeamInvite } from '@/features/accounts/actions/accept-invite';
+import { changeMemberRole } from '@/features/accounts/actions/change-role';
+import { inviteMember } from '@/features/accounts/actions/invite-member';
+import { removeTeamMember } from '@/features/accounts/actions/remove-member';
+import { revokeTeamInvite } from '@/features/accounts/actions/revoke-invite';
+import { findUsableInvite } from '@/features/accounts/server/invites';
+import { createSessionCookie, validateSessionId } from '@/server/auth/session';
+import { createTestShop } from '@/tests/helpers/factories';
+import { inviteToken, waitForMail } from '@/tests/helpers/mailbox';
+import { nextHeadersMock, resetNextRequest } from '@/tests/helpers/next-request';
+import { INTEGRATION_SINK } from '@/tests/helpers/test-services';
+
+async function actAs(userId: string) {
+  resetNextRequest();
+  const cookie = await createSessionCookie(userId);
+  (await nextHeadersMock.cookies()).set(cookie.name, cookie.value);
+  return cookie.value;
+}
+
+describe('invites', () => {
+  it('a lead invites by e-mail; the link works once and creates a member with that role', async () => {
+    const shop = await createTestShop('Invite Shop');
+    await actAs(shop.lead.userId);
+    const sent = await inviteMember(null, { email: 'New.Tech@Example.test', role: 'technician' });
+    expect(sent).toMatchObject({ ok: true, data: { email: 'new.tech@example.test', role: 'technician' } });
+
+    const mail = await waitForMail(INTEGRATION_SINK.dir, 'new.tech@example.test');
+    expect(mail.subject).toBe('Lena Lead invited you to Invite Shop on Ringpass');
+    const token = inviteToken(mail);
+    expect(await findUsableInvite(token)).toMatchObject({ email: 'new.tech@example.test', shopName: 'Invite Shop' });
+    expect(await getDb().$count(invites, eq(invites.tokenHash, token))).toBe(0); // only the hash is stored
+
+    resetNextRequest();
+    await expect(acceptTeamInvite(null, { token, name: 'Nia Newhand', password: 'twelve chars at least' })).rejects.toMatchObject({ digest: expect.stringContaining('/board') });
+    const [created] = await getDb().select().from(users).where(eq(users.email, 'new.tech@example.test'));
+    expect(created).toMatchObject({ shopId: shop.shopId, role: 'technician', name: 'Nia Newhand' });
+
+    expect(await acceptTeamInvite(null, { token, name: 'Again', password: 'twelve chars at least' })).toMatchObject({ ok: false, message: expect.stringMatching(/expired, was revoked or was already used/) });
+  });
+
+  it('an expired or revoked link is refused', async () => {
+    const shop = await createTestShop();
+    await actAs(shop.lead.userId);
+    await inviteMember(null, { email: 'late@example.test', role: 'apprentice' });
+    const token = inviteToken(await waitForMail(INTEGRATION_SINK.dir, 'late@example.test'));
+    await getDb().update(invites).set({ expiresAt: new Date(Date.now() - 1000) }).where(eq(invites.email, 'late@example.test'));
+    expect(await findUsableInvite(token)).toBeNull();
+    expect(await acceptTeamInvite(null, { token, name: 'Late', password: 'twelve chars at least' })).toMatchObject({ ok: false });
+
+    await actAs(shop.lead.userId);
+    const second = await inviteMember(null, { email: 'gone@example.test', role: 'apprentice' });
+    const secondToken = inviteToken(await waitForMail(INTEGRATION_SINK.dir, 'gone@example.test'));
+    expect(await revokeTeamInvite(null, { inviteId: second.ok ? second.data.id : '' })).toMatchObject({ ok: true });
+    expect(await findUsableInvite(secondToken)).toBeNull();
+  });
+
+  it('only a lead can invite; a technician and an apprentice are refused and nothing is created', async () => {
+    const shop = await createTestShop();
+    for (const who of [shop.technician, shop.apprentice]) {
+      await actAs(who.userId);
+      expect(await inviteMember(null, { email: `x-${who.role}@example.test`, role: 'lead' })).toEqual({ ok: false, message: 'Your role does not allow this.' });
+    }
+    expect(await getDb().$count(invites, eq(invites.shopId, shop.shopId))).toBe(0);
+  });
+
+  it('signed out, the action refuses', async () => {
+    resetNextRequest();
+    expect(await inviteMember(null, { email: 'x@example.test', role: 'technician' })).toMatchObject({ ok: false, message: expect.stringMatching(/Sign in again/) });
+  });
+
+  it('bad input gets field errors', async () => {
+    const shop = await createTestShop();
+    await actAs(shop.lead.userId);
+    expect(await inviteMember(null, { email: 'nope', role: 'owner' as never })).toMatchObject({
+      ok: false,
+      fieldErrors: { email: [expect.any(String)], role: ['Choose a role: lead, technician or apprentice.'] },
+    });
+  });
+
+  it('an address that already has an account cannot be invited', async () => {
+    const shop = await createTestShop();
+    const other = await createTestShop('Other');
+    await actAs(shop.lead.userId);
+    expect(await inviteMember(null, { email: other.technician.email, role: 'technician' })).toMatchObject({ ok: false, fieldErrors: { email: [expect.stringMatching(/already has a Ringpass account/)] } });
+  });
+});
+
+describe('roles and removal', () => {
+  it('changing a role ends that person’s sessions', async () => {
+    const shop = await createTestShop();
+    const techSession = await createSessionCookie(shop.technician.userId);
+    await actAs(shop.lead.userId);
+    expect(await changeMemberRole(null, { memberId: shop.technician.userId, role: 'lead' })).toMatchObject({ ok: true, data: { role: 'lead' } });
+    expect(await validateSessionId(techSession.value)).toBeNull();
+  });
+
+  it('the last lead cannot be demoted', async () => {
+    const shop = await createTestShop();
+    await actAs(shop.lead.userId);
+    expect(await changeMemberRole(null, { memberId: shop.lead.userId, role: 'technician' })).toMatchObject({ ok: false, message: expect.stringMatching(/at least one lead/) });
+  });
+
+  it('another shop’s member is not found, and is left untouched', async () => {
+    const shop = await createTestShop();
+    const other = await createTestShop('Other');
+    await actAs(shop.lead.userId);
+    expect(await changeMemberRole(null, { memberId: other.technician.userId, role: 'apprentice' })).toMatchObject({ ok: false, message: 'That team member was not found.' });
+    expect(await removeTeamMember(null, { memberId: other.technician.userId })).toMatchObject({ ok: false, message: 'That team member was not found.' });
+    const [row] = await getDb().select({ role: users.role, removedAt: users.removedAt }).from(users).where(eq(users.id, other.technician.userId));
+    expect(row).toEqual({ role: 'technician', removedAt: null });
+  });
+
+  it('removing a member signs them out for good', async () => {
+    const shop = await createTestShop();
+    const session = await createSessionCookie(shop.apprentice.userId);
+    await actAs(shop.lead.userId);
+    await expect(removeTeamMember(null, { memberId: shop.apprentice.userId })).rejects.toMatchObject({ digest: expect.stringContaining('/team') });
+    expect(await validateSessionId(session.value)).toBeNull();
+  });
+});

@@ -1,0 +1,85 @@
+import { describe, expect, it } from 'vitest';
+import { chooseWrench, TorquePlanError, verifyReading, type Wrench } from '@/features/torque-plan';
+
+const inLb: Wrench = { id: 'in-lb 20–200', min: 20, max: 200, unit: 'lbf-in', graduation: 1, kind: 'click' };
+const ftLb: Wrench = { id: 'ft-lb 5–80', min: 5, max: 80, unit: 'lbf-ft', graduation: 1, kind: 'click' };
+const nm: Wrench = { id: 'N·m 2–10', min: 2, max: 10, unit: 'Nm', graduation: 0.1, kind: 'click' };
+
+describe('chooseWrench', () => {
+  it('a 3.5 ft-lb pass (42 in-lb) goes to the 20–200 in-lb wrench, not the 5–80 ft-lb (common practice, no source)', () => {
+    const choice = chooseWrench({ value: 3.5, unit: 'lbf-ft' }, [ftLb, inLb]);
+    expect(choice).toMatchObject({ ok: true, wrenchId: inLb.id, setting: { value: 42, unit: 'lbf-in' } });
+  });
+
+  it('prefers the wrench where the target is the largest fraction of its maximum', () => {
+    const big: Wrench = { id: 'big', min: 10, max: 150, unit: 'lbf-ft', graduation: 1, kind: 'click' };
+    const choice = chooseWrench({ value: 40, unit: 'lbf-ft' }, [big, ftLb]);
+    expect(choice).toMatchObject({ ok: true, wrenchId: 'ft-lb 5–80', fractionOfMax: 0.5 });
+  });
+
+  it('refuses a target below the shop floor (20 % of maximum by default) and says why', () => {
+    const choice = chooseWrench({ value: 10, unit: 'lbf-ft' }, [{ ...ftLb, min: 1 }]);
+    expect(choice.ok).toBe(false);
+    if (!choice.ok) expect(choice.reason).toMatch(/below the shop's floor of 20 % of its maximum \(16 ft-lb\)/);
+  });
+
+  it('takes the shop floor as an option', () => {
+    expect(chooseWrench({ value: 10, unit: 'lbf-ft' }, [ftLb], { minFractionOfMax: 0.1 }).ok).toBe(true);
+  });
+
+  it('explains each wrench when none suits', () => {
+    const choice = chooseWrench({ value: 300, unit: 'lbf-ft' }, [ftLb, inLb]);
+    expect(choice).toEqual({ ok: false, reason: expect.stringMatching(/above its maximum 80 ft-lb.*above its maximum 200 in-lb/) });
+  });
+
+  it('says so when the tool crib is empty', () => {
+    expect(chooseWrench({ value: 10, unit: 'Nm' }, [])).toEqual({ ok: false, reason: expect.stringMatching(/tool crib is empty/) });
+  });
+
+  it('rounds the setting to the graduation and warns when that moves it beyond the tolerance', () => {
+    const coarse: Wrench = { id: 'coarse', min: 10, max: 100, unit: 'lbf-ft', graduation: 5, kind: 'click' };
+    const choice = chooseWrench({ value: 22, unit: 'lbf-ft' }, [coarse]);
+    expect(choice).toMatchObject({ ok: true, setting: { value: 20, unit: 'lbf-ft' } });
+    if (choice.ok) {
+      expect(choice.roundingErrorPct).toBeCloseTo(-9.0909, 3);
+      expect(choice.warnings.join(' ')).toMatch(/more than the wrench's ±4 % tolerance/);
+    }
+  });
+
+  it('does not warn when rounding stays inside the tolerance', () => {
+    const choice = chooseWrench({ value: 8.4, unit: 'lbf-ft' }, [{ ...inLb }]);
+    expect(choice).toMatchObject({ ok: true, setting: { value: 101, unit: 'lbf-in' }, warnings: [] });
+  });
+
+  it('refuses a malformed wrench with a clear error', () => {
+    expect(() => chooseWrench({ value: 10, unit: 'Nm' }, [{ ...nm, max: 1 }])).toThrow(TorquePlanError);
+    expect(() => chooseWrench({ value: 10, unit: 'Nm' }, [{ ...nm, unit: 'kgm' as never }])).toThrow(/Unknown torque unit/);
+  });
+});
+
+describe('verifyReading: ISO 6789-1:2017 click wrenches, classes A, D, G (secondary sources)', () => {
+  it('±4 % above 10 N·m maximum', () => {
+    expect(verifyReading(ftLb, { value: 50, unit: 'lbf-ft' }, { value: 52, unit: 'lbf-ft' })).toEqual({
+      withinTolerance: true,
+      deviationPct: 4,
+      tolerancePct: 4,
+    });
+    expect(verifyReading(ftLb, { value: 50, unit: 'lbf-ft' }, { value: 52.1, unit: 'lbf-ft' }).withinTolerance).toBe(false);
+    expect(verifyReading(ftLb, { value: 50, unit: 'lbf-ft' }, { value: 47.9, unit: 'lbf-ft' }).withinTolerance).toBe(false);
+  });
+
+  it('±6 % for a maximum of 10 N·m or less', () => {
+    expect(verifyReading(nm, { value: 5, unit: 'Nm' }, { value: 5.3, unit: 'Nm' })).toMatchObject({ withinTolerance: true, tolerancePct: 6 });
+    expect(verifyReading(nm, { value: 5, unit: 'Nm' }, { value: 5.31, unit: 'Nm' }).withinTolerance).toBe(false);
+  });
+
+  it('an 80 in-lb wrench (9.04 N·m) gets ±6 %; a 200 in-lb wrench (22.6 N·m) ±4 %', () => {
+    expect(verifyReading({ ...inLb, max: 80 }, { value: 40, unit: 'lbf-in' }, { value: 42, unit: 'lbf-in' }).tolerancePct).toBe(6);
+    expect(verifyReading(inLb, { value: 100, unit: 'lbf-in' }, { value: 100, unit: 'lbf-in' }).tolerancePct).toBe(4);
+  });
+
+  it('compares across units', () => {
+    const r = verifyReading(inLb, { value: 10, unit: 'Nm' }, { value: 88.5, unit: 'lbf-in' });
+    expect(r.deviationPct).toBeCloseTo(((88.5 * 0.1129848 - 10) / 10) * 100, 3);
+  });
+});
