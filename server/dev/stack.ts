@@ -19,7 +19,7 @@ const SINK_PORT = 2525;
 const NEXT = path.join(ROOT, 'node_modules', '.bin', 'next');
 
 async function main(mode: 'start' | 'dev') {
-  const env: NodeJS.ProcessEnv = { ...process.env, APP_URL: process.env.APP_URL ?? `http://127.0.0.1:${PORT}` };
+  const env: NodeJS.ProcessEnv = { ...process.env, NEXT_TELEMETRY_DISABLED: '1', APP_URL: process.env.APP_URL ?? `http://127.0.0.1:${PORT}` };
 
   if (!env.DATABASE_URL) {
     await startCluster();

@@ -1,0 +1,48 @@
+/**
+ * The e2e web server: a fresh database and mail sink, then the production build of the app on
+ * 127.0.0.1:3100 (built into .next-e2e so a running `npm start` is left alone).
+ */
+import { spawn, spawnSync } from 'node:child_process';
+import { rmSync } from 'node:fs';
+import path from 'node:path';
+import postgres from 'postgres';
+import { clusterUrl, startCluster } from '@/db/cluster';
+import { migrateDatabase } from '@/db/migrate';
+import { startMailSink } from '@/server/dev/mail-sink';
+import { E2E, ROOT } from '../helpers/test-services';
+
+async function main() {
+  await startCluster();
+  const admin = postgres(clusterUrl('postgres'), { max: 1, onnotice: () => {} });
+  await admin.unsafe(`drop database if exists ${E2E.database} with (force)`);
+  await admin.unsafe(`create database ${E2E.database}`);
+  await admin.end();
+  await migrateDatabase(clusterUrl(E2E.database));
+  rmSync(E2E.sink.dir, { recursive: true, force: true });
+  const sink = await startMailSink(E2E.sink);
+
+  const env = {
+    ...process.env,
+    NODE_ENV: 'production' as const,
+    NEXT_TELEMETRY_DISABLED: '1',
+    NEXT_DIST_DIR: '.next-e2e',
+    DATABASE_URL: clusterUrl(E2E.database),
+    APP_URL: `http://127.0.0.1:${E2E.appPort}`,
+    SMTP_URL: `smtp://127.0.0.1:${E2E.sink.port}`,
+    MAILBOX_DIR: E2E.sink.dir,
+    COOKIE_SECURE: 'false',
+  };
+  const next = path.join(ROOT, 'node_modules', '.bin', 'next');
+  const build = spawnSync(next, ['build'], { cwd: ROOT, env, stdio: 'inherit' });
+  if (build.status !== 0) throw new Error('next build failed');
+  const server = spawn(next, ['start', '-H', '127.0.0.1', '-p', String(E2E.appPort)], { cwd: ROOT, env, stdio: 'inherit' });
+  const stop = () => server.kill('SIGTERM');
+  process.on('SIGTERM', stop);
+  process.on('SIGINT', stop);
+  server.on('exit', (code) => void sink.close().finally(() => process.exit(code ?? 0)));
+}
+
+main().catch((error: unknown) => {
+  console.error(error);
+  process.exit(1);
+});
