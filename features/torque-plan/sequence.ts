@@ -8,7 +8,9 @@ export const MAX_BOLTS = 64;
 /**
  * ASME PCC-1 legacy cross-pattern rows (from memory, matched by secondary copies): groups of
  * four bolts 90° apart, b, b+N/2, b+N/4, b+3N/4, whose starting bolts follow the table.
- * Only rows we could match are kept; every other N uses `spreadCross` below.
+ * Only rows we could match are kept; every other N uses `spreadCross` below. Secondary copies
+ * of the 20-bolt row disagree on the order of its groups; this one (starts 1, 3, 5, 2, 4) is the
+ * one we recall, and it is also what `spreadCross` gives.
  */
 export const PUBLISHED_CROSS: Readonly<Record<number, readonly number[]>> = {
   4: [1, 3, 2, 4],

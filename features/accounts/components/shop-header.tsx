@@ -1,6 +1,5 @@
-import Link from 'next/link';
-import { can } from '@/server/auth/permissions';
-import { ROLE_LABELS } from '@/server/auth/permissions';
+import { NavLink } from '@/features/ui/nav-link';
+import { can, ROLE_LABELS } from '@/server/auth/permissions';
 import type { Member } from '@/server/auth/session';
 import { signOut } from '../actions/sign-out';
 
@@ -15,18 +14,12 @@ export function ShopHeader({ member, shopName, mailbox }: { member: Member; shop
           Ringpass <span className="font-semibold opacity-90">· {shopName}</span>
         </p>
         <nav aria-label="Main" className="flex flex-wrap items-center gap-1">
-          <Link href="/board" className={linkClass}>
-            Board
-          </Link>
+          <NavLink href="/board">Board</NavLink>
           {can(member.role, 'team.manage') ? (
-            <Link href="/team" className={linkClass}>
-              Team
-            </Link>
+            <NavLink href="/team">Team</NavLink>
           ) : null}
           {mailbox ? (
-            <Link href="/mailbox" className={linkClass}>
-              Mailbox
-            </Link>
+            <NavLink href="/mailbox">Mailbox</NavLink>
           ) : null}
           <form action={signOut}>
             <button type="submit" className={`${linkClass} border-2 border-white`}>

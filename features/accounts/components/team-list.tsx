@@ -16,7 +16,8 @@ export function TeamList({ members, invites }: { members: TeamMember[]; invites:
             <li key={m.id}>
               <Link href={`/team/${m.id}`} className="flex min-h-touch flex-wrap items-center justify-between gap-2 p-3 hover:bg-paper-dim">
                 <span>
-                  <span className="font-semibold">{m.name}</span> <span className="text-ink-soft">{m.email}</span>
+                  <span className="block font-semibold">{m.name}</span>
+                  <span className="block break-all text-ink-soft">{m.email}</span>
                 </span>
                 <span className="rounded-full border-2 border-ink px-3 py-0.5 text-sm font-semibold">{ROLE_LABELS[m.role]}</span>
               </Link>

@@ -1,3 +1,4 @@
+import Link from 'next/link';
 import type { ReactNode } from 'react';
 import type { SinkMessage } from '@/server/mail/mailbox';
 
@@ -17,6 +18,9 @@ function linkify(text: string): ReactNode[] {
 export function MailboxList({ messages }: { messages: SinkMessage[] }) {
   return (
     <main className="mx-auto w-full max-w-3xl p-4">
+      <Link href="/board" className="inline-flex min-h-touch items-center font-semibold text-work underline">
+        ← Back to Ringpass
+      </Link>
       <h1 className="text-2xl font-bold">Mailbox</h1>
       <p className="mb-6 rounded-lg border-2 border-caution bg-caution-tint p-3 text-caution-ink">
         Development only: every e-mail the app sent to the local mail sink, newest first. Nothing here was delivered.

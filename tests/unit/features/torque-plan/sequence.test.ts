@@ -31,6 +31,9 @@ describe('cross pattern', () => {
     [8, '1-5-3-7-2-6-4-8'],
     [12, '1-7-4-10-2-8-5-11-3-9-6-12'],
     [16, '1-9-5-13-3-11-7-15-2-10-6-14-4-12-8-16'],
+    // Beyond 16 (from memory; secondary copies agree on 24 and disagree among themselves on 20).
+    [20, '1-11-6-16-3-13-8-18-5-15-10-20-2-12-7-17-4-14-9-19'],
+    [24, '1-13-7-19-4-16-10-22-2-14-8-20-5-17-11-23-3-15-9-21-6-18-12-24'],
   ])('%i bolts follow the published legacy table: %s', (n, expected) => {
     expect(tighteningSequence(n, { kind: 'cross' }).join('-')).toBe(expected);
   });

@@ -1,0 +1,88 @@
+/**
+ * `npm run bench:pages`: for each route, the JavaScript the browser downloads (gzip bytes on the
+ * wire, from Chromium's network events) and the Largest Contentful Paint under mobile emulation
+ * (360×640, 4× CPU slowdown, 150 ms RTT / 1.6 Mbps like Lighthouse's mobile profile).
+ * Serves the production build through tests/e2e/serve.ts (own database and mail sink, port 3100).
+ */
+import { spawn } from 'node:child_process';
+import { chromium, type CDPSession, type Page } from 'playwright-core';
+import { E2E, ROOT } from '../helpers/test-services';
+
+const BASE = `http://127.0.0.1:${E2E.appPort}`;
+const ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
+
+async function waitForServer(url: string, seconds: number) {
+  for (let i = 0; i < seconds * 2; i++) {
+    try {
+      if ((await fetch(url)).ok) return;
+    } catch {}
+    await new Promise((r) => setTimeout(r, 500));
+  }
+  throw new Error(`server at ${url} did not come up`);
+}
+
+async function measure(page: Page, cdp: CDPSession, path: string) {
+  const scripts = new Map<string, string>();
+  let jsBytes = 0;
+  const onResponse = (e: { requestId: string; type?: string; response: { url: string; mimeType: string } }) => {
+    if (e.type === 'Script' || e.response.mimeType.includes('javascript')) scripts.set(e.requestId, e.response.url);
+  };
+  const onFinished = (e: { requestId: string; encodedDataLength: number }) => {
+    if (scripts.has(e.requestId)) jsBytes += e.encodedDataLength;
+  };
+  cdp.on('Network.responseReceived', onResponse);
+  cdp.on('Network.loadingFinished', onFinished);
+  await cdp.send('Network.clearBrowserCache');
+  await page.goto(BASE + path, { waitUntil: 'networkidle' });
+  const lcp = await page.evaluate(
+    () =>
+      new Promise<number>((resolve) => {
+        new PerformanceObserver((list) => {
+          const entries = list.getEntries();
+          resolve(entries[entries.length - 1]!.startTime);
+        }).observe({ type: 'largest-contentful-paint', buffered: true });
+        setTimeout(() => resolve(NaN), 3000);
+      }),
+  );
+  cdp.off('Network.responseReceived', onResponse);
+  cdp.off('Network.loadingFinished', onFinished);
+  return { path, scripts: scripts.size, jsKb: jsBytes / 1024, lcpMs: lcp };
+}
+
+async function main() {
+  const server = spawn('node_modules/.bin/tsx', ['--conditions=react-server', 'tests/e2e/serve.ts'], { cwd: ROOT, stdio: ['ignore', 'ignore', 'inherit'], detached: true });
+  try {
+    await waitForServer(`${BASE}/sign-in`, 240);
+    const browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: ARGS });
+    const context = await browser.newContext({ viewport: { width: 360, height: 640 }, deviceScaleFactor: 3, isMobile: true, hasTouch: true });
+    const page = await context.newPage();
+    const cdp = await context.newCDPSession(page);
+    await cdp.send('Network.enable');
+    await cdp.send('Network.setCacheDisabled', { cacheDisabled: true });
+    await cdp.send('Emulation.setCPUThrottlingRate', { rate: 4 });
+    await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 150, downloadThroughput: (1.6 * 1024 * 1024) / 8, uploadThroughput: (750 * 1024) / 8 });
+
+    const rows = [await measure(page, cdp, '/sign-in'), await measure(page, cdp, '/sign-up')];
+    // Sign up a shop to measure the signed-in pages.
+    await page.getByLabel('Shop name').fill('Bench Shop');
+    await page.getByLabel('Your name').fill('Bench Lead');
+    await page.getByLabel('E-mail').fill(`bench-${Date.now()}@bench.test`);
+    await page.getByLabel('Password').fill('benchmark password');
+    await page.getByRole('button', { name: 'Create shop and sign in' }).click();
+    await page.waitForURL(`${BASE}/board`, { timeout: 60_000 });
+    for (const path of ['/board', '/team', '/mailbox']) rows.push(await measure(page, cdp, path));
+    await browser.close();
+
+    console.log('route        scripts   JS gzip kB   LCP ms (mobile, 4x CPU, 150 ms RTT)');
+    for (const r of rows) {
+      console.log(`${r.path.padEnd(12)} ${String(r.scripts).padStart(7)} ${r.jsKb.toFixed(1).padStart(12)} ${Number.isNaN(r.lcpMs) ? '   n/a' : r.lcpMs.toFixed(0).padStart(6)}`);
+    }
+  } finally {
+    process.kill(-server.pid!, 'SIGTERM');
+  }
+}
+
+main().catch((error: unknown) => {
+  console.error(error);
+  process.exit(1);
+});
