@@ -24,3 +24,14 @@ export class DomainError extends Error {
 }
 
 export const notFound = (what = 'That record') => new DomainError('not_found', `${what} was not found.`);
+
+/** For pages: a not-found DomainError becomes Next's 404 page; anything else is rethrown. */
+export async function orNotFound<T>(promise: Promise<T>): Promise<T> {
+  const { notFound: nextNotFound } = await import('next/navigation');
+  try {
+    return await promise;
+  } catch (error) {
+    if (error instanceof DomainError && error.code === 'not_found') nextNotFound();
+    throw error;
+  }
+}

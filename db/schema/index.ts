@@ -1,2 +1,3 @@
 export * from './shops';
 export * from './auth';
+export * from './records';

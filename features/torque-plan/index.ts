@@ -19,6 +19,7 @@ export { MAX_BOLTS, MIN_BOLTS, PUBLISHED_CROSS, spreadCross, tighteningSequence,
 export { DEFAULT_FRACTIONS, passPlan, type PlannedPass } from './pass-plan';
 export {
   chooseWrench,
+  assertWrench,
   DEFAULT_MIN_FRACTION_OF_MAX,
   tolerancePct,
   verifyReading,

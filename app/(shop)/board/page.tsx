@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import { BoardEmpty } from '@/features/board/components/board-empty';
+import { BoardEmpty } from '@/features/jobs/components/board-empty';
 import { PageHeader } from '@/features/ui/page';
 import { requireMember } from '@/server/auth/guard';
 import { can } from '@/server/auth/permissions';

@@ -1,10 +1,9 @@
 import { torquePlanRequestSchema } from '@/features/plans/schemas';
 import { computePlan } from '@/features/plans/server/compute-plan';
+import { wrenchesForEngine } from '@/features/tool-crib/server/wrenches';
 import { apiRoute } from '@/server/http/handler';
 
-// The tool crib arrives with the shop records; until then no id belongs to any shop.
-const noCrib = async () => [];
-
-export const POST = apiRoute({ permission: 'plans.compute', body: torquePlanRequestSchema }, async ({ body }) => ({
-  data: await computePlan(body, noCrib),
+export const POST = apiRoute({ permission: 'plans.compute', body: torquePlanRequestSchema }, async ({ body, member }) => ({
+  // Tool-crib ids resolve to this shop's in-service wrenches only; any other id is "not in the crib".
+  data: await computePlan(body, (ids) => wrenchesForEngine(member.shopId, ids)),
 }));

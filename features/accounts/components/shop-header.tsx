@@ -15,6 +15,8 @@ export function ShopHeader({ member, shopName, mailbox }: { member: Member; shop
         </p>
         <nav aria-label="Main" className="flex flex-wrap items-center gap-1">
           <NavLink href="/board">Board</NavLink>
+          <NavLink href="/specs">Specs</NavLink>
+          {can(member.role, 'verifications.record') ? <NavLink href="/tool-crib">Tool crib</NavLink> : null}
           {can(member.role, 'team.manage') ? (
             <NavLink href="/team">Team</NavLink>
           ) : null}

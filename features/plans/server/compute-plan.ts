@@ -15,11 +15,11 @@ export async function computePlan(
   const fromCrib = ids.length ? await findShopWrenches(ids) : [];
   const missing = ids.filter((id) => !fromCrib.some((w) => w.id === id));
   if (missing.length) {
-    const message = `Not in this shop's tool crib: ${missing.join(', ')}.`;
+    const message = `Not an in-service wrench of this shop's tool crib: ${missing.join(', ')}.`;
     throw new DomainError('invalid', message, { wrenchIds: [message] });
   }
   try {
-    return planTorque({ ...request, wrenches: [...fromCrib, ...(request.wrenches ?? [])] });
+    return planTorque({ ...request, wrenches: [...fromCrib.map(({ id, min, max, unit, graduation, kind }) => ({ id, min, max, unit, graduation, kind })), ...(request.wrenches ?? [])] });
   } catch (error) {
     if (error instanceof TorquePlanError) {
       throw new DomainError('invalid', error.message, { [error.field ?? 'body']: [error.message] });

@@ -1,0 +1,211 @@
+import {
+  boolean,
+  date,
+  doublePrecision,
+  index,
+  integer,
+  jsonb,
+  pgEnum,
+  pgTable,
+  text,
+  timestamp,
+  uniqueIndex,
+  uuid,
+} from 'drizzle-orm/pg-core';
+import { users } from './auth';
+import { shops } from './shops';
+
+export const torqueUnitEnum = pgEnum('torque_unit', ['lbf-ft', 'lbf-in', 'Nm']);
+export const pressureUnitEnum = pgEnum('pressure_unit', ['psi', 'kPa', 'bar']);
+export const patternKindEnum = pgEnum('pattern_kind', ['cross', 'skip', 'sequential']);
+export const wrenchKindEnum = pgEnum('wrench_kind', ['click', 'beam', 'dial', 'digital']);
+export const wrenchStatusEnum = pgEnum('wrench_status', ['in_service', 'out_of_service']);
+export const jobStateEnum = pgEnum('job_state', ['open', 'in_progress', 'awaiting_signoff', 'signed_off', 'sent_back']);
+export const wheelPositionEnum = pgEnum('wheel_position', ['LF', 'RF', 'LR', 'RR', 'spare']);
+
+const shopId = () =>
+  uuid()
+    .notNull()
+    .references(() => shops.id, { onDelete: 'cascade' });
+const createdAt = () => timestamp({ withTimezone: true }).notNull().defaultNow();
+
+/** A wheel spec: how one kind of beadlock wheel is torqued and inflated. */
+export const wheelSpecs = pgTable(
+  'wheel_specs',
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    shopId: shopId(),
+    name: text().notNull(),
+    boltCount: integer().notNull(),
+    boltThread: text().notNull(),
+    finalTorque: doublePrecision().notNull(),
+    torqueUnit: torqueUnitEnum().notNull(),
+    passFractions: jsonb().$type<number[]>().notNull(),
+    patternKind: patternKindEnum().notNull(),
+    skipStep: integer(),
+    checkPass: boolean().notNull().default(true),
+    lugTorque: doublePrecision(),
+    lugTorqueUnit: torqueUnitEnum(),
+    lugCount: integer(),
+    maxBeadSeatPressure: doublePrecision().notNull(),
+    runningPressure: doublePrecision().notNull(),
+    pressureUnit: pressureUnitEnum().notNull(),
+    makerReference: text().notNull().default(''),
+    notes: text().notNull().default(''),
+    createdAt: createdAt(),
+    updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('wheel_specs_shop_idx').on(t.shopId, t.name)],
+);
+
+/** A torque wrench in the tool crib. */
+export const wrenches = pgTable(
+  'wrenches',
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    shopId: shopId(),
+    label: text().notNull(),
+    kind: wrenchKindEnum().notNull(),
+    min: doublePrecision().notNull(),
+    max: doublePrecision().notNull(),
+    unit: torqueUnitEnum().notNull(),
+    graduation: doublePrecision().notNull(),
+    serial: text().notNull().default(''),
+    calibrationDueOn: date({ mode: 'string' }).notNull(),
+    cyclesSinceCalibration: integer(),
+    status: wrenchStatusEnum().notNull().default('in_service'),
+    statusReason: text().notNull().default(''),
+    createdAt: createdAt(),
+  },
+  (t) => [index('wrenches_shop_idx').on(t.shopId, t.label)],
+);
+
+/** A reading against a reference, judged by the engine at the time it was recorded. */
+export const wrenchVerifications = pgTable(
+  'wrench_verifications',
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    shopId: shopId(),
+    wrenchId: uuid()
+      .notNull()
+      .references(() => wrenches.id, { onDelete: 'cascade' }),
+    referenceValue: doublePrecision().notNull(),
+    readingValue: doublePrecision().notNull(),
+    unit: torqueUnitEnum().notNull(),
+    deviationPct: doublePrecision().notNull(),
+    tolerancePct: doublePrecision().notNull(),
+    withinTolerance: boolean().notNull(),
+    recordedById: uuid()
+      .notNull()
+      .references(() => users.id),
+    recordedAt: createdAt(),
+  },
+  (t) => [index('wrench_verifications_wrench_idx').on(t.wrenchId, t.recordedAt)],
+);
+
+/** Every change of a wrench's service status: automatic (verification, calibration) or by a lead. */
+export const wrenchStatusEvents = pgTable(
+  'wrench_status_events',
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    shopId: shopId(),
+    wrenchId: uuid()
+      .notNull()
+      .references(() => wrenches.id, { onDelete: 'cascade' }),
+    status: wrenchStatusEnum().notNull(),
+    reason: text().notNull(),
+    byId: uuid().references(() => users.id),
+    at: createdAt(),
+  },
+  (t) => [index('wrench_status_events_wrench_idx').on(t.wrenchId, t.at)],
+);
+
+export const customers = pgTable(
+  'customers',
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    shopId: shopId(),
+    name: text().notNull(),
+    phone: text().notNull().default(''),
+    email: text().notNull().default(''),
+    createdAt: createdAt(),
+  },
+  (t) => [index('customers_shop_idx').on(t.shopId, t.name)],
+);
+
+export const vehicles = pgTable(
+  'vehicles',
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    shopId: shopId(),
+    customerId: uuid()
+      .notNull()
+      .references(() => customers.id, { onDelete: 'cascade' }),
+    year: integer(),
+    make: text().notNull().default(''),
+    model: text().notNull().default(''),
+    description: text().notNull().default(''),
+    vin: text(),
+    /** A lead accepted a VIN whose check digit does not compute (off-road vehicles vary). */
+    vinCheckOverridden: boolean().notNull().default(false),
+    createdAt: createdAt(),
+  },
+  (t) => [index('vehicles_customer_idx').on(t.shopId, t.customerId)],
+);
+
+export const jobs = pgTable(
+  'jobs',
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    shopId: shopId(),
+    /** Shop-local number people say out loud ("job 1042"). */
+    number: integer().notNull(),
+    customerId: uuid()
+      .notNull()
+      .references(() => customers.id),
+    vehicleId: uuid()
+      .notNull()
+      .references(() => vehicles.id),
+    state: jobStateEnum().notNull().default('open'),
+    assigneeId: uuid().references(() => users.id),
+    dueAt: timestamp({ withTimezone: true }),
+    dismount: boolean().notNull().default(true),
+    reinstall: boolean().notNull().default(true),
+    notes: text().notNull().default(''),
+    createdById: uuid()
+      .notNull()
+      .references(() => users.id),
+    createdAt: createdAt(),
+    updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    uniqueIndex('jobs_shop_number_key').on(t.shopId, t.number),
+    index('jobs_board_idx').on(t.shopId, t.state, t.dueAt),
+    index('jobs_assignee_idx').on(t.shopId, t.assigneeId, t.dueAt),
+  ],
+);
+
+export const jobWheels = pgTable(
+  'job_wheels',
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    shopId: shopId(),
+    jobId: uuid()
+      .notNull()
+      .references(() => jobs.id, { onDelete: 'cascade' }),
+    position: wheelPositionEnum().notNull(),
+    specId: uuid()
+      .notNull()
+      .references(() => wheelSpecs.id),
+    tireSize: text().notNull(),
+    directional: boolean().notNull().default(false),
+    targetPressure: doublePrecision().notNull(),
+    pressureUnit: pressureUnitEnum().notNull(),
+  },
+  (t) => [uniqueIndex('job_wheels_position_key').on(t.jobId, t.position), index('job_wheels_shop_idx').on(t.shopId)],
+);
+
+export type WheelSpecRow = typeof wheelSpecs.$inferSelect;
+export type WrenchRow = typeof wrenches.$inferSelect;
+export type JobState = (typeof jobStateEnum.enumValues)[number];
+export type WheelPosition = (typeof wheelPositionEnum.enumValues)[number];

@@ -1,0 +1,97 @@
+'use client';
+
+import { useState } from 'react';
+import { UNIT_LABELS } from '@/features/torque-plan';
+import { Button } from '@/features/ui/button';
+import { CheckboxField } from '@/features/ui/checkbox';
+import { SelectField, TextField } from '@/features/ui/field';
+import { FormMessage } from '@/features/ui/form-message';
+import { useFormAction } from '@/features/ui/use-form-action';
+import { createWheelSpec, updateWheelSpec } from '../actions/save-spec';
+import { engineErrors, specToInput } from '../engine-check';
+import { PRESSURE_UNIT_VALUES, specSchema, TORQUE_UNIT_VALUES, type SpecInput } from '../schemas';
+import type { Spec } from '../server/specs';
+import { SpecPreview, type CribWrench } from './spec-preview';
+
+const torqueOptions = TORQUE_UNIT_VALUES.map((u) => ({ value: u, label: UNIT_LABELS[u] }));
+const pressureOptions = PRESSURE_UNIT_VALUES.map((u) => ({ value: u, label: UNIT_LABELS[u] }));
+const patternOptions = [
+  { value: 'cross', label: 'Cross (groups of four, 90° apart)' },
+  { value: 'skip', label: 'Skip (every k-th bolt)' },
+  { value: 'sequential', label: 'Sequential (clockwise)' },
+];
+
+type Live = { spec?: SpecInput; engine?: Record<string, string[]> };
+
+function readLive(form: HTMLFormElement): Live {
+  const parsed = specSchema.safeParse(Object.fromEntries(new FormData(form)));
+  if (!parsed.success) return {};
+  const engine = engineErrors(parsed.data);
+  return engine ? { engine } : { spec: parsed.data };
+}
+
+/**
+ * Create or edit a wheel spec. While typing, the engine checks the spec in the browser and the
+ * preview shows each pass's wrench and setting; the server checks it all again on save.
+ */
+export function SpecForm({ spec, wrenches }: { spec?: Spec; wrenches: CribWrench[] }) {
+  const { state, formAction, pending, errors, value } = useFormAction(spec ? updateWheelSpec : createWheelSpec);
+  const [live, setLive] = useState<Live>({});
+  const initial = (name: keyof Spec, fallback = '') => value(name) ?? (spec?.[name] == null ? fallback : String(spec[name]));
+  const fieldErrors = (name: string) => errors(name) ?? live.engine?.[name];
+  const shown = state?.ok ? { ok: true, message: 'Spec saved.' } : state;
+
+  return (
+    <div className="grid gap-8 lg:grid-cols-2">
+      <form action={formAction} onChange={(e) => setLive(readLive(e.currentTarget))} noValidate className="flex flex-col gap-6" aria-label="Wheel spec">
+        <FormMessage state={shown} />
+        {spec ? <input type="hidden" name="specId" value={spec.id} /> : null}
+        <fieldset className="flex flex-col gap-4">
+          <legend className="mb-2 text-lg font-bold">Wheel and ring</legend>
+          <TextField label="Spec name" name="name" required defaultValue={initial('name')} errors={fieldErrors('name')} hint="How the shop calls this wheel, e.g. “15 in UTV beadlock, 24 bolts”." />
+          <TextField label="Bolt count" name="boltCount" inputMode="numeric" required defaultValue={initial('boltCount')} errors={fieldErrors('boltCount')} hint="4 to 64 ring bolts." />
+          <TextField label="Ring bolt thread" name="boltThread" required defaultValue={initial('boltThread')} errors={fieldErrors('boltThread')} hint="e.g. M8×1.25 or 5/16-18." />
+        </fieldset>
+        <fieldset className="flex flex-col gap-4">
+          <legend className="mb-2 text-lg font-bold">Torque passes</legend>
+          <div className="grid grid-cols-[2fr_1fr] gap-3">
+            <TextField label="Final torque" name="finalTorque" inputMode="decimal" required defaultValue={initial('finalTorque')} errors={fieldErrors('finalTorque')} />
+            <SelectField label="Unit" name="torqueUnit" options={torqueOptions} defaultValue={initial('torqueUnit', 'lbf-ft')} errors={fieldErrors('torqueUnit')} />
+          </div>
+          <TextField label="Passes (% of final)" name="passPercents" defaultValue={value('passPercents') ?? spec?.passPercents.join(', ') ?? '30, 70, 100'} errors={fieldErrors('passPercents')} hint="Rising, ending at 100. ASME PCC-1 (from memory) uses rounds of about 20–30, 50–70 and 100." />
+          <SelectField label="Tightening pattern" name="patternKind" options={patternOptions} defaultValue={initial('patternKind', 'cross')} errors={fieldErrors('patternKind')} />
+          <TextField label="Skip step (skip pattern only)" name="skipStep" inputMode="numeric" defaultValue={initial('skipStep')} errors={fieldErrors('skipStep')} hint="Tighten every k-th bolt, e.g. 5 on a 20-bolt ring." />
+          <CheckboxField label="Check pass at 100 %" name="checkPass" defaultChecked={spec ? spec.checkPass : true} hint="Goes round clockwise after the last staged pass." />
+        </fieldset>
+        <fieldset className="flex flex-col gap-4">
+          <legend className="mb-2 text-lg font-bold">Lug nuts (re-install)</legend>
+          <div className="grid grid-cols-[2fr_1fr] gap-3">
+            <TextField label="Lug-nut torque" name="lugTorque" inputMode="decimal" defaultValue={initial('lugTorque')} errors={fieldErrors('lugTorque')} />
+            <SelectField label="Unit" name="lugTorqueUnit" options={torqueOptions} defaultValue={initial('lugTorqueUnit', 'lbf-ft')} errors={fieldErrors('lugTorqueUnit')} />
+          </div>
+          <TextField label="Lug count" name="lugCount" inputMode="numeric" defaultValue={initial('lugCount')} errors={fieldErrors('lugCount')} />
+        </fieldset>
+        <fieldset className="flex flex-col gap-4">
+          <legend className="mb-2 text-lg font-bold">Pressure</legend>
+          <TextField label="Maximum bead-seating pressure" name="maxBeadSeatPressure" inputMode="decimal" required defaultValue={initial('maxBeadSeatPressure')} errors={fieldErrors('maxBeadSeatPressure')} hint="From the tire maker. Never exceed it while seating the bead." />
+          <TextField label="Running pressure" name="runningPressure" inputMode="decimal" required defaultValue={initial('runningPressure')} errors={fieldErrors('runningPressure')} />
+          <SelectField label="Pressure unit" name="pressureUnit" options={pressureOptions} defaultValue={initial('pressureUnit', 'psi')} errors={fieldErrors('pressureUnit')} />
+        </fieldset>
+        <fieldset className="flex flex-col gap-4">
+          <legend className="mb-2 text-lg font-bold">Maker&apos;s spec and notes</legend>
+          <TextField label="Wheel maker's spec (link or reference)" name="makerReference" defaultValue={initial('makerReference')} errors={fieldErrors('makerReference')} />
+          <TextField label="Notes" name="notes" defaultValue={initial('notes')} errors={fieldErrors('notes')} />
+        </fieldset>
+        <Button disabled={pending}>{pending ? 'Saving…' : spec ? 'Save spec' : 'Create spec'}</Button>
+      </form>
+      <div>
+        {live.spec || spec ? (
+          <SpecPreview spec={live.spec ?? specToInput(spec!)} wrenches={wrenches} />
+        ) : (
+          <p className="rounded-xl border-2 border-dashed border-paper-line p-4 text-ink-soft">Fill in the bolt count, torque and passes to see the sequence and each pass&apos;s wrench.</p>
+        )}
+      </div>
+    </div>
+  );
+}
+

@@ -1,0 +1,51 @@
+import { passPlan, tighteningSequence, TorquePlanError, type Pattern } from '@/features/torque-plan';
+import type { SpecInput } from './schemas';
+import type { Spec } from './server/specs';
+
+export function specPattern(s: Pick<SpecInput, 'patternKind' | 'skipStep'>): Pattern {
+  return s.patternKind === 'skip' ? { kind: 'skip', step: s.skipStep ?? 0 } : { kind: s.patternKind };
+}
+
+// Engine field names → the spec form's.
+const FIELD: [RegExp, string][] = [
+  [/^boltCount/, 'boltCount'],
+  [/^pattern/, 'skipStep'],
+  [/^fractions/, 'passPercents'],
+  [/^final\.value/, 'finalTorque'],
+  [/^final\.unit/, 'torqueUnit'],
+];
+
+/**
+ * Runs the spec through the engine: a spec the engine refuses cannot be saved. Pure, so the form
+ * shows the same message at the same field before the server says it again.
+ */
+export function engineErrors(s: SpecInput): Record<string, string[]> | null {
+  try {
+    tighteningSequence(s.boltCount, specPattern(s));
+    passPlan({ value: s.finalTorque, unit: s.torqueUnit }, s.passPercents.map((p) => p / 100), { checkPass: s.checkPass });
+    return null;
+  } catch (error) {
+    if (!(error instanceof TorquePlanError)) throw error;
+    const field = FIELD.find(([re]) => re.test(error.field ?? ''))?.[1] ?? 'name';
+    return { [field]: [field === 'passPercents' ? inPercent(error.message) : error.message] };
+  }
+}
+
+/** The engine speaks in fractions; the form in percent. */
+function inPercent(message: string): string {
+  if (/rise strictly/.test(message)) return 'Each pass must be higher than the one before.';
+  if (/last pass/.test(message)) return 'The last pass must be 100 (the final torque).';
+  if (/above 0 and at most 1/.test(message)) return 'Each pass must be above 0 and at most 100.';
+  return message;
+}
+
+/** A stored spec as the form's input shape (nulls become absent). */
+export function specToInput(spec: Spec): SpecInput {
+  return {
+    ...spec,
+    skipStep: spec.skipStep ?? undefined,
+    lugTorque: spec.lugTorque ?? undefined,
+    lugTorqueUnit: spec.lugTorqueUnit ?? undefined,
+    lugCount: spec.lugCount ?? undefined,
+  };
+}

@@ -1,0 +1,34 @@
+'use client';
+
+import { UNIT_LABELS } from '@/features/torque-plan';
+import { Button } from '@/features/ui/button';
+import { SelectField, TextField } from '@/features/ui/field';
+import { FormMessage } from '@/features/ui/form-message';
+import { useFormAction } from '@/features/ui/use-form-action';
+import { verifyWrench } from '../actions/wrench-actions';
+
+const units = (['lbf-ft', 'lbf-in', 'Nm'] as const).map((u) => ({ value: u, label: UNIT_LABELS[u] }));
+
+export function VerificationForm({ wrenchId, unit }: { wrenchId: string; unit: 'lbf-ft' | 'lbf-in' | 'Nm' }) {
+  const { state, formAction, pending, errors, value } = useFormAction(verifyWrench);
+  const verdict =
+    state?.ok && state.data
+      ? state.data.withinTolerance
+        ? { ok: true, message: `Within tolerance: ${signed(state.data.deviationPct)} % (allowed ±${state.data.tolerancePct} %).` }
+        : { ok: false, message: `Out of tolerance: ${signed(state.data.deviationPct)} % (allowed ±${state.data.tolerancePct} %). The wrench is out of service until a lead clears it.` }
+      : state;
+  return (
+    <form action={formAction} noValidate className="flex flex-col gap-4" aria-label="Record a verification">
+      <FormMessage state={verdict} />
+      <input type="hidden" name="wrenchId" value={wrenchId} />
+      <div className="grid grid-cols-2 gap-3">
+        <TextField label="Reference value" name="referenceValue" inputMode="decimal" required defaultValue={value('referenceValue')} errors={errors('referenceValue')} hint="What the tester was set to." />
+        <TextField label="Reading" name="readingValue" inputMode="decimal" required defaultValue={value('readingValue')} errors={errors('readingValue')} hint="What the tester showed at the click." />
+      </div>
+      <SelectField label="Unit" name="unit" options={units} defaultValue={value('unit') ?? unit} errors={errors('unit')} />
+      <Button disabled={pending}>{pending ? 'Recording…' : 'Record verification'}</Button>
+    </form>
+  );
+}
+
+const signed = (n: number) => `${n > 0 ? '+' : ''}${n.toFixed(1)}`;

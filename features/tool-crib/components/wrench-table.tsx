@@ -1,0 +1,42 @@
+import Link from 'next/link';
+import { UNIT_LABELS } from '@/features/torque-plan';
+import type { CribWrenchDto } from '../server/wrenches';
+import { StatusBadge } from './status-badge';
+
+export function WrenchTable({ wrenches }: { wrenches: CribWrenchDto[] }) {
+  return (
+    <div className="overflow-x-auto">
+      <table className="w-full border-collapse text-left">
+        <caption className="sr-only">Torque wrenches in the tool crib</caption>
+        <thead>
+          <tr className="border-b-2 border-ink">
+            <th scope="col" className="p-2">Wrench</th>
+            <th scope="col" className="p-2">Range</th>
+            <th scope="col" className="p-2">Calibration due</th>
+            <th scope="col" className="p-2">Status</th>
+          </tr>
+        </thead>
+        <tbody>
+          {wrenches.map((w) => (
+            <tr key={w.id} className="border-b border-paper-line align-top">
+              <th scope="row" className="p-2">
+                <Link href={`/tool-crib/${w.id}`} className="inline-flex min-h-touch items-center font-semibold text-work underline">
+                  {w.label}
+                </Link>
+                <span className="block text-sm font-normal text-ink-soft">{w.kind}{w.serial ? ` · S/N ${w.serial}` : ''}</span>
+              </th>
+              <td className="p-2">
+                {w.min}–{w.max} {UNIT_LABELS[w.unit]} <span className="block text-sm text-ink-soft">steps of {w.graduation}</span>
+              </td>
+              <td className="p-2">{w.calibrationDueOn}</td>
+              <td className="p-2">
+                <StatusBadge status={w.status} />
+                {w.statusReason ? <span className="mt-1 block text-sm">{w.statusReason}</span> : null}
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}

@@ -1,0 +1,176 @@
+import 'server-only';
+import { and, asc, desc, eq, gte, inArray, lt, or, sql } from 'drizzle-orm';
+import { getDb } from '@/db';
+import { users, wrenches, wrenchStatusEvents, wrenchVerifications, type WrenchRow } from '@/db/schema';
+import { assertWrench, TorquePlanError, verifyReading, type Wrench } from '@/features/torque-plan';
+import type { Member } from '@/server/auth/session';
+import { DomainError, notFound } from '@/server/errors';
+import type { VerificationInput, WrenchInput } from '../schemas';
+
+/** Recalibration after this many cycles (ISO 6789, secondary sources), unless the shop says otherwise. */
+export const CYCLE_LIMIT = 5000;
+
+export type CribWrenchDto = Omit<WrenchRow, 'shopId' | 'createdAt'>;
+
+const columns = {
+  id: wrenches.id,
+  label: wrenches.label,
+  kind: wrenches.kind,
+  min: wrenches.min,
+  max: wrenches.max,
+  unit: wrenches.unit,
+  graduation: wrenches.graduation,
+  serial: wrenches.serial,
+  calibrationDueOn: wrenches.calibrationDueOn,
+  cyclesSinceCalibration: wrenches.cyclesSinceCalibration,
+  status: wrenches.status,
+  statusReason: wrenches.statusReason,
+};
+
+function checkWithEngine(input: WrenchInput) {
+  try {
+    assertWrench({ id: input.label, ...input });
+  } catch (error) {
+    if (error instanceof TorquePlanError) {
+      const field = (error.field ?? '').split('.').pop() ?? 'label';
+      throw new DomainError('invalid', error.message, { [field]: [error.message] });
+    }
+    throw error;
+  }
+}
+
+/**
+ * Puts wrenches whose calibration is overdue (or whose cycle count reached the limit) out of
+ * service, with an event each. Run before the crib is read, so nobody is offered such a wrench.
+ */
+export async function sweepOverdue(shopId: string): Promise<void> {
+  const db = getDb();
+  const overdue = await db
+    .update(wrenches)
+    .set({ status: 'out_of_service', statusReason: sql`case when ${wrenches.calibrationDueOn} < current_date then 'Calibration overdue (was due ' || ${wrenches.calibrationDueOn}::text || ')' else 'Cycle count reached ${sql.raw(String(CYCLE_LIMIT))}: recalibrate' end` })
+    .where(
+      and(
+        eq(wrenches.shopId, shopId),
+        eq(wrenches.status, 'in_service'),
+        or(lt(wrenches.calibrationDueOn, sql`current_date`), gte(wrenches.cyclesSinceCalibration, CYCLE_LIMIT)),
+      ),
+    )
+    .returning({ id: wrenches.id, reason: wrenches.statusReason });
+  if (overdue.length) {
+    await db.insert(wrenchStatusEvents).values(overdue.map((w) => ({ shopId, wrenchId: w.id, status: 'out_of_service' as const, reason: w.reason })));
+  }
+}
+
+export async function listWrenches(shopId: string): Promise<CribWrenchDto[]> {
+  await sweepOverdue(shopId);
+  return getDb().select(columns).from(wrenches).where(eq(wrenches.shopId, shopId)).orderBy(asc(wrenches.label));
+}
+
+export async function getWrench(shopId: string, wrenchId: string): Promise<CribWrenchDto> {
+  await sweepOverdue(shopId);
+  const [row] = await getDb().select(columns).from(wrenches).where(and(eq(wrenches.shopId, shopId), eq(wrenches.id, wrenchId)));
+  if (!row) throw notFound('That wrench');
+  return row;
+}
+
+/** In-service wrenches as the engine takes them (optionally only these ids), with their labels. */
+export async function wrenchesForEngine(shopId: string, ids?: string[]): Promise<(Wrench & { label: string })[]> {
+  await sweepOverdue(shopId);
+  const rows = await getDb()
+    .select({ id: wrenches.id, label: wrenches.label, min: wrenches.min, max: wrenches.max, unit: wrenches.unit, graduation: wrenches.graduation, kind: wrenches.kind })
+    .from(wrenches)
+    .where(and(eq(wrenches.shopId, shopId), eq(wrenches.status, 'in_service'), ids ? inArray(wrenches.id, ids) : undefined));
+  return rows;
+}
+
+export async function createWrench(actor: Member, input: WrenchInput): Promise<CribWrenchDto> {
+  checkWithEngine(input);
+  const [row] = await getDb()
+    .insert(wrenches)
+    .values({ ...input, cyclesSinceCalibration: input.cyclesSinceCalibration ?? null, shopId: actor.shopId })
+    .returning(columns);
+  await sweepOverdue(actor.shopId);
+  return getWrench(actor.shopId, row!.id);
+}
+
+export async function updateWrench(actor: Member, wrenchId: string, input: WrenchInput): Promise<CribWrenchDto> {
+  checkWithEngine(input);
+  const [row] = await getDb()
+    .update(wrenches)
+    .set({ ...input, cyclesSinceCalibration: input.cyclesSinceCalibration ?? null })
+    .where(and(eq(wrenches.shopId, actor.shopId), eq(wrenches.id, wrenchId)))
+    .returning({ id: wrenches.id });
+  if (!row) throw notFound('That wrench');
+  return getWrench(actor.shopId, wrenchId);
+}
+
+/**
+ * Records a reading against a reference, judged by the engine. Out of tolerance puts the wrench
+ * out of service at once; a good reading never puts it back (only a lead does, with a reason).
+ */
+export async function recordVerification(actor: Member, wrenchId: string, input: VerificationInput) {
+  const wrench = await getWrench(actor.shopId, wrenchId);
+  const verdict = verifyReading({ ...wrench }, { value: input.referenceValue, unit: input.unit }, { value: input.readingValue, unit: input.unit });
+  return getDb().transaction(async (tx) => {
+    const [row] = await tx
+      .insert(wrenchVerifications)
+      .values({ shopId: actor.shopId, wrenchId, ...input, deviationPct: verdict.deviationPct, tolerancePct: verdict.tolerancePct, withinTolerance: verdict.withinTolerance, recordedById: actor.userId })
+      .returning({ id: wrenchVerifications.id, recordedAt: wrenchVerifications.recordedAt });
+    if (!verdict.withinTolerance && wrench.status === 'in_service') {
+      const reason = `Verification out of tolerance: ${verdict.deviationPct > 0 ? '+' : ''}${verdict.deviationPct.toFixed(1)} % (allowed ±${verdict.tolerancePct} %)`;
+      await tx.update(wrenches).set({ status: 'out_of_service', statusReason: reason }).where(and(eq(wrenches.shopId, actor.shopId), eq(wrenches.id, wrenchId)));
+      await tx.insert(wrenchStatusEvents).values({ shopId: actor.shopId, wrenchId, status: 'out_of_service', reason, byId: actor.userId });
+    }
+    return { id: row!.id, recordedAt: row!.recordedAt.toISOString(), ...verdict };
+  });
+}
+
+/** A lead puts an out-of-service wrench back, with a reason; not while its calibration is overdue. */
+export async function clearWrench(actor: Member, wrenchId: string, reason: string): Promise<CribWrenchDto> {
+  const wrench = await getWrench(actor.shopId, wrenchId);
+  if (wrench.status === 'in_service') throw new DomainError('conflict', 'This wrench is already in service.');
+  const [overdue] = await getDb()
+    .select({ yes: sql<boolean>`${wrenches.calibrationDueOn} < current_date or coalesce(${wrenches.cyclesSinceCalibration}, 0) >= ${CYCLE_LIMIT}` })
+    .from(wrenches)
+    .where(and(eq(wrenches.shopId, actor.shopId), eq(wrenches.id, wrenchId)));
+  if (overdue?.yes) {
+    const message = 'Its calibration is overdue: record the new calibration (due date, cycles) before putting it back in service.';
+    throw new DomainError('conflict', message, { reason: [message] });
+  }
+  await getDb().transaction(async (tx) => {
+    await tx.update(wrenches).set({ status: 'in_service', statusReason: '' }).where(and(eq(wrenches.shopId, actor.shopId), eq(wrenches.id, wrenchId)));
+    await tx.insert(wrenchStatusEvents).values({ shopId: actor.shopId, wrenchId, status: 'in_service', reason, byId: actor.userId });
+  });
+  return getWrench(actor.shopId, wrenchId);
+}
+
+export type WrenchHistoryEntry =
+  | { type: 'verification'; at: string; by: string; referenceValue: number; readingValue: number; unit: WrenchRow['unit']; deviationPct: number; tolerancePct: number; withinTolerance: boolean }
+  | { type: 'status'; at: string; by: string | null; status: WrenchRow['status']; reason: string };
+
+/** Verifications and status changes, newest first. */
+export async function wrenchHistory(shopId: string, wrenchId: string): Promise<WrenchHistoryEntry[]> {
+  await getWrench(shopId, wrenchId);
+  const db = getDb();
+  const [checks, events] = await Promise.all([
+    db
+      .select({ at: wrenchVerifications.recordedAt, by: users.name, referenceValue: wrenchVerifications.referenceValue, readingValue: wrenchVerifications.readingValue, unit: wrenchVerifications.unit, deviationPct: wrenchVerifications.deviationPct, tolerancePct: wrenchVerifications.tolerancePct, withinTolerance: wrenchVerifications.withinTolerance })
+      .from(wrenchVerifications)
+      .innerJoin(users, eq(users.id, wrenchVerifications.recordedById))
+      .where(and(eq(wrenchVerifications.shopId, shopId), eq(wrenchVerifications.wrenchId, wrenchId)))
+      .orderBy(desc(wrenchVerifications.recordedAt))
+      .limit(200),
+    db
+      .select({ at: wrenchStatusEvents.at, by: users.name, status: wrenchStatusEvents.status, reason: wrenchStatusEvents.reason })
+      .from(wrenchStatusEvents)
+      .leftJoin(users, eq(users.id, wrenchStatusEvents.byId))
+      .where(and(eq(wrenchStatusEvents.shopId, shopId), eq(wrenchStatusEvents.wrenchId, wrenchId)))
+      .orderBy(desc(wrenchStatusEvents.at))
+      .limit(200),
+  ]);
+  const entries: WrenchHistoryEntry[] = [
+    ...checks.map((c) => ({ type: 'verification' as const, ...c, at: c.at.toISOString() })),
+    ...events.map((e) => ({ type: 'status' as const, ...e, at: e.at.toISOString() })),
+  ];
+  return entries.sort((a, b) => b.at.localeCompare(a.at) || (a.type === 'status' ? -1 : 1));
+}
