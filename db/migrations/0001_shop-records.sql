@@ -14,6 +14,18 @@ CREATE TABLE "customers" (
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL
 );
 --> statement-breakpoint
+CREATE TABLE "job_events" (
+	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
+	"shop_id" uuid NOT NULL,
+	"job_id" uuid NOT NULL,
+	"action" text NOT NULL,
+	"from_state" "job_state",
+	"to_state" "job_state" NOT NULL,
+	"by_id" uuid NOT NULL,
+	"note" text DEFAULT '' NOT NULL,
+	"at" timestamp with time zone DEFAULT now() NOT NULL
+);
+--> statement-breakpoint
 CREATE TABLE "job_wheels" (
 	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
 	"shop_id" uuid NOT NULL,
@@ -122,6 +134,9 @@ CREATE TABLE "wrenches" (
 );
 --> statement-breakpoint
 ALTER TABLE "customers" ADD CONSTRAINT "customers_shop_id_shops_id_fk" FOREIGN KEY ("shop_id") REFERENCES "public"."shops"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "job_events" ADD CONSTRAINT "job_events_shop_id_shops_id_fk" FOREIGN KEY ("shop_id") REFERENCES "public"."shops"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "job_events" ADD CONSTRAINT "job_events_job_id_jobs_id_fk" FOREIGN KEY ("job_id") REFERENCES "public"."jobs"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "job_events" ADD CONSTRAINT "job_events_by_id_users_id_fk" FOREIGN KEY ("by_id") REFERENCES "public"."users"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "job_wheels" ADD CONSTRAINT "job_wheels_shop_id_shops_id_fk" FOREIGN KEY ("shop_id") REFERENCES "public"."shops"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "job_wheels" ADD CONSTRAINT "job_wheels_job_id_jobs_id_fk" FOREIGN KEY ("job_id") REFERENCES "public"."jobs"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "job_wheels" ADD CONSTRAINT "job_wheels_spec_id_wheel_specs_id_fk" FOREIGN KEY ("spec_id") REFERENCES "public"."wheel_specs"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
@@ -141,6 +156,7 @@ ALTER TABLE "wrench_verifications" ADD CONSTRAINT "wrench_verifications_wrench_i
 ALTER TABLE "wrench_verifications" ADD CONSTRAINT "wrench_verifications_recorded_by_id_users_id_fk" FOREIGN KEY ("recorded_by_id") REFERENCES "public"."users"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "wrenches" ADD CONSTRAINT "wrenches_shop_id_shops_id_fk" FOREIGN KEY ("shop_id") REFERENCES "public"."shops"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 CREATE INDEX "customers_shop_idx" ON "customers" USING btree ("shop_id","name");--> statement-breakpoint
+CREATE INDEX "job_events_job_idx" ON "job_events" USING btree ("job_id","at");--> statement-breakpoint
 CREATE UNIQUE INDEX "job_wheels_position_key" ON "job_wheels" USING btree ("job_id","position");--> statement-breakpoint
 CREATE INDEX "job_wheels_shop_idx" ON "job_wheels" USING btree ("shop_id");--> statement-breakpoint
 CREATE UNIQUE INDEX "jobs_shop_number_key" ON "jobs" USING btree ("shop_id","number");--> statement-breakpoint

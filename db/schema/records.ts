@@ -209,3 +209,24 @@ export type WheelSpecRow = typeof wheelSpecs.$inferSelect;
 export type WrenchRow = typeof wrenches.$inferSelect;
 export type JobState = (typeof jobStateEnum.enumValues)[number];
 export type WheelPosition = (typeof wheelPositionEnum.enumValues)[number];
+
+/** Every state change of a job card: who moved it, from what, to what, and why. */
+export const jobEvents = pgTable(
+  'job_events',
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    shopId: shopId(),
+    jobId: uuid()
+      .notNull()
+      .references(() => jobs.id, { onDelete: 'cascade' }),
+    action: text().notNull(),
+    fromState: jobStateEnum(),
+    toState: jobStateEnum().notNull(),
+    byId: uuid()
+      .notNull()
+      .references(() => users.id),
+    note: text().notNull().default(''),
+    at: createdAt(),
+  },
+  (t) => [index('job_events_job_idx').on(t.jobId, t.at)],
+);

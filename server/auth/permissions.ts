@@ -6,6 +6,7 @@ import type { Role } from '@/db/schema';
  */
 export const PERMISSIONS = [
   'board.view',
+  'jobs.view',
   'team.manage',
   'shop.settings',
   'specs.manage',
@@ -27,6 +28,7 @@ const GRANTS: Record<Role, ReadonlySet<Permission>> = {
   lead: new Set(PERMISSIONS),
   technician: new Set<Permission>([
     'board.view',
+    'jobs.view',
     'verifications.record',
     'jobs.create',
     'jobs.run',

@@ -1,0 +1,205 @@
+import 'server-only';
+import { and, asc, eq, inArray, isNull, ne, sql } from 'drizzle-orm';
+import { getDb } from '@/db';
+import { jobEvents, jobs, jobWheels, users, wheelSpecs } from '@/db/schema';
+import { can } from '@/server/auth/permissions';
+import type { Member } from '@/server/auth/session';
+import { DomainError, notFound } from '@/server/errors';
+import { axleWarnings, tireSizeErrors } from '../axle-check';
+import type { JobInput, JobStateName, WheelInput } from '../schemas';
+import { createCustomer, createVehicle, getCustomer, getVehicle, vehicleLabel, type Customer, type Vehicle } from './customers';
+
+export type JobWheel = WheelInput & { id: string; specName: string };
+export type JobCard = {
+  id: string;
+  number: number;
+  state: JobStateName;
+  customer: Customer;
+  vehicle: Vehicle & { label: string };
+  assignee: { id: string; name: string } | null;
+  dueAt: string | null;
+  dismount: boolean;
+  reinstall: boolean;
+  notes: string;
+  createdAt: string;
+  updatedAt: string;
+  wheels: JobWheel[];
+  events: { action: string; fromState: JobStateName | null; toState: JobStateName; by: string; note: string; at: string }[];
+};
+
+/** Assignable people: active leads and technicians of the shop (apprentices only practise). */
+export async function listAssignees(shopId: string) {
+  return getDb()
+    .select({ id: users.id, name: users.name, role: users.role })
+    .from(users)
+    .where(and(eq(users.shopId, shopId), isNull(users.removedAt), ne(users.role, 'apprentice')))
+    .orderBy(asc(users.name));
+}
+
+async function assertAssignee(actor: Member, assigneeId: string | null | undefined) {
+  if (!assigneeId) return;
+  if (!can(actor.role, 'jobs.assign') && assigneeId !== actor.userId) {
+    const message = 'Only a lead assigns job cards to others; you can take it yourself or leave it unassigned.';
+    throw new DomainError('forbidden', message, { assigneeId: [message] });
+  }
+  const people = await listAssignees(actor.shopId);
+  if (!people.some((p) => p.id === assigneeId)) {
+    const message = 'Assign the job to a lead or technician of this shop.';
+    throw new DomainError('invalid', message, { assigneeId: [message] });
+  }
+}
+
+async function assertSpecs(shopId: string, specIds: string[]) {
+  const found = await getDb().select({ id: wheelSpecs.id }).from(wheelSpecs).where(and(eq(wheelSpecs.shopId, shopId), inArray(wheelSpecs.id, specIds)));
+  const missing = specIds.findIndex((id) => !found.some((f) => f.id === id));
+  if (missing >= 0) {
+    const message = 'Pick a wheel spec of this shop.';
+    throw new DomainError('invalid', message, { [`wheels.${missing}.specId`]: [message] });
+  }
+}
+
+/** Tire sizes the engine reads, and the axle check: warnings stop the save until accepted. */
+function assertTires(wheels: WheelInput[], accepted: boolean) {
+  const sizeErrors = tireSizeErrors(wheels);
+  if (Object.keys(sizeErrors).length) throw new DomainError('invalid', 'A tire size is not one Ringpass can read; see the wheels.', sizeErrors);
+  const warnings = axleWarnings(wheels);
+  if (warnings.length && !accepted) {
+    throw new DomainError('invalid', 'The tires do not match. Fix them, or tick "Save anyway" if the vehicle maker allows it.', { wheels: warnings });
+  }
+}
+
+export async function createJob(actor: Member, input: JobInput): Promise<{ id: string; number: number }> {
+  await assertAssignee(actor, input.assigneeId);
+  await assertSpecs(actor.shopId, input.wheels.map((w) => w.specId));
+  assertTires(input.wheels, input.acceptAxleMismatch);
+  return getDb().transaction(async (tx) => {
+    const customer = input.customerId ? await getCustomer(actor.shopId, input.customerId, tx) : await createCustomer(actor, input.customer!, tx);
+    let vehicle: Vehicle;
+    if (input.vehicleId) {
+      vehicle = await getVehicle(actor.shopId, input.vehicleId, tx);
+      if (vehicle.customerId !== customer.id) {
+        throw new DomainError('invalid', 'That vehicle belongs to another customer.', { vehicleId: ['That vehicle belongs to another customer.'] });
+      }
+    } else {
+      vehicle = await createVehicle(actor, customer.id, input.vehicle!, tx);
+    }
+    // Job numbers count up per shop; the lock keeps two creations from taking the same one.
+    await tx.execute(sql`select pg_advisory_xact_lock(hashtext(${actor.shopId}))`);
+    const [next] = await tx.select({ n: sql<number>`coalesce(max(${jobs.number}), 1000) + 1` }).from(jobs).where(eq(jobs.shopId, actor.shopId));
+    const [job] = await tx
+      .insert(jobs)
+      .values({
+        shopId: actor.shopId,
+        number: Number(next!.n),
+        customerId: customer.id,
+        vehicleId: vehicle.id,
+        assigneeId: input.assigneeId ?? null,
+        dueAt: input.dueAt ?? null,
+        dismount: input.dismount,
+        reinstall: input.reinstall,
+        notes: input.notes,
+        createdById: actor.userId,
+      })
+      .returning({ id: jobs.id, number: jobs.number });
+    await tx.insert(jobWheels).values(input.wheels.map((w) => ({ ...w, shopId: actor.shopId, jobId: job!.id })));
+    await tx.insert(jobEvents).values({ shopId: actor.shopId, jobId: job!.id, action: 'create', fromState: null, toState: 'open', byId: actor.userId });
+    return job!;
+  });
+}
+
+export async function getJob(shopId: string, jobId: string): Promise<JobCard> {
+  const db = getDb();
+  const [row] = await db
+    .select({ job: jobs, assigneeName: users.name })
+    .from(jobs)
+    .leftJoin(users, eq(users.id, jobs.assigneeId))
+    .where(and(eq(jobs.shopId, shopId), eq(jobs.id, jobId)));
+  if (!row) throw notFound('That job card');
+  const { job } = row;
+  const [customer, vehicle, wheels, events] = await Promise.all([
+    getCustomer(shopId, job.customerId),
+    getVehicle(shopId, job.vehicleId),
+    db
+      .select({ id: jobWheels.id, position: jobWheels.position, specId: jobWheels.specId, specName: wheelSpecs.name, tireSize: jobWheels.tireSize, directional: jobWheels.directional, targetPressure: jobWheels.targetPressure, pressureUnit: jobWheels.pressureUnit })
+      .from(jobWheels)
+      .innerJoin(wheelSpecs, eq(wheelSpecs.id, jobWheels.specId))
+      .where(and(eq(jobWheels.shopId, shopId), eq(jobWheels.jobId, jobId))),
+    db
+      .select({ action: jobEvents.action, fromState: jobEvents.fromState, toState: jobEvents.toState, by: users.name, note: jobEvents.note, at: jobEvents.at })
+      .from(jobEvents)
+      .innerJoin(users, eq(users.id, jobEvents.byId))
+      .where(and(eq(jobEvents.shopId, shopId), eq(jobEvents.jobId, jobId)))
+      .orderBy(asc(jobEvents.at)),
+  ]);
+  const order = ['LF', 'RF', 'LR', 'RR', 'spare'];
+  return {
+    id: job.id,
+    number: job.number,
+    state: job.state,
+    customer,
+    vehicle: { ...vehicle, label: vehicleLabel(vehicle) },
+    assignee: job.assigneeId ? { id: job.assigneeId, name: row.assigneeName ?? '' } : null,
+    dueAt: job.dueAt?.toISOString() ?? null,
+    dismount: job.dismount,
+    reinstall: job.reinstall,
+    notes: job.notes,
+    createdAt: job.createdAt.toISOString(),
+    updatedAt: job.updatedAt.toISOString(),
+    wheels: wheels.sort((a, b) => order.indexOf(a.position) - order.indexOf(b.position)),
+    events: events.map((e) => ({ ...e, at: e.at.toISOString() })),
+  };
+}
+
+export async function updateJob(
+  actor: Member,
+  jobId: string,
+  patch: { assigneeId?: string | null; dueAt?: Date | null; notes?: string; dismount?: boolean; reinstall?: boolean },
+): Promise<JobCard> {
+  const job = await getJob(actor.shopId, jobId);
+  if (job.state === 'signed_off') throw new DomainError('conflict', 'A signed-off job card is a record and cannot be edited.');
+  if (patch.assigneeId !== undefined) await assertAssignee(actor, patch.assigneeId);
+  await getDb()
+    .update(jobs)
+    .set({ ...patch, updatedAt: new Date() })
+    .where(and(eq(jobs.shopId, actor.shopId), eq(jobs.id, jobId)));
+  return getJob(actor.shopId, jobId);
+}
+
+async function assertWheelsEditable(actor: Member, jobId: string) {
+  const job = await getJob(actor.shopId, jobId);
+  if (job.state !== 'open' && job.state !== 'sent_back') {
+    throw new DomainError('conflict', 'Wheels can change only while the job card is open or sent back.');
+  }
+  return job;
+}
+
+export async function addWheel(actor: Member, jobId: string, wheel: WheelInput, acceptAxleMismatch = false): Promise<JobWheel> {
+  const job = await assertWheelsEditable(actor, jobId);
+  if (job.wheels.some((w) => w.position === wheel.position)) {
+    throw new DomainError('conflict', `The job already has a ${wheel.position} wheel.`, { position: [`The job already has a ${wheel.position} wheel.`] });
+  }
+  await assertSpecs(actor.shopId, [wheel.specId]);
+  assertTires([...job.wheels, wheel], acceptAxleMismatch);
+  const [row] = await getDb().insert(jobWheels).values({ ...wheel, shopId: actor.shopId, jobId }).returning({ id: jobWheels.id });
+  return (await getJob(actor.shopId, jobId)).wheels.find((w) => w.id === row!.id)!;
+}
+
+export async function getWheel(shopId: string, wheelId: string): Promise<JobWheel & { jobId: string }> {
+  const [row] = await getDb().select({ jobId: jobWheels.jobId }).from(jobWheels).where(and(eq(jobWheels.shopId, shopId), eq(jobWheels.id, wheelId)));
+  if (!row) throw notFound('That wheel');
+  const wheel = (await getJob(shopId, row.jobId)).wheels.find((w) => w.id === wheelId)!;
+  return { ...wheel, jobId: row.jobId };
+}
+
+export async function updateWheel(actor: Member, wheelId: string, wheel: WheelInput, acceptAxleMismatch = false): Promise<JobWheel> {
+  const current = await getWheel(actor.shopId, wheelId);
+  const job = await assertWheelsEditable(actor, current.jobId);
+  if (job.wheels.some((w) => w.id !== wheelId && w.position === wheel.position)) {
+    throw new DomainError('conflict', `The job already has a ${wheel.position} wheel.`, { position: [`The job already has a ${wheel.position} wheel.`] });
+  }
+  await assertSpecs(actor.shopId, [wheel.specId]);
+  assertTires([...job.wheels.filter((w) => w.id !== wheelId), wheel], acceptAxleMismatch);
+  await getDb().update(jobWheels).set(wheel).where(and(eq(jobWheels.shopId, actor.shopId), eq(jobWheels.id, wheelId)));
+  return getWheel(actor.shopId, wheelId);
+}
+
