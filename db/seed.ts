@@ -7,6 +7,7 @@ import { drizzle } from 'drizzle-orm/postgres-js';
 import postgres from 'postgres';
 import { hashPassword } from '@/server/auth/password';
 import * as schema from './schema';
+import { seedDemoRecords } from './seed-demo-records';
 
 export const DEMO_PASSWORD = 'dustline-demo-2026';
 export const DEMO_SHOP = 'Dustline Off-Road Tire Co.';
@@ -28,7 +29,12 @@ export async function seedDemoShop(url: string): Promise<{ created: boolean }> {
     const passwordHash = await hashPassword(DEMO_PASSWORD);
     await db.transaction(async (tx) => {
       const [shop] = await tx.insert(schema.shops).values({ name: DEMO_SHOP }).returning({ id: schema.shops.id });
-      await tx.insert(schema.users).values(DEMO_PEOPLE.map((p) => ({ ...p, shopId: shop!.id, passwordHash })));
+      const people = await tx
+        .insert(schema.users)
+        .values(DEMO_PEOPLE.map((p) => ({ ...p, shopId: shop!.id, passwordHash })))
+        .returning({ id: schema.users.id, role: schema.users.role });
+      const id = (role: string) => people.find((p) => p.role === role)!.id;
+      await seedDemoRecords(tx, shop!.id, { lead: id('lead'), tech: id('technician') });
     });
     return { created: true };
   } finally {

@@ -1,6 +1,6 @@
 import 'server-only';
 import { unstable_rethrow } from 'next/navigation';
-import { z } from 'zod';
+import type { z } from 'zod';
 import { can, type Permission } from '@/server/auth/permissions';
 import { getCurrentMember, type Member } from '@/server/auth/session';
 import { DomainError } from '@/server/errors';
@@ -39,6 +39,13 @@ function failure(error: unknown, raw: Record<string, unknown>): ActionResult<nev
   return { ok: false, message: 'Something went wrong on our side. Nothing was saved; try again.', values: echo(raw) };
 }
 
+/** Messages keyed by the full path of the field ("email", "wheels.0.tireSize"). */
+export function fieldErrorsOf(error: z.ZodError): Record<string, string[]> {
+  const fields: Record<string, string[]> = {};
+  for (const issue of error.issues) (fields[issue.path.join('.') || 'form'] ??= []).push(issue.message);
+  return fields;
+}
+
 async function parseAndRun<S extends z.ZodType, T>(
   schema: S,
   payload: FormData | unknown,
@@ -50,7 +57,7 @@ async function parseAndRun<S extends z.ZodType, T>(
     return {
       ok: false,
       message: 'Check the highlighted fields.',
-      fieldErrors: z.flattenError(parsed.error).fieldErrors as FieldErrors,
+      fieldErrors: fieldErrorsOf(parsed.error),
       values: echo(raw),
     };
   }

@@ -1,5 +1,6 @@
 import 'server-only';
 import type { z } from 'zod';
+import { fieldErrorsOf } from '@/server/action';
 import { requireMemberForRequest } from '@/server/auth/guard';
 import type { Permission } from '@/server/auth/permissions';
 import type { Member } from '@/server/auth/session';
@@ -57,12 +58,7 @@ async function readJson(request: Request): Promise<unknown> {
 function validate<S extends z.ZodType>(schema: S, value: unknown, what: string): z.output<S> {
   const parsed = schema.safeParse(value);
   if (parsed.success) return parsed.data;
-  const fields: Record<string, string[]> = {};
-  for (const issue of parsed.error.issues) {
-    const key = issue.path.join('.') || what;
-    (fields[key] ??= []).push(issue.message);
-  }
-  throw new DomainError('invalid', `The ${what} has errors; see fields.`, fields);
+  throw new DomainError('invalid', `The ${what} has errors; see fields.`, fieldErrorsOf(parsed.error));
 }
 
 type Context<P, B, Q> = { request: Request; member: Member; params: P; body: B; query: Q };

@@ -33,7 +33,8 @@ test('a lead signs up, invites a technician by e-mail; the technician accepts, s
   await expect(techPage.getByRole('heading', { name: 'Sign in' })).toBeVisible();
   await signIn(techPage, tech);
   await expect(techPage.getByRole('heading', { name: 'Board' })).toBeVisible();
-  await expect(techPage.getByText('No job cards yet')).toBeVisible();
+  // A technician's board shows their own work by default; nothing is assigned yet.
+  await expect(techPage.getByText('No job cards assigned to you yet')).toBeVisible();
   // A technician sees no Team link and cannot open the lead-only page.
   await expect(techPage.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Team' })).toHaveCount(0);
   const response = await techPage.goto('/team');

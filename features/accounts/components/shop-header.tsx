@@ -15,6 +15,7 @@ export function ShopHeader({ member, shopName, mailbox }: { member: Member; shop
         </p>
         <nav aria-label="Main" className="flex flex-wrap items-center gap-1">
           <NavLink href="/board">Board</NavLink>
+          {can(member.role, 'jobs.create') ? <NavLink href="/customers">Customers</NavLink> : null}
           <NavLink href="/specs">Specs</NavLink>
           {can(member.role, 'verifications.record') ? <NavLink href="/tool-crib">Tool crib</NavLink> : null}
           {can(member.role, 'team.manage') ? (

@@ -103,20 +103,20 @@ function checkedVin(actor: Member, input: Pick<VehicleFields, 'vin' | 'vinOverri
 
 export async function createVehicle(actor: Member, customerId: string, input: VehicleFields, db: Tx = getDb()): Promise<Vehicle> {
   await getCustomer(actor.shopId, customerId, db);
-  const { vinOverride: _, vin, ...rest } = input;
+  const { vinOverride, vin, ...rest } = input;
   const [row] = await db
     .insert(vehicles)
-    .values({ ...rest, year: rest.year ?? null, ...checkedVin(actor, { vin, vinOverride: input.vinOverride }), customerId, shopId: actor.shopId })
+    .values({ ...rest, year: rest.year ?? null, ...checkedVin(actor, { vin, vinOverride }), customerId, shopId: actor.shopId })
     .returning(vehicleColumns);
   return row!;
 }
 
 export async function updateVehicle(actor: Member, vehicleId: string, input: VehicleFields & { customerId: string }): Promise<Vehicle> {
   await getCustomer(actor.shopId, input.customerId);
-  const { vinOverride: _, vin, ...rest } = input;
+  const { vinOverride, vin, customerId, ...rest } = input;
   const [row] = await getDb()
     .update(vehicles)
-    .set({ ...rest, year: rest.year ?? null, ...checkedVin(actor, { vin, vinOverride: input.vinOverride }) })
+    .set({ ...rest, customerId, year: rest.year ?? null, ...checkedVin(actor, { vin, vinOverride }) })
     .where(and(eq(vehicles.shopId, actor.shopId), eq(vehicles.id, vehicleId)))
     .returning(vehicleColumns);
   if (!row) throw notFound('That vehicle');

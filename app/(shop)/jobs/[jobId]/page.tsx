@@ -1,0 +1,38 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { notFound } from 'next/navigation';
+import { JobDetails } from '@/features/jobs/components/job-details';
+import { JobEditForm } from '@/features/jobs/components/job-edit-form';
+import { TransitionForm } from '@/features/jobs/components/transition-form';
+import { ids } from '@/features/jobs/schemas';
+import { getJob, listAssignees } from '@/features/jobs/server/jobs';
+import { allowedTransitions } from '@/features/jobs/transitions';
+import { PageHeader } from '@/features/ui/page';
+import { requireMember } from '@/server/auth/guard';
+import { can } from '@/server/auth/permissions';
+import { orNotFound } from '@/server/errors';
+
+export const metadata: Metadata = { title: 'Job card' };
+
+export default async function JobPage({ params }: PageProps<'/jobs/[jobId]'>) {
+  const member = await requireMember('jobs.view');
+  const id = ids.job.safeParse((await params).jobId);
+  if (!id.success) notFound();
+  const job = await orNotFound(getJob(member.shopId, id.data));
+  const editable = can(member.role, 'jobs.edit') && job.state !== 'signed_off';
+  return (
+    <>
+      <Link href="/board" className="font-semibold text-work underline">
+        ← Board
+      </Link>
+      <PageHeader title={`Job #${job.number} · ${job.vehicle.label}`} />
+      <div className="grid gap-8 lg:grid-cols-[2fr_1fr]">
+        <JobDetails job={job} />
+        <div className="flex flex-col gap-6">
+          <TransitionForm jobId={job.id} allowed={allowedTransitions(member, job)} />
+          {editable ? <JobEditForm job={job} assignees={await listAssignees(member.shopId)} /> : null}
+        </div>
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,183 @@
+'use client';
+
+import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
+import Link from 'next/link';
+import { usePathname, useRouter, useSearchParams } from 'next/navigation';
+import { useCallback, useMemo } from 'react';
+import { EmptyState } from '@/features/ui/page';
+import { useJobs, type BoardFilters as Filters } from '../api/get-jobs';
+import type { BoardRow } from '../server/board';
+import { BoardFilters } from './board-filters';
+import { StateBadge } from './state-badge';
+
+const col = createColumnHelper<BoardRow>();
+const SORTABLE = new Set(['number', 'state', 'customer', 'due']);
+
+const columns = [
+  col.accessor('number', {
+    header: 'Job',
+    cell: (c) => (
+      <Link href={`/jobs/${c.row.original.id}`} className="inline-flex min-h-touch items-center font-bold text-work underline">
+        #{c.getValue()}
+      </Link>
+    ),
+  }),
+  col.accessor('state', { header: 'State', cell: (c) => <StateBadge state={c.getValue()} /> }),
+  col.accessor('customer', { header: 'Customer' }),
+  col.accessor('vehicle', { header: 'Vehicle', enableSorting: false }),
+  col.accessor('wheelCount', { header: 'Wheels', enableSorting: false }),
+  col.accessor((r) => r.assignee?.name ?? '—', { id: 'assignee', header: 'Assigned to', enableSorting: false }),
+  col.accessor('dueAt', {
+    id: 'due',
+    header: 'Due',
+    cell: (c) => {
+      const v = c.getValue();
+      if (!v) return '—';
+      const overdue = new Date(v).getTime() < Date.now() && c.row.original.state !== 'signed_off';
+      return (
+        <time dateTime={v} className={overdue ? 'font-bold text-danger' : ''}>
+          {new Date(v).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' })}
+          {overdue ? ' (overdue)' : ''}
+        </time>
+      );
+    },
+  }),
+];
+
+/**
+ * The live board: filters, sort and page live in the URL; rows come from GET /api/jobs through
+ * TanStack Query, refreshed while the page is open.
+ */
+export function Board({ people, defaultAssignee, canCreate }: { people: { id: string; name: string }[]; defaultAssignee?: string; canCreate: boolean }) {
+  const router = useRouter();
+  const pathname = usePathname();
+  const search = useSearchParams();
+  const filters: Filters = useMemo(() => {
+    const get = (k: string) => search.get(k) ?? undefined;
+    return { state: get('state'), assignee: get('assignee') ?? defaultAssignee, due: get('due'), q: get('q'), sort: get('sort'), dir: get('dir'), page: get('page') };
+  }, [search, defaultAssignee]);
+  const apiFilters = useMemo(() => ({ ...filters, assignee: filters.assignee === 'all' ? undefined : filters.assignee }), [filters]);
+  const { data, isPending, isError, error, isFetching, refetch } = useJobs(apiFilters);
+
+  const update = useCallback(
+    (next: Partial<Filters>) => {
+      const params = new URLSearchParams(search.toString());
+      for (const [k, v] of Object.entries(next)) {
+        if (v) params.set(k, v);
+        else params.delete(k);
+      }
+      router.replace(`${pathname}?${params}`, { scroll: false });
+    },
+    [router, pathname, search],
+  );
+
+  const sorting: SortingState = [{ id: filters.sort ?? 'due', desc: filters.dir === 'desc' }];
+  // The app does not use the React Compiler, so the table's unmemoisable API is fine here.
+  // eslint-disable-next-line react-hooks/incompatible-library
+  const table = useReactTable({
+    data: data?.data ?? [],
+    columns,
+    state: { sorting },
+    manualSorting: true,
+    manualPagination: true,
+    getCoreRowModel: getCoreRowModel(),
+  });
+
+  const page = Number(filters.page ?? 1);
+  const pages = data ? Math.max(1, Math.ceil(data.total / data.pageSize)) : 1;
+  const onlyMine = filters.assignee === 'me' && !filters.state && !filters.due && !filters.q;
+  const filtered = Boolean(filters.state || filters.due || filters.q || (filters.assignee && filters.assignee !== 'all'));
+
+  return (
+    <div>
+      <BoardFilters filters={filters} people={people} onChange={update} />
+      <p aria-live="polite" className="mb-2 text-sm text-ink-soft">
+        {isPending ? 'Loading job cards…' : isError ? '' : `${data.total} job card${data.total === 1 ? '' : 's'}${isFetching ? ' · refreshing' : ''}`}
+      </p>
+      {isError ? (
+        <div role="alert" className="rounded-lg border-2 border-danger bg-danger-tint p-3 font-semibold text-danger">
+          {error.message}{' '}
+          <button type="button" onClick={() => void refetch()} className="underline">
+            Try again
+          </button>
+        </div>
+      ) : null}
+      {data && data.total === 0 ? (
+        filtered ? (
+          <EmptyState title={onlyMine ? 'No job cards assigned to you yet' : 'No job cards match these filters'}>
+            <button type="button" onClick={() => update({ state: undefined, due: undefined, q: undefined, assignee: 'all', page: undefined })} className="min-h-touch font-semibold text-work underline">
+              Show every job card
+            </button>
+          </EmptyState>
+        ) : (
+          <EmptyState title="No job cards yet">
+            {canCreate ? (
+              <Link href="/jobs/new" className="font-semibold text-work underline">
+                Create the first job card
+              </Link>
+            ) : (
+              'Job cards for the shop’s wheels appear here when a lead creates them.'
+            )}
+          </EmptyState>
+        )
+      ) : null}
+      {data && data.total > 0 ? (
+        <>
+          <div className="overflow-x-auto">
+            <table className="w-full border-collapse text-left">
+              <caption className="sr-only">Job cards, sorted by {sorting[0]!.id}</caption>
+              <thead>
+                {table.getHeaderGroups().map((hg) => (
+                  <tr key={hg.id} className="border-b-2 border-ink">
+                    {hg.headers.map((h) => {
+                      const sorted = filters.sort ? filters.sort === h.id : h.id === 'due';
+                      const dir = sorted ? (filters.dir === 'desc' ? 'descending' : 'ascending') : 'none';
+                      return (
+                        <th key={h.id} scope="col" aria-sort={SORTABLE.has(h.id) ? dir : undefined} className="p-2 whitespace-nowrap">
+                          {SORTABLE.has(h.id) ? (
+                            <button
+                              type="button"
+                              className="inline-flex min-h-touch items-center gap-1 font-bold"
+                              onClick={() => update({ sort: h.id, dir: sorted && filters.dir !== 'desc' ? 'desc' : 'asc', page: undefined })}
+                            >
+                              {flexRender(h.column.columnDef.header, h.getContext())}
+                              <span aria-hidden>{sorted ? (dir === 'descending' ? '▼' : '▲') : '↕'}</span>
+                            </button>
+                          ) : (
+                            flexRender(h.column.columnDef.header, h.getContext())
+                          )}
+                        </th>
+                      );
+                    })}
+                  </tr>
+                ))}
+              </thead>
+              <tbody>
+                {table.getRowModel().rows.map((row) => (
+                  <tr key={row.id} className="border-b border-paper-line align-middle">
+                    {row.getVisibleCells().map((cell) => (
+                      <td key={cell.id} className="p-2">
+                        {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                      </td>
+                    ))}
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+          <nav aria-label="Board pages" className="mt-4 flex items-center justify-between gap-2">
+            <button type="button" disabled={page <= 1} onClick={() => update({ page: String(page - 1) })} className="min-h-touch rounded-lg border-2 border-ink px-4 font-semibold disabled:opacity-40">
+              ← Previous
+            </button>
+            <span>
+              Page {page} of {pages}
+            </span>
+            <button type="button" disabled={page >= pages} onClick={() => update({ page: String(page + 1) })} className="min-h-touch rounded-lg border-2 border-ink px-4 font-semibold disabled:opacity-40">
+              Next →
+            </button>
+          </nav>
+        </>
+      ) : null}
+    </div>
+  );
+}

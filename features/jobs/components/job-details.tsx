@@ -1,0 +1,66 @@
+import { arrowDirection, UNIT_LABELS } from '@/features/torque-plan';
+import type { JobCard } from '../server/jobs';
+import { STATE_LABELS } from '../transitions';
+import { StateBadge } from './state-badge';
+
+const when = (iso: string) => new Date(iso).toUTCString().replace(' GMT', ' UTC');
+
+export function JobDetails({ job }: { job: JobCard }) {
+  return (
+    <div className="flex flex-col gap-6">
+      <div className="flex flex-wrap items-center gap-3">
+        <StateBadge state={job.state} />
+        <span>{job.assignee ? `Assigned to ${job.assignee.name}` : 'Not assigned yet'}</span>
+        {job.dueAt ? <span>· due <time dateTime={job.dueAt}>{when(job.dueAt)}</time></span> : null}
+      </div>
+      <dl className="grid gap-x-6 gap-y-2 sm:grid-cols-[max-content_1fr]">
+        <dt className="font-semibold">Customer</dt>
+        <dd>
+          {job.customer.name}
+          {job.customer.phone ? ` · ${job.customer.phone}` : ''}
+          {job.customer.email ? ` · ${job.customer.email}` : ''}
+        </dd>
+        <dt className="font-semibold">Vehicle</dt>
+        <dd>
+          {job.vehicle.label}
+          {job.vehicle.vin ? ` · VIN ${job.vehicle.vin}${job.vehicle.vinCheckOverridden ? ' (check digit accepted by a lead)' : ''}` : ''}
+        </dd>
+        <dt className="font-semibold">Work</dt>
+        <dd>{[job.dismount ? 'dismount old tire' : 'no dismount', job.reinstall ? 're-install on the vehicle' : 'no re-install'].join(' · ')}</dd>
+        {job.notes ? (
+          <>
+            <dt className="font-semibold">Notes</dt>
+            <dd className="whitespace-pre-wrap">{job.notes}</dd>
+          </>
+        ) : null}
+      </dl>
+      <section aria-labelledby="wheels-heading">
+        <h2 id="wheels-heading" className="mb-2 text-xl font-bold">Wheels</h2>
+        <ul className="grid gap-3 sm:grid-cols-2">
+          {job.wheels.map((w) => (
+            <li key={w.id} className="rounded-xl border-2 border-paper-line p-3">
+              <p className="font-bold">{w.position} · {w.specName}</p>
+              <p>
+                {w.tireSize} · {w.targetPressure} {UNIT_LABELS[w.pressureUnit]}
+              </p>
+              {w.directional ? <p className="text-sm">Directional: {arrowDirection(w.position).instruction}</p> : null}
+            </li>
+          ))}
+        </ul>
+      </section>
+      <section aria-labelledby="history-heading">
+        <h2 id="history-heading" className="mb-2 text-xl font-bold">History</h2>
+        <ol className="flex flex-col gap-1">
+          {job.events.map((e, i) => (
+            <li key={i}>
+              <time dateTime={e.at}>{when(e.at)}</time> — {e.by}: {e.fromState ? `${STATE_LABELS[e.fromState]} → ` : 'created, '}
+              {STATE_LABELS[e.toState]}
+              {e.note ? ` (“${e.note}”)` : ''}
+            </li>
+          ))}
+        </ol>
+      </section>
+    </div>
+  );
+}
+

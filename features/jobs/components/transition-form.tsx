@@ -1,0 +1,29 @@
+'use client';
+
+import { Button } from '@/features/ui/button';
+import { TextField } from '@/features/ui/field';
+import { FormMessage } from '@/features/ui/form-message';
+import { useFormAction } from '@/features/ui/use-form-action';
+import { moveJobCard } from '../actions/job-actions';
+import { STATE_LABELS, TRANSITION_RULES, type TransitionName } from '../transitions';
+
+/** The moves this member may make on this job card now; the server checks each again. */
+export function TransitionForm({ jobId, allowed }: { jobId: string; allowed: TransitionName[] }) {
+  const { state, formAction, pending, errors } = useFormAction(moveJobCard);
+  if (!allowed.length && !state) return null;
+  const shown = state?.ok ? { ok: true, message: `Job card is now ${STATE_LABELS[state.data.state].toLowerCase()}.` } : state;
+  return (
+    <form action={formAction} noValidate className="flex flex-col gap-3" aria-label="Move the job card">
+      <FormMessage state={shown} />
+      <input type="hidden" name="jobId" value={jobId} />
+      {allowed.includes('send_back') ? <TextField label="Note (required to send back)" name="note" errors={errors('note')} /> : null}
+      <div className="flex flex-wrap gap-2">
+        {allowed.map((t) => (
+          <Button key={t} name="action" value={t} disabled={pending} variant={t === 'send_back' ? 'secondary' : 'primary'}>
+            {TRANSITION_RULES[t].label}
+          </Button>
+        ))}
+      </div>
+    </form>
+  );
+}
