@@ -1,0 +1,37 @@
+import { createCustomer, createVehicle } from '@/features/jobs/server/customers';
+import { createJob } from '@/features/jobs/server/jobs';
+import { specSchema } from '@/features/specs/schemas';
+import { createSpec } from '@/features/specs/server/specs';
+import { wrenchSchema } from '@/features/tool-crib/schemas';
+import { createWrench } from '@/features/tool-crib/server/wrenches';
+import type { Member } from '@/server/auth/session';
+
+export const specBody = {
+  name: 'Test 24-bolt ring',
+  boltCount: 24,
+  boltThread: 'M8×1.25',
+  finalTorque: 12,
+  torqueUnit: 'lbf-ft' as const,
+  passPercents: [30, 70, 100],
+  patternKind: 'cross' as const,
+  checkPass: true,
+  maxBeadSeatPressure: 30,
+  runningPressure: 14,
+  pressureUnit: 'psi' as const,
+};
+
+const inAYear = new Date(Date.now() + 365 * 86_400_000).toISOString().slice(0, 10);
+export const wrenchBody = { label: 'Test click 20–200 in-lb', kind: 'click', min: 20, max: 200, unit: 'lbf-in', graduation: 1, calibrationDueOn: inAYear };
+
+export const fourWheels = (specId: string, size = '30x10R14') =>
+  (['LF', 'RF', 'LR', 'RR'] as const).map((position) => ({ position, specId, tireSize: size, directional: false, targetPressure: 14, pressureUnit: 'psi' as const }));
+
+/** A spec, a wrench, a customer with a vehicle and a four-wheel job assigned to the technician. */
+export async function createRecords(lead: Member, technicianId: string) {
+  const spec = await createSpec(lead, specSchema.parse(specBody));
+  const wrench = await createWrench(lead, wrenchSchema.parse(wrenchBody));
+  const customer = await createCustomer(lead, { name: 'Wren Halloway', phone: '555-0142', email: 'wren@example.test' });
+  const vehicle = await createVehicle(lead, customer.id, { year: 2022, make: 'Talonworks', model: 'Ridgeback', description: '', vinOverride: false });
+  const job = await createJob(lead, { customerId: customer.id, vehicleId: vehicle.id, wheels: fourWheels(spec.id), dismount: true, reinstall: true, assigneeId: technicianId, notes: '', acceptAxleMismatch: false });
+  return { spec, wrench, customer, vehicle, job };
+}

@@ -1,0 +1,51 @@
+// @vitest-environment jsdom
+import { fireEvent, render, screen } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { describe, expect, it, vi } from 'vitest';
+
+vi.mock('@/features/specs/actions/save-spec', () => ({ createWheelSpec: vi.fn(), updateWheelSpec: vi.fn() }));
+const { SpecForm } = await import('@/features/specs/components/spec-form');
+
+const wrenches = [
+  { id: 'w1', label: 'Blue click 20–200 in-lb', min: 20, max: 200, unit: 'lbf-in' as const, graduation: 1, kind: 'click' as const },
+  { id: 'w2', label: 'Grey click 5–80 ft-lb', min: 5, max: 80, unit: 'lbf-ft' as const, graduation: 1, kind: 'click' as const },
+];
+
+async function fill(values: Record<string, string>) {
+  for (const [label, value] of Object.entries(values)) {
+    const field = screen.getByLabelText(label);
+    await userEvent.clear(field);
+    await userEvent.type(field, value);
+  }
+}
+
+describe('SpecForm', () => {
+  it('previews the sequence and each pass’s wrench and setting as the spec is typed', async () => {
+    render(<SpecForm wrenches={wrenches} />);
+    await fill({ 'Spec name': 'Test ring', 'Bolt count': '16', 'Ring bolt thread': 'M8×1.25', 'Final torque': '12', 'Maximum bead-seating pressure': '30', 'Running pressure': '14' });
+    expect(await screen.findByText('1 · 9 · 5 · 13 · 3 · 11 · 7 · 15 · 2 · 10 · 6 · 14 · 4 · 12 · 8 · 16')).toBeInTheDocument();
+    const pass1 = screen.getByRole('row', { name: /Pass 1 \(30 %\)/ });
+    expect(pass1).toHaveTextContent('Blue click 20–200 in-lb set to 43 in-lb');
+  });
+
+  it('shows the engine’s refusal at the field it concerns', async () => {
+    render(<SpecForm wrenches={wrenches} />);
+    await fill({ 'Spec name': 'Too many', 'Bolt count': '70', 'Ring bolt thread': 'M8', 'Final torque': '12', 'Maximum bead-seating pressure': '30', 'Running pressure': '14' });
+    const count = screen.getByLabelText('Bolt count');
+    expect(count).toHaveAttribute('aria-invalid', 'true');
+    expect(count).toHaveAccessibleDescription(/The bolt count must be from 4 to 64; got 70\./);
+
+    await fill({ 'Bolt count': '20', 'Passes (% of final)': '70, 30, 100' });
+    fireEvent.change(screen.getByLabelText('Passes (% of final)'));
+    expect(screen.getByLabelText('Passes (% of final)')).toHaveAccessibleDescription(/Each pass must be higher than the one before\./);
+    expect(screen.getByLabelText('Bolt count')).not.toHaveAttribute('aria-invalid');
+  });
+
+  it('a skip step of N or more is refused at the skip step', async () => {
+    render(<SpecForm wrenches={wrenches} />);
+    await fill({ 'Spec name': 'Skip', 'Bolt count': '20', 'Ring bolt thread': 'M8', 'Final torque': '12', 'Maximum bead-seating pressure': '30', 'Running pressure': '14' });
+    await userEvent.selectOptions(screen.getByLabelText('Tightening pattern'), 'skip');
+    await fill({ 'Skip step (skip pattern only)': '20' });
+    expect(screen.getByLabelText('Skip step (skip pattern only)')).toHaveAccessibleDescription(/skip step must be from 1 to 19/);
+  });
+});
