@@ -1,4 +1,4 @@
-import { expect, type Page } from '@playwright/test';
+import { expect, type Browser, type Page } from '@playwright/test';
 
 let counter = 0;
 export const uniqueEmail = (who: string) => `${who}-${Date.now().toString(36)}-${counter++}@e2e.test`;
@@ -28,4 +28,19 @@ export async function invite(page: Page, email: string, role: 'Lead' | 'Technici
   await form.getByLabel('Role').selectOption({ label: role });
   await form.getByRole('button', { name: 'Send invite' }).click();
   await expect(page.getByRole('status')).toHaveText(`Invite sent to ${email}.`);
+}
+
+/** Invites someone, follows the link from the Mailbox in a fresh browser and joins as `name`. */
+export async function inviteAndJoin(page: Page, browser: Browser, email: string, name: string, role: 'Lead' | 'Technician' | 'Apprentice') {
+  await invite(page, email, role);
+  await page.goto('/mailbox');
+  const link = await page.getByRole('article', { name: new RegExp(`to ${email.replace(/[.+]/g, '\\$&')}`) }).getByRole('link').getAttribute('href');
+  const context = await browser.newContext();
+  const joined = await context.newPage();
+  await joined.goto(link!);
+  await joined.getByLabel('Your name').fill(name);
+  await joined.getByLabel('Choose a password').fill(PASSWORD);
+  await joined.getByRole('button', { name: 'Join the shop' }).click();
+  await expect(joined.getByRole('heading', { name: 'Board' })).toBeVisible();
+  return { context, page: joined };
 }

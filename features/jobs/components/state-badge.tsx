@@ -15,7 +15,7 @@ export function StateBadge({ state }: { state: JobStateName }) {
   return (
     <span className={`inline-flex items-center gap-1 whitespace-nowrap rounded-full border-2 px-2.5 py-0.5 text-sm font-bold ${s.className}`}>
       <span aria-hidden>{s.mark}</span>
-      {STATE_LABELS[state]}
+      <span>{STATE_LABELS[state]}</span>
     </span>
   );
 }
