@@ -15,7 +15,7 @@ const featureIslands = productFeatures.map((name) => ({
 }));
 
 const config = [
-  { ignores: ['.next/**', '.next-e2e/**', 'node_modules/**', '.data/**', 'next-env.d.ts', 'db/migrations/**', 'test-results/**', 'playwright-report/**'] },
+  { ignores: ['.next/**', '.next-e2e/**', '.next-bench/**', 'node_modules/**', '.data/**', 'next-env.d.ts', 'db/migrations/**', 'test-results/**', 'playwright-report/**'] },
   ...nextVitals,
   ...nextTs,
   {

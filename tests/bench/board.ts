@@ -1,0 +1,127 @@
+/**
+ * `npm run bench:board`: one shop with 10,000 job cards (40,000 wheels) beside 9 other shops of
+ * the same size; times the board's first page (state = in progress, sorted by due) through the
+ * route handler of the production build over loopback, and the same SQL straight on PostgreSQL.
+ * Last line: `board p95 X ms, raw p95 Y ms, ratio Z`.
+ */
+import { spawn, spawnSync } from 'node:child_process';
+import { randomBytes } from 'node:crypto';
+import path from 'node:path';
+import postgres from 'postgres';
+import { clusterUrl, startCluster } from '@/db/cluster';
+import { migrateDatabase } from '@/db/migrate';
+import { ROOT } from '../helpers/test-services';
+
+const DB = 'ringpass_bench';
+const PORT = 3200;
+const SHOPS = 10;
+const JOBS_PER_SHOP = 10_000;
+const RUNS = 300;
+const FILTER = 'state=in_progress&sort=due&dir=asc&page=1&pageSize=25';
+
+const pct = (xs: number[], p: number) => [...xs].sort((a, b) => a - b)[Math.min(xs.length - 1, Math.floor((p / 100) * xs.length))]!;
+
+async function seed(sql: postgres.Sql) {
+  const started = Date.now();
+  for (let s = 1; s <= SHOPS; s++) {
+    await sql.begin(async (tx) => {
+      const [shop] = await tx`insert into shops (name) values (${`Bench shop ${s}`}) returning id`;
+      const shopId = shop!.id as string;
+      const people = await tx`
+        insert into users (shop_id, email, name, role, password_hash)
+        select ${shopId}, 'p' || i || '-shop' || ${s} || '@bench.test', 'Person ' || i, (case when i = 1 then 'lead' else 'technician' end)::role, 'x'
+        from generate_series(1, 3) i returning id, role`;
+      const lead = people.find((p) => p.role === 'lead')!.id as string;
+      const techs = people.filter((p) => p.role === 'technician').map((p) => p.id as string);
+      const [spec] = await tx`
+        insert into wheel_specs (shop_id, name, bolt_count, bolt_thread, final_torque, torque_unit, pass_fractions, pattern_kind, max_bead_seat_pressure, running_pressure, pressure_unit)
+        values (${shopId}, 'Bench spec', 24, 'M8', 12, 'lbf-ft', '[0.3,0.7,1]', 'cross', 30, 14, 'psi') returning id`;
+      await tx`insert into customers (shop_id, name, phone) select ${shopId}, 'Customer ' || i, '555-' || i from generate_series(1, 200) i`;
+      await tx`insert into vehicles (shop_id, customer_id, year, make, model) select ${shopId}, id, 2020, 'Make', 'Model ' || name from customers where shop_id = ${shopId}`;
+      await tx`
+        with v as (select id, customer_id, row_number() over (order by id) - 1 as k from vehicles where shop_id = ${shopId})
+        insert into jobs (shop_id, number, customer_id, vehicle_id, state, assignee_id, due_at, created_by_id)
+        select ${shopId}, 1000 + n, v.customer_id, v.id,
+          (array['open','in_progress','awaiting_signoff','signed_off','sent_back'])[1 + n % 5]::job_state,
+          (array[${techs[0]!}::uuid, ${techs[1]!}::uuid, null])[1 + n % 3],
+          now() + ((n % 61) - 30) * interval '1 day' + (n % 24) * interval '1 hour',
+          ${lead}
+        from generate_series(1, ${JOBS_PER_SHOP}) n join v on v.k = n % 200`;
+      await tx`
+        insert into job_wheels (shop_id, job_id, position, spec_id, tire_size, target_pressure, pressure_unit)
+        select ${shopId}, j.id, p::wheel_position, ${spec!.id}, '30x10R14', 14, 'psi'
+        from jobs j cross join unnest(array['LF','RF','LR','RR']) p where j.shop_id = ${shopId}`;
+    });
+  }
+  await sql`analyze`;
+  console.log(`[bench] seeded ${SHOPS} shops × ${JOBS_PER_SHOP} jobs (${SHOPS * JOBS_PER_SHOP * 4} wheels) in ${((Date.now() - started) / 1000).toFixed(1)} s`);
+}
+
+async function main() {
+  await startCluster();
+  const admin = postgres(clusterUrl('postgres'), { max: 1, onnotice: () => {} });
+  await admin.unsafe(`drop database if exists ${DB} with (force)`);
+  await admin.unsafe(`create database ${DB}`);
+  await admin.end();
+  await migrateDatabase(clusterUrl(DB));
+  const sql = postgres(clusterUrl(DB), { max: 2, onnotice: () => {} });
+  await seed(sql);
+
+  // Sign in as the lead of shop 1 by writing a session row (what sign-in does, minus the password).
+  const [lead] = await sql`select u.id, u.shop_id from users u join shops s on s.id = u.shop_id where s.name = 'Bench shop 1' and u.role = 'lead'`;
+  const sessionId = randomBytes(20).toString('hex');
+  await sql`insert into sessions (id, user_id, expires_at, absolute_expires_at) values (${sessionId}, ${lead!.id}, now() + interval '1 day', now() + interval '1 day')`;
+
+  const env = { ...process.env, NODE_ENV: 'production' as const, NEXT_TELEMETRY_DISABLED: '1', NEXT_DIST_DIR: '.next-bench', DATABASE_URL: clusterUrl(DB), APP_URL: `http://127.0.0.1:${PORT}`, SMTP_URL: 'smtp://127.0.0.1:2599', COOKIE_SECURE: 'false' };
+  const next = path.join(ROOT, 'node_modules', '.bin', 'next');
+  console.log('[bench] building the app (next build)…');
+  if (spawnSync(next, ['build'], { cwd: ROOT, env, stdio: 'ignore' }).status !== 0) throw new Error('next build failed');
+  const server = spawn(next, ['start', '-H', '127.0.0.1', '-p', String(PORT)], { cwd: ROOT, env, stdio: 'ignore' });
+  try {
+    const url = `http://127.0.0.1:${PORT}/api/jobs?${FILTER}`;
+    const headers = { cookie: `ringpass_session=${sessionId}` };
+    for (let i = 0; i < 120; i++) {
+      try {
+        if ((await fetch(url, { headers })).ok) break;
+      } catch {}
+      await new Promise((r) => setTimeout(r, 500));
+    }
+    const first = (await (await fetch(url, { headers })).json()) as { total: number; data: unknown[] };
+    console.log(`[bench] board answers ${first.data.length} rows of ${first.total} in progress`);
+
+    for (let i = 0; i < 30; i++) await (await fetch(url, { headers })).arrayBuffer();
+    const http: number[] = [];
+    for (let i = 0; i < RUNS; i++) {
+      const t = performance.now();
+      await (await fetch(url, { headers })).arrayBuffer();
+      http.push(performance.now() - t);
+    }
+
+    // The very SQL the handler runs (drizzle's own text), straight through postgres.js.
+    Object.assign(process.env, { DATABASE_URL: env.DATABASE_URL, SMTP_URL: env.SMTP_URL });
+    const { boardQuery } = await import('@/features/jobs/server/board');
+    const { boardQuerySchema } = await import('@/features/jobs/schemas');
+    const member = { userId: lead!.id, shopId: lead!.shop_id, role: 'lead' as const, name: '', email: '', sessionId };
+    const query = boardQuery(member, boardQuerySchema.parse(Object.fromEntries(new URLSearchParams(FILTER)))).toSQL();
+    for (let i = 0; i < 30; i++) await sql.unsafe(query.sql, query.params as never[]);
+    const raw: number[] = [];
+    for (let i = 0; i < RUNS; i++) {
+      const t = performance.now();
+      await sql.unsafe(query.sql, query.params as never[]);
+      raw.push(performance.now() - t);
+    }
+    console.log(`[bench] ${RUNS} requests each: board p50 ${pct(http, 50).toFixed(1)} ms, raw p50 ${pct(raw, 50).toFixed(1)} ms`);
+    const ratio = pct(http, 95) / pct(raw, 95);
+    console.log(`board p95 ${pct(http, 95).toFixed(1)} ms, raw p95 ${pct(raw, 95).toFixed(1)} ms, ratio ${ratio.toFixed(1)}`);
+  } finally {
+    server.kill('SIGTERM');
+    await sql.end();
+  }
+}
+
+main()
+  .then(() => process.exit(0))
+  .catch((error: unknown) => {
+    console.error(error);
+    process.exit(1);
+  });
