@@ -192,6 +192,18 @@ export async function ensureDatabase(name: string): Promise<void> {
   }
 }
 
+/** Drops (closing its connections) and creates a database: for tests and benchmarks only. */
+export async function recreateDatabase(name: string): Promise<void> {
+  if (!/^[a-z0-9_]+$/.test(name)) throw new Error(`unsafe database name: ${name}`);
+  const sql = postgres(clusterUrl('postgres'), { max: 1, onnotice: () => {} });
+  try {
+    await sql.unsafe(`drop database if exists ${name} with (force)`);
+    await sql.unsafe(`create database ${name}`);
+  } finally {
+    await sql.end({ timeout: 2 });
+  }
+}
+
 async function main(command: string | undefined) {
   switch (command) {
     case 'start':

@@ -8,7 +8,7 @@ import { spawn, spawnSync } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
 import path from 'node:path';
 import postgres from 'postgres';
-import { clusterUrl, startCluster } from '@/db/cluster';
+import { clusterUrl, recreateDatabase, startCluster } from '@/db/cluster';
 import { migrateDatabase } from '@/db/migrate';
 import { ROOT } from '../helpers/test-services';
 
@@ -59,10 +59,7 @@ async function seed(sql: postgres.Sql) {
 
 async function main() {
   await startCluster();
-  const admin = postgres(clusterUrl('postgres'), { max: 1, onnotice: () => {} });
-  await admin.unsafe(`drop database if exists ${DB} with (force)`);
-  await admin.unsafe(`create database ${DB}`);
-  await admin.end();
+  await recreateDatabase(DB);
   await migrateDatabase(clusterUrl(DB));
   const sql = postgres(clusterUrl(DB), { max: 2, onnotice: () => {} });
   await seed(sql);

@@ -5,18 +5,14 @@
 import { spawn, spawnSync } from 'node:child_process';
 import { rmSync } from 'node:fs';
 import path from 'node:path';
-import postgres from 'postgres';
-import { clusterUrl, startCluster } from '@/db/cluster';
+import { clusterUrl, recreateDatabase, startCluster } from '@/db/cluster';
 import { migrateDatabase } from '@/db/migrate';
 import { startMailSink } from '@/server/dev/mail-sink';
 import { E2E, ROOT } from '../helpers/test-services';
 
 async function main() {
   await startCluster();
-  const admin = postgres(clusterUrl('postgres'), { max: 1, onnotice: () => {} });
-  await admin.unsafe(`drop database if exists ${E2E.database} with (force)`);
-  await admin.unsafe(`create database ${E2E.database}`);
-  await admin.end();
+  await recreateDatabase(E2E.database);
   await migrateDatabase(clusterUrl(E2E.database));
   rmSync(E2E.sink.dir, { recursive: true, force: true });
   const sink = await startMailSink(E2E.sink);

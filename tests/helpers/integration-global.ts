@@ -1,6 +1,5 @@
 import { rmSync } from 'node:fs';
-import postgres from 'postgres';
-import { clusterUrl, startCluster } from '@/db/cluster';
+import { clusterUrl, recreateDatabase, startCluster } from '@/db/cluster';
 import { migrateDatabase } from '@/db/migrate';
 import { startMailSink } from '@/server/dev/mail-sink';
 import { INTEGRATION_SINK, TEMPLATE_DB } from './test-services';
@@ -8,10 +7,7 @@ import { INTEGRATION_SINK, TEMPLATE_DB } from './test-services';
 /** Once per run: the cluster, a freshly migrated template database, and the mail sink. */
 export default async function setup() {
   await startCluster();
-  const admin = postgres(clusterUrl('postgres'), { max: 1, onnotice: () => {} });
-  await admin.unsafe(`drop database if exists ${TEMPLATE_DB} with (force)`);
-  await admin.unsafe(`create database ${TEMPLATE_DB}`);
-  await admin.end();
+  await recreateDatabase(TEMPLATE_DB);
   await migrateDatabase(clusterUrl(TEMPLATE_DB));
   rmSync(INTEGRATION_SINK.dir, { recursive: true, force: true });
   const sink = await startMailSink(INTEGRATION_SINK);

@@ -36,3 +36,11 @@ export const nextHeadersMock = {
   }),
   headers: async () => state.headers,
 };
+
+/** Signs the in-memory request in as this user, as the session cookie would. */
+export async function actAs(userId: string) {
+  const { createSessionCookie } = await import('@/server/auth/session');
+  resetNextRequest();
+  const cookie = await createSessionCookie(userId);
+  state.cookies.set(cookie.name, { value: cookie.value });
+}

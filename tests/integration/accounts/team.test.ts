@@ -11,15 +11,9 @@ import { findUsableInvite } from '@/features/accounts/server/invites';
 import { createSessionCookie, validateSessionId } from '@/server/auth/session';
 import { createTestShop } from '@/tests/helpers/factories';
 import { inviteToken, waitForMail } from '@/tests/helpers/mailbox';
-import { nextHeadersMock, resetNextRequest } from '@/tests/helpers/next-request';
+import { actAs, resetNextRequest } from '@/tests/helpers/next-request';
 import { INTEGRATION_SINK } from '@/tests/helpers/test-services';
 
-async function actAs(userId: string) {
-  resetNextRequest();
-  const cookie = await createSessionCookie(userId);
-  (await nextHeadersMock.cookies()).set(cookie.name, cookie.value);
-  return cookie.value;
-}
 
 describe('invites', () => {
   it('a lead invites by e-mail; the link works once and creates a member with that role', async () => {

@@ -5,16 +5,10 @@ import { boardQuerySchema } from '@/features/jobs/schemas';
 import { listBoard } from '@/features/jobs/server/board';
 import { getJob } from '@/features/jobs/server/jobs';
 import { transitionJob } from '@/features/jobs/server/transitions';
-import { createSessionCookie } from '@/server/auth/session';
 import { createTestShop } from '@/tests/helpers/factories';
-import { nextHeadersMock, resetNextRequest } from '@/tests/helpers/next-request';
+import { actAs } from '@/tests/helpers/next-request';
 import { createRecords, fourWheels, specBody } from '@/tests/helpers/records';
 
-async function actAs(userId: string) {
-  resetNextRequest();
-  const c = await createSessionCookie(userId);
-  (await nextHeadersMock.cookies()).set(c.name, c.value);
-}
 
 const newCustomerJob = (specId: string, extra: Record<string, unknown> = {}) => ({
   customer: { name: 'Nell Orchard', phone: '555-0100', email: '' },

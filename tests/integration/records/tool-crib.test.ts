@@ -5,16 +5,10 @@ import { wrenches } from '@/db/schema';
 import { putBackInService, verifyWrench } from '@/features/tool-crib/actions/wrench-actions';
 import { wrenchSchema } from '@/features/tool-crib/schemas';
 import { createWrench, getWrench, listWrenches, wrenchesForEngine, wrenchHistory } from '@/features/tool-crib/server/wrenches';
-import { createSessionCookie } from '@/server/auth/session';
 import { createTestShop } from '@/tests/helpers/factories';
-import { nextHeadersMock, resetNextRequest } from '@/tests/helpers/next-request';
+import { actAs } from '@/tests/helpers/next-request';
 import { wrenchBody } from '@/tests/helpers/records';
 
-async function actAs(userId: string) {
-  resetNextRequest();
-  const c = await createSessionCookie(userId);
-  (await nextHeadersMock.cookies()).set(c.name, c.value);
-}
 
 describe('tool crib', () => {
   it('a passing verification keeps the wrench in service; a failing one takes it out at once', async () => {
