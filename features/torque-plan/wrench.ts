@@ -8,6 +8,8 @@ export type Wrench = {
   unit: TorqueUnit;
   graduation: number;
   kind: 'click' | 'beam' | 'dial' | 'digital';
+  /** What people call it; messages use it when given, else the id. */
+  label?: string;
 };
 
 export type WrenchChoice =
@@ -62,9 +64,10 @@ function roundToGraduation(value: number, w: Wrench): number {
 function whyNot(target: Torque, w: Wrench, floor: number): string {
   const t = clean(convertTorque(target.value, target.unit, w.unit));
   const shown = formatTorque({ value: t, unit: w.unit }, 2);
-  if (t > w.max + EPS) return `${w.id}: ${shown} is above its maximum ${formatTorque({ value: w.max, unit: w.unit })}`;
-  if (t < w.min - EPS) return `${w.id}: ${shown} is below its lowest mark ${formatTorque({ value: w.min, unit: w.unit })}`;
-  return `${w.id}: ${shown} is below the shop's floor of ${Math.round(floor * 100)} % of its maximum (${formatTorque({ value: floor * w.max, unit: w.unit })})`;
+  const name = w.label ?? w.id;
+  if (t > w.max + EPS) return `${name}: ${shown} is above its maximum ${formatTorque({ value: w.max, unit: w.unit })}`;
+  if (t < w.min - EPS) return `${name}: ${shown} is below its lowest mark ${formatTorque({ value: w.min, unit: w.unit })}`;
+  return `${name}: ${shown} is below the shop's floor of ${Math.round(floor * 100)} % of its maximum (${formatTorque({ value: floor * w.max, unit: w.unit })})`;
 }
 
 /**

@@ -19,7 +19,7 @@ export async function computePlan(
     throw new DomainError('invalid', message, { wrenchIds: [message] });
   }
   try {
-    return planTorque({ ...request, wrenches: [...fromCrib.map(({ id, min, max, unit, graduation, kind }) => ({ id, min, max, unit, graduation, kind })), ...(request.wrenches ?? [])] });
+    return planTorque({ ...request, wrenches: [...fromCrib, ...(request.wrenches ?? [])] });
   } catch (error) {
     if (error instanceof TorquePlanError) {
       throw new DomainError('invalid', error.message, { [error.field ?? 'body']: [error.message] });

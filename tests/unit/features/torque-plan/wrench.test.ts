@@ -32,6 +32,11 @@ describe('chooseWrench', () => {
     expect(choice).toEqual({ ok: false, reason: expect.stringMatching(/above its maximum 80 ft-lb.*above its maximum 200 in-lb/) });
   });
 
+  it('names a wrench by its label when it has one', () => {
+    const choice = chooseWrench({ value: 300, unit: 'lbf-ft' }, [{ ...ftLb, id: 'b66bbd5e', label: 'Grey click' }]);
+    expect(choice).toEqual({ ok: false, reason: expect.stringMatching(/Grey click: 300 ft-lb is above its maximum/) });
+  });
+
   it('says so when the tool crib is empty', () => {
     expect(chooseWrench({ value: 10, unit: 'Nm' }, [])).toEqual({ ok: false, reason: expect.stringMatching(/tool crib is empty/) });
   });
