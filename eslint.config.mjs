@@ -5,7 +5,7 @@ import tseslint from 'typescript-eslint';
 
 const productFeatures = ['accounts', 'jobs', 'mailbox', 'plans', 'specs', 'tool-crib'];
 // Shared by every feature: the engine and the UI primitives.
-const shared = ['torque-plan', 'ui'];
+const shared = ['torque-plan', 'ui', 'bolt-circle'];
 
 const featureIslands = productFeatures.map((name) => ({
   target: `./features/${name}`,

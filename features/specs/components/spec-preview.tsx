@@ -1,3 +1,4 @@
+import { BoltCircle } from '@/features/bolt-circle/bolt-circle';
 import { formatTorque, planTorque, UNIT_LABELS, type Wrench } from '@/features/torque-plan';
 import { specPattern } from '../engine-check';
 import type { SpecInput } from '../schemas';
@@ -25,6 +26,9 @@ export function SpecPreview({ spec, wrenches, floor }: { spec: SpecInput; wrench
         <span className="font-semibold">Sequence ({spec.boltCount} bolts, numbered clockwise from the first bolt past the valve notch):</span>{' '}
         <span className="font-mono">{plan.sequence.join(' · ')}</span>
       </p>
+      <div className="max-w-xs">
+        <BoltCircle count={spec.boltCount} order={plan.sequence} done={[]} next={plan.sequence[0]} mode="preview" label={`Tightening order on a ${spec.boltCount}-bolt ring`} />
+      </div>
       <div className="overflow-x-auto">
         <table className="w-full border-collapse text-left">
           <caption className="sr-only">Passes with the wrench and setting for each</caption>
