@@ -123,7 +123,28 @@ export function Board({ people, defaultAssignee, canCreate }: { people: { id: st
       ) : null}
       {data && data.total > 0 ? (
         <>
-          <div className="overflow-x-auto">
+          <MobileSort sort={filters.sort ?? 'due'} dir={filters.dir ?? 'asc'} onChange={(sort, dir) => update({ sort, dir, page: undefined })} />
+          <ul className="flex flex-col gap-3 sm:hidden" aria-label="Job cards">
+            {data.data.map((r) => (
+              <li key={r.id}>
+                <Link href={`/jobs/${r.id}`} className="flex min-h-touch flex-col gap-1 rounded-xl border-2 border-paper-line p-3 hover:bg-paper-dim">
+                  <span className="flex items-center justify-between gap-2">
+                    <span className="text-lg font-bold text-work underline">#{r.number}</span>
+                    <StateBadge state={r.state} />
+                  </span>
+                  <span className="font-semibold">{r.customer}</span>
+                  <span>
+                    {r.vehicle} · {r.wheelCount} wheel{r.wheelCount === 1 ? '' : 's'}
+                  </span>
+                  <span className="text-sm text-ink-soft">
+                    {r.assignee ? r.assignee.name : 'Not assigned'}
+                    {r.dueAt ? ` · due ${new Date(r.dueAt).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' })}` : ''}
+                  </span>
+                </Link>
+              </li>
+            ))}
+          </ul>
+          <div className="hidden overflow-x-auto sm:block">
             <table className="w-full border-collapse text-left">
               <caption className="sr-only">Job cards, sorted by {sorting[0]!.id}</caption>
               <thead>
@@ -179,5 +200,37 @@ export function Board({ people, defaultAssignee, canCreate }: { people: { id: st
         </>
       ) : null}
     </div>
+  );
+}
+
+const SORT_OPTIONS = [
+  ['due:asc', 'Due, soonest first'],
+  ['due:desc', 'Due, latest first'],
+  ['number:desc', 'Newest job first'],
+  ['number:asc', 'Oldest job first'],
+  ['state:asc', 'State'],
+  ['customer:asc', 'Customer A–Z'],
+] as const;
+
+/** On a phone the table becomes cards; sorting moves to one select. */
+function MobileSort({ sort, dir, onChange }: { sort: string; dir: string; onChange: (sort: string, dir: string) => void }) {
+  return (
+    <label className="mb-3 flex flex-col gap-1 font-semibold sm:hidden">
+      Sort
+      <select
+        value={`${sort}:${dir}`}
+        onChange={(e) => {
+          const [s, d] = e.target.value.split(':');
+          onChange(s!, d!);
+        }}
+        className="min-h-touch rounded-lg border-2 border-ink-soft bg-paper px-3 text-base"
+      >
+        {SORT_OPTIONS.map(([value, text]) => (
+          <option key={value} value={value}>
+            {text}
+          </option>
+        ))}
+      </select>
+    </label>
   );
 }
