@@ -201,6 +201,10 @@ export const jobWheels = pgTable(
     directional: boolean().notNull().default(false),
     targetPressure: doublePrecision().notNull(),
     pressureUnit: pressureUnitEnum().notNull(),
+    /** Set when the technician submits the wheel from the runner. */
+    submittedAt: timestamp({ withTimezone: true }),
+    /** A failed inspection stops the wheel and flags it for the lead (parts needed). */
+    flaggedReason: text(),
   },
   (t) => [uniqueIndex('job_wheels_position_key').on(t.jobId, t.position), index('job_wheels_shop_idx').on(t.shopId)],
 );
@@ -229,4 +233,31 @@ export const jobEvents = pgTable(
     at: createdAt(),
   },
   (t) => [index('job_events_job_idx').on(t.jobId, t.at)],
+);
+
+/**
+ * What the technician confirmed in the runner, one row per event, each with the id the device
+ * gave it: a replayed event is stored once. The wheel's progress is derived from these.
+ */
+export const wheelRunEvents = pgTable(
+  'wheel_run_events',
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    shopId: shopId(),
+    jobId: uuid()
+      .notNull()
+      .references(() => jobs.id, { onDelete: 'cascade' }),
+    wheelId: uuid()
+      .notNull()
+      .references(() => jobWheels.id, { onDelete: 'cascade' }),
+    clientId: uuid().notNull(),
+    type: text().notNull(),
+    payload: jsonb().$type<Record<string, unknown>>().notNull(),
+    byId: uuid()
+      .notNull()
+      .references(() => users.id),
+    clientAt: timestamp({ withTimezone: true }).notNull(),
+    receivedAt: createdAt(),
+  },
+  (t) => [uniqueIndex('wheel_run_events_client_key').on(t.clientId), index('wheel_run_events_wheel_idx').on(t.wheelId, t.clientAt)],
 );
