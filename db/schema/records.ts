@@ -261,3 +261,31 @@ export const wheelRunEvents = pgTable(
   },
   (t) => [uniqueIndex('wheel_run_events_client_key').on(t.clientId), index('wheel_run_events_wheel_idx').on(t.wheelId, t.clientAt)],
 );
+
+export const photoKindEnum = pgEnum('photo_kind', ['bead_outer', 'bead_inner', 'other']);
+
+/** Evidence for a wheel: the file lives with the upload service; this row says what it shows. */
+export const wheelPhotos = pgTable(
+  'wheel_photos',
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    shopId: shopId(),
+    jobId: uuid()
+      .notNull()
+      .references(() => jobs.id, { onDelete: 'cascade' }),
+    wheelId: uuid()
+      .notNull()
+      .references(() => jobWheels.id, { onDelete: 'cascade' }),
+    kind: photoKindEnum().notNull(),
+    note: text().notNull().default(''),
+    fileKey: text().notNull(),
+    url: text().notNull(),
+    bytes: integer().notNull(),
+    mime: text().notNull(),
+    uploadedById: uuid()
+      .notNull()
+      .references(() => users.id),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex('wheel_photos_file_key').on(t.fileKey), index('wheel_photos_wheel_idx').on(t.wheelId)],
+);

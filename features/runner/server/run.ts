@@ -1,0 +1,112 @@
+import 'server-only';
+import { and, asc, eq, inArray, isNull } from 'drizzle-orm';
+import { getDb } from '@/db';
+import { jobs, jobWheels, wheelPhotos, wheelRunEvents, wheelSpecs } from '@/db/schema';
+import { passPlan, tighteningSequence, type Pattern } from '@/features/torque-plan';
+import { can } from '@/server/auth/permissions';
+import type { Member } from '@/server/auth/session';
+import { DomainError, notFound } from '@/server/errors';
+import type { ClientEvent } from '../events';
+import { reduceRun, submitBlockers, type RunnerPlan } from '../state';
+import { stepsFor } from '../steps';
+
+export type RunContext = Awaited<ReturnType<typeof loadWheel>>;
+
+/** The wheel with its job and spec, in the member's shop only. */
+export async function loadWheel(shopId: string, wheelId: string) {
+  const [row] = await getDb()
+    .select({ wheel: jobWheels, job: { id: jobs.id, number: jobs.number, state: jobs.state, assigneeId: jobs.assigneeId, dismount: jobs.dismount, reinstall: jobs.reinstall }, spec: wheelSpecs })
+    .from(jobWheels)
+    .innerJoin(jobs, eq(jobs.id, jobWheels.jobId))
+    .innerJoin(wheelSpecs, eq(wheelSpecs.id, jobWheels.specId))
+    .where(and(eq(jobWheels.shopId, shopId), eq(jobWheels.id, wheelId)));
+  if (!row) throw notFound('That wheel');
+  return row;
+}
+
+export function planFor(ctx: Pick<RunContext, 'spec' | 'job'>): RunnerPlan {
+  const { spec } = ctx;
+  const pattern: Pattern = spec.patternKind === 'skip' ? { kind: 'skip', step: spec.skipStep ?? 1 } : { kind: spec.patternKind };
+  const staged = tighteningSequence(spec.boltCount, pattern);
+  const check = tighteningSequence(spec.boltCount, { kind: 'sequential' });
+  const passes = passPlan({ value: spec.finalTorque, unit: spec.torqueUnit }, spec.passFractions, { checkPass: spec.checkPass });
+  return {
+    steps: stepsFor(ctx.job),
+    boltCount: spec.boltCount,
+    passes: passes.map((p) => ({ index: p.index, kind: p.kind, order: p.kind === 'check' ? check : staged })),
+  };
+}
+
+/** Who may run this wheel: the assignee (technician or lead) or any lead; never an apprentice. */
+export function assertMayRun(member: Member, ctx: Pick<RunContext, 'job'>) {
+  if (!can(member.role, 'jobs.run')) throw new DomainError('forbidden', 'Your role does not allow running job cards.');
+  if (member.role !== 'lead' && ctx.job.assigneeId !== member.userId) {
+    throw new DomainError('forbidden', 'This job card is assigned to someone else. Ask a lead to assign it to you.');
+  }
+}
+
+export async function listEvents(shopId: string, wheelId: string): Promise<ClientEvent[]> {
+  const rows = await getDb()
+    .select({ clientId: wheelRunEvents.clientId, clientAt: wheelRunEvents.clientAt, type: wheelRunEvents.type, payload: wheelRunEvents.payload })
+    .from(wheelRunEvents)
+    .where(and(eq(wheelRunEvents.shopId, shopId), eq(wheelRunEvents.wheelId, wheelId)))
+    .orderBy(asc(wheelRunEvents.clientAt), asc(wheelRunEvents.clientId));
+  return rows.map((r) => ({ ...r, clientAt: r.clientAt.toISOString() }) as ClientEvent);
+}
+
+/**
+ * Stores confirmed events exactly once each (the device's id is unique), in any order, from any
+ * device. The job must be in progress and the wheel not yet submitted.
+ */
+export async function saveRunEvents(member: Member, wheelId: string, events: ClientEvent[]) {
+  const ctx = await loadWheel(member.shopId, wheelId);
+  assertMayRun(member, ctx);
+  if (ctx.job.state !== 'in_progress') throw new DomainError('conflict', 'Start the job card before running its wheels.');
+  if (ctx.wheel.submittedAt) throw new DomainError('conflict', 'This wheel was submitted; its record is closed.');
+  const plan = planFor(ctx);
+  for (const [i, e] of events.entries()) {
+    const bolt = 'bolt' in e.payload ? e.payload.bolt : undefined;
+    const pass = 'pass' in e.payload ? e.payload.pass : undefined;
+    if (bolt !== undefined && bolt > plan.boltCount) throw new DomainError('invalid', `Bolt ${bolt} is not on this ${plan.boltCount}-bolt ring.`, { [`events.${i}.payload.bolt`]: ['No such bolt.'] });
+    if (pass !== undefined && pass > plan.passes.length) throw new DomainError('invalid', `Pass ${pass} is not in this wheel's plan.`, { [`events.${i}.payload.pass`]: ['No such pass.'] });
+  }
+  const db = getDb();
+  const stored = await db
+    .insert(wheelRunEvents)
+    .values(events.map((e) => ({ shopId: member.shopId, jobId: ctx.job.id, wheelId, clientId: e.clientId, type: e.type, payload: e.payload as Record<string, unknown>, byId: member.userId, clientAt: new Date(e.clientAt) })))
+    .onConflictDoNothing({ target: wheelRunEvents.clientId })
+    .returning({ clientId: wheelRunEvents.clientId });
+  // An id already stored for another wheel or shop is not this request's to claim.
+  const known = await db
+    .select({ clientId: wheelRunEvents.clientId })
+    .from(wheelRunEvents)
+    .where(and(eq(wheelRunEvents.wheelId, wheelId), eq(wheelRunEvents.shopId, member.shopId), inArray(wheelRunEvents.clientId, events.map((e) => e.clientId))));
+  if (known.length !== new Set(events.map((e) => e.clientId)).size) throw new DomainError('conflict', 'An event id was already used elsewhere.');
+  const all = await listEvents(member.shopId, wheelId);
+  if (all.some((e) => e.type === 'inspection_failed') && !ctx.wheel.flaggedReason) {
+    const state = reduceRun(plan, all);
+    await db.update(jobWheels).set({ flaggedReason: state.flagged }).where(and(eq(jobWheels.shopId, member.shopId), eq(jobWheels.id, wheelId)));
+  }
+  return { saved: stored.length, duplicates: events.length - stored.length, state: reduceRun(plan, all) };
+}
+
+/** Closes the wheel's record when nothing blocks it; answers whether every wheel of the job is in. */
+export async function submitWheel(member: Member, wheelId: string) {
+  const ctx = await loadWheel(member.shopId, wheelId);
+  assertMayRun(member, ctx);
+  if (ctx.wheel.submittedAt) return { jobId: ctx.job.id, allSubmitted: await allSubmitted(member.shopId, ctx.job.id) };
+  if (ctx.job.state !== 'in_progress') throw new DomainError('conflict', 'Start the job card before submitting its wheels.');
+  const plan = planFor(ctx);
+  const state = reduceRun(plan, await listEvents(member.shopId, wheelId));
+  const photos = await getDb().select({ kind: wheelPhotos.kind }).from(wheelPhotos).where(and(eq(wheelPhotos.shopId, member.shopId), eq(wheelPhotos.wheelId, wheelId)));
+  const blockers = submitBlockers(plan, state, photos.map((p) => p.kind));
+  if (blockers.length) throw new DomainError('conflict', blockers.join(' '), { submit: blockers });
+  await getDb().update(jobWheels).set({ submittedAt: new Date() }).where(and(eq(jobWheels.shopId, member.shopId), eq(jobWheels.id, wheelId), isNull(jobWheels.submittedAt)));
+  return { jobId: ctx.job.id, allSubmitted: await allSubmitted(member.shopId, ctx.job.id) };
+}
+
+async function allSubmitted(shopId: string, jobId: string) {
+  const wheels = await getDb().select({ submittedAt: jobWheels.submittedAt }).from(jobWheels).where(and(eq(jobWheels.shopId, shopId), eq(jobWheels.jobId, jobId)));
+  return wheels.every((w) => w.submittedAt);
+}
+

@@ -1,0 +1,102 @@
+import { randomUUID } from 'node:crypto';
+import { eq } from 'drizzle-orm';
+import { beforeEach, describe, expect, it } from 'vitest';
+import { GET, POST } from '@/app/api/wheels/[wheelId]/events/route';
+import { POST as SUBMIT } from '@/app/api/wheels/[wheelId]/submit/route';
+import { getDb } from '@/db';
+import { users, wheelRunEvents } from '@/db/schema';
+import { getJob } from '@/features/jobs/server/jobs';
+import { apiRequest, cookieFor, createTestShop, params } from '@/tests/helpers/factories';
+import { createRecords } from '@/tests/helpers/records';
+
+type Shop = Awaited<ReturnType<typeof createTestShop>>;
+let shop: Shop, wheelId: string, jobId: string;
+
+beforeEach(async () => {
+  shop = await createTestShop();
+  const r = await createRecords(shop.lead, shop.technician.userId);
+  jobId = r.job.id;
+  wheelId = (await getJob(shop.shopId, jobId)).wheels[0]!.id;
+});
+
+let t = 0;
+const confirm = (bolt: number, pass = 1, clientId: string = randomUUID()) => ({ type: 'bolt_confirmed', payload: { pass, bolt }, clientId, clientAt: new Date(Date.UTC(2026, 0, 1, 9, 0, t++)).toISOString() });
+const post = async (userId: string | null, events: unknown[], wheel = wheelId) =>
+  POST(apiRequest(`/api/wheels/${wheel}/events`, { method: 'POST', cookie: userId ? await cookieFor(userId) : undefined, body: { events } }), params({ wheelId: wheel }));
+const stored = () => getDb().select({ clientId: wheelRunEvents.clientId }).from(wheelRunEvents).where(eq(wheelRunEvents.wheelId, wheelId));
+
+describe('POST /api/wheels/:id/events', () => {
+  it('stores each event once however often it is replayed, and starts the job', async () => {
+    const batch = [confirm(1), confirm(13)];
+    const first = await post(shop.technician.userId, batch);
+    expect(first.status).toBe(200);
+    expect(await first.json()).toMatchObject({ data: { saved: 2, duplicates: 0, state: { passes: [expect.objectContaining({ confirmed: [1, 13] }), expect.anything(), expect.anything(), expect.anything()] } } });
+    const replay = await post(shop.technician.userId, batch);
+    expect(await replay.json()).toMatchObject({ data: { saved: 0, duplicates: 2 } });
+    expect(await stored()).toHaveLength(2);
+    expect((await getJob(shop.shopId, jobId)).state).toBe('in_progress');
+  });
+
+  it('out-of-order replay (a queue that flushed late) ends in the same state as in order', async () => {
+    const seq = [1, 13, 7, 19, 4, 16].map((b) => confirm(b));
+    await post(shop.technician.userId, [seq[3], seq[5], seq[4]]);
+    await post(shop.technician.userId, [seq[0], seq[2], seq[1]]);
+    const res = await GET(apiRequest(`/api/wheels/${wheelId}/events`, { cookie: await cookieFor(shop.technician.userId) }), params({ wheelId }));
+    const { data } = (await res.json()) as { data: { events: { clientId: string }[]; state: { passes: { confirmed: number[] }[]; anomalies: unknown[] } } };
+    expect(data.state.passes[0]!.confirmed).toEqual([1, 13, 7, 19, 4, 16]);
+    expect(data.state.anomalies).toEqual([]);
+    expect(data.events.map((e) => e.clientId)).toEqual(seq.map((e) => e.clientId));
+  });
+
+  it('an apprentice, an unassigned technician, signed out, another shop: refused, nothing stored', async () => {
+    expect((await post(shop.apprentice.userId, [confirm(1)])).status).toBe(403);
+    expect((await post(null, [confirm(1)])).status).toBe(401);
+    const other = await createTestShop('Other');
+    expect((await post(other.lead.userId, [confirm(1)])).status).toBe(404);
+    // A technician of the same shop who is not the assignee.
+    const [tech2] = await getDb().insert(users).values({ shopId: shop.shopId, email: `t2-${randomUUID()}@shop.test`, name: 'Tess Two', role: 'technician', passwordHash: 'x' }).returning({ id: users.id });
+    const res = await post(tech2!.id, [confirm(1)]);
+    expect(res.status).toBe(403);
+    expect(await res.json()).toMatchObject({ error: { message: expect.stringMatching(/assigned to someone else/) } });
+    expect(await stored()).toHaveLength(0);
+  });
+
+  it('a lead may run any wheel of the shop', async () => {
+    expect((await post(shop.lead.userId, [confirm(1)])).status).toBe(200);
+  });
+
+  it('bad payloads are refused with a message and change nothing', async () => {
+    const cases: unknown[][] = [
+      [{ type: 'bolt_confirmed', payload: { pass: 1, bolt: 99 }, clientId: randomUUID(), clientAt: new Date().toISOString() }],
+      [{ type: 'bolt_confirmed', payload: { pass: 1, bolt: 30 }, clientId: randomUUID(), clientAt: new Date().toISOString() }],
+      [{ type: 'explode', payload: {}, clientId: randomUUID(), clientAt: new Date().toISOString() }],
+      [{ type: 'bolt_confirmed', payload: { pass: 1, bolt: 1 }, clientId: 'not-a-uuid', clientAt: new Date().toISOString() }],
+      [{ type: 'step_skipped', payload: { step: 'clean', reason: '' }, clientId: randomUUID(), clientAt: new Date().toISOString() }],
+      [],
+    ];
+    for (const events of cases) {
+      const res = await post(shop.technician.userId, events);
+      expect(res.status, JSON.stringify(events)).toBe(400);
+      expect(await res.json()).toMatchObject({ error: { code: 'invalid', message: expect.any(String) } });
+    }
+    expect(await stored()).toHaveLength(0);
+  });
+
+  it('an event id used for another wheel is not accepted twice', async () => {
+    const id = randomUUID();
+    await post(shop.technician.userId, [confirm(1, 1, id)]);
+    const otherWheel = (await getJob(shop.shopId, jobId)).wheels[1]!.id;
+    const res = await post(shop.technician.userId, [confirm(1, 1, id)], otherWheel);
+    expect(res.status).toBe(409);
+  });
+});
+
+describe('POST /api/wheels/:id/submit', () => {
+  it('refuses while steps and bead photos are missing, saying what is missing', async () => {
+    await post(shop.technician.userId, [confirm(1)]);
+    const res = await SUBMIT(apiRequest(`/api/wheels/${wheelId}/submit`, { method: 'POST', cookie: await cookieFor(shop.technician.userId) }), params({ wheelId }));
+    expect(res.status).toBe(409);
+    const body = (await res.json()) as { error: { fields: { submit: string[] } } };
+    expect(body.error.fields.submit).toEqual(expect.arrayContaining(['Step not finished: Safety gate.', 'Photo missing: seated bead, outer face.']));
+  });
+});
