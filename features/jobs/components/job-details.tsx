@@ -1,3 +1,4 @@
+import Link from 'next/link';
 import { arrowDirection, UNIT_LABELS } from '@/features/torque-plan';
 import type { JobCard } from '../server/jobs';
 import { STATE_LABELS } from '../transitions';
@@ -5,7 +6,7 @@ import { StateBadge } from './state-badge';
 
 const when = (iso: string) => new Date(iso).toUTCString().replace(' GMT', ' UTC');
 
-export function JobDetails({ job }: { job: JobCard }) {
+export function JobDetails({ job, canRun = false }: { job: JobCard; canRun?: boolean }) {
   return (
     <div className="flex flex-col gap-6">
       <div className="flex flex-wrap items-center gap-3">
@@ -44,6 +45,11 @@ export function JobDetails({ job }: { job: JobCard }) {
                 {w.tireSize} · {w.targetPressure} {UNIT_LABELS[w.pressureUnit]}
               </p>
               {w.directional ? <p className="text-sm">Directional: {arrowDirection(w.position).instruction}</p> : null}
+              {canRun && (job.state === 'open' || job.state === 'in_progress' || job.state === 'sent_back') ? (
+                <Link href={`/jobs/${job.id}/wheels/${w.id}/run`} className="mt-2 inline-flex min-h-touch items-center rounded-lg bg-work px-4 font-bold text-white">
+                  Run this wheel
+                </Link>
+              ) : null}
             </li>
           ))}
         </ul>

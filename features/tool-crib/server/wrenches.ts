@@ -174,3 +174,12 @@ export async function wrenchHistory(shopId: string, wrenchId: string): Promise<W
   ];
   return entries.sort((a, b) => b.at.localeCompare(a.at) || (a.type === 'status' ? -1 : 1));
 }
+
+/** Wrenches with a passing verification today (the runner's default policy: verified the same day). */
+export async function verifiedToday(shopId: string): Promise<string[]> {
+  const rows = await getDb()
+    .selectDistinct({ id: wrenchVerifications.wrenchId })
+    .from(wrenchVerifications)
+    .where(and(eq(wrenchVerifications.shopId, shopId), eq(wrenchVerifications.withinTolerance, true), gte(wrenchVerifications.recordedAt, sql`date_trunc('day', now())`)));
+  return rows.map((r) => r.id);
+}

@@ -27,7 +27,7 @@ export default async function JobPage({ params }: PageProps<'/jobs/[jobId]'>) {
       </Link>
       <PageHeader title={`Job #${job.number} · ${job.vehicle.label}`} />
       <div className="grid gap-8 lg:grid-cols-[2fr_1fr]">
-        <JobDetails job={job} />
+        <JobDetails job={job} canRun={can(member.role, 'jobs.run') && (member.role === 'lead' || job.assignee?.id === member.userId)} />
         <div className="flex flex-col gap-6">
           <TransitionForm jobId={job.id} allowed={allowedTransitions(member, job)} />
           {editable ? <JobEditForm job={job} assignees={await listAssignees(member.shopId)} /> : null}

@@ -1,0 +1,44 @@
+import type { Metadata } from 'next';
+import { forbidden, notFound } from 'next/navigation';
+import { ids } from '@/features/jobs/schemas';
+import { Runner } from '@/features/runner/components/runner';
+import { assertMayRun, listEvents, loadWheel, planFor } from '@/features/runner/server/run';
+import { verifiedToday, wrenchesForEngine } from '@/features/tool-crib/server/wrenches';
+import { formatTorque, passPlan } from '@/features/torque-plan';
+import { requireMember } from '@/server/auth/guard';
+import { DomainError, orNotFound } from '@/server/errors';
+
+export const metadata: Metadata = { title: 'Runner' };
+
+export default async function RunPage({ params }: PageProps<'/jobs/[jobId]/wheels/[wheelId]/run'>) {
+  const member = await requireMember('jobs.run');
+  const p = await params;
+  const jobId = ids.job.safeParse(p.jobId);
+  const wheelId = ids.wheel.safeParse(p.wheelId);
+  if (!jobId.success || !wheelId.success) notFound();
+  const ctx = await orNotFound(loadWheel(member.shopId, wheelId.data));
+  if (ctx.job.id !== jobId.data) notFound();
+  try {
+    assertMayRun(member, ctx);
+  } catch (error) {
+    if (error instanceof DomainError && error.code === 'forbidden') forbidden();
+    throw error;
+  }
+  const { spec, wheel } = ctx;
+  const [wrenches, verified, events] = await Promise.all([wrenchesForEngine(member.shopId), verifiedToday(member.shopId), listEvents(member.shopId, wheel.id)]);
+  const targets = passPlan({ value: spec.finalTorque, unit: spec.torqueUnit }, spec.passFractions, { checkPass: spec.checkPass }).map((x) => x.target);
+  return (
+    <Runner
+      jobId={ctx.job.id}
+      jobNumber={ctx.job.number}
+      wheel={{ id: wheel.id, position: wheel.position, tireSize: wheel.tireSize, directional: wheel.directional, targetPressure: wheel.targetPressure, pressureUnit: wheel.pressureUnit }}
+      spec={{ name: spec.name, maxBeadSeatPressure: spec.maxBeadSeatPressure, pressureUnit: spec.pressureUnit, lugTorque: spec.lugTorque && spec.lugTorqueUnit ? formatTorque({ value: spec.lugTorque, unit: spec.lugTorqueUnit }, 1) : null }}
+      plan={planFor(ctx)}
+      targets={targets}
+      wrenches={wrenches}
+      verified={verified}
+      events={events}
+      photoKinds={[]}
+    />
+  );
+}

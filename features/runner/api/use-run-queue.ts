@@ -1,0 +1,128 @@
+'use client';
+
+import { get, set } from 'idb-keyval';
+import { useCallback, useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'react';
+import type { ClientEvent, RunEvent } from '../events';
+
+type Status = { waiting: number; error: string | null };
+
+function subscribeOnline(change: () => void) {
+  window.addEventListener('online', change);
+  window.addEventListener('offline', change);
+  return () => {
+    window.removeEventListener('online', change);
+    window.removeEventListener('offline', change);
+  };
+}
+
+const key = (wheelId: string) => `ringpass:run:${wheelId}`;
+
+/**
+ * The runner's durable outbox. Every confirmation becomes an event with its own id, is applied at
+ * once, kept in IndexedDB until the server has it, and sent in order when the network allows.
+ * The server stores each id once, so sending again after a drop or a reload is always safe.
+ */
+export function useRunQueue(wheelId: string, serverEvents: ClientEvent[]) {
+  const [saved, setSaved] = useState<ClientEvent[]>(serverEvents);
+  const [pending, setPending] = useState<ClientEvent[]>([]);
+  const [status, setStatus] = useState<Status>({ waiting: 0, error: null });
+  const online = useSyncExternalStore(subscribeOnline, () => navigator.onLine, () => true);
+  const flushRef = useRef<() => Promise<void>>(async () => {});
+  const pendingRef = useRef<ClientEvent[]>([]);
+  const loaded = useRef(false);
+  const sending = useRef(false);
+  const retry = useRef<ReturnType<typeof setTimeout> | null>(null);
+  const attempt = useRef(0);
+
+  const store = useCallback(
+    async (next: ClientEvent[]) => {
+      pendingRef.current = next;
+      setPending(next);
+      setStatus((s) => ({ ...s, waiting: next.length }));
+      await set(key(wheelId), next);
+    },
+    [wheelId],
+  );
+
+  const flush = useCallback(async () => {
+    if (sending.current || !loaded.current) return;
+    const batch = pendingRef.current.slice(0, 100);
+    if (batch.length === 0) return;
+    if (typeof navigator !== 'undefined' && !navigator.onLine) return;
+    sending.current = true;
+    try {
+      const res = await fetch(`/api/wheels/${wheelId}/events`, {
+        method: 'POST',
+        headers: { 'content-type': 'application/json' },
+        body: JSON.stringify({ events: batch }),
+      });
+      const body = (await res.json().catch(() => null)) as { error?: { message: string } } | null;
+      const sent = new Set(batch.map((e) => e.clientId));
+      if (res.ok) {
+        attempt.current = 0;
+        setSaved((s) => [...s, ...batch.filter((e) => !s.some((x) => x.clientId === e.clientId))]);
+        await store(pendingRef.current.filter((e) => !sent.has(e.clientId)));
+        setStatus((s) => ({ ...s, error: null }));
+      } else if (res.status >= 400 && res.status < 500 && res.status !== 408 && res.status !== 429) {
+        // The server refused these for good (bad data, no permission): keep them out of the queue
+        // so the rest can go, and say so.
+        await store(pendingRef.current.filter((e) => !sent.has(e.clientId)));
+        setStatus((s) => ({ ...s, error: body?.error?.message ?? `Not saved (${res.status}).` }));
+      } else {
+        throw new Error(`server answered ${res.status}`);
+      }
+    } catch {
+      attempt.current += 1;
+      const wait = Math.min(30_000, 1000 * 2 ** attempt.current);
+      if (retry.current) clearTimeout(retry.current);
+      retry.current = setTimeout(() => void flushRef.current(), wait);
+    } finally {
+      sending.current = false;
+    }
+    if (pendingRef.current.length && attempt.current === 0) void flushRef.current();
+  }, [wheelId, store]);
+  useEffect(() => {
+    flushRef.current = flush;
+  }, [flush]);
+
+  // Load what this device still holds from before a reload (online or offline).
+  useEffect(() => {
+    let cancelled = false;
+    void get<ClientEvent[]>(key(wheelId)).then(async (held) => {
+      if (cancelled) return;
+      loaded.current = true;
+      const known = new Set(serverEvents.map((e) => e.clientId));
+      await store((held ?? []).filter((e) => !known.has(e.clientId)));
+      void flush();
+    });
+    return () => {
+      cancelled = true;
+    };
+  }, [wheelId, serverEvents, store, flush]);
+
+  // Back online: send what waited, without waiting for the retry timer.
+  useEffect(() => {
+    if (!online) return;
+    attempt.current = 0;
+    void flush();
+  }, [online, flush]);
+  useEffect(() => () => {
+    if (retry.current) clearTimeout(retry.current);
+  }, []);
+
+  const record = useCallback(
+    async (event: RunEvent) => {
+      const full = { ...event, clientId: crypto.randomUUID(), clientAt: new Date().toISOString() } as ClientEvent;
+      await store([...pendingRef.current, full]);
+      void flush();
+    },
+    [store, flush],
+  );
+
+  const events = useMemo(() => {
+    const ids = new Set(saved.map((e) => e.clientId));
+    return [...saved, ...pending.filter((e) => !ids.has(e.clientId))];
+  }, [saved, pending]);
+
+  return { events, record, status: { ...status, online } };
+}

@@ -1,0 +1,107 @@
+'use client';
+
+import Link from 'next/link';
+import { useMemo } from 'react';
+import { arrowDirection, type PressureUnit, type Torque, type WheelPosition, type Wrench } from '@/features/torque-plan';
+import { useRunQueue } from '../api/use-run-queue';
+import type { ClientEvent } from '../events';
+import { useRunnerSettings } from '../settings-store';
+import { reduceRun, type RunnerPlan } from '../state';
+import { HandStartPanel } from './hand-start-panel';
+import { StepPanel } from './step-panel';
+import { SummaryPanel } from './summary-panel';
+import { TorquePanel } from './torque-panel';
+import { useWakeLock } from './use-wake-lock';
+
+export type RunnerProps = {
+  jobId: string;
+  jobNumber: number;
+  wheel: { id: string; position: WheelPosition; tireSize: string; directional: boolean; targetPressure: number; pressureUnit: PressureUnit };
+  spec: { name: string; maxBeadSeatPressure: number; pressureUnit: PressureUnit; lugTorque: string | null };
+  plan: RunnerPlan;
+  targets: Torque[];
+  wrenches: (Wrench & { label: string })[];
+  verified: string[];
+  events: ClientEvent[];
+  photoKinds: string[];
+};
+
+/** The guided procedure for one wheel on a phone at the tire cart. */
+export function Runner(props: RunnerProps) {
+  const { plan, wheel } = props;
+  const { events, record, status } = useRunQueue(wheel.id, props.events);
+  const state = useMemo(() => reduceRun(plan, events), [plan, events]);
+  const settings = useRunnerSettings();
+  const wake = useWakeLock();
+  const step = plan.steps.find((s) => s.id === state.current) ?? plan.steps.at(-1)!;
+  const stepNo = plan.steps.indexOf(step) + 1;
+
+  return (
+    <div className="mx-auto flex min-h-dvh max-w-xl flex-col">
+      <header className="sticky top-0 z-10 bg-ink px-3 py-2 text-white">
+        <div className="flex items-center justify-between gap-2">
+          <Link href={`/jobs/${props.jobId}`} className="inline-flex min-h-touch items-center font-bold underline">
+            ← Job #{props.jobNumber}
+          </Link>
+          <p role="status" aria-live="polite" className={`rounded-full px-3 py-1 text-sm font-bold ${status.waiting ? 'bg-caution text-caution-ink' : 'bg-ok text-white'}`}>
+            {status.waiting ? `${status.waiting} waiting${status.online ? '' : ' · offline'}` : 'Saved'}
+          </p>
+        </div>
+        <p className="font-semibold">
+          {wheel.position} · {wheel.tireSize} · {props.spec.name}
+        </p>
+        {status.error ? <p role="alert" className="mt-1 rounded bg-danger px-2 py-1 text-sm font-bold">{status.error}</p> : null}
+      </header>
+      <main className="flex flex-1 flex-col gap-4 p-3">
+        {state.flagged ? (
+          <div role="alert" className="rounded-xl border-4 border-danger bg-danger-tint p-4 text-danger">
+            <p className="text-xl font-black">Wheel stopped: inspection failed</p>
+            <p>{state.flagged}</p>
+            <p className="mt-2 font-semibold">A lead has been flagged; parts are needed before this wheel goes on.</p>
+          </div>
+        ) : (
+          <>
+            <h1 className="text-2xl font-black">
+              <span className="text-ink-soft">Step {stepNo} of {plan.steps.length} · </span>
+              {step.title}
+            </h1>
+            {step.id === 'hand_start' ? (
+              <HandStartPanel boltCount={plan.boltCount} started={state.handStarted} cautions={step.cautions} record={record} />
+            ) : step.id === 'torque' ? (
+              <TorquePanel state={state} targets={props.targets} wrenches={props.wrenches} verified={props.verified} cautions={step.cautions} boltCount={plan.boltCount} record={record} />
+            ) : step.id === 'submit' ? (
+              <SummaryPanel wheelId={wheel.id} plan={plan} state={state} targets={props.targets} wrenches={props.wrenches} photoKinds={props.photoKinds} />
+            ) : (
+              <StepPanel
+                key={step.id}
+                step={step}
+                record={record}
+                limit={step.id === 'seat_bead' ? { value: props.spec.maxBeadSeatPressure, unit: props.spec.pressureUnit } : undefined}
+                extra={
+                  step.id === 'mount' && wheel.directional ? (
+                    <p className="rounded-xl border-2 border-work bg-work-tint p-3 text-lg font-bold text-work-dark">{arrowDirection(wheel.position).instruction}</p>
+                  ) : step.id === 'leak_check' ? (
+                    <p className="text-lg">Target pressure: <strong>{wheel.targetPressure} {wheel.pressureUnit}</strong></p>
+                  ) : step.id === 'reinstall' && props.spec.lugTorque ? (
+                    <p className="text-lg">Lug-nut torque: <strong>{props.spec.lugTorque}</strong></p>
+                  ) : step.id === 'seat_bead' ? (
+                    <p className="rounded-xl border-2 border-ink p-3">Photos of the seated bead (outer and inner face) are required before submit; photo upload comes with the evidence feature.</p>
+                  ) : null
+                }
+              />
+            )}
+          </>
+        )}
+      </main>
+      <footer className="flex flex-wrap items-center gap-3 border-t-2 border-paper-line p-3 text-sm">
+        <label className="flex min-h-touch items-center gap-2">
+          <input type="checkbox" className="size-6" checked={settings.speak} onChange={settings.toggleSpeak} /> Speak the next bolt
+        </label>
+        <label className="flex min-h-touch items-center gap-2">
+          <input type="checkbox" className="size-6" checked={settings.vibrate} onChange={settings.toggleVibrate} /> Vibrate on each bolt
+        </label>
+        <span>{wake === 'on' ? 'Screen stays on.' : wake === 'unsupported' ? 'This browser cannot keep the screen on: set the screen timeout longer.' : ''}</span>
+      </footer>
+    </div>
+  );
+}

@@ -1,0 +1,131 @@
+'use client';
+
+import { useState } from 'react';
+import { convertPressure, UNIT_LABELS, type PressureUnit } from '@/features/torque-plan';
+import type { RunEvent } from '../events';
+import type { Step } from '../steps';
+import { Caution } from './caution';
+
+const big = 'min-h-16 w-full rounded-xl px-4 text-lg font-bold';
+
+/**
+ * A checklist step: tick every item, record the reading if the step asks for one, then "Step
+ * done". An optional step can be skipped with a reason; the inspection can fail the wheel.
+ */
+export function StepPanel({
+  step,
+  record,
+  extra,
+  limit,
+}: {
+  step: Step;
+  record: (e: RunEvent) => Promise<void>;
+  extra?: React.ReactNode;
+  /** The highest reading allowed (bead seating), with its unit. */
+  limit?: { value: number; unit: PressureUnit };
+}) {
+  const [ticked, setTicked] = useState<string[]>([]);
+  const [value, setValue] = useState('');
+  const [unit, setUnit] = useState<PressureUnit>(limit?.unit ?? 'psi');
+  const [skipping, setSkipping] = useState(false);
+  const [failing, setFailing] = useState(false);
+  const [reason, setReason] = useState('');
+  const reading = value.trim() ? Number(value.replace(',', '.')) : null;
+  const overLimit = reading !== null && limit ? convertPressure(reading, unit, limit.unit) > limit.value + 1e-9 : false;
+  const readingOk = !step.measurement || (reading !== null && Number.isFinite(reading) && reading > 0 && !overLimit);
+  const ready = ticked.length === step.checklist.length && readingOk;
+
+  return (
+    <div className="flex flex-col gap-4">
+      <Caution items={step.cautions} />
+      {extra}
+      {step.checklist.length ? (
+        <fieldset className="flex flex-col gap-2">
+          <legend className="sr-only">Checklist</legend>
+          {step.checklist.map((item) => (
+            <label key={item.id} className="flex min-h-14 items-center gap-3 rounded-xl border-2 border-paper-line px-3 text-lg">
+              <input
+                type="checkbox"
+                className="size-8 shrink-0 accent-work"
+                checked={ticked.includes(item.id)}
+                onChange={(e) => setTicked((t) => (e.target.checked ? [...t, item.id] : t.filter((x) => x !== item.id)))}
+              />
+              {item.text}
+            </label>
+          ))}
+        </fieldset>
+      ) : null}
+      {step.measurement ? (
+        <div className="flex flex-col gap-1">
+          <label htmlFor={`${step.id}-reading`} className="font-semibold">
+            {step.measurement.label}
+          </label>
+          <div className="grid grid-cols-[2fr_1fr] gap-2">
+            <input id={`${step.id}-reading`} inputMode="decimal" value={value} onChange={(e) => setValue(e.target.value)} aria-invalid={overLimit || undefined} aria-describedby={`${step.id}-reading-note`} className="min-h-14 rounded-xl border-2 border-ink-soft px-3 text-xl" />
+            <select aria-label="Pressure unit" value={unit} onChange={(e) => setUnit(e.target.value as PressureUnit)} className="min-h-14 rounded-xl border-2 border-ink-soft px-2 text-lg">
+              {(['psi', 'kPa', 'bar'] as const).map((u) => (
+                <option key={u} value={u}>
+                  {UNIT_LABELS[u]}
+                </option>
+              ))}
+            </select>
+          </div>
+          <p id={`${step.id}-reading-note`} className={overLimit ? 'font-bold text-danger' : 'text-sm text-ink-soft'} role={overLimit ? 'alert' : undefined}>
+            {overLimit
+              ? `Above the tire's maximum bead-seating pressure (${limit!.value} ${UNIT_LABELS[limit!.unit]}). Stop, deflate and find the cause.`
+              : reading && Number.isFinite(reading)
+                ? (['psi', 'kPa', 'bar'] as const).filter((u) => u !== unit).map((u) => `${Number(convertPressure(reading, unit, u).toFixed(2))} ${UNIT_LABELS[u]}`).join(' · ')
+                : limit
+                  ? `At most ${limit.value} ${UNIT_LABELS[limit.unit]}.`
+                  : ' '}
+          </p>
+        </div>
+      ) : null}
+      <button
+        type="button"
+        disabled={!ready}
+        onClick={() => void record({ type: 'step_done', payload: { step: step.id, checklist: ticked, ...(step.measurement && reading ? { measurement: { value: reading, unit } } : {}) } })}
+        className={`${big} bg-work text-white disabled:bg-paper-line disabled:text-ink-soft`}
+      >
+        Step done
+      </button>
+      {step.id === 'inspect' ? (
+        failing ? (
+          <ReasonForm label="What failed the inspection?" onCancel={() => setFailing(false)} value={reason} setValue={setReason} submit="Stop this wheel and flag it" onSubmit={() => void record({ type: 'inspection_failed', payload: { notes: reason } })} />
+        ) : (
+          <button type="button" onClick={() => setFailing(true)} className={`${big} border-2 border-danger text-danger`}>
+            Inspection failed…
+          </button>
+        )
+      ) : null}
+      {!step.required ? (
+        skipping ? (
+          <ReasonForm label="Why skip this step?" onCancel={() => setSkipping(false)} value={reason} setValue={setReason} submit="Skip the step" onSubmit={() => void record({ type: 'step_skipped', payload: { step: step.id, reason } })} />
+        ) : (
+          <button type="button" onClick={() => setSkipping(true)} className={`${big} border-2 border-ink`}>
+            Skip this step…
+          </button>
+        )
+      ) : null}
+    </div>
+  );
+}
+
+function ReasonForm({ label, value, setValue, submit, onSubmit, onCancel }: { label: string; value: string; setValue: (v: string) => void; submit: string; onSubmit: () => void; onCancel: () => void }) {
+  return (
+    <div className="flex flex-col gap-2 rounded-xl border-2 border-ink p-3">
+      <label htmlFor="reason" className="font-semibold">
+        {label}
+      </label>
+      <input id="reason" value={value} onChange={(e) => setValue(e.target.value)} className="min-h-14 rounded-xl border-2 border-ink-soft px-3 text-lg" />
+      <div className="grid grid-cols-2 gap-2">
+        <button type="button" onClick={onCancel} className={`${big} border-2 border-ink`}>
+          Cancel
+        </button>
+        <button type="button" disabled={value.trim().length < 3} onClick={onSubmit} className={`${big} bg-ink text-white disabled:opacity-40`}>
+          {submit}
+        </button>
+      </div>
+    </div>
+  );
+}

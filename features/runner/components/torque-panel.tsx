@@ -1,0 +1,138 @@
+'use client';
+
+import { useEffect, useMemo, useState } from 'react';
+import { BoltCircle } from '@/features/bolt-circle/bolt-circle';
+import { chooseWrench, formatTorque, UNIT_LABELS, type Torque, type Wrench } from '@/features/torque-plan';
+import type { RunEvent } from '../events';
+import type { RunnerState } from '../state';
+import { useRunnerSettings } from '../settings-store';
+import { Caution } from './caution';
+import { VerifyInline } from './verify-inline';
+
+type CribWrench = Wrench & { label: string };
+const big = 'min-h-16 w-full rounded-xl px-4 text-lg font-bold';
+
+function cue(text: string, speak: boolean, vibrate: boolean) {
+  if (vibrate && 'vibrate' in navigator) navigator.vibrate(40);
+  if (speak && 'speechSynthesis' in window) {
+    window.speechSynthesis.cancel();
+    window.speechSynthesis.speak(new SpeechSynthesisUtterance(text));
+  }
+}
+
+/**
+ * One pass at a time: the target, the wrench and its setting in the wrench's own units, the
+ * bolt circle, and one big "clicked" button that confirms the highlighted bolt.
+ */
+export function TorquePanel({
+  state,
+  targets,
+  wrenches,
+  verified,
+  cautions,
+  boltCount,
+  record,
+}: {
+  state: RunnerState;
+  targets: Torque[];
+  wrenches: CribWrench[];
+  verified: string[];
+  cautions: string[];
+  boltCount: number;
+  record: (e: RunEvent) => Promise<void>;
+}) {
+  const { speak, vibrate } = useRunnerSettings();
+  const [ok, setOk] = useState<string[]>(verified);
+  const [failed, setFailed] = useState<string[]>([]);
+  const [selected, setSelected] = useState<number | null>(null);
+  const index = state.currentPass;
+  const pass = index ? state.passes[index - 1]! : null;
+  const target = index ? targets[index - 1]! : null;
+  const usable = useMemo(() => wrenches.filter((w) => !failed.includes(w.id)), [wrenches, failed]);
+
+  const best = target ? chooseWrench(target, usable) : null;
+  const suitable = target ? usable.filter((w) => chooseWrench(target, [w]).ok) : [];
+  const wrenchId = pass?.wrenchId && suitable.some((w) => w.id === pass.wrenchId) ? pass.wrenchId : best?.ok ? best.wrenchId : null;
+  const wrench = usable.find((w) => w.id === wrenchId) ?? null;
+  const choice = target && wrench ? chooseWrench(target, [wrench]) : null;
+
+  useEffect(() => {
+    if (pass?.next && speak) cue(`Bolt ${pass.next}`, speak, false);
+  }, [pass?.next, speak]);
+
+  if (!pass || !target) {
+    return (
+      <div className="flex flex-col gap-4">
+        <p className="rounded-xl border-2 border-ok bg-ok-tint p-4 text-lg font-bold text-ok">Every pass is done, check pass included.</p>
+        <button type="button" onClick={() => void record({ type: 'step_done', payload: { step: 'torque', checklist: [] } })} className={`${big} bg-work text-white`}>
+          Torque passes done
+        </button>
+      </div>
+    );
+  }
+
+  const label = pass.kind === 'check' ? 'check pass' : `pass ${pass.index}`;
+  const confirm = (bolt: number) => {
+    void record({ type: 'bolt_confirmed', payload: { pass: pass.index, bolt } });
+    cue(`Bolt ${bolt} done`, false, vibrate);
+    setSelected(null);
+  };
+
+  return (
+    <div className="flex flex-col gap-4">
+      <Caution items={cautions} />
+      <section aria-label="This pass" className="rounded-xl border-2 border-ink p-3">
+        <p className="text-lg font-bold">
+          {pass.kind === 'check' ? 'Check pass' : `Pass ${pass.index} of ${state.passes.filter((p) => p.kind === 'staged').length}`}: {formatTorque(target, 2)}
+        </p>
+        {choice?.ok ? (
+          <p className="text-2xl font-black">
+            Set {wrench!.label} to {choice.setting.value} {UNIT_LABELS[choice.setting.unit]}
+          </p>
+        ) : (
+          <p role="alert" className="font-bold text-danger">
+            {best && !best.ok ? best.reason : 'No in-service wrench suits this pass.'}
+          </p>
+        )}
+        {choice?.ok ? choice.warnings.map((w) => <p key={w} className="mt-1 font-semibold text-caution-ink">⚠ {w}</p>) : null}
+        {suitable.length > 1 ? (
+          <label className="mt-2 flex flex-col gap-1 font-semibold">
+            Wrench
+            <select value={wrenchId ?? ''} onChange={(e) => void record({ type: 'wrench_chosen', payload: { pass: pass.index, wrenchId: e.target.value } })} className="min-h-14 rounded-xl border-2 border-ink-soft px-2 text-lg">
+              {suitable.map((w) => (
+                <option key={w.id} value={w.id}>
+                  {w.label}
+                  {w.id === (best?.ok ? best.wrenchId : '') ? ' (suggested)' : ''}
+                </option>
+              ))}
+            </select>
+          </label>
+        ) : null}
+      </section>
+      {wrench && !ok.includes(wrench.id) ? (
+        <VerifyInline wrench={wrench} onResult={(within) => (within ? setOk((v) => [...v, wrench.id]) : setFailed((f) => [...f, wrench.id]))} />
+      ) : wrench && choice?.ok ? (
+        <>
+          <BoltCircle count={boltCount} order={pass.order} done={pass.confirmed} next={pass.next} passLabel={label} selected={selected} onSelect={setSelected} label={`Bolt circle, ${label}: ${pass.confirmed.length} of ${boltCount} done`} />
+          <p aria-live="polite" className="text-center text-lg">
+            {pass.confirmed.length} of {boltCount} bolts · next: bolt {pass.next}
+          </p>
+          {selected && selected !== pass.next ? (
+            pass.confirmed.includes(selected) ? (
+              <button type="button" onClick={() => { void record({ type: 'bolt_undone', payload: { pass: pass.index, bolt: selected } }); setSelected(null); }} className={`${big} border-2 border-ink`}>
+                Undo bolt {selected}
+              </button>
+            ) : (
+              <button type="button" onClick={() => confirm(selected)} className={`${big} border-4 border-caution bg-caution-tint text-caution-ink`}>
+                Bolt {selected} is out of sequence: confirm it anyway
+              </button>
+            )
+          ) : null}
+          <button type="button" onClick={() => pass.next && confirm(pass.next)} className="min-h-24 w-full rounded-2xl bg-work px-4 text-2xl font-black text-white active:bg-work-dark">
+            Clicked — bolt {pass.next}
+          </button>
+        </>
+      ) : null}
+    </div>
+  );
+}

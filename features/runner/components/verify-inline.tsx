@@ -1,0 +1,57 @@
+'use client';
+
+import { useState } from 'react';
+import { UNIT_LABELS, type Wrench } from '@/features/torque-plan';
+
+/** The runner's on-the-spot verification: the wrench must be checked today before its first pass. */
+export function VerifyInline({ wrench, onResult }: { wrench: Wrench & { label: string }; onResult: (withinTolerance: boolean) => void }) {
+  const [reference, setReference] = useState('');
+  const [reading, setReading] = useState('');
+  const [message, setMessage] = useState<{ ok: boolean; text: string } | null>(null);
+  const [busy, setBusy] = useState(false);
+
+  async function submit() {
+    setBusy(true);
+    try {
+      const res = await fetch(`/api/wrenches/${wrench.id}/verifications`, {
+        method: 'POST',
+        headers: { 'content-type': 'application/json' },
+        body: JSON.stringify({ referenceValue: Number(reference), readingValue: Number(reading), unit: wrench.unit }),
+      });
+      const body = (await res.json()) as { data?: { withinTolerance: boolean; deviationPct: number; tolerancePct: number }; error?: { message: string } };
+      if (!res.ok || !body.data) return setMessage({ ok: false, text: body.error?.message ?? 'The verification was not saved.' });
+      const d = body.data;
+      setMessage({ ok: d.withinTolerance, text: d.withinTolerance ? `Within tolerance (${d.deviationPct.toFixed(1)} %).` : `Out of tolerance (${d.deviationPct.toFixed(1)} %, allowed ±${d.tolerancePct} %): the wrench is out of service. Pick another.` });
+      onResult(d.withinTolerance);
+    } catch {
+      setMessage({ ok: false, text: 'No connection: a verification has to reach the server. Try again when the Wi-Fi is back.' });
+    } finally {
+      setBusy(false);
+    }
+  }
+
+  const unit = UNIT_LABELS[wrench.unit];
+  return (
+    <section aria-label="Verify the wrench" className="flex flex-col gap-3 rounded-xl border-2 border-caution p-3">
+      <p className="font-bold">{wrench.label} has no verification today. Check it on the tester before its first pass.</p>
+      <div className="grid grid-cols-2 gap-2">
+        <label className="flex flex-col gap-1 font-semibold">
+          Reference ({unit})
+          <input inputMode="decimal" value={reference} onChange={(e) => setReference(e.target.value)} className="min-h-14 rounded-xl border-2 border-ink-soft px-3 text-lg" />
+        </label>
+        <label className="flex flex-col gap-1 font-semibold">
+          Reading ({unit})
+          <input inputMode="decimal" value={reading} onChange={(e) => setReading(e.target.value)} className="min-h-14 rounded-xl border-2 border-ink-soft px-3 text-lg" />
+        </label>
+      </div>
+      {message ? (
+        <p role={message.ok ? 'status' : 'alert'} className={message.ok ? 'font-bold text-ok' : 'font-bold text-danger'}>
+          {message.text}
+        </p>
+      ) : null}
+      <button type="button" disabled={busy || !Number(reference) || !Number(reading)} onClick={() => void submit()} className="min-h-16 rounded-xl bg-work px-4 text-lg font-bold text-white disabled:opacity-40">
+        Record verification
+      </button>
+    </section>
+  );
+}
