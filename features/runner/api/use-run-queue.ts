@@ -34,15 +34,26 @@ export function useRunQueue(wheelId: string, serverEvents: ClientEvent[]) {
   const retry = useRef<ReturnType<typeof setTimeout> | null>(null);
   const attempt = useRef(0);
 
+  const savedRef = useRef<ClientEvent[]>(serverEvents);
+  // The device keeps both what waits and what the server already has, so a reload while offline
+  // (the page then comes from the service worker's copy) still shows every confirmation.
+  const persist = useCallback(() => set(key(wheelId), { pending: pendingRef.current, saved: savedRef.current }), [wheelId]);
+
   const store = useCallback(
     async (next: ClientEvent[]) => {
       pendingRef.current = next;
       setPending(next);
       setStatus((s) => ({ ...s, waiting: next.length }));
-      await set(key(wheelId), next);
+      await persist();
     },
-    [wheelId],
+    [persist],
   );
+
+  const addSaved = useCallback((more: ClientEvent[]) => {
+    const ids = new Set(savedRef.current.map((e) => e.clientId));
+    savedRef.current = [...savedRef.current, ...more.filter((e) => !ids.has(e.clientId))];
+    setSaved(savedRef.current);
+  }, []);
 
   const flush = useCallback(async () => {
     if (sending.current || !loaded.current) return;
@@ -60,7 +71,7 @@ export function useRunQueue(wheelId: string, serverEvents: ClientEvent[]) {
       const sent = new Set(batch.map((e) => e.clientId));
       if (res.ok) {
         attempt.current = 0;
-        setSaved((s) => [...s, ...batch.filter((e) => !s.some((x) => x.clientId === e.clientId))]);
+        addSaved(batch);
         await store(pendingRef.current.filter((e) => !sent.has(e.clientId)));
         setStatus((s) => ({ ...s, error: null }));
       } else if (res.status >= 400 && res.status < 500 && res.status !== 408 && res.status !== 429) {
@@ -80,7 +91,7 @@ export function useRunQueue(wheelId: string, serverEvents: ClientEvent[]) {
       sending.current = false;
     }
     if (pendingRef.current.length && attempt.current === 0) void flushRef.current();
-  }, [wheelId, store]);
+  }, [wheelId, store, addSaved]);
   useEffect(() => {
     flushRef.current = flush;
   }, [flush]);
@@ -88,17 +99,18 @@ export function useRunQueue(wheelId: string, serverEvents: ClientEvent[]) {
   // Load what this device still holds from before a reload (online or offline).
   useEffect(() => {
     let cancelled = false;
-    void get<ClientEvent[]>(key(wheelId)).then(async (held) => {
+    void get<{ pending: ClientEvent[]; saved: ClientEvent[] }>(key(wheelId)).then(async (held) => {
       if (cancelled) return;
       loaded.current = true;
-      const known = new Set(serverEvents.map((e) => e.clientId));
-      await store((held ?? []).filter((e) => !known.has(e.clientId)));
+      addSaved(held?.saved ?? []);
+      const known = new Set(savedRef.current.map((e) => e.clientId));
+      await store((held?.pending ?? []).filter((e) => !known.has(e.clientId)));
       void flush();
     });
     return () => {
       cancelled = true;
     };
-  }, [wheelId, serverEvents, store, flush]);
+  }, [wheelId, store, flush, addSaved]);
 
   // Back online: send what waited, without waiting for the retry timer.
   useEffect(() => {

@@ -1,7 +1,7 @@
 'use client';
 
 import Link from 'next/link';
-import { useMemo } from 'react';
+import { useEffect, useMemo } from 'react';
 import { arrowDirection, type PressureUnit, type Torque, type WheelPosition, type Wrench } from '@/features/torque-plan';
 import { useRunQueue } from '../api/use-run-queue';
 import type { ClientEvent } from '../events';
@@ -35,6 +35,19 @@ export function Runner(props: RunnerProps) {
   const wake = useWakeLock();
   const step = plan.steps.find((s) => s.id === state.current) ?? plan.steps.at(-1)!;
   const stepNo = plan.steps.indexOf(step) + 1;
+
+  // The service worker keeps a copy of this page so it reloads without Wi-Fi.
+  useEffect(() => {
+    if (!('serviceWorker' in navigator)) return;
+    void navigator.serviceWorker
+      .register('/runner-sw.js')
+      .then(() => navigator.serviceWorker.ready)
+      .then((reg) => {
+        const assets = performance.getEntriesByType('resource').map((r) => r.name);
+        reg.active?.postMessage({ type: 'cache-runner', page: location.pathname, assets });
+      })
+      .catch(() => {});
+  }, []);
 
   return (
     <div className="mx-auto flex min-h-dvh max-w-xl flex-col">
