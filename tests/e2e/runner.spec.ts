@@ -1,0 +1,72 @@
+import { expect, test, type Page } from '@playwright/test';
+import { signUp, uniqueEmail } from './helpers';
+
+/** A same-origin API call with the page's session, as the app itself would make it. */
+async function api<T>(page: Page, method: 'GET' | 'POST', path: string, body?: unknown): Promise<T> {
+  const origin = new URL(page.url()).origin;
+  const res = await page.request.fetch(path, { method, data: body, headers: { origin, 'content-type': 'application/json' } });
+  expect(res.ok(), `${method} ${path}: ${await res.text()}`).toBe(true);
+  return ((await res.json()) as { data: T }).data;
+}
+
+test('at 360×640 a wheel runs through its steps; offline, 10 bolts are confirmed, the page reloads offline, and back online exactly those 10 are stored, in order', async ({ page, context }, testInfo) => {
+  test.setTimeout(120_000);
+  await signUp(page, 'Offline Rim Shop', 'Lou Bead', uniqueEmail('runner'));
+  const me = (await api<{ id: string }[]>(page, 'GET', '/api/team/members'))[0]!;
+  const today = new Date(Date.now() + 200 * 86_400_000).toISOString().slice(0, 10);
+  const wrench = await api<{ id: string }>(page, 'POST', '/api/wrenches', { label: 'Blue click 20–200 in-lb', kind: 'click', min: 20, max: 200, unit: 'lbf-in', graduation: 1, calibrationDueOn: today });
+  await api(page, 'POST', `/api/wrenches/${wrench.id}/verifications`, { referenceValue: 100, readingValue: 101, unit: 'lbf-in' });
+  const spec = await api<{ id: string }>(page, 'POST', '/api/specs', { name: '8-bolt test ring', boltCount: 8, boltThread: 'M8×1.25', finalTorque: 12, torqueUnit: 'lbf-ft', passPercents: [30, 70, 100], patternKind: 'cross', checkPass: true, maxBeadSeatPressure: 30, runningPressure: 14, pressureUnit: 'psi' });
+  const job = await api<{ id: string; wheels: { id: string }[] }>(page, 'POST', '/api/jobs', {
+    customer: { name: 'Ada Offroad', phone: '', email: '' },
+    vehicle: { make: 'Boreal', model: 'Scout', description: '' },
+    wheels: [{ position: 'LF', specId: spec.id, tireSize: '26x9-14', directional: true, targetPressure: 8, pressureUnit: 'psi' }],
+    dismount: false,
+    reinstall: false,
+    assigneeId: me.id,
+  });
+  const wheelId = job.wheels[0]!.id;
+
+  await page.goto(`/jobs/${job.id}`);
+  await page.getByRole('link', { name: 'Run this wheel' }).click();
+  await expect(page.getByRole('heading', { name: /Safety gate/ })).toBeVisible();
+  await expect(page.getByRole('complementary', { name: 'Caution' })).toContainText('valve core out');
+
+  const tickAndDone = async () => {
+    for (const box of await page.locator('main input[type=checkbox]').all()) await box.check();
+    await page.getByRole('button', { name: 'Step done' }).click();
+  };
+  await tickAndDone(); // safety
+  await expect(page.getByRole('heading', { name: /Inspect rim and ring/ })).toBeVisible();
+  await tickAndDone(); // inspect
+  await page.getByRole('button', { name: 'Skip this step…' }).click(); // clean
+  await page.getByLabel('Why skip this step?').fill('New wheel, clean from the box');
+  await page.getByRole('button', { name: 'Skip the step' }).click();
+  await expect(page.getByText('Left side: standing outside the wheel, the arrow turns counterclockwise')).toBeVisible();
+  await tickAndDone(); // mount
+  await tickAndDone(); // index
+  await expect(page.getByRole('heading', { name: /Start every bolt by hand/ })).toBeVisible();
+  for (let i = 1; i <= 8; i++) await page.getByRole('button', { name: `Bolt ${i} started by hand` }).click();
+  await page.getByRole('button', { name: 'All bolts started — step done' }).click();
+
+  await expect(page.getByText('Set Blue click 20–200 in-lb to 43 in-lb')).toBeVisible();
+  await expect(page.getByRole('status').filter({ hasText: 'Saved' })).toBeVisible();
+  await page.waitForFunction(async () => Boolean((await navigator.serviceWorker.getRegistration())?.active));
+  await page.waitForTimeout(500); // let the worker store the page it was sent
+  await testInfo.attach('a pass', { body: await page.screenshot(), contentType: 'image/png' });
+
+  await context.setOffline(true);
+  for (let i = 0; i < 10; i++) await page.getByRole('button', { name: /^Clicked — bolt \d+$/ }).click();
+  await expect(page.getByRole('status').filter({ hasText: '10 waiting · offline' })).toBeVisible();
+  await page.reload();
+  await expect(page.getByText('Set Blue click 20–200 in-lb to 101 in-lb')).toBeVisible(); // pass 2, resumed
+  await expect(page.getByText('2 of 8 bolts · next: bolt 3')).toBeVisible();
+  await expect(page.getByRole('status').filter({ hasText: '10 waiting' })).toBeVisible();
+
+  await context.setOffline(false);
+  await expect(page.getByRole('status').filter({ hasText: 'Saved' })).toBeVisible({ timeout: 15_000 });
+  const { events } = await api<{ events: { type: string; payload: { pass?: number; bolt?: number } }[] }>(page, 'GET', `/api/wheels/${wheelId}/events`);
+  const bolts = events.filter((e) => e.type === 'bolt_confirmed').map((e) => `${e.payload.pass}:${e.payload.bolt}`);
+  expect(bolts).toEqual(['1:1', '1:5', '1:3', '1:7', '1:2', '1:6', '1:4', '1:8', '2:1', '2:5']);
+  await testInfo.attach('back online', { body: await page.screenshot(), contentType: 'image/png' });
+});
