@@ -12,10 +12,12 @@ import { clusterUrl, ensureDatabase, startCluster } from '@/db/cluster';
 import { migrateDatabase } from '@/db/migrate';
 import { DEMO_PASSWORD, DEMO_PEOPLE, DEMO_SHOP, seedDemoShop } from '@/db/seed';
 import { startMailSink } from './mail-sink';
+import { startUploadFake } from './upload-fake';
 
 const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
 const PORT = 3000;
 const SINK_PORT = 2525;
+const UPLOAD_PORT = 2530;
 const NEXT = path.join(ROOT, 'node_modules', '.bin', 'next');
 
 async function main(mode: 'start' | 'dev') {
@@ -38,6 +40,12 @@ async function main(mode: 'start' | 'dev') {
     env.SMTP_URL = `smtp://127.0.0.1:${SINK_PORT}`;
     env.MAILBOX_DIR = dir;
   }
+  let closeUploads = async () => {};
+  if (!env.UPLOADTHING_TOKEN) {
+    const fake = await startUploadFake({ port: UPLOAD_PORT, dir: path.join(ROOT, '.data', 'uploads') });
+    closeUploads = fake.close;
+    Object.assign(env, fake.env);
+  }
   // Plain http on 127.0.0.1: the cookie cannot be Secure. A deployment behind TLS leaves this unset.
   if (env.APP_URL?.startsWith('http://')) env.COOKIE_SECURE ??= 'false';
 
@@ -57,13 +65,14 @@ async function main(mode: 'start' | 'dev') {
   console.log(`Demo shop "${DEMO_SHOP}", password for everyone: ${DEMO_PASSWORD}`);
   for (const p of DEMO_PEOPLE) console.log(`  ${p.role.padEnd(10)} ${p.email}`);
   if (env.MAILBOX_DIR) console.log(`Mail goes to the local sink: ${env.APP_URL}/mailbox`);
+  if (env.UPLOADTHING_INGEST_URL?.includes('127.0.0.1')) console.log(`Photos go to the local upload fake: ${env.UPLOADTHING_INGEST_URL} (files in .data/uploads)`);
   console.log('Stop with Ctrl+C; the database keeps running (npm run db:stop).\n');
 
   const stop = (signal: NodeJS.Signals) => child.kill(signal);
   process.on('SIGINT', stop);
   process.on('SIGTERM', stop);
   child.on('exit', (code) => {
-    void closeSink().finally(() => process.exit(code ?? 0));
+    void Promise.all([closeSink(), closeUploads()]).finally(() => process.exit(code ?? 0));
   });
 }
 

@@ -68,5 +68,56 @@ test('at 360×640 a wheel runs through its steps; offline, 10 bolts are confirme
   const { events } = await api<{ events: { type: string; payload: { pass?: number; bolt?: number } }[] }>(page, 'GET', `/api/wheels/${wheelId}/events`);
   const bolts = events.filter((e) => e.type === 'bolt_confirmed').map((e) => `${e.payload.pass}:${e.payload.bolt}`);
   expect(bolts).toEqual(['1:1', '1:5', '1:3', '1:7', '1:2', '1:6', '1:4', '1:8', '2:1', '2:5']);
-  await testInfo.attach('back online', { body: await page.screenshot(), contentType: 'image/png' });
+
+  // Finish the wheel: the rest of pass 2, pass 3, the check pass.
+  while (await page.getByRole('button', { name: /^Clicked — bolt \d+$/ }).count()) await page.getByRole('button', { name: /^Clicked — bolt \d+$/ }).click();
+  await page.getByRole('button', { name: 'Torque passes done' }).click();
+
+  // Seat the bead: cautions, the pressure limit, two photos through the local upload fake.
+  await expect(page.getByRole('heading', { name: /Seat the bead/ })).toBeVisible();
+  await expect(page.getByRole('complementary', { name: 'Caution' })).toContainText('maximum bead-seating pressure');
+  const jpeg = await page.evaluate(async () => {
+    const c = document.createElement('canvas');
+    c.width = 2400;
+    c.height = 1600;
+    const g = c.getContext('2d')!;
+    g.fillStyle = '#333';
+    g.fillRect(0, 0, c.width, c.height);
+    g.fillStyle = '#ffb300';
+    g.beginPath();
+    g.arc(1200, 800, 600, 0, Math.PI * 2);
+    g.fill();
+    const blob = await new Promise<Blob>((r) => c.toBlob((b) => r(b!), 'image/jpeg', 0.9));
+    return Array.from(new Uint8Array(await blob.arrayBuffer()));
+  });
+  const photo = { name: 'bead.jpg', mimeType: 'image/jpeg', buffer: Buffer.from(jpeg) };
+  await page.getByLabel('Seated bead, outer face (required)').setInputFiles(photo);
+  await expect(page.getByRole('img', { name: 'Seated bead, outer face' })).toBeVisible({ timeout: 20_000 });
+  await page.getByLabel('Seated bead, inner face (required)').setInputFiles(photo);
+  await expect(page.getByRole('img', { name: 'Seated bead, inner face' })).toBeVisible({ timeout: 20_000 });
+  // A text file named like a photo is refused by its bytes.
+  await page.getByLabel('Other photo', { exact: true }).setInputFiles({ name: 'notes.jpg', mimeType: 'image/jpeg', buffer: Buffer.from('not a photo at all') });
+  await expect(page.getByRole('alert').filter({ hasText: 'not a JPEG, PNG or WebP photo' })).toBeVisible({ timeout: 20_000 });
+
+  for (const box of await page.locator('main input[type=checkbox]').all()) await box.check();
+  await page.getByLabel('Highest pressure used to seat the bead').fill('45');
+  await expect(page.getByRole('alert').filter({ hasText: "Above the tire's maximum bead-seating pressure (30 psi)" })).toBeVisible();
+  await expect(page.getByRole('button', { name: 'Step done' })).toBeDisabled();
+  await page.getByLabel('Highest pressure used to seat the bead').fill('22');
+  await page.getByRole('button', { name: 'Step done' }).click();
+
+  await expect(page.getByRole('heading', { name: /Leak check/ })).toBeVisible();
+  for (const box of await page.locator('main input[type=checkbox]').all()) await box.check();
+  await page.getByLabel('Pressure set').fill('8');
+  await page.getByRole('button', { name: 'Step done' }).click();
+
+  await expect(page.getByRole('heading', { name: /Submit the wheel/ })).toBeVisible();
+  await expect(page.getByText('None: every bolt in sequence.')).toBeVisible();
+  await expect(page.getByText(/Clean: skipped \(New wheel, clean from the box\)/)).toBeVisible();
+  await testInfo.attach('summary', { body: await page.screenshot({ fullPage: true }), contentType: 'image/png' });
+  await page.getByRole('button', { name: 'Submit the wheel' }).click();
+  await expect(page.getByRole('status').filter({ hasText: 'the job card went to sign-off' })).toBeVisible();
+  await page.goto(`/jobs/${job.id}`);
+  await expect(page.getByText('Awaiting sign-off').first()).toBeVisible();
+  await expect(page.getByRole('img', { name: 'Seated bead, outer face' })).toBeVisible();
 });

@@ -8,6 +8,7 @@ import path from 'node:path';
 import { clusterUrl, recreateDatabase, startCluster } from '@/db/cluster';
 import { migrateDatabase } from '@/db/migrate';
 import { startMailSink } from '@/server/dev/mail-sink';
+import { startUploadFake } from '@/server/dev/upload-fake';
 import { E2E, ROOT } from '../helpers/test-services';
 
 async function main() {
@@ -16,6 +17,8 @@ async function main() {
   await migrateDatabase(clusterUrl(E2E.database));
   rmSync(E2E.sink.dir, { recursive: true, force: true });
   const sink = await startMailSink(E2E.sink);
+  rmSync(E2E.uploads.dir, { recursive: true, force: true });
+  const uploads = await startUploadFake(E2E.uploads);
 
   const env = {
     ...process.env,
@@ -27,6 +30,7 @@ async function main() {
     SMTP_URL: `smtp://127.0.0.1:${E2E.sink.port}`,
     MAILBOX_DIR: E2E.sink.dir,
     COOKIE_SECURE: 'false',
+    ...uploads.env,
   };
   const next = path.join(ROOT, 'node_modules', '.bin', 'next');
   const build = spawnSync(next, ['build'], { cwd: ROOT, env, stdio: 'inherit' });
@@ -35,7 +39,7 @@ async function main() {
   const stop = () => server.kill('SIGTERM');
   process.on('SIGTERM', stop);
   process.on('SIGINT', stop);
-  server.on('exit', (code) => void sink.close().finally(() => process.exit(code ?? 0)));
+  server.on('exit', (code) => void Promise.all([sink.close(), uploads.close()]).finally(() => process.exit(code ?? 0)));
 }
 
 main().catch((error: unknown) => {

@@ -6,6 +6,7 @@ export const INTEGRATION_SINK = { port: 2527, dir: path.join(ROOT, '.data', 'tes
 export const E2E = {
   appPort: 3100,
   sink: { port: 2528, dir: path.join(ROOT, '.data', 'e2e-mailbox') },
+  uploads: { port: 2531, dir: path.join(ROOT, '.data', 'e2e-uploads') },
   database: 'ringpass_e2e',
 };
 export const TEMPLATE_DB = 'ringpass_test_template';

@@ -6,7 +6,10 @@ import { StateBadge } from './state-badge';
 
 const when = (iso: string) => new Date(iso).toUTCString().replace(' GMT', ' UTC');
 
-export function JobDetails({ job, canRun = false }: { job: JobCard; canRun?: boolean }) {
+type Thumb = { id: string; kind: string; note: string; url: string };
+const PHOTO_LABELS: Record<string, string> = { bead_outer: 'Seated bead, outer face', bead_inner: 'Seated bead, inner face', other: 'Other photo' };
+
+export function JobDetails({ job, canRun = false, photos = {} }: { job: JobCard; canRun?: boolean; photos?: Record<string, Thumb[]> }) {
   return (
     <div className="flex flex-col gap-6">
       <div className="flex flex-wrap items-center gap-3">
@@ -45,7 +48,18 @@ export function JobDetails({ job, canRun = false }: { job: JobCard; canRun?: boo
                 {w.tireSize} · {w.targetPressure} {UNIT_LABELS[w.pressureUnit]}
               </p>
               {w.directional ? <p className="text-sm">Directional: {arrowDirection(w.position).instruction}</p> : null}
-              {canRun && (job.state === 'open' || job.state === 'in_progress' || job.state === 'sent_back') ? (
+              {photos[w.id]?.length ? (
+                <div className="mt-2 flex flex-wrap gap-2">
+                  {photos[w.id]!.map((p) => (
+                    <a key={p.id} href={p.url} target="_blank" rel="noreferrer">
+                      {/* eslint-disable-next-line @next/next/no-img-element -- evidence served by the upload service */}
+                      <img src={p.url} alt={`${PHOTO_LABELS[p.kind] ?? 'Photo'}${p.note ? `: ${p.note}` : ''}`} className="size-20 rounded-lg border-2 border-ink object-cover" />
+                    </a>
+                  ))}
+                </div>
+              ) : null}
+              {w.submittedAt ? <p className="mt-1 font-semibold text-ok">✓ Submitted</p> : null}
+              {canRun && !w.submittedAt && (job.state === 'open' || job.state === 'in_progress' || job.state === 'sent_back') ? (
                 <Link href={`/jobs/${job.id}/wheels/${w.id}/run`} className="mt-2 inline-flex min-h-touch items-center rounded-lg bg-work px-4 font-bold text-white">
                   Run this wheel
                 </Link>

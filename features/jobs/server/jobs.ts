@@ -9,7 +9,7 @@ import { axleWarnings, tireSizeErrors } from '../axle-check';
 import type { JobInput, JobStateName, WheelInput } from '../schemas';
 import { createCustomer, createVehicle, getCustomer, getVehicle, vehicleLabel, type Customer, type Vehicle } from './customers';
 
-export type JobWheel = WheelInput & { id: string; specName: string };
+export type JobWheel = WheelInput & { id: string; specName: string; submittedAt: string | null };
 export type JobCard = {
   id: string;
   number: number;
@@ -120,7 +120,7 @@ export async function getJob(shopId: string, jobId: string): Promise<JobCard> {
     getCustomer(shopId, job.customerId),
     getVehicle(shopId, job.vehicleId),
     db
-      .select({ id: jobWheels.id, position: jobWheels.position, specId: jobWheels.specId, specName: wheelSpecs.name, tireSize: jobWheels.tireSize, directional: jobWheels.directional, targetPressure: jobWheels.targetPressure, pressureUnit: jobWheels.pressureUnit })
+      .select({ id: jobWheels.id, position: jobWheels.position, specId: jobWheels.specId, specName: wheelSpecs.name, tireSize: jobWheels.tireSize, directional: jobWheels.directional, targetPressure: jobWheels.targetPressure, pressureUnit: jobWheels.pressureUnit, submittedAt: jobWheels.submittedAt })
       .from(jobWheels)
       .innerJoin(wheelSpecs, eq(wheelSpecs.id, jobWheels.specId))
       .where(and(eq(jobWheels.shopId, shopId), eq(jobWheels.jobId, jobId))),
@@ -145,7 +145,7 @@ export async function getJob(shopId: string, jobId: string): Promise<JobCard> {
     notes: job.notes,
     createdAt: job.createdAt.toISOString(),
     updatedAt: job.updatedAt.toISOString(),
-    wheels: wheels.sort((a, b) => order.indexOf(a.position) - order.indexOf(b.position)),
+    wheels: wheels.map((w) => ({ ...w, submittedAt: w.submittedAt?.toISOString() ?? null })).sort((a, b) => order.indexOf(a.position) - order.indexOf(b.position)),
     events: events.map((e) => ({ ...e, at: e.at.toISOString() })),
   };
 }

@@ -1,13 +1,14 @@
 'use client';
 
 import Link from 'next/link';
-import { useEffect, useMemo } from 'react';
+import { useEffect, useMemo, useState } from 'react';
 import { arrowDirection, type PressureUnit, type Torque, type WheelPosition, type Wrench } from '@/features/torque-plan';
 import { useRunQueue } from '../api/use-run-queue';
 import type { ClientEvent } from '../events';
 import { useRunnerSettings } from '../settings-store';
 import { reduceRun, type RunnerPlan } from '../state';
 import { HandStartPanel } from './hand-start-panel';
+import { PhotoCapture, type Photo } from './photo-capture';
 import { StepPanel } from './step-panel';
 import { SummaryPanel } from './summary-panel';
 import { TorquePanel } from './torque-panel';
@@ -23,7 +24,7 @@ export type RunnerProps = {
   wrenches: (Wrench & { label: string })[];
   verified: string[];
   events: ClientEvent[];
-  photoKinds: string[];
+  photos: Photo[];
 };
 
 /** The guided procedure for one wheel on a phone at the tire cart. */
@@ -31,6 +32,8 @@ export function Runner(props: RunnerProps) {
   const { plan, wheel } = props;
   const { events, record, status } = useRunQueue(wheel.id, props.events);
   const state = useMemo(() => reduceRun(plan, events), [plan, events]);
+  const [photos, setPhotos] = useState<Photo[]>(props.photos);
+  const photoKinds = photos.map((p) => p.kind);
   const settings = useRunnerSettings();
   const wake = useWakeLock();
   const step = plan.steps.find((s) => s.id === state.current) ?? plan.steps.at(-1)!;
@@ -83,13 +86,14 @@ export function Runner(props: RunnerProps) {
             ) : step.id === 'torque' ? (
               <TorquePanel state={state} targets={props.targets} wrenches={props.wrenches} verified={props.verified} cautions={step.cautions} boltCount={plan.boltCount} record={record} />
             ) : step.id === 'submit' ? (
-              <SummaryPanel wheelId={wheel.id} plan={plan} state={state} targets={props.targets} wrenches={props.wrenches} photoKinds={props.photoKinds} />
+              <SummaryPanel wheelId={wheel.id} plan={plan} state={state} targets={props.targets} wrenches={props.wrenches} photoKinds={photoKinds} />
             ) : (
               <StepPanel
                 key={step.id}
                 step={step}
                 record={record}
                 limit={step.id === 'seat_bead' ? { value: props.spec.maxBeadSeatPressure, unit: props.spec.pressureUnit } : undefined}
+                blocked={step.id === 'seat_bead' && !(photoKinds.includes('bead_outer') && photoKinds.includes('bead_inner')) ? 'Add both bead photos first.' : undefined}
                 extra={
                   step.id === 'mount' && wheel.directional ? (
                     <p className="rounded-xl border-2 border-work bg-work-tint p-3 text-lg font-bold text-work-dark">{arrowDirection(wheel.position).instruction}</p>
@@ -98,7 +102,7 @@ export function Runner(props: RunnerProps) {
                   ) : step.id === 'reinstall' && props.spec.lugTorque ? (
                     <p className="text-lg">Lug-nut torque: <strong>{props.spec.lugTorque}</strong></p>
                   ) : step.id === 'seat_bead' ? (
-                    <p className="rounded-xl border-2 border-ink p-3">Photos of the seated bead (outer and inner face) are required before submit; photo upload comes with the evidence feature.</p>
+                    <PhotoCapture wheelId={wheel.id} photos={photos} onAdded={(p) => setPhotos((all) => [...all, p])} />
                   ) : null
                 }
               />

@@ -17,12 +17,15 @@ export function StepPanel({
   record,
   extra,
   limit,
+  blocked,
 }: {
   step: Step;
   record: (e: RunEvent) => Promise<void>;
   extra?: React.ReactNode;
   /** The highest reading allowed (bead seating), with its unit. */
   limit?: { value: number; unit: PressureUnit };
+  /** Why "Step done" must wait (e.g. photos still missing). */
+  blocked?: string;
 }) {
   const [ticked, setTicked] = useState<string[]>([]);
   const [value, setValue] = useState('');
@@ -33,7 +36,7 @@ export function StepPanel({
   const reading = value.trim() ? Number(value.replace(',', '.')) : null;
   const overLimit = reading !== null && limit ? convertPressure(reading, unit, limit.unit) > limit.value + 1e-9 : false;
   const readingOk = !step.measurement || (reading !== null && Number.isFinite(reading) && reading > 0 && !overLimit);
-  const ready = ticked.length === step.checklist.length && readingOk;
+  const ready = ticked.length === step.checklist.length && readingOk && !blocked;
 
   return (
     <div className="flex flex-col gap-4">
@@ -81,6 +84,7 @@ export function StepPanel({
           </p>
         </div>
       ) : null}
+      {blocked ? <p className="font-semibold text-danger">{blocked}</p> : null}
       <button
         type="button"
         disabled={!ready}

@@ -7,6 +7,7 @@ import { TransitionForm } from '@/features/jobs/components/transition-form';
 import { ids } from '@/features/jobs/schemas';
 import { getJob, listAssignees } from '@/features/jobs/server/jobs';
 import { allowedTransitions } from '@/features/jobs/transitions';
+import { listPhotos } from '@/features/runner/server/photo-router';
 import { PageHeader } from '@/features/ui/page';
 import { requireMember } from '@/server/auth/guard';
 import { can } from '@/server/auth/permissions';
@@ -20,6 +21,7 @@ export default async function JobPage({ params }: PageProps<'/jobs/[jobId]'>) {
   if (!id.success) notFound();
   const job = await orNotFound(getJob(member.shopId, id.data));
   const editable = can(member.role, 'jobs.edit') && job.state !== 'signed_off';
+  const photos = Object.fromEntries(await Promise.all(job.wheels.map(async (w) => [w.id, await listPhotos(member.shopId, w.id)] as const)));
   return (
     <>
       <Link href="/board" className="font-semibold text-work underline">
@@ -27,7 +29,7 @@ export default async function JobPage({ params }: PageProps<'/jobs/[jobId]'>) {
       </Link>
       <PageHeader title={`Job #${job.number} · ${job.vehicle.label}`} />
       <div className="grid gap-8 lg:grid-cols-[2fr_1fr]">
-        <JobDetails job={job} canRun={can(member.role, 'jobs.run') && (member.role === 'lead' || job.assignee?.id === member.userId)} />
+        <JobDetails job={job} photos={photos} canRun={can(member.role, 'jobs.run') && (member.role === 'lead' || job.assignee?.id === member.userId)} />
         <div className="flex flex-col gap-6">
           <TransitionForm jobId={job.id} allowed={allowedTransitions(member, job)} />
           {editable ? <JobEditForm job={job} assignees={await listAssignees(member.shopId)} /> : null}

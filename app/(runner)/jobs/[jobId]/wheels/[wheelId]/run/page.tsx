@@ -2,6 +2,7 @@ import type { Metadata } from 'next';
 import { forbidden, notFound } from 'next/navigation';
 import { ids } from '@/features/jobs/schemas';
 import { Runner } from '@/features/runner/components/runner';
+import { listPhotos } from '@/features/runner/server/photo-router';
 import { assertMayRun, listEvents, loadWheel, planFor } from '@/features/runner/server/run';
 import { verifiedToday, wrenchesForEngine } from '@/features/tool-crib/server/wrenches';
 import { formatTorque, passPlan } from '@/features/torque-plan';
@@ -25,7 +26,7 @@ export default async function RunPage({ params }: PageProps<'/jobs/[jobId]/wheel
     throw error;
   }
   const { spec, wheel } = ctx;
-  const [wrenches, verified, events] = await Promise.all([wrenchesForEngine(member.shopId), verifiedToday(member.shopId), listEvents(member.shopId, wheel.id)]);
+  const [wrenches, verified, events, photos] = await Promise.all([wrenchesForEngine(member.shopId), verifiedToday(member.shopId), listEvents(member.shopId, wheel.id), listPhotos(member.shopId, wheel.id)]);
   const targets = passPlan({ value: spec.finalTorque, unit: spec.torqueUnit }, spec.passFractions, { checkPass: spec.checkPass }).map((x) => x.target);
   return (
     <Runner
@@ -38,7 +39,7 @@ export default async function RunPage({ params }: PageProps<'/jobs/[jobId]/wheel
       wrenches={wrenches}
       verified={verified}
       events={events}
-      photoKinds={[]}
+      photos={photos}
     />
   );
 }

@@ -1,0 +1,26 @@
+'use client';
+
+import { generateReactHelpers } from '@uploadthing/react';
+import type { PhotoRouter } from '../server/photo-router';
+
+export const { useUploadThing } = generateReactHelpers<PhotoRouter>();
+
+/**
+ * Shrinks a photo on the phone before it travels over the shop Wi-Fi: long edge about 2000 px,
+ * JPEG. A file the browser cannot decode is sent as it is, and the server judges its bytes.
+ */
+export async function downscale(file: File, longEdge = 2000): Promise<File> {
+  try {
+    const bitmap = await createImageBitmap(file);
+    const scale = Math.min(1, longEdge / Math.max(bitmap.width, bitmap.height));
+    const canvas = document.createElement('canvas');
+    canvas.width = Math.round(bitmap.width * scale);
+    canvas.height = Math.round(bitmap.height * scale);
+    canvas.getContext('2d')!.drawImage(bitmap, 0, 0, canvas.width, canvas.height);
+    const blob = await new Promise<Blob | null>((resolve) => canvas.toBlob(resolve, 'image/jpeg', 0.85));
+    if (!blob) return file;
+    return new File([blob], file.name.replace(/\.[^.]+$/, '') + '.jpg', { type: 'image/jpeg', lastModified: file.lastModified });
+  } catch {
+    return file;
+  }
+}

@@ -1,0 +1,160 @@
+/**
+ * A local stand-in for the hosted upload service, for development and tests. The app keeps the
+ * real SDK (route handler, React hooks, UTApi); only the service's URLs point here, by env:
+ *   UPLOADTHING_TOKEN, UPLOADTHING_INGEST_URL, UPLOADTHING_API_URL, UPLOADTHING_UFS_HOST,
+ *   UPLOADTHING_UFS_APP_ID_LOCATION=path, UPLOADTHING_IS_DEV=false (see uploadFakeEnv).
+ * It speaks the part of the protocol the SDK uses: route metadata, HEAD/PUT of a presigned URL
+ * (signature checked), the signed callback to the app and its result, file serving, deleteFiles.
+ * Files are stored in a folder on disk. Loopback only.
+ */
+import { createHmac, randomBytes, timingSafeEqual } from 'node:crypto';
+import { createServer, type IncomingMessage, type ServerResponse } from 'node:http';
+import { mkdirSync, readFileSync, rmSync, writeFileSync, existsSync } from 'node:fs';
+import path from 'node:path';
+import { Readable } from 'node:stream';
+
+export type UploadFake = { port: number; env: Record<string, string>; close: () => Promise<void> };
+
+type Pending = { metadata: unknown; callbackUrl: string; callbackSlug: string };
+
+const sign = (payload: string, key: string) => `hmac-sha256=${createHmac('sha256', key).update(payload).digest('hex')}`;
+
+export function uploadFakeEnv(port: number, apiKey: string, appId: string): Record<string, string> {
+  const token = Buffer.from(JSON.stringify({ apiKey, appId, regions: ['local'] })).toString('base64');
+  return {
+    UPLOADTHING_TOKEN: token,
+    UPLOADTHING_INGEST_URL: `http://127.0.0.1:${port}`,
+    UPLOADTHING_API_URL: `http://127.0.0.1:${port}`,
+    // The SDK builds file URLs from this host and allows plain http only for hosts with "local".
+    UPLOADTHING_UFS_HOST: `localhost:${port}`,
+    UPLOADTHING_UFS_APP_ID_LOCATION: 'path',
+    UPLOADTHING_IS_DEV: 'false',
+  };
+}
+
+export async function startUploadFake(options: { port: number; dir: string }): Promise<UploadFake> {
+  mkdirSync(options.dir, { recursive: true });
+  const apiKey = `sk_local_${randomBytes(16).toString('hex')}`;
+  const appId = 'ringpass-local';
+  const base = `http://127.0.0.1:${options.port}`;
+  const pending = new Map<string, Pending>();
+  const results = new Map<string, (data: unknown) => void>();
+
+  const cors = (req: IncomingMessage, res: ServerResponse) => {
+    res.setHeader('access-control-allow-origin', req.headers.origin ?? '*');
+    res.setHeader('access-control-allow-methods', 'GET, HEAD, PUT, POST, OPTIONS');
+    res.setHeader('access-control-allow-headers', 'range, content-type, x-uploadthing-version, x-uploadthing-package, b3, traceparent, tracestate');
+    res.setHeader('access-control-expose-headers', 'x-ut-range-start');
+  };
+  const json = (res: ServerResponse, status: number, body: unknown) => {
+    res.writeHead(status, { 'content-type': 'application/json' });
+    res.end(JSON.stringify(body));
+  };
+  const body = async (req: IncomingMessage) => {
+    const chunks: Buffer[] = [];
+    for await (const c of req) chunks.push(c as Buffer);
+    return Buffer.concat(chunks).toString('utf8');
+  };
+  const authorised = (req: IncomingMessage) => req.headers['x-uploadthing-api-key'] === apiKey;
+  const fileUrl = (key: string) => `http://localhost:${options.port}/a/${appId}/${key}`;
+
+  async function handlePut(req: IncomingMessage, res: ServerResponse, key: string, url: URL) {
+    // The SDK signs the URL up to "&signature"; values are encoded twice.
+    const raw = `${base}${req.url!}`;
+    const at = raw.indexOf('&signature=');
+    const given = at > 0 ? decodeURIComponent(raw.slice(at + '&signature='.length)) : '';
+    const expected = at > 0 ? sign(raw.slice(0, at), apiKey) : '';
+    if (!given || given.length !== expected.length || !timingSafeEqual(Buffer.from(given), Buffer.from(expected))) return json(res, 403, { error: 'Invalid signature' });
+    if (Number(url.searchParams.get('expires')) < Date.now()) return json(res, 403, { error: 'URL expired' });
+    const meta = pending.get(key);
+    if (!meta) return json(res, 404, { error: 'Unknown upload' });
+    const q = (k: string) => decodeURIComponent(url.searchParams.get(k) ?? '');
+    const request = new Request(raw, { method: 'PUT', headers: req.headers as HeadersInit, body: Readable.toWeb(req) as ReadableStream, duplex: 'half' } as RequestInit);
+    const form = await request.formData();
+    const file = form.get('file');
+    if (!(file instanceof Blob)) return json(res, 400, { error: 'No file field' });
+    const bytes = Buffer.from(await file.arrayBuffer());
+    const type = q('x-ut-file-type') || file.type || 'application/octet-stream';
+    writeFileSync(path.join(options.dir, key), bytes);
+    writeFileSync(path.join(options.dir, `${key}.json`), JSON.stringify({ type, name: q('x-ut-file-name') }));
+    const ufsUrl = fileUrl(key);
+    const fileHash = createHmac('md5', 'x').update(bytes).digest('hex');
+    const payload = JSON.stringify({
+      status: 'uploaded',
+      file: { name: q('x-ut-file-name'), size: bytes.length, type, customId: q('x-ut-custom-id') || null, key, url: ufsUrl, appUrl: ufsUrl, ufsUrl, fileHash, lastModified: Date.now() },
+      origin: base,
+      metadata: meta.metadata,
+    });
+    const done = new Promise<unknown>((resolve, reject) => {
+      results.set(key, resolve);
+      setTimeout(() => reject(new Error('the app did not answer the upload callback')), 15_000);
+    });
+    const callback = new URL(meta.callbackUrl);
+    if (!callback.searchParams.has('slug')) callback.searchParams.set('slug', meta.callbackSlug);
+    const hook = await fetch(callback, { method: 'POST', headers: { 'content-type': 'application/json', 'uploadthing-hook': 'callback', 'x-uploadthing-signature': sign(payload, apiKey) }, body: payload }).catch((e: Error) => e);
+    if (hook instanceof Error || !hook.ok) return json(res, 502, { error: 'Upload callback failed' });
+    try {
+      const serverData = await done;
+      pending.delete(key);
+      json(res, 200, { url: ufsUrl, appUrl: ufsUrl, ufsUrl, fileHash, serverData });
+    } catch (error) {
+      json(res, 504, { error: (error as Error).message });
+    }
+  }
+
+  const server = createServer((req, res) => {
+    cors(req, res);
+    const url = new URL(req.url ?? '/', base);
+    const route = `${req.method} ${url.pathname}`;
+    void (async () => {
+      if (req.method === 'OPTIONS') return res.writeHead(204).end();
+      if (route === 'POST /route-metadata') {
+        if (!authorised(req)) return json(res, 401, { error: 'Bad api key' });
+        const input = JSON.parse(await body(req)) as { fileKeys: string[]; metadata: unknown; callbackUrl: string; callbackSlug: string };
+        for (const key of input.fileKeys) pending.set(key, { metadata: input.metadata, callbackUrl: input.callbackUrl, callbackSlug: input.callbackSlug });
+        return json(res, 200, { ok: true });
+      }
+      if (route === 'POST /callback-result') {
+        if (!authorised(req)) return json(res, 401, { error: 'Bad api key' });
+        const input = JSON.parse(await body(req)) as { fileKey: string; callbackData: unknown };
+        results.get(input.fileKey)?.(input.callbackData);
+        results.delete(input.fileKey);
+        return json(res, 200, { ok: true });
+      }
+      if (route === 'POST /v6/deleteFiles') {
+        if (!authorised(req)) return json(res, 401, { error: 'Bad api key' });
+        const input = JSON.parse(await body(req)) as { fileKeys?: string[] };
+        let deletedCount = 0;
+        for (const key of input.fileKeys ?? []) {
+          if (!/^[\w-]+$/.test(key) || !existsSync(path.join(options.dir, key))) continue;
+          rmSync(path.join(options.dir, key));
+          rmSync(path.join(options.dir, `${key}.json`), { force: true });
+          deletedCount++;
+        }
+        return json(res, 200, { success: true, deletedCount });
+      }
+      const fileMatch = /^\/a\/[^/]+\/([\w-]+)$/.exec(url.pathname);
+      if (req.method === 'GET' && fileMatch) {
+        const file = path.join(options.dir, fileMatch[1]!);
+        if (!existsSync(file)) return json(res, 404, { error: 'Not found' });
+        const { type } = JSON.parse(readFileSync(`${file}.json`, 'utf8')) as { type: string };
+        res.writeHead(200, { 'content-type': type, 'cache-control': 'private, max-age=3600' });
+        return res.end(readFileSync(file));
+      }
+      const keyMatch = /^\/([\w-]+)$/.exec(url.pathname);
+      if (keyMatch && req.method === 'HEAD') {
+        res.writeHead(200, { 'x-ut-range-start': '0' });
+        return res.end();
+      }
+      if (keyMatch && req.method === 'PUT') return handlePut(req, res, keyMatch[1]!, url);
+      json(res, 404, { error: `No route for ${route}` });
+    })().catch((error: Error) => {
+      if (!res.headersSent) json(res, 500, { error: error.message });
+    });
+  });
+  await new Promise<void>((resolve, reject) => {
+    server.once('error', reject);
+    server.listen(options.port, '127.0.0.1', () => resolve());
+  });
+  return { port: options.port, env: uploadFakeEnv(options.port, apiKey, appId), close: () => new Promise((r) => server.close(() => r())) };
+}
