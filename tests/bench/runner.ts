@@ -1,0 +1,139 @@
+/**
+ * `npm run bench:runner`: the runner's save path under load, against the production build over
+ * loopback.
+ * (a) 50 technicians, each confirming a bolt every 2 s (open arrivals, about 25 a second) for 30 s
+ *     through POST /api/wheels/:id/events, signed in; in the same run, single-row inserts straight
+ *     into PostgreSQL at the same rate.
+ * (b) capacity: the rate is doubled, 30 s per step, while the p95 stays at or under 50 ms.
+ * Last two lines: `capacity N confirmations/s at p95 <= 50 ms` and
+ * `confirm p95 X ms, raw insert p95 Y ms, ratio Z`.
+ */
+import { spawn, spawnSync } from 'node:child_process';
+import { randomBytes, randomUUID } from 'node:crypto';
+import path from 'node:path';
+import postgres from 'postgres';
+import { clusterUrl, recreateDatabase, startCluster } from '@/db/cluster';
+import { migrateDatabase } from '@/db/migrate';
+import { ROOT } from '../helpers/test-services';
+
+const DB = 'ringpass_bench_runner';
+const PORT = 3201;
+const TECHS = 50;
+const SECONDS = Number(process.env.BENCH_SECONDS ?? 30);
+const BASE = `http://127.0.0.1:${PORT}`;
+
+const pct = (xs: number[], p: number) => (xs.length ? [...xs].sort((a, b) => a - b)[Math.min(xs.length - 1, Math.floor((p / 100) * xs.length))]! : NaN);
+
+type Tech = { cookie: string; wheelId: string; jobId: string; userId: string; shopId: string; n: number };
+
+async function seed(sql: postgres.Sql): Promise<Tech[]> {
+  const [shop] = await sql`insert into shops (name) values ('Bench runner shop') returning id`;
+  const shopId = shop!.id as string;
+  const [lead] = await sql`insert into users (shop_id, email, name, role, password_hash) values (${shopId}, 'lead@bench.test', 'Lead', 'lead', 'x') returning id`;
+  const [spec] = await sql`
+    insert into wheel_specs (shop_id, name, bolt_count, bolt_thread, final_torque, torque_unit, pass_fractions, pattern_kind, max_bead_seat_pressure, running_pressure, pressure_unit)
+    values (${shopId}, 'Bench 32', 32, 'M8', 12, 'lbf-ft', '[0.3,0.7,1]', 'cross', 30, 14, 'psi') returning id`;
+  const [customer] = await sql`insert into customers (shop_id, name) values (${shopId}, 'Bench customer') returning id`;
+  const [vehicle] = await sql`insert into vehicles (shop_id, customer_id, make) values (${shopId}, ${customer!.id}, 'Make') returning id`;
+  const techs: Tech[] = [];
+  for (let i = 0; i < TECHS; i++) {
+    const [u] = await sql`insert into users (shop_id, email, name, role, password_hash) values (${shopId}, ${`t${i}@bench.test`}, ${`Tech ${i}`}, 'technician', 'x') returning id`;
+    const [job] = await sql`insert into jobs (shop_id, number, customer_id, vehicle_id, state, assignee_id, created_by_id) values (${shopId}, ${1000 + i}, ${customer!.id}, ${vehicle!.id}, 'in_progress', ${u!.id}, ${lead!.id}) returning id`;
+    const [wheel] = await sql`insert into job_wheels (shop_id, job_id, position, spec_id, tire_size, target_pressure, pressure_unit) values (${shopId}, ${job!.id}, 'LF', ${spec!.id}, '30x10R14', 14, 'psi') returning id`;
+    const sid = randomBytes(20).toString('hex');
+    await sql`insert into sessions (id, user_id, expires_at, absolute_expires_at) values (${sid}, ${u!.id}, now() + interval '1 day', now() + interval '1 day')`;
+    techs.push({ cookie: `ringpass_session=${sid}`, wheelId: wheel!.id, jobId: job!.id, userId: u!.id, shopId, n: 0 });
+  }
+  return techs;
+}
+
+function confirmBody(t: Tech) {
+  const k = t.n++;
+  return JSON.stringify({ events: [{ type: 'bolt_confirmed', payload: { pass: 1 + (Math.floor(k / 32) % 4), bolt: 1 + (k % 32) }, clientId: randomUUID(), clientAt: new Date().toISOString() }] });
+}
+
+async function confirm(t: Tech): Promise<number> {
+  const started = performance.now();
+  const res = await fetch(`${BASE}/api/wheels/${t.wheelId}/events`, { method: 'POST', headers: { cookie: t.cookie, origin: BASE, 'content-type': 'application/json' }, body: confirmBody(t) });
+  await res.arrayBuffer();
+  if (!res.ok) throw new Error(`confirm answered ${res.status}`);
+  return performance.now() - started;
+}
+
+async function rawInsert(sql: postgres.Sql, t: Tech): Promise<number> {
+  const started = performance.now();
+  await sql`insert into wheel_run_events (shop_id, job_id, wheel_id, client_id, type, payload, by_id, client_at) values (${t.shopId}, ${t.jobId}, ${t.wheelId}, ${randomUUID()}, 'bench_raw', ${sql.json({ pass: 1, bolt: 1 })}, ${t.userId}, now())`;
+  return performance.now() - started;
+}
+
+/** Open arrivals: requests start on schedule whether or not earlier ones have finished. */
+async function load(rate: number, seconds: number, run: (i: number) => Promise<number>) {
+  const times: number[] = [];
+  let errors = 0;
+  const inflight: Promise<void>[] = [];
+  const start = performance.now();
+  const total = Math.round(rate * seconds);
+  for (let i = 0; i < total; i++) {
+    const due = start + (i * 1000) / rate;
+    const wait = due - performance.now();
+    if (wait > 1) await new Promise((r) => setTimeout(r, wait));
+    inflight.push(
+      run(i).then(
+        (ms) => void times.push(ms),
+        () => void errors++,
+      ),
+    );
+  }
+  await Promise.all(inflight);
+  return { times, errors };
+}
+
+async function main() {
+  await startCluster();
+  await recreateDatabase(DB);
+  await migrateDatabase(clusterUrl(DB));
+  const sql = postgres(clusterUrl(DB), { max: 10, onnotice: () => {} });
+  const techs = await seed(sql);
+  const env = { ...process.env, NODE_ENV: 'production' as const, NEXT_TELEMETRY_DISABLED: '1', NEXT_DIST_DIR: '.next-bench', DATABASE_URL: clusterUrl(DB), APP_URL: BASE, SMTP_URL: 'smtp://127.0.0.1:2599', COOKIE_SECURE: 'false' };
+  const next = path.join(ROOT, 'node_modules', '.bin', 'next');
+  console.log('[bench] building the app (next build)…');
+  if (spawnSync(next, ['build'], { cwd: ROOT, env, stdio: 'ignore' }).status !== 0) throw new Error('next build failed');
+  const server = spawn(next, ['start', '-H', '127.0.0.1', '-p', String(PORT)], { cwd: ROOT, env, stdio: 'ignore' });
+  try {
+    for (let i = 0; i < 120; i++) {
+      try {
+        if ((await fetch(`${BASE}/sign-in`)).ok) break;
+      } catch {}
+      await new Promise((r) => setTimeout(r, 500));
+    }
+    await load(25, 4, (i) => confirm(techs[i % TECHS]!)); // warm-up
+
+    // (a) 50 technicians at one bolt every 2 s each, beside raw inserts at the same rate.
+    const rate = TECHS / 2;
+    const [app, raw] = await Promise.all([load(rate, SECONDS, (i) => confirm(techs[i % TECHS]!)), load(rate, SECONDS, (i) => rawInsert(sql, techs[i % TECHS]!))]);
+    console.log(`[bench] (a) ${app.times.length} confirmations in ${SECONDS} s (${app.errors} errors): p50 ${pct(app.times, 50).toFixed(1)} ms, p95 ${pct(app.times, 95).toFixed(1)} ms; raw insert p50 ${pct(raw.times, 50).toFixed(2)} ms, p95 ${pct(raw.times, 95).toFixed(2)} ms`);
+
+    // (b) capacity: double the rate while p95 stays within 50 ms and nothing fails.
+    let best = 0;
+    for (let r = 50; r <= 3200; r *= 2) {
+      const step = await load(r, SECONDS, (i) => confirm(techs[i % TECHS]!));
+      const p95 = pct(step.times, 95);
+      console.log(`[bench] (b) ${r}/s for ${SECONDS} s: p95 ${p95.toFixed(1)} ms, ${step.errors} errors`);
+      if (p95 > 50 || step.errors > 0) break;
+      best = r;
+    }
+    console.log(`capacity ${best} confirmations/s at p95 <= 50 ms`);
+    const ratio = pct(app.times, 95) / pct(raw.times, 95);
+    console.log(`confirm p95 ${pct(app.times, 95).toFixed(1)} ms, raw insert p95 ${pct(raw.times, 95).toFixed(1)} ms, ratio ${ratio.toFixed(1)}`);
+  } finally {
+    server.kill('SIGTERM');
+    await sql.end();
+  }
+}
+
+main()
+  .then(() => process.exit(0))
+  .catch((error: unknown) => {
+    console.error(error);
+    process.exit(1);
+  });
