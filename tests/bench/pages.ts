@@ -71,11 +71,19 @@ async function main() {
     await page.getByRole('button', { name: 'Create shop and sign in' }).click();
     await page.waitForURL(`${BASE}/board`, { timeout: 60_000 });
     for (const path of ['/board', '/team', '/mailbox']) rows.push(await measure(page, cdp, path));
+    // A job with one wheel, to measure the runner (the page a technician keeps open all day).
+    const call = async <T>(path: string, data: unknown) => ((await (await page.request.post(BASE + path, { data, headers: { origin: BASE } })).json()) as { data: T }).data;
+    const spec = await call<{ id: string }>('/api/specs', { name: 'Bench 24', boltCount: 24, boltThread: 'M8', finalTorque: 12, torqueUnit: 'lbf-ft', passPercents: [30, 70, 100], patternKind: 'cross', checkPass: true, maxBeadSeatPressure: 30, runningPressure: 14, pressureUnit: 'psi' });
+    const me = ((await (await page.request.get(BASE + '/api/team/members')).json()) as { data: { id: string }[] }).data[0]!;
+    const job = await call<{ id: string; wheels: { id: string }[] }>('/api/jobs', { customer: { name: 'Bench', phone: '', email: '' }, vehicle: { make: 'Bench' }, wheels: [{ position: 'LF', specId: spec.id, tireSize: '30x10R14', targetPressure: 14, pressureUnit: 'psi' }], assigneeId: me.id });
+    rows.push(await measure(page, cdp, `/jobs/${job.id}`));
+    const runner = await measure(page, cdp, `/jobs/${job.id}/wheels/${job.wheels[0]!.id}/run`);
+    rows.push({ ...runner, path: '/…/run (runner)' });
     await browser.close();
 
-    console.log('route        scripts   JS gzip kB   LCP ms (mobile, 4x CPU, 150 ms RTT)');
+    console.log('route             scripts   JS gzip kB   LCP ms (mobile, 4x CPU, 150 ms RTT)');
     for (const r of rows) {
-      console.log(`${r.path.padEnd(12)} ${String(r.scripts).padStart(7)} ${r.jsKb.toFixed(1).padStart(12)} ${Number.isNaN(r.lcpMs) ? '   n/a' : r.lcpMs.toFixed(0).padStart(6)}`);
+      console.log(`${r.path.slice(0, 16).padEnd(17)} ${String(r.scripts).padStart(7)} ${r.jsKb.toFixed(1).padStart(12)} ${Number.isNaN(r.lcpMs) ? '   n/a' : r.lcpMs.toFixed(0).padStart(6)}`);
     }
   } finally {
     process.kill(-server.pid!, 'SIGTERM');

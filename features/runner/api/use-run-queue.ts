@@ -112,6 +112,20 @@ export function useRunQueue(wheelId: string, serverEvents: ClientEvent[]) {
     };
   }, [wheelId, store, flush, addSaved]);
 
+  // Another device on the same wheel: pull the server's events now and then, so both converge.
+  useEffect(() => {
+    if (!online) return;
+    const pull = async () => {
+      const res = await fetch(`/api/wheels/${wheelId}/events`).catch(() => null);
+      if (!res?.ok) return;
+      const body = (await res.json()) as { data: { events: ClientEvent[] } };
+      addSaved(body.data.events);
+      await persist();
+    };
+    const timer = setInterval(() => void pull(), 5_000);
+    return () => clearInterval(timer);
+  }, [online, wheelId, addSaved, persist]);
+
   // Back online: send what waited, without waiting for the retry timer.
   useEffect(() => {
     if (!online) return;

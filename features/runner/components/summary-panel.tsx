@@ -54,6 +54,10 @@ export function SummaryPanel({ wheelId, plan, state, targets, wrenches, photoKin
           <p>None: every bolt in sequence.</p>
         )}
       </section>
+      <p>
+        Photos: {photoKinds.includes('bead_outer') ? 'outer bead ✓' : 'outer bead missing'} · {photoKinds.includes('bead_inner') ? 'inner bead ✓' : 'inner bead missing'}
+        {photoKinds.filter((k) => k === 'other').length ? ` · ${photoKinds.filter((k) => k === 'other').length} other` : ''}
+      </p>
       <section aria-labelledby="times-h">
         <h3 id="times-h" className="text-lg font-bold">Steps</h3>
         <ul>

@@ -61,6 +61,15 @@ describe('POST /api/wheels/:id/events', () => {
     expect(await stored()).toHaveLength(0);
   });
 
+  it('two devices confirming the same bolts converge without double-counting', async () => {
+    await post(shop.technician.userId, [confirm(1), confirm(13)]); // the phone
+    await post(shop.lead.userId, [confirm(13), confirm(7)]); // the lead's tablet, bolt 13 again
+    const res = await GET(apiRequest(`/api/wheels/${wheelId}/events`, { cookie: await cookieFor(shop.lead.userId) }), params({ wheelId }));
+    const { data } = (await res.json()) as { data: { events: unknown[]; state: { passes: { confirmed: number[] }[] } } };
+    expect(data.events).toHaveLength(4);
+    expect(data.state.passes[0]!.confirmed).toEqual([1, 13, 7]);
+  });
+
   it('a lead may run any wheel of the shop', async () => {
     expect((await post(shop.lead.userId, [confirm(1)])).status).toBe(200);
   });
