@@ -76,18 +76,20 @@ export async function saveRunEvents(member: Member, wheelId: string, events: Cli
     .values(events.map((e) => ({ shopId: member.shopId, jobId: ctx.job.id, wheelId, clientId: e.clientId, type: e.type, payload: e.payload as Record<string, unknown>, byId: member.userId, clientAt: new Date(e.clientAt) })))
     .onConflictDoNothing({ target: wheelRunEvents.clientId })
     .returning({ clientId: wheelRunEvents.clientId });
-  // An id already stored for another wheel or shop is not this request's to claim.
-  const known = await db
-    .select({ clientId: wheelRunEvents.clientId })
-    .from(wheelRunEvents)
-    .where(and(eq(wheelRunEvents.wheelId, wheelId), eq(wheelRunEvents.shopId, member.shopId), inArray(wheelRunEvents.clientId, events.map((e) => e.clientId))));
-  if (known.length !== new Set(events.map((e) => e.clientId)).size) throw new DomainError('conflict', 'An event id was already used elsewhere.');
-  const all = await listEvents(member.shopId, wheelId);
-  if (all.some((e) => e.type === 'inspection_failed') && !ctx.wheel.flaggedReason) {
-    const state = reduceRun(plan, all);
-    await db.update(jobWheels).set({ flaggedReason: state.flagged }).where(and(eq(jobWheels.shopId, member.shopId), eq(jobWheels.id, wheelId)));
+  const unique = new Set(events.map((e) => e.clientId)).size;
+  if (stored.length < unique) {
+    // Replays are fine; an id already stored for another wheel or shop is not this request's to claim.
+    const known = await db
+      .select({ clientId: wheelRunEvents.clientId })
+      .from(wheelRunEvents)
+      .where(and(eq(wheelRunEvents.wheelId, wheelId), eq(wheelRunEvents.shopId, member.shopId), inArray(wheelRunEvents.clientId, events.map((e) => e.clientId))));
+    if (known.length !== unique) throw new DomainError('conflict', 'An event id was already used elsewhere.');
   }
-  return { saved: stored.length, duplicates: events.length - stored.length, state: reduceRun(plan, all) };
+  const failed = events.find((e) => e.type === 'inspection_failed');
+  if (failed && !ctx.wheel.flaggedReason) {
+    await db.update(jobWheels).set({ flaggedReason: failed.payload.notes }).where(and(eq(jobWheels.shopId, member.shopId), eq(jobWheels.id, wheelId)));
+  }
+  return { saved: stored.length, duplicates: events.length - stored.length };
 }
 
 /** Closes the wheel's record when nothing blocks it; answers whether every wheel of the job is in. */
