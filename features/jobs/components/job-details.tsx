@@ -59,6 +59,11 @@ export function JobDetails({ job, canRun = false, photos = {} }: { job: JobCard;
                 </div>
               ) : null}
               {w.submittedAt ? <p className="mt-1 font-semibold text-ok">✓ Submitted</p> : null}
+              {w.flaggedReason ? (
+                <p role="alert" className="mt-1 rounded border-l-4 border-danger bg-danger-tint p-2 font-semibold text-danger">
+                  ■ Inspection failed, parts needed: {w.flaggedReason}
+                </p>
+              ) : null}
               {canRun && !w.submittedAt && (job.state === 'open' || job.state === 'in_progress' || job.state === 'sent_back') ? (
                 <Link href={`/jobs/${job.id}/wheels/${w.id}/run`} className="mt-2 inline-flex min-h-touch items-center rounded-lg bg-work px-4 font-bold text-white">
                   Run this wheel

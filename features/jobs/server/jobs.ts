@@ -9,7 +9,7 @@ import { axleWarnings, tireSizeErrors } from '../axle-check';
 import type { JobInput, JobStateName, WheelInput } from '../schemas';
 import { createCustomer, createVehicle, getCustomer, getVehicle, vehicleLabel, type Customer, type Vehicle } from './customers';
 
-export type JobWheel = WheelInput & { id: string; specName: string; submittedAt: string | null };
+export type JobWheel = WheelInput & { id: string; specName: string; submittedAt: string | null; flaggedReason: string | null };
 export type JobCard = {
   id: string;
   number: number;
@@ -120,7 +120,7 @@ export async function getJob(shopId: string, jobId: string): Promise<JobCard> {
     getCustomer(shopId, job.customerId),
     getVehicle(shopId, job.vehicleId),
     db
-      .select({ id: jobWheels.id, position: jobWheels.position, specId: jobWheels.specId, specName: wheelSpecs.name, tireSize: jobWheels.tireSize, directional: jobWheels.directional, targetPressure: jobWheels.targetPressure, pressureUnit: jobWheels.pressureUnit, submittedAt: jobWheels.submittedAt })
+      .select({ id: jobWheels.id, position: jobWheels.position, specId: jobWheels.specId, specName: wheelSpecs.name, tireSize: jobWheels.tireSize, directional: jobWheels.directional, targetPressure: jobWheels.targetPressure, pressureUnit: jobWheels.pressureUnit, submittedAt: jobWheels.submittedAt, flaggedReason: jobWheels.flaggedReason })
       .from(jobWheels)
       .innerJoin(wheelSpecs, eq(wheelSpecs.id, jobWheels.specId))
       .where(and(eq(jobWheels.shopId, shopId), eq(jobWheels.jobId, jobId))),
