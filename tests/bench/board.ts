@@ -4,13 +4,11 @@
  * route handler of the production build over loopback, and the same SQL straight on PostgreSQL.
  * Last line: `board p95 X ms, raw p95 Y ms, ratio Z`.
  */
-import { spawn, spawnSync } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
-import path from 'node:path';
 import postgres from 'postgres';
 import { clusterUrl, recreateDatabase, startCluster } from '@/db/cluster';
 import { migrateDatabase } from '@/db/migrate';
-import { ROOT } from '../helpers/test-services';
+import { pct, run, startProductionServer } from './production-server';
 
 const DB = 'ringpass_bench';
 const PORT = 3200;
@@ -19,7 +17,6 @@ const JOBS_PER_SHOP = 10_000;
 const RUNS = 300;
 const FILTER = 'state=in_progress&sort=due&dir=asc&page=1&pageSize=25';
 
-const pct = (xs: number[], p: number) => [...xs].sort((a, b) => a - b)[Math.min(xs.length - 1, Math.floor((p / 100) * xs.length))]!;
 
 async function seed(sql: postgres.Sql) {
   const started = Date.now();
@@ -69,20 +66,10 @@ async function main() {
   const sessionId = randomBytes(20).toString('hex');
   await sql`insert into sessions (id, user_id, expires_at, absolute_expires_at) values (${sessionId}, ${lead!.id}, now() + interval '1 day', now() + interval '1 day')`;
 
-  const env = { ...process.env, NODE_ENV: 'production' as const, NEXT_TELEMETRY_DISABLED: '1', NEXT_DIST_DIR: '.next-bench', DATABASE_URL: clusterUrl(DB), APP_URL: `http://127.0.0.1:${PORT}`, SMTP_URL: 'smtp://127.0.0.1:2599', COOKIE_SECURE: 'false' };
-  const next = path.join(ROOT, 'node_modules', '.bin', 'next');
-  console.log('[bench] building the app (next build)…');
-  if (spawnSync(next, ['build'], { cwd: ROOT, env, stdio: 'ignore' }).status !== 0) throw new Error('next build failed');
-  const server = spawn(next, ['start', '-H', '127.0.0.1', '-p', String(PORT)], { cwd: ROOT, env, stdio: 'ignore' });
+  const server = await startProductionServer(PORT, clusterUrl(DB));
   try {
     const url = `http://127.0.0.1:${PORT}/api/jobs?${FILTER}`;
     const headers = { cookie: `ringpass_session=${sessionId}` };
-    for (let i = 0; i < 120; i++) {
-      try {
-        if ((await fetch(url, { headers })).ok) break;
-      } catch {}
-      await new Promise((r) => setTimeout(r, 500));
-    }
     const first = (await (await fetch(url, { headers })).json()) as { total: number; data: unknown[] };
     console.log(`[bench] board answers ${first.data.length} rows of ${first.total} in progress`);
 
@@ -95,7 +82,7 @@ async function main() {
     }
 
     // The very SQL the handler runs (drizzle's own text), straight through postgres.js.
-    Object.assign(process.env, { DATABASE_URL: env.DATABASE_URL, SMTP_URL: env.SMTP_URL });
+    Object.assign(process.env, { DATABASE_URL: server.env.DATABASE_URL, SMTP_URL: server.env.SMTP_URL });
     const { boardQuery } = await import('@/features/jobs/server/board');
     const { boardQuerySchema } = await import('@/features/jobs/schemas');
     const member = { userId: lead!.id, shopId: lead!.shop_id, role: 'lead' as const, name: '', email: '', sessionId };
@@ -111,14 +98,9 @@ async function main() {
     const ratio = pct(http, 95) / pct(raw, 95);
     console.log(`board p95 ${pct(http, 95).toFixed(1)} ms, raw p95 ${pct(raw, 95).toFixed(1)} ms, ratio ${ratio.toFixed(1)}`);
   } finally {
-    server.kill('SIGTERM');
+    server.stop();
     await sql.end();
   }
 }
 
-main()
-  .then(() => process.exit(0))
-  .catch((error: unknown) => {
-    console.error(error);
-    process.exit(1);
-  });
+run(main);

@@ -8,13 +8,11 @@
  * Last two lines: `capacity N confirmations/s at p95 <= 50 ms` and
  * `confirm p95 X ms, raw insert p95 Y ms, ratio Z`.
  */
-import { spawn, spawnSync } from 'node:child_process';
 import { randomBytes, randomUUID } from 'node:crypto';
-import path from 'node:path';
 import postgres from 'postgres';
 import { clusterUrl, recreateDatabase, startCluster } from '@/db/cluster';
 import { migrateDatabase } from '@/db/migrate';
-import { ROOT } from '../helpers/test-services';
+import { pct, run, startProductionServer } from './production-server';
 
 const DB = 'ringpass_bench_runner';
 const PORT = 3201;
@@ -22,7 +20,6 @@ const TECHS = 50;
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 30);
 const BASE = `http://127.0.0.1:${PORT}`;
 
-const pct = (xs: number[], p: number) => (xs.length ? [...xs].sort((a, b) => a - b)[Math.min(xs.length - 1, Math.floor((p / 100) * xs.length))]! : NaN);
 
 type Tech = { cookie: string; wheelId: string; jobId: string; userId: string; shopId: string; n: number };
 
@@ -94,18 +91,8 @@ async function main() {
   await migrateDatabase(clusterUrl(DB));
   const sql = postgres(clusterUrl(DB), { max: 10, onnotice: () => {} });
   const techs = await seed(sql);
-  const env = { ...process.env, NODE_ENV: 'production' as const, NEXT_TELEMETRY_DISABLED: '1', NEXT_DIST_DIR: '.next-bench', DATABASE_URL: clusterUrl(DB), APP_URL: BASE, SMTP_URL: 'smtp://127.0.0.1:2599', COOKIE_SECURE: 'false' };
-  const next = path.join(ROOT, 'node_modules', '.bin', 'next');
-  console.log('[bench] building the app (next build)…');
-  if (spawnSync(next, ['build'], { cwd: ROOT, env, stdio: 'ignore' }).status !== 0) throw new Error('next build failed');
-  const server = spawn(next, ['start', '-H', '127.0.0.1', '-p', String(PORT)], { cwd: ROOT, env, stdio: 'ignore' });
+  const server = await startProductionServer(PORT, clusterUrl(DB));
   try {
-    for (let i = 0; i < 120; i++) {
-      try {
-        if ((await fetch(`${BASE}/sign-in`)).ok) break;
-      } catch {}
-      await new Promise((r) => setTimeout(r, 500));
-    }
     await load(25, 4, (i) => confirm(techs[i % TECHS]!)); // warm-up
 
     // (a) 50 technicians at one bolt every 2 s each, beside raw inserts at the same rate.
@@ -126,14 +113,9 @@ async function main() {
     const ratio = pct(app.times, 95) / pct(raw.times, 95);
     console.log(`confirm p95 ${pct(app.times, 95).toFixed(1)} ms, raw insert p95 ${pct(raw.times, 95).toFixed(1)} ms, ratio ${ratio.toFixed(1)}`);
   } finally {
-    server.kill('SIGTERM');
+    server.stop();
     await sql.end();
   }
 }
 
-main()
-  .then(() => process.exit(0))
-  .catch((error: unknown) => {
-    console.error(error);
-    process.exit(1);
-  });
+run(main);
