@@ -2,8 +2,9 @@
 
 import { useState } from 'react';
 import { downscale, useUploadThing } from '../api/upload-photo';
+import type { WheelPhoto } from '../server/photo-router';
 
-export type Photo = { id: string; kind: 'bead_outer' | 'bead_inner' | 'other'; note: string; url: string };
+export type Photo = WheelPhoto;
 
 const LABELS: Record<Photo['kind'], string> = { bead_outer: 'Seated bead, outer face', bead_inner: 'Seated bead, inner face', other: 'Other photo' };
 

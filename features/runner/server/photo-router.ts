@@ -7,7 +7,7 @@ import { getDb } from '@/db';
 import { wheelPhotos } from '@/db/schema';
 import { requireMemberForRequest } from '@/server/auth/guard';
 import { DomainError } from '@/server/errors';
-import { inspectPhoto, MAX_PHOTO_BYTES } from './photo-check';
+import { inspectPhoto } from './photo-check';
 import { assertMayRun, loadWheel } from './run';
 
 const f = createUploadthing();
@@ -51,7 +51,6 @@ export const photoRouter = {
 } satisfies FileRouter;
 
 export type PhotoRouter = typeof photoRouter;
-export { MAX_PHOTO_BYTES };
 
 export type WheelPhoto = { id: string; kind: 'bead_outer' | 'bead_inner' | 'other'; note: string; url: string };
 
