@@ -1,5 +1,5 @@
 import 'server-only';
-import { and, asc, eq, inArray, isNull } from 'drizzle-orm';
+import { and, asc, eq, inArray, isNull, sql } from 'drizzle-orm';
 import { getDb } from '@/db';
 import { jobs, jobWheels, wheelPhotos, wheelRunEvents, wheelSpecs } from '@/db/schema';
 import { passPlan, tighteningSequence, type Pattern } from '@/features/torque-plan';
@@ -54,14 +54,60 @@ export async function listEvents(shopId: string, wheelId: string): Promise<Clien
   return rows.map((r) => ({ ...r, clientAt: r.clientAt.toISOString() }) as ClientEvent);
 }
 
+/** The wheel's job is not in progress: the caller may start it (open, sent back) and try again. */
+export class JobNotStartedError extends DomainError {
+  constructor(readonly jobId: string, readonly state: string) {
+    super('conflict', 'Start the job card before running its wheels.');
+  }
+}
+
+const num = (payload: object, key: 'bolt' | 'pass') => (key in payload ? (payload as Record<string, number>)[key]! : null);
+
+/**
+ * The common case in one statement: insert the batch only if this member may write to this
+ * wheel now (shop, in-progress job, assignee or lead, not submitted) and every bolt and pass is on
+ * the wheel's plan. Anything else (a replay, a refusal) is rolled back and explained by the full
+ * path below.
+ */
+async function insertIfAllowed(member: Member, wheelId: string, events: ClientEvent[]): Promise<boolean> {
+  const rows = events.map((e) => sql`(${e.clientId}::uuid, ${e.type}, ${JSON.stringify(e.payload)}::jsonb, ${e.clientAt}::timestamptz, ${num(e.payload, 'bolt')}::int, ${num(e.payload, 'pass')}::int)`);
+  const unique = new Set(events.map((e) => e.clientId)).size;
+  if (unique !== events.length || events.some((e) => e.type === 'inspection_failed')) return false;
+  try {
+    await getDb().transaction(async (tx) => {
+      const inserted = await tx.execute(sql`
+        with ev (client_id, type, payload, client_at, bolt, pass) as (values ${sql.join(rows, sql`, `)}),
+        w as (
+          select w.id, w.job_id, s.bolt_count, jsonb_array_length(s.pass_fractions) + (case when s.check_pass then 1 else 0 end) as passes
+          from ${jobWheels} w join ${jobs} j on j.id = w.job_id join ${wheelSpecs} s on s.id = w.spec_id
+          where w.id = ${wheelId} and w.shop_id = ${member.shopId} and j.state = 'in_progress' and w.submitted_at is null
+            and (${member.role} = 'lead' or j.assignee_id = ${member.userId})
+        )
+        insert into ${wheelRunEvents} (shop_id, job_id, wheel_id, client_id, type, payload, by_id, client_at)
+        select ${member.shopId}, w.job_id, w.id, ev.client_id, ev.type, ev.payload, ${member.userId}, ev.client_at
+        from ev cross join w
+        where (ev.bolt is null or ev.bolt <= w.bolt_count) and (ev.pass is null or ev.pass <= w.passes)
+        on conflict (client_id) do nothing
+        returning client_id`);
+      if (inserted.length !== unique) throw new RollBack();
+    });
+    return true;
+  } catch (error) {
+    if (error instanceof RollBack) return false;
+    throw error;
+  }
+}
+class RollBack extends Error {}
+
 /**
  * Stores confirmed events exactly once each (the device's id is unique), in any order, from any
  * device. The job must be in progress and the wheel not yet submitted.
  */
 export async function saveRunEvents(member: Member, wheelId: string, events: ClientEvent[]) {
+  if (await insertIfAllowed(member, wheelId, events)) return { saved: events.length, duplicates: 0 };
   const ctx = await loadWheel(member.shopId, wheelId);
   assertMayRun(member, ctx);
-  if (ctx.job.state !== 'in_progress') throw new DomainError('conflict', 'Start the job card before running its wheels.');
+  if (ctx.job.state !== 'in_progress') throw new JobNotStartedError(ctx.job.id, ctx.job.state);
   if (ctx.wheel.submittedAt) throw new DomainError('conflict', 'This wheel was submitted; its record is closed.');
   const plan = planFor(ctx);
   for (const [i, e] of events.entries()) {

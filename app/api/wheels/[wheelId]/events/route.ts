@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { ids } from '@/features/jobs/schemas';
 import { transitionJob } from '@/features/jobs/server/transitions';
 import { eventBatchSchema } from '@/features/runner/events';
-import { assertMayRun, listEvents, loadWheel, planFor, saveRunEvents } from '@/features/runner/server/run';
+import { assertMayRun, JobNotStartedError, listEvents, loadWheel, planFor, saveRunEvents } from '@/features/runner/server/run';
 import { reduceRun } from '@/features/runner/state';
 import { apiRoute } from '@/server/http/handler';
 
@@ -21,8 +21,11 @@ export const GET = apiRoute({ permission: 'jobs.run', params }, async ({ member,
  * starts it.
  */
 export const POST = apiRoute({ permission: 'jobs.run', params, body: eventBatchSchema }, async ({ member, params, body }) => {
-  const ctx = await loadWheel(member.shopId, params.wheelId);
-  assertMayRun(member, ctx);
-  if (ctx.job.state === 'open' || ctx.job.state === 'sent_back') await transitionJob(member, ctx.job.id, 'start', '');
-  return { data: await saveRunEvents(member, params.wheelId, body.events) };
+  try {
+    return { data: await saveRunEvents(member, params.wheelId, body.events) };
+  } catch (error) {
+    if (!(error instanceof JobNotStartedError) || (error.state !== 'open' && error.state !== 'sent_back')) throw error;
+    await transitionJob(member, error.jobId, 'start', '');
+    return { data: await saveRunEvents(member, params.wheelId, body.events) };
+  }
 });
