@@ -1,4 +1,6 @@
 import { expect, test, type Page } from '@playwright/test';
+import { readFileSync } from 'node:fs';
+import { E2E } from '../helpers/test-services';
 import { signUp, uniqueEmail } from './helpers';
 
 /** A same-origin API call with the page's session, as the app itself would make it. */
@@ -9,8 +11,9 @@ async function api<T>(page: Page, method: 'GET' | 'POST', path: string, body?: u
   return ((await res.json()) as { data: T }).data;
 }
 
-test('at 360×640 a wheel runs through its steps; offline, 10 bolts are confirmed, the page reloads offline, and back online exactly those 10 are stored, in order', async ({ page, context }, testInfo) => {
-  test.setTimeout(120_000);
+
+/** A shop with a verified wrench, an 8-bolt spec and a one-wheel job assigned to its lead. */
+async function setUpWheel(page: Page) {
   await signUp(page, 'Offline Rim Shop', 'Lou Bead', uniqueEmail('runner'));
   const me = (await api<{ id: string }[]>(page, 'GET', '/api/team/members'))[0]!;
   const today = new Date(Date.now() + 200 * 86_400_000).toISOString().slice(0, 10);
@@ -25,7 +28,13 @@ test('at 360×640 a wheel runs through its steps; offline, 10 bolts are confirme
     reinstall: false,
     assigneeId: me.id,
   });
-  const wheelId = job.wheels[0]!.id;
+
+  return { job, wheelId: job.wheels[0]!.id };
+}
+
+test('at 360×640 a wheel runs through its steps; offline, 10 bolts are confirmed, the page reloads offline, and back online exactly those 10 are stored, in order', async ({ page, context }, testInfo) => {
+  test.setTimeout(120_000);
+  const { job, wheelId } = await setUpWheel(page);
 
   await page.goto(`/jobs/${job.id}`);
   await page.getByRole('link', { name: 'Run this wheel' }).click();
@@ -120,4 +129,39 @@ test('at 360×640 a wheel runs through its steps; offline, 10 bolts are confirme
   await page.goto(`/jobs/${job.id}`);
   await expect(page.getByText('Awaiting sign-off').first()).toBeVisible();
   await expect(page.getByRole('img', { name: 'Seated bead, outer face' })).toBeVisible();
+});
+
+test('a confirmation queued before a deploy is delivered to the new build', async ({ page, context }) => {
+  test.setTimeout(180_000);
+  const { job, wheelId } = await setUpWheel(page);
+  await page.goto(`/jobs/${job.id}/wheels/${wheelId}/run`);
+  await expect(page.getByRole('heading', { name: /Safety gate/ })).toBeVisible();
+  await page.waitForFunction(async () => Boolean((await navigator.serviceWorker.getRegistration())?.active));
+  const buildBefore = readFileSync(`${E2E.distDir}/BUILD_ID`, 'utf8');
+
+  await context.setOffline(true);
+  for (const box of await page.locator('main input[type=checkbox]').all()) await box.check();
+  await page.getByRole('button', { name: 'Step done' }).click();
+  await expect(page.getByRole('status').filter({ hasText: '1 waiting · offline' })).toBeVisible();
+
+  // Deploy: the server stops, a new build is made, the server starts again on it.
+  process.kill(Number(readFileSync(E2E.servePidFile, 'utf8')), 'SIGUSR2');
+  await expect
+    .poll(async () => {
+      try {
+        const buildNow = readFileSync(`${E2E.distDir}/BUILD_ID`, 'utf8');
+        const up = (await fetch(`${new URL(page.url()).origin}/sign-in`)).ok;
+        return up && buildNow !== buildBefore;
+      } catch {
+        return false;
+      }
+    }, { timeout: 150_000, intervals: [1000] })
+    .toBe(true);
+
+  await context.setOffline(false);
+  await expect(page.getByRole('status').filter({ hasText: 'Saved' })).toBeVisible({ timeout: 20_000 });
+  const { events } = (await (await page.request.get(`/api/wheels/${wheelId}/events`)).json()).data as { events: { type: string; payload: { step?: string } }[] };
+  expect(events.map((e) => `${e.type}:${e.payload.step}`)).toEqual(['step_done:safety']);
+  await page.reload();
+  await expect(page.getByRole('heading', { name: /Inspect rim and ring/ })).toBeVisible();
 });

@@ -3,7 +3,7 @@
  * 127.0.0.1:3100 (built into .next-e2e so a running `npm start` is left alone).
  */
 import { spawn, spawnSync } from 'node:child_process';
-import { rmSync } from 'node:fs';
+import { mkdirSync, rmSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { clusterUrl, recreateDatabase, startCluster } from '@/db/cluster';
 import { migrateDatabase } from '@/db/migrate';
@@ -33,13 +33,33 @@ async function main() {
     ...uploads.env,
   };
   const next = path.join(ROOT, 'node_modules', '.bin', 'next');
-  const build = spawnSync(next, ['build'], { cwd: ROOT, env, stdio: 'inherit' });
-  if (build.status !== 0) throw new Error('next build failed');
-  const server = spawn(next, ['start', '-H', '127.0.0.1', '-p', String(E2E.appPort)], { cwd: ROOT, env, stdio: 'inherit' });
-  const stop = () => server.kill('SIGTERM');
-  process.on('SIGTERM', stop);
-  process.on('SIGINT', stop);
-  server.on('exit', (code) => void Promise.all([sink.close(), uploads.close()]).finally(() => process.exit(code ?? 0)));
+  const build = () => {
+    if (spawnSync(next, ['build'], { cwd: ROOT, env, stdio: 'inherit' }).status !== 0) throw new Error('next build failed');
+  };
+  const start = () => spawn(next, ['start', '-H', '127.0.0.1', '-p', String(E2E.appPort)], { cwd: ROOT, env, stdio: 'inherit' });
+  build();
+  let server = start();
+  let redeploying = false;
+  const onExit = (code: number | null) => {
+    if (!redeploying) void Promise.all([sink.close(), uploads.close()]).finally(() => process.exit(code ?? 0));
+  };
+  server.on('exit', onExit);
+  process.on('SIGTERM', () => server.kill('SIGTERM'));
+  process.on('SIGINT', () => server.kill('SIGTERM'));
+
+  // A deploy, for the test of confirmations queued across builds: stop, build anew, start again.
+  process.on('SIGUSR2', () => {
+    redeploying = true;
+    server.once('exit', () => {
+      build();
+      server = start();
+      server.on('exit', onExit);
+      redeploying = false;
+    });
+    server.kill('SIGTERM');
+  });
+  mkdirSync(path.dirname(E2E.servePidFile), { recursive: true });
+  writeFileSync(E2E.servePidFile, String(process.pid));
 }
 
 main().catch((error: unknown) => {

@@ -8,5 +8,8 @@ export const E2E = {
   sink: { port: 2528, dir: path.join(ROOT, '.data', 'e2e-mailbox') },
   uploads: { port: 2531, dir: path.join(ROOT, '.data', 'e2e-uploads') },
   database: 'ringpass_e2e',
+  /** The e2e server's pid: SIGUSR2 makes it redeploy (stop, build anew, start). */
+  servePidFile: path.join(ROOT, '.data', 'e2e-serve.pid'),
+  distDir: path.join(ROOT, '.next-e2e'),
 };
 export const TEMPLATE_DB = 'ringpass_test_template';
