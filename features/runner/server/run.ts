@@ -64,47 +64,45 @@ export class JobNotStartedError extends DomainError {
 const num = (payload: object, key: 'bolt' | 'pass') => (key in payload ? (payload as Record<string, number>)[key]! : null);
 
 /**
- * The common case in one statement: insert the batch only if this member may write to this
- * wheel now (shop, in-progress job, assignee or lead, not submitted) and every bolt and pass is on
- * the wheel's plan. Anything else (a replay, a refusal) is rolled back and explained by the full
- * path below.
+ * The common case in one statement, without a transaction: insert the batch only if this member
+ * may write to this wheel now (shop, in-progress job, assignee or lead, not submitted) and every
+ * bolt and pass of the batch is on the wheel's plan — all or nothing. Answers how many rows were
+ * new; fewer than the batch (a replay, a refusal) sends the caller to the explaining path.
  */
-async function insertIfAllowed(member: Member, wheelId: string, events: ClientEvent[]): Promise<boolean> {
+async function insertIfAllowed(member: Member, wheelId: string, events: ClientEvent[]): Promise<number> {
   const rows = events.map((e) => sql`(${e.clientId}::uuid, ${e.type}, ${JSON.stringify(e.payload)}::jsonb, ${e.clientAt}::timestamptz, ${num(e.payload, 'bolt')}::int, ${num(e.payload, 'pass')}::int)`);
-  const unique = new Set(events.map((e) => e.clientId)).size;
-  if (unique !== events.length || events.some((e) => e.type === 'inspection_failed')) return false;
-  try {
-    await getDb().transaction(async (tx) => {
-      const inserted = await tx.execute(sql`
-        with ev (client_id, type, payload, client_at, bolt, pass) as (values ${sql.join(rows, sql`, `)}),
-        w as (
-          select w.id, w.job_id, s.bolt_count, jsonb_array_length(s.pass_fractions) + (case when s.check_pass then 1 else 0 end) as passes
-          from ${jobWheels} w join ${jobs} j on j.id = w.job_id join ${wheelSpecs} s on s.id = w.spec_id
-          where w.id = ${wheelId} and w.shop_id = ${member.shopId} and j.state = 'in_progress' and w.submitted_at is null
-            and (${member.role} = 'lead' or j.assignee_id = ${member.userId})
-        )
-        insert into ${wheelRunEvents} (shop_id, job_id, wheel_id, client_id, type, payload, by_id, client_at)
-        select ${member.shopId}, w.job_id, w.id, ev.client_id, ev.type, ev.payload, ${member.userId}, ev.client_at
-        from ev cross join w
-        where (ev.bolt is null or ev.bolt <= w.bolt_count) and (ev.pass is null or ev.pass <= w.passes)
-        on conflict (client_id) do nothing
-        returning client_id`);
-      if (inserted.length !== unique) throw new RollBack();
-    });
-    return true;
-  } catch (error) {
-    if (error instanceof RollBack) return false;
-    throw error;
-  }
+  const inserted = await getDb().execute(sql`
+    with ev (client_id, type, payload, client_at, bolt, pass) as (values ${sql.join(rows, sql`, `)}),
+    w as (
+      select w.id, w.job_id, s.bolt_count, jsonb_array_length(s.pass_fractions) + (case when s.check_pass then 1 else 0 end) as passes
+      from ${jobWheels} w join ${jobs} j on j.id = w.job_id join ${wheelSpecs} s on s.id = w.spec_id
+      where w.id = ${wheelId} and w.shop_id = ${member.shopId} and j.state = 'in_progress' and w.submitted_at is null
+        and (${member.role} = 'lead' or j.assignee_id = ${member.userId})
+    ),
+    ok as (
+      select ev.*, w.id as wheel_id, w.job_id from ev cross join w
+      where (ev.bolt is null or ev.bolt <= w.bolt_count) and (ev.pass is null or ev.pass <= w.passes)
+    )
+    insert into ${wheelRunEvents} (shop_id, job_id, wheel_id, client_id, type, payload, by_id, client_at)
+    select ${member.shopId}, ok.job_id, ok.wheel_id, ok.client_id, ok.type, ok.payload, ${member.userId}, ok.client_at
+    from ok where (select count(*) from ok) = ${events.length}
+    on conflict (client_id) do nothing
+    returning client_id`);
+  return inserted.length;
 }
-class RollBack extends Error {}
 
 /**
  * Stores confirmed events exactly once each (the device's id is unique), in any order, from any
  * device. The job must be in progress and the wheel not yet submitted.
  */
 export async function saveRunEvents(member: Member, wheelId: string, events: ClientEvent[]) {
-  if (await insertIfAllowed(member, wheelId, events)) return { saved: events.length, duplicates: 0 };
+  const unique = new Set(events.map((e) => e.clientId)).size;
+  // Rows the fast path already stored when the batch mixed new events with a replay.
+  let fast = 0;
+  if (unique === events.length && !events.some((e) => e.type === 'inspection_failed')) {
+    fast = await insertIfAllowed(member, wheelId, events);
+    if (fast === events.length) return { saved: fast, duplicates: 0 };
+  }
   const ctx = await loadWheel(member.shopId, wheelId);
   assertMayRun(member, ctx);
   if (ctx.job.state !== 'in_progress') throw new JobNotStartedError(ctx.job.id, ctx.job.state);
@@ -122,7 +120,6 @@ export async function saveRunEvents(member: Member, wheelId: string, events: Cli
     .values(events.map((e) => ({ shopId: member.shopId, jobId: ctx.job.id, wheelId, clientId: e.clientId, type: e.type, payload: e.payload as Record<string, unknown>, byId: member.userId, clientAt: new Date(e.clientAt) })))
     .onConflictDoNothing({ target: wheelRunEvents.clientId })
     .returning({ clientId: wheelRunEvents.clientId });
-  const unique = new Set(events.map((e) => e.clientId)).size;
   if (stored.length < unique) {
     // Replays are fine; an id already stored for another wheel or shop is not this request's to claim.
     const known = await db
@@ -135,7 +132,7 @@ export async function saveRunEvents(member: Member, wheelId: string, events: Cli
   if (failed && !ctx.wheel.flaggedReason) {
     await db.update(jobWheels).set({ flaggedReason: failed.payload.notes }).where(and(eq(jobWheels.shopId, member.shopId), eq(jobWheels.id, wheelId)));
   }
-  return { saved: stored.length, duplicates: events.length - stored.length };
+  return { saved: stored.length + fast, duplicates: events.length - stored.length - fast };
 }
 
 /** Closes the wheel's record when nothing blocks it; answers whether every wheel of the job is in. */

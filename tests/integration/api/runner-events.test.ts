@@ -39,6 +39,15 @@ describe('POST /api/wheels/:id/events', () => {
     expect(await res.json()).toMatchObject({ data: { state: { passes: [expect.objectContaining({ confirmed: [1, 13] }), expect.anything(), expect.anything(), expect.anything()] } } });
   });
 
+  it('a batch mixing a replay with new events stores only the new ones and says so', async () => {
+    const a = confirm(1);
+    await post(shop.technician.userId, [a]);
+    await post(shop.technician.userId, [a]); // the job is in progress from here on
+    const res = await post(shop.technician.userId, [a, confirm(13)]);
+    expect(await res.json()).toEqual({ data: { saved: 1, duplicates: 1 } });
+    expect(await stored()).toHaveLength(2);
+  });
+
   it('out-of-order replay (a queue that flushed late) ends in the same state as in order', async () => {
     const seq = [1, 13, 7, 19, 4, 16].map((b) => confirm(b));
     await post(shop.technician.userId, [seq[3], seq[5], seq[4]]);
