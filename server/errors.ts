@@ -1,4 +1,5 @@
 import 'server-only';
+import { notFound as nextNotFound } from 'next/navigation';
 
 export type DomainErrorCode =
   | 'invalid'
@@ -27,7 +28,6 @@ export const notFound = (what = 'That record') => new DomainError('not_found', `
 
 /** For pages: a not-found DomainError becomes Next's 404 page; anything else is rethrown. */
 export async function orNotFound<T>(promise: Promise<T>): Promise<T> {
-  const { notFound: nextNotFound } = await import('next/navigation');
   try {
     return await promise;
   } catch (error) {

@@ -3,6 +3,7 @@ import { and, asc, desc, eq, ilike, inArray, isNull, lt, ne, or, sql, type SQL }
 import { getDb } from '@/db';
 import { customers, jobs, jobWheels, users, vehicles } from '@/db/schema';
 import type { Member } from '@/server/auth/session';
+import { containsPattern } from '@/server/db-search';
 import type { BoardQuery, JobStateName } from '../schemas';
 import { vehicleLabel } from './customers';
 
@@ -21,7 +22,7 @@ export type BoardRow = {
 export type BoardPage = { data: BoardRow[]; page: number; pageSize: number; total: number };
 
 function filters(member: Member, q: BoardQuery): SQL | undefined {
-  const search = q.q ? `%${q.q.replace(/[%_\\]/g, (c) => `\\${c}`)}%` : undefined;
+  const search = q.q ? containsPattern(q.q) : undefined;
   return and(
     eq(jobs.shopId, member.shopId),
     q.state?.length ? inArray(jobs.state, q.state) : undefined,

@@ -5,6 +5,7 @@ import { getDb, type Database } from '@/db';
 import { customers, vehicles } from '@/db/schema';
 import { can } from '@/server/auth/permissions';
 import type { Member } from '@/server/auth/session';
+import { containsPattern } from '@/server/db-search';
 import { DomainError, notFound } from '@/server/errors';
 import type { customerSchema, vehicleFields } from '../schemas';
 import { checkVin, normaliseVin } from '../vin';
@@ -41,7 +42,8 @@ export const vehicleLabel = (v: Pick<Vehicle, 'year' | 'make' | 'model' | 'descr
   [v.year, v.make, v.model].filter(Boolean).join(' ') || v.description || 'Vehicle';
 
 export async function listCustomers(shopId: string, opts: { page: number; pageSize: number; q?: string }) {
-  const where = and(eq(customers.shopId, shopId), opts.q ? or(ilike(customers.name, `%${opts.q}%`), ilike(customers.phone, `%${opts.q}%`), ilike(customers.email, `%${opts.q}%`)) : undefined);
+  const search = opts.q ? containsPattern(opts.q) : undefined;
+  const where = and(eq(customers.shopId, shopId), search ? or(ilike(customers.name, search), ilike(customers.phone, search), ilike(customers.email, search)) : undefined);
   const db = getDb();
   const [rows, [total]] = await Promise.all([
     db.select(customerColumns).from(customers).where(where).orderBy(asc(customers.name)).limit(opts.pageSize).offset((opts.page - 1) * opts.pageSize),

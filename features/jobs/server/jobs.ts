@@ -27,6 +27,21 @@ export type JobCard = {
   events: { action: string; fromState: JobStateName | null; toState: JobStateName; by: string; note: string; at: string }[];
 };
 
+const wheelColumns = {
+  id: jobWheels.id,
+  jobId: jobWheels.jobId,
+  position: jobWheels.position,
+  specId: jobWheels.specId,
+  specName: wheelSpecs.name,
+  tireSize: jobWheels.tireSize,
+  directional: jobWheels.directional,
+  targetPressure: jobWheels.targetPressure,
+  pressureUnit: jobWheels.pressureUnit,
+  submittedAt: jobWheels.submittedAt,
+  flaggedReason: jobWheels.flaggedReason,
+};
+const wheelDto = (w: Omit<JobWheel, 'submittedAt'> & { jobId: string; submittedAt: Date | null }) => ({ ...w, submittedAt: w.submittedAt?.toISOString() ?? null });
+
 /** Assignable people: active leads and technicians of the shop (apprentices only practise). */
 export async function listAssignees(shopId: string) {
   return getDb()
@@ -120,7 +135,7 @@ export async function getJob(shopId: string, jobId: string): Promise<JobCard> {
     getCustomer(shopId, job.customerId),
     getVehicle(shopId, job.vehicleId),
     db
-      .select({ id: jobWheels.id, position: jobWheels.position, specId: jobWheels.specId, specName: wheelSpecs.name, tireSize: jobWheels.tireSize, directional: jobWheels.directional, targetPressure: jobWheels.targetPressure, pressureUnit: jobWheels.pressureUnit, submittedAt: jobWheels.submittedAt, flaggedReason: jobWheels.flaggedReason })
+      .select(wheelColumns)
       .from(jobWheels)
       .innerJoin(wheelSpecs, eq(wheelSpecs.id, jobWheels.specId))
       .where(and(eq(jobWheels.shopId, shopId), eq(jobWheels.jobId, jobId))),
@@ -145,7 +160,7 @@ export async function getJob(shopId: string, jobId: string): Promise<JobCard> {
     notes: job.notes,
     createdAt: job.createdAt.toISOString(),
     updatedAt: job.updatedAt.toISOString(),
-    wheels: wheels.map((w) => ({ ...w, submittedAt: w.submittedAt?.toISOString() ?? null })).sort((a, b) => order.indexOf(a.position) - order.indexOf(b.position)),
+    wheels: wheels.map(wheelDto).sort((a, b) => order.indexOf(a.position) - order.indexOf(b.position)),
     events: events.map((e) => ({ ...e, at: e.at.toISOString() })),
   };
 }
@@ -185,10 +200,13 @@ export async function addWheel(actor: Member, jobId: string, wheel: WheelInput, 
 }
 
 export async function getWheel(shopId: string, wheelId: string): Promise<JobWheel & { jobId: string }> {
-  const [row] = await getDb().select({ jobId: jobWheels.jobId }).from(jobWheels).where(and(eq(jobWheels.shopId, shopId), eq(jobWheels.id, wheelId)));
+  const [row] = await getDb()
+    .select(wheelColumns)
+    .from(jobWheels)
+    .innerJoin(wheelSpecs, eq(wheelSpecs.id, jobWheels.specId))
+    .where(and(eq(jobWheels.shopId, shopId), eq(jobWheels.id, wheelId)));
   if (!row) throw notFound('That wheel');
-  const wheel = (await getJob(shopId, row.jobId)).wheels.find((w) => w.id === wheelId)!;
-  return { ...wheel, jobId: row.jobId };
+  return wheelDto(row);
 }
 
 export async function updateWheel(actor: Member, wheelId: string, wheel: WheelInput, acceptAxleMismatch = false): Promise<JobWheel> {

@@ -60,3 +60,14 @@ export async function listPhotos(shopId: string, wheelId: string): Promise<Wheel
     .from(wheelPhotos)
     .where(and(eq(wheelPhotos.shopId, shopId), eq(wheelPhotos.wheelId, wheelId)));
 }
+
+/** Every wheel's photos of a job in one read, keyed by wheel id (for the job card's thumbnails). */
+export async function listJobPhotos(shopId: string, jobId: string): Promise<Record<string, WheelPhoto[]>> {
+  const rows = await getDb()
+    .select({ wheelId: wheelPhotos.wheelId, id: wheelPhotos.id, kind: wheelPhotos.kind, note: wheelPhotos.note, url: wheelPhotos.url })
+    .from(wheelPhotos)
+    .where(and(eq(wheelPhotos.shopId, shopId), eq(wheelPhotos.jobId, jobId)));
+  const byWheel: Record<string, WheelPhoto[]> = {};
+  for (const { wheelId, ...photo } of rows) (byWheel[wheelId] ??= []).push(photo);
+  return byWheel;
+}

@@ -3,6 +3,7 @@ import { createJobCard } from '@/features/jobs/actions/job-actions';
 import { createWheelSpec } from '@/features/specs/actions/save-spec';
 import { boardQuerySchema } from '@/features/jobs/schemas';
 import { listBoard } from '@/features/jobs/server/board';
+import { listCustomers } from '@/features/jobs/server/customers';
 import { getJob } from '@/features/jobs/server/jobs';
 import { transitionJob } from '@/features/jobs/server/transitions';
 import { createTestShop } from '@/tests/helpers/factories';
@@ -109,6 +110,9 @@ describe('the board', () => {
     expect((await q({ q: 'ridgeback' })).total).toBe(1);
     expect((await q({ q: '1001' })).total).toBe(1);
     expect((await q({ q: 'nobody%' })).total).toBe(0);
+    // A % typed into the customer search is a character, not "anything".
+    expect((await listCustomers(shop.shopId, { page: 1, pageSize: 10, q: '%' })).total).toBe(0);
+    expect((await listCustomers(shop.shopId, { page: 1, pageSize: 10, q: 'hallo' })).total).toBe(1);
     const all = await q({ pageSize: '1', page: '1' });
     expect(all).toMatchObject({ total: 1, pageSize: 1 });
     expect((await getJob(shop.shopId, job.id)).events.map((e) => e.action)).toEqual(['create', 'start']);

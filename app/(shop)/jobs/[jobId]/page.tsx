@@ -7,7 +7,7 @@ import { TransitionForm } from '@/features/jobs/components/transition-form';
 import { ids } from '@/features/jobs/schemas';
 import { getJob, listAssignees } from '@/features/jobs/server/jobs';
 import { allowedTransitions } from '@/features/jobs/transitions';
-import { listPhotos } from '@/features/runner/server/photo-router';
+import { listJobPhotos } from '@/features/runner/server/photo-router';
 import { PageHeader } from '@/features/ui/page';
 import { requireMember } from '@/server/auth/guard';
 import { can } from '@/server/auth/permissions';
@@ -21,7 +21,7 @@ export default async function JobPage({ params }: PageProps<'/jobs/[jobId]'>) {
   if (!id.success) notFound();
   const job = await orNotFound(getJob(member.shopId, id.data));
   const editable = can(member.role, 'jobs.edit') && job.state !== 'signed_off';
-  const photos = Object.fromEntries(await Promise.all(job.wheels.map(async (w) => [w.id, await listPhotos(member.shopId, w.id)] as const)));
+  const photos = await listJobPhotos(member.shopId, job.id);
   return (
     <>
       <Link href="/board" className="font-semibold text-work underline">

@@ -7,7 +7,7 @@ import { memberIdField } from '@/features/accounts/schemas';
 import { getTeamMember } from '@/features/accounts/server/team';
 import { PageHeader } from '@/features/ui/page';
 import { requireMember } from '@/server/auth/guard';
-import { DomainError } from '@/server/errors';
+import { orNotFound } from '@/server/errors';
 
 export const metadata: Metadata = { title: 'Team member' };
 
@@ -15,10 +15,7 @@ export default async function MemberPage({ params }: PageProps<'/team/[memberId]
   const member = await requireMember('team.manage');
   const id = memberIdField.safeParse((await params).memberId);
   if (!id.success) notFound();
-  const person = await getTeamMember(member.shopId, id.data).catch((error: unknown) => {
-    if (error instanceof DomainError && error.code === 'not_found') notFound();
-    throw error;
-  });
+  const person = await orNotFound(getTeamMember(member.shopId, id.data));
   return (
     <>
       <Link href="/team" className="font-semibold text-work underline">
