@@ -3,12 +3,15 @@ import { unstable_rethrow } from 'next/navigation';
 import type { z } from 'zod';
 import { can, type Permission } from '@/server/auth/permissions';
 import { getCurrentMember, type Member } from '@/server/auth/session';
-import { DomainError } from '@/server/errors';
+import { DomainError, type DomainErrorCode } from '@/server/errors';
 
 export type FieldErrors = Record<string, string[] | undefined>;
 export type ActionResult<T> =
   | { ok: true; data: T; message?: string }
-  | { ok: false; message: string; fieldErrors?: FieldErrors; values?: Record<string, string> };
+  | { ok: false; code: FailureCode; message: string; fieldErrors?: FieldErrors; values?: Record<string, string> };
+
+/** Why an action failed, for callers that decide what to do next (retry, drop, sign in again). */
+export type FailureCode = DomainErrorCode | 'internal';
 
 // Never echoed back into a form after a failed submit.
 const SECRET_FIELDS = new Set(['password', 'newPassword', 'currentPassword']);
@@ -33,10 +36,10 @@ function echo(raw: Record<string, unknown>): Record<string, string> {
 function failure(error: unknown, raw: Record<string, unknown>): ActionResult<never> {
   unstable_rethrow(error); // redirect(), notFound() and friends must reach Next.
   if (error instanceof DomainError) {
-    return { ok: false, message: error.message, fieldErrors: error.fields, values: echo(raw) };
+    return { ok: false, code: error.code, message: error.message, fieldErrors: error.fields, values: echo(raw) };
   }
   console.error('[action] unexpected failure', error);
-  return { ok: false, message: 'Something went wrong on our side. Nothing was saved; try again.', values: echo(raw) };
+  return { ok: false, code: 'internal', message: 'Something went wrong on our side. Nothing was saved; try again.', values: echo(raw) };
 }
 
 /** Messages keyed by the full path of the field ("email", "wheels.0.tireSize"). */
@@ -56,6 +59,7 @@ async function parseAndRun<S extends z.ZodType, T>(
   if (!parsed.success) {
     return {
       ok: false,
+      code: 'invalid',
       message: 'Check the highlighted fields.',
       fieldErrors: fieldErrorsOf(parsed.error),
       values: echo(raw),
@@ -79,9 +83,9 @@ export function memberAction<S extends z.ZodType, T>(
 ) {
   return async (_prev: unknown, payload: FormData | z.input<S>): Promise<ActionResult<T>> => {
     const member = await getCurrentMember();
-    if (!member) return { ok: false, message: 'Your session has ended. Sign in again.' };
+    if (!member) return { ok: false, code: 'unauthenticated', message: 'Your session has ended. Sign in again.' };
     if (!can(member.role, options.permission)) {
-      return { ok: false, message: 'Your role does not allow this.' };
+      return { ok: false, code: 'forbidden', message: 'Your role does not allow this.' };
     }
     return parseAndRun(options.schema, payload, (input) => run(input, member));
   };

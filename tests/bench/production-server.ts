@@ -19,7 +19,7 @@ export async function startProductionServer(port: number, databaseUrl: string) {
     } catch {}
     await new Promise((r) => setTimeout(r, 500));
   }
-  return { base, env, stop: () => server.kill('SIGTERM') };
+  return { base, env, distDir: env.NEXT_DIST_DIR, stop: () => server.kill('SIGTERM') };
 }
 
 /** Runs a benchmark's main and exits with its outcome. */

@@ -1,5 +1,6 @@
 import { expect, test, type Page } from '@playwright/test';
 import { readFileSync } from 'node:fs';
+import { serverActionId } from '../helpers/next-build';
 import { E2E } from '../helpers/test-services';
 import { signUp, uniqueEmail } from './helpers';
 
@@ -138,6 +139,7 @@ test('a confirmation queued before a deploy is delivered to the new build', asyn
   await expect(page.getByRole('heading', { name: /Safety gate/ })).toBeVisible();
   await page.waitForFunction(async () => Boolean((await navigator.serviceWorker.getRegistration())?.active));
   const buildBefore = readFileSync(`${E2E.distDir}/BUILD_ID`, 'utf8');
+  const actionBefore = serverActionId(E2E.distDir, 'saveWheelEvents');
 
   await context.setOffline(true);
   for (const box of await page.locator('main input[type=checkbox]').all()) await box.check();
@@ -157,6 +159,8 @@ test('a confirmation queued before a deploy is delivered to the new build', asyn
       }
     }, { timeout: 150_000, intervals: [1000] })
     .toBe(true);
+  // The trap itself: the page still holds the old build's action id, which the new build lacks.
+  expect(serverActionId(E2E.distDir, 'saveWheelEvents')).not.toBe(actionBefore);
 
   await context.setOffline(false);
   await expect(page.getByRole('status').filter({ hasText: 'Saved' })).toBeVisible({ timeout: 20_000 });

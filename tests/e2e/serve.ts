@@ -51,6 +51,8 @@ async function main() {
   process.on('SIGUSR2', () => {
     redeploying = true;
     server.once('exit', () => {
+      // A build machine starts clean: without Next's cached key the new build gets new action ids.
+      rmSync(path.join(E2E.distDir, 'cache', '.rscinfo'), { force: true });
       build();
       server = start();
       server.on('exit', onExit);

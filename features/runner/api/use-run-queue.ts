@@ -2,6 +2,8 @@
 
 import { get, set } from 'idb-keyval';
 import { useCallback, useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'react';
+import { unstable_isUnrecognizedActionError } from 'next/navigation';
+import type { ActionResult } from '@/server/action';
 import type { ClientEvent, RunEvent } from '../events';
 
 type Status = { waiting: number; error: string | null };
@@ -17,12 +19,27 @@ function subscribeOnline(change: () => void) {
 
 const key = (wheelId: string) => `ringpass:run:${wheelId}`;
 
+/** The server action that stores a batch (passed down from the runner page). */
+export type SaveEvents = (prev: unknown, input: { wheelId: string; events: ClientEvent[] }) => Promise<ActionResult<{ saved: number; duplicates: number }>>;
+
+// Refusals that may pass: a session that ended (sign in again), a rate limit, our own failure.
+const KEEP_AND_RETRY = new Set<string | undefined>(['unauthenticated', 'rate_limited', 'internal']);
+
+const RELOADED_AT = 'ringpass:reloaded-for-new-build';
+function reloadForNewBuild(): boolean {
+  const last = Number(sessionStorage.getItem(RELOADED_AT) ?? 0);
+  if (Date.now() - last < 60_000) return false;
+  sessionStorage.setItem(RELOADED_AT, String(Date.now()));
+  location.reload();
+  return true;
+}
+
 /**
  * The runner's durable outbox. Every confirmation becomes an event with its own id, is applied at
  * once, kept in IndexedDB until the server has it, and sent in order when the network allows.
  * The server stores each id once, so sending again after a drop or a reload is always safe.
  */
-export function useRunQueue(wheelId: string, serverEvents: ClientEvent[]) {
+export function useRunQueue(wheelId: string, serverEvents: ClientEvent[], saveEvents: SaveEvents) {
   const [saved, setSaved] = useState<ClientEvent[]>(serverEvents);
   const [pending, setPending] = useState<ClientEvent[]>([]);
   const [status, setStatus] = useState<Status>({ waiting: 0, error: null });
@@ -61,37 +78,39 @@ export function useRunQueue(wheelId: string, serverEvents: ClientEvent[]) {
     if (batch.length === 0) return;
     if (typeof navigator !== 'undefined' && !navigator.onLine) return;
     sending.current = true;
-    try {
-      const res = await fetch(`/api/wheels/${wheelId}/events`, {
-        method: 'POST',
-        headers: { 'content-type': 'application/json' },
-        body: JSON.stringify({ events: batch }),
-      });
-      const body = (await res.json().catch(() => null)) as { error?: { message: string } } | null;
-      const sent = new Set(batch.map((e) => e.clientId));
-      if (res.ok) {
-        attempt.current = 0;
-        addSaved(batch);
-        await store(pendingRef.current.filter((e) => !sent.has(e.clientId)));
-        setStatus((s) => ({ ...s, error: null }));
-      } else if (res.status >= 400 && res.status < 500 && res.status !== 408 && res.status !== 429) {
-        // The server refused these for good (bad data, no permission): keep them out of the queue
-        // so the rest can go, and say so.
-        await store(pendingRef.current.filter((e) => !sent.has(e.clientId)));
-        setStatus((s) => ({ ...s, error: body?.error?.message ?? `Not saved (${res.status}).` }));
-      } else {
-        throw new Error(`server answered ${res.status}`);
-      }
-    } catch {
+    const sent = new Set(batch.map((e) => e.clientId));
+    const backOff = () => {
       attempt.current += 1;
       const wait = Math.min(30_000, 1000 * 2 ** attempt.current);
       if (retry.current) clearTimeout(retry.current);
       retry.current = setTimeout(() => void flushRef.current(), wait);
+    };
+    try {
+      const result = await saveEvents(null, { wheelId, events: batch });
+      if (result.ok) {
+        attempt.current = 0;
+        addSaved(batch);
+        await store(pendingRef.current.filter((e) => !sent.has(e.clientId)));
+        setStatus((s) => ({ ...s, error: null }));
+      } else if (KEEP_AND_RETRY.has(result.code)) {
+        setStatus((s) => ({ ...s, error: result.code === 'unauthenticated' ? 'Your session has ended: sign in again. Everything waiting stays on this phone.' : result.message }));
+        backOff();
+      } else {
+        // The server refused these for good (bad data, no permission): keep them out of the queue
+        // so the rest can go, and say so.
+        await store(pendingRef.current.filter((e) => !sent.has(e.clientId)));
+        setStatus((s) => ({ ...s, error: result.message }));
+      }
+    } catch (error) {
+      // A deploy replaced the build this page came from, so its action id is gone: reload into the
+      // new build, which sends what waits from IndexedDB. Once a minute at most, then keep retrying.
+      if (unstable_isUnrecognizedActionError(error) && reloadForNewBuild()) return;
+      backOff();
     } finally {
       sending.current = false;
     }
     if (pendingRef.current.length && attempt.current === 0) void flushRef.current();
-  }, [wheelId, store, addSaved]);
+  }, [wheelId, store, addSaved, saveEvents]);
   useEffect(() => {
     flushRef.current = flush;
   }, [flush]);

@@ -3,7 +3,7 @@
 import Link from 'next/link';
 import { useEffect, useMemo, useState } from 'react';
 import { arrowDirection, type PressureUnit, type Torque, type WheelPosition, type Wrench } from '@/features/torque-plan';
-import { useRunQueue } from '../api/use-run-queue';
+import { useRunQueue, type SaveEvents } from '../api/use-run-queue';
 import type { ClientEvent } from '../events';
 import { useRunnerSettings } from '../settings-store';
 import { reduceRun, type RunnerPlan } from '../state';
@@ -25,12 +25,14 @@ export type RunnerProps = {
   verified: string[];
   events: ClientEvent[];
   photos: Photo[];
+  /** The server action that stores confirmed events; the page hands it down. */
+  saveEvents: SaveEvents;
 };
 
 /** The guided procedure for one wheel on a phone at the tire cart. */
 export function Runner(props: RunnerProps) {
   const { plan, wheel } = props;
-  const { events, record, status } = useRunQueue(wheel.id, props.events);
+  const { events, record, status } = useRunQueue(wheel.id, props.events, props.saveEvents);
   const state = useMemo(() => reduceRun(plan, events), [plan, events]);
   const [photos, setPhotos] = useState<Photo[]>(props.photos);
   const photoKinds = photos.map((p) => p.kind);

@@ -56,7 +56,7 @@ describe('invites', () => {
     const shop = await createTestShop();
     for (const who of [shop.technician, shop.apprentice]) {
       await actAs(who.userId);
-      expect(await inviteMember(null, { email: `x-${who.role}@example.test`, role: 'lead' })).toEqual({ ok: false, message: 'Your role does not allow this.' });
+      expect(await inviteMember(null, { email: `x-${who.role}@example.test`, role: 'lead' })).toEqual({ ok: false, code: 'forbidden', message: 'Your role does not allow this.' });
     }
     expect(await getDb().$count(invites, eq(invites.shopId, shop.shopId))).toBe(0);
   });

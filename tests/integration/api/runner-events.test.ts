@@ -1,12 +1,14 @@
 import { randomUUID } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import { beforeEach, describe, expect, it } from 'vitest';
-import { GET, POST } from '@/app/api/wheels/[wheelId]/events/route';
+import { saveWheelEvents } from '@/app/(runner)/jobs/[jobId]/wheels/[wheelId]/run/actions';
+import { GET } from '@/app/api/wheels/[wheelId]/events/route';
 import { POST as SUBMIT } from '@/app/api/wheels/[wheelId]/submit/route';
 import { getDb } from '@/db';
 import { users, wheelRunEvents } from '@/db/schema';
 import { getJob } from '@/features/jobs/server/jobs';
 import { apiRequest, cookieFor, createTestShop, params } from '@/tests/helpers/factories';
+import { actAs, resetNextRequest } from '@/tests/helpers/next-request';
 import { createRecords } from '@/tests/helpers/records';
 
 type Shop = Awaited<ReturnType<typeof createTestShop>>;
@@ -21,18 +23,19 @@ beforeEach(async () => {
 
 let t = 0;
 const confirm = (bolt: number, pass = 1, clientId: string = randomUUID()) => ({ type: 'bolt_confirmed', payload: { pass, bolt }, clientId, clientAt: new Date(Date.UTC(2026, 0, 1, 9, 0, t++)).toISOString() });
-const post = async (userId: string | null, events: unknown[], wheel = wheelId) =>
-  POST(apiRequest(`/api/wheels/${wheel}/events`, { method: 'POST', cookie: userId ? await cookieFor(userId) : undefined, body: { events } }), params({ wheelId: wheel }));
+/** The runner's save path as the phone calls it: the server action, signed in as `userId`. */
+const post = async (userId: string | null, events: unknown[], wheel = wheelId) => {
+  if (userId) await actAs(userId);
+  else resetNextRequest();
+  return saveWheelEvents(null, { wheelId: wheel, events } as Parameters<typeof saveWheelEvents>[1]);
+};
 const stored = () => getDb().select({ clientId: wheelRunEvents.clientId }).from(wheelRunEvents).where(eq(wheelRunEvents.wheelId, wheelId));
 
-describe('POST /api/wheels/:id/events', () => {
+describe('the runner save action (saveWheelEvents)', () => {
   it('stores each event once however often it is replayed, and starts the job', async () => {
     const batch = [confirm(1), confirm(13)];
-    const first = await post(shop.technician.userId, batch);
-    expect(first.status).toBe(200);
-    expect(await first.json()).toEqual({ data: { saved: 2, duplicates: 0 } });
-    const replay = await post(shop.technician.userId, batch);
-    expect(await replay.json()).toMatchObject({ data: { saved: 0, duplicates: 2 } });
+    expect(await post(shop.technician.userId, batch)).toEqual({ ok: true, data: { saved: 2, duplicates: 0 } });
+    expect(await post(shop.technician.userId, batch)).toEqual({ ok: true, data: { saved: 0, duplicates: 2 } });
     expect(await stored()).toHaveLength(2);
     expect((await getJob(shop.shopId, jobId)).state).toBe('in_progress');
     const res = await GET(apiRequest(`/api/wheels/${wheelId}/events`, { cookie: await cookieFor(shop.technician.userId) }), params({ wheelId }));
@@ -43,8 +46,7 @@ describe('POST /api/wheels/:id/events', () => {
     const a = confirm(1);
     await post(shop.technician.userId, [a]);
     await post(shop.technician.userId, [a]); // the job is in progress from here on
-    const res = await post(shop.technician.userId, [a, confirm(13)]);
-    expect(await res.json()).toEqual({ data: { saved: 1, duplicates: 1 } });
+    expect(await post(shop.technician.userId, [a, confirm(13)])).toEqual({ ok: true, data: { saved: 1, duplicates: 1 } });
     expect(await stored()).toHaveLength(2);
   });
 
@@ -60,15 +62,13 @@ describe('POST /api/wheels/:id/events', () => {
   });
 
   it('an apprentice, an unassigned technician, signed out, another shop: refused, nothing stored', async () => {
-    expect((await post(shop.apprentice.userId, [confirm(1)])).status).toBe(403);
-    expect((await post(null, [confirm(1)])).status).toBe(401);
+    expect(await post(shop.apprentice.userId, [confirm(1)])).toMatchObject({ ok: false, code: 'forbidden', message: 'Your role does not allow this.' });
+    expect(await post(null, [confirm(1)])).toMatchObject({ ok: false, code: 'unauthenticated', message: expect.stringMatching(/Sign in again/) });
     const other = await createTestShop('Other');
-    expect((await post(other.lead.userId, [confirm(1)])).status).toBe(404);
+    expect(await post(other.lead.userId, [confirm(1)])).toMatchObject({ ok: false, code: 'not_found', message: 'That wheel was not found.' });
     // A technician of the same shop who is not the assignee.
     const [tech2] = await getDb().insert(users).values({ shopId: shop.shopId, email: `t2-${randomUUID()}@shop.test`, name: 'Tess Two', role: 'technician', passwordHash: 'x' }).returning({ id: users.id });
-    const res = await post(tech2!.id, [confirm(1)]);
-    expect(res.status).toBe(403);
-    expect(await res.json()).toMatchObject({ error: { message: expect.stringMatching(/assigned to someone else/) } });
+    expect(await post(tech2!.id, [confirm(1)])).toMatchObject({ ok: false, code: 'forbidden', message: expect.stringMatching(/assigned to someone else/) });
     expect(await stored()).toHaveLength(0);
   });
 
@@ -82,7 +82,7 @@ describe('POST /api/wheels/:id/events', () => {
   });
 
   it('a lead may run any wheel of the shop', async () => {
-    expect((await post(shop.lead.userId, [confirm(1)])).status).toBe(200);
+    expect(await post(shop.lead.userId, [confirm(1)])).toMatchObject({ ok: true, data: { saved: 1 } });
   });
 
   it('bad payloads are refused with a message and change nothing', async () => {
@@ -95,9 +95,7 @@ describe('POST /api/wheels/:id/events', () => {
       [],
     ];
     for (const events of cases) {
-      const res = await post(shop.technician.userId, events);
-      expect(res.status, JSON.stringify(events)).toBe(400);
-      expect(await res.json()).toMatchObject({ error: { code: 'invalid', message: expect.any(String) } });
+      expect(await post(shop.technician.userId, events), JSON.stringify(events)).toMatchObject({ ok: false, code: 'invalid', message: expect.any(String) });
     }
     expect(await stored()).toHaveLength(0);
   });
@@ -106,8 +104,7 @@ describe('POST /api/wheels/:id/events', () => {
     const id = randomUUID();
     await post(shop.technician.userId, [confirm(1, 1, id)]);
     const otherWheel = (await getJob(shop.shopId, jobId)).wheels[1]!.id;
-    const res = await post(shop.technician.userId, [confirm(1, 1, id)], otherWheel);
-    expect(res.status).toBe(409);
+    expect(await post(shop.technician.userId, [confirm(1, 1, id)], otherWheel)).toMatchObject({ ok: false, code: 'conflict' });
   });
 });
 

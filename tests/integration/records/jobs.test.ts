@@ -28,7 +28,7 @@ describe('specs', () => {
     expect(await createWheelSpec(null, { ...specBody, patternKind: 'skip', skipStep: 24 })).toMatchObject({ ok: false, fieldErrors: { skipStep: [expect.stringMatching(/skip step must be from 1 to 23/)] } });
     expect(await createWheelSpec(null, { ...specBody, passPercents: [30, 70] })).toMatchObject({ ok: false, fieldErrors: { passPercents: ['The last pass must be 100 (the final torque).'] } });
     await actAs(shop.technician.userId);
-    expect(await createWheelSpec(null, specBody)).toEqual({ ok: false, message: 'Your role does not allow this.' });
+    expect(await createWheelSpec(null, specBody)).toEqual({ ok: false, code: 'forbidden', message: 'Your role does not allow this.' });
   });
 });
 

@@ -25,7 +25,7 @@ describe('tool crib', () => {
     // A later good reading does not put it back; only a lead does, with a reason.
     await verifyWrench(null, { wrenchId: w.id, referenceValue: 100, readingValue: 100, unit: 'lbf-in' });
     expect((await getWrench(shop.shopId, w.id)).status).toBe('out_of_service');
-    expect(await putBackInService(null, { wrenchId: w.id, reason: 'Recalibrated by the lab' })).toEqual({ ok: false, message: 'Your role does not allow this.' });
+    expect(await putBackInService(null, { wrenchId: w.id, reason: 'Recalibrated by the lab' })).toEqual({ ok: false, code: 'forbidden', message: 'Your role does not allow this.' });
     await actAs(shop.lead.userId);
     expect(await putBackInService(null, { wrenchId: w.id, reason: 'Recalibrated by the lab' })).toMatchObject({ ok: true, data: { status: 'in_service' } });
 

@@ -8,6 +8,7 @@ import { verifiedToday, wrenchesForEngine } from '@/features/tool-crib/server/wr
 import { formatTorque, passPlan } from '@/features/torque-plan';
 import { requireMember } from '@/server/auth/guard';
 import { DomainError, orNotFound } from '@/server/errors';
+import { saveWheelEvents } from './actions';
 
 export const metadata: Metadata = { title: 'Runner' };
 
@@ -40,6 +41,7 @@ export default async function RunPage({ params }: PageProps<'/jobs/[jobId]/wheel
       verified={verified}
       events={events}
       photos={photos}
+      saveEvents={saveWheelEvents}
     />
   );
 }
