@@ -6,7 +6,8 @@ import { unstable_isUnrecognizedActionError } from 'next/navigation';
 import type { ActionResult } from '@/server/action';
 import type { ClientEvent, RunEvent } from '../events';
 
-type Status = { waiting: number; error: string | null };
+// `ready` stays false until this phone's own queue is read: before that "saved" would be a guess.
+type Status = { waiting: number; error: string | null; ready: boolean };
 
 function subscribeOnline(change: () => void) {
   window.addEventListener('online', change);
@@ -42,7 +43,7 @@ function reloadForNewBuild(): boolean {
 export function useRunQueue(wheelId: string, serverEvents: ClientEvent[], saveEvents: SaveEvents) {
   const [saved, setSaved] = useState<ClientEvent[]>(serverEvents);
   const [pending, setPending] = useState<ClientEvent[]>([]);
-  const [status, setStatus] = useState<Status>({ waiting: 0, error: null });
+  const [status, setStatus] = useState<Status>({ waiting: 0, error: null, ready: false });
   const online = useSyncExternalStore(subscribeOnline, () => navigator.onLine, () => true);
   const flushRef = useRef<() => Promise<void>>(async () => {});
   const pendingRef = useRef<ClientEvent[]>([]);
@@ -124,6 +125,7 @@ export function useRunQueue(wheelId: string, serverEvents: ClientEvent[], saveEv
       addSaved(held?.saved ?? []);
       const known = new Set(savedRef.current.map((e) => e.clientId));
       await store((held?.pending ?? []).filter((e) => !known.has(e.clientId)));
+      setStatus((s) => ({ ...s, ready: true }));
       void flush();
     });
     return () => {

@@ -61,8 +61,8 @@ export function Runner(props: RunnerProps) {
           <Link href={`/jobs/${props.jobId}`} className="inline-flex min-h-touch items-center font-bold underline">
             ← Job #{props.jobNumber}
           </Link>
-          <p role="status" aria-live="polite" className={`rounded-full px-3 py-1 text-sm font-bold ${status.waiting ? 'bg-caution text-caution-ink' : 'bg-ok text-white'}`}>
-            {status.waiting ? `${status.waiting} waiting${status.online ? '' : ' · offline'}` : 'Saved'}
+          <p role="status" aria-live="polite" className={`rounded-full px-3 py-1 text-sm font-bold ${!status.ready ? 'bg-white text-ink' : status.waiting ? 'bg-caution text-caution-ink' : 'bg-ok text-white'}`}>
+            {!status.ready ? 'Checking this phone…' : status.waiting ? `${status.waiting} waiting${status.online ? '' : ' · offline'}` : 'Saved'}
           </p>
         </div>
         <p className="font-semibold">
