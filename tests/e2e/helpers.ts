@@ -44,3 +44,10 @@ export async function inviteAndJoin(page: Page, browser: Browser, email: string,
   await expect(joined.getByRole('heading', { name: 'Board' })).toBeVisible();
   return { context, page: joined };
 }
+
+/** A phone screen never scrolls sideways: a technician with gloves on cannot chase a clipped control. */
+export async function expectNoSideScroll(page: Page) {
+  // Against the emulated viewport, not innerWidth: a phone widens its layout viewport to fit what overflows.
+  const scroll = await page.evaluate(() => document.documentElement.scrollWidth);
+  expect(scroll, 'page wider than the screen').toBeLessThanOrEqual(page.viewportSize()!.width);
+}

@@ -2,7 +2,7 @@ import { expect, test, type Page } from '@playwright/test';
 import { readFileSync } from 'node:fs';
 import { serverActionId } from '../helpers/next-build';
 import { E2E } from '../helpers/test-services';
-import { signUp, uniqueEmail } from './helpers';
+import { expectNoSideScroll, signUp, uniqueEmail } from './helpers';
 
 /** A same-origin API call with the page's session, as the app itself would make it. */
 async function api<T>(page: Page, method: 'GET' | 'POST', path: string, body?: unknown): Promise<T> {
@@ -63,7 +63,23 @@ test('at 360×640 a wheel runs through its steps; offline, 10 bolts are confirme
   await expect(page.getByRole('status').filter({ hasText: 'Saved' })).toBeVisible();
   await page.waitForFunction(async () => Boolean((await navigator.serviceWorker.getRegistration())?.active));
   await page.waitForTimeout(500); // let the worker store the page it was sent
+  await expectNoSideScroll(page);
   await testInfo.attach('a pass', { body: await page.screenshot(), contentType: 'image/png' });
+  // The phone turned on its side: nothing scrolls sideways, and below the sticky header the ring and
+  // the button are in view together.
+  await page.setViewportSize({ width: 640, height: 360 });
+  await expectNoSideScroll(page);
+  const ring = page.getByRole('group', { name: /^Bolt circle, pass 1/ });
+  const header = (await page.getByRole('banner').boundingBox())!;
+  await page.evaluate((by) => window.scrollBy(0, by), (await ring.boundingBox())!.y - (header.y + header.height));
+  const below = header.y + header.height;
+  for (const part of [ring, page.getByRole('button', { name: /^Clicked — bolt \d+$/ })]) {
+    const box = (await part.boundingBox())!;
+    expect(box.y, 'not under the header').toBeGreaterThanOrEqual(below - 1);
+    expect(box.y + box.height, 'on the screen').toBeLessThanOrEqual(360);
+  }
+  await testInfo.attach('a pass, landscape', { body: await page.screenshot(), contentType: 'image/png' });
+  await page.setViewportSize({ width: 360, height: 640 });
 
   await context.setOffline(true);
   for (let i = 0; i < 10; i++) await page.getByRole('button', { name: /^Clicked — bolt \d+$/ }).click();
@@ -101,13 +117,15 @@ test('at 360×640 a wheel runs through its steps; offline, 10 bolts are confirme
     return Array.from(new Uint8Array(await blob.arrayBuffer()));
   });
   const photo = { name: 'bead.jpg', mimeType: 'image/jpeg', buffer: Buffer.from(jpeg) };
-  await page.getByLabel('Seated bead, outer face (required)').setInputFiles(photo);
+  await page.getByLabel('Take or choose a photo — Seated bead, outer face (required)').setInputFiles(photo);
   await expect(page.getByRole('img', { name: 'Seated bead, outer face' })).toBeVisible({ timeout: 20_000 });
-  await page.getByLabel('Seated bead, inner face (required)').setInputFiles(photo);
+  await page.getByLabel('Take or choose a photo — Seated bead, inner face (required)').setInputFiles(photo);
   await expect(page.getByRole('img', { name: 'Seated bead, inner face' })).toBeVisible({ timeout: 20_000 });
   // A text file named like a photo is refused by its bytes.
-  await page.getByLabel('Other photo', { exact: true }).setInputFiles({ name: 'notes.jpg', mimeType: 'image/jpeg', buffer: Buffer.from('not a photo at all') });
+  await page.getByLabel('Take or choose a photo — Other photo', { exact: true }).setInputFiles({ name: 'notes.jpg', mimeType: 'image/jpeg', buffer: Buffer.from('not a photo at all') });
   await expect(page.getByRole('alert').filter({ hasText: 'not a JPEG, PNG or WebP photo' })).toBeVisible({ timeout: 20_000 });
+  await expectNoSideScroll(page);
+  await testInfo.attach('bead photos', { body: await page.screenshot({ fullPage: true }), contentType: 'image/png' });
 
   for (const box of await page.locator('main input[type=checkbox]').all()) await box.check();
   await page.getByLabel('Highest pressure used to seat the bead').fill('45');
@@ -124,6 +142,7 @@ test('at 360×640 a wheel runs through its steps; offline, 10 bolts are confirme
   await expect(page.getByRole('heading', { name: /Submit the wheel/ })).toBeVisible();
   await expect(page.getByText('None: every bolt in sequence.')).toBeVisible();
   await expect(page.getByText(/Clean: skipped \(New wheel, clean from the box\)/)).toBeVisible();
+  await expectNoSideScroll(page);
   await testInfo.attach('summary', { body: await page.screenshot({ fullPage: true }), contentType: 'image/png' });
   await page.getByRole('button', { name: 'Submit the wheel' }).click();
   await expect(page.getByRole('status').filter({ hasText: 'the job card went to sign-off' })).toBeVisible();

@@ -1,9 +1,17 @@
 'use client';
 
-import { generateReactHelpers } from '@uploadthing/react';
+import { generateUploadButton } from '@uploadthing/react';
 import type { PhotoRouter } from '../server/photo-router';
 
-export const { useUploadThing } = generateReactHelpers<PhotoRouter>();
+/** The upload SDK's own button, bound to our photo route (its route handler is /api/uploadthing). */
+export const UploadButton = generateUploadButton<PhotoRouter>();
+
+/**
+ * The button's class merger: it is called with the component's default classes first and ours
+ * (from `appearance`) last. Keeping only ours lets the shop theme replace the stock look whole,
+ * instead of two sets of sizes and colours fighting over one element.
+ */
+export const oursOnly = (...classes: (string | false | null | undefined)[]) => (classes.at(-1) || '') as string;
 
 /**
  * Shrinks a photo on the phone before it travels over the shop Wi-Fi: long edge about 2000 px,

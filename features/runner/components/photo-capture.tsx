@@ -1,7 +1,7 @@
 'use client';
 
 import { useState } from 'react';
-import { downscale, useUploadThing } from '../api/upload-photo';
+import { downscale, oursOnly, UploadButton } from '../api/upload-photo';
 import type { WheelPhoto } from '../server/photo-router';
 
 export type Photo = WheelPhoto;
@@ -23,33 +23,15 @@ function PhotoSlot({ wheelId, kind, photos, onAdded }: { wheelId: string; kind: 
   const [progress, setProgress] = useState<number | null>(null);
   const [message, setMessage] = useState<string | null>(null);
   const [note, setNote] = useState('');
-  const { startUpload } = useUploadThing('wheelPhoto', {
-    onUploadProgress: setProgress,
-    onUploadError: (e) => {
-      setProgress(null);
-      setMessage(e.message);
-    },
-  });
-  const id = `photo-${kind}`;
-
-  async function pick(file: File | undefined) {
-    if (!file) return;
-    setMessage(null);
-    setProgress(0);
-    const result = await startUpload([await downscale(file)], { wheelId, kind, note });
+  const title = `${LABELS[kind]}${kind !== 'other' ? ' (required)' : ''}`;
+  const done = (text: string | null) => {
     setProgress(null);
-    const data = result?.[0]?.serverData;
-    if (!data) return;
-    if (data.ok) onAdded({ id: data.photoId, kind, note, url: data.url });
-    else setMessage(data.message);
-  }
+    setMessage(text);
+  };
 
   return (
     <div className="flex flex-col gap-2 rounded-xl border-2 border-paper-line p-3">
-      <label htmlFor={id} className="font-bold">
-        {LABELS[kind]}
-        {kind !== 'other' ? ' (required)' : ''}
-      </label>
+      <p className="font-bold">{title}</p>
       {kind === 'other' ? <input aria-label="Note for the other photo" value={note} onChange={(e) => setNote(e.target.value)} placeholder="What it shows" className="min-h-14 rounded-xl border-2 border-ink-soft px-3" /> : null}
       <div className="flex flex-wrap gap-2">
         {photos.map((p) => (
@@ -57,7 +39,41 @@ function PhotoSlot({ wheelId, kind, photos, onAdded }: { wheelId: string; kind: 
           <img key={p.id} src={p.url} alt={`${LABELS[p.kind]}${p.note ? `: ${p.note}` : ''}`} className="size-24 rounded-lg border-2 border-ink object-cover" />
         ))}
       </div>
-      <input id={id} type="file" accept="image/*" capture="environment" disabled={progress !== null} onChange={(e) => void pick(e.target.files?.[0])} className="min-h-14 text-base file:mr-3 file:min-h-14 file:rounded-xl file:border-0 file:bg-work file:px-4 file:font-bold file:text-white" />
+      <UploadButton
+        endpoint="wheelPhoto"
+        input={{ wheelId, kind, note }}
+        config={{ mode: 'auto', cn: oursOnly }}
+        onBeforeUploadBegin={async (files) => {
+          done(null);
+          setProgress(0);
+          return Promise.all(files.map((file) => downscale(file)));
+        }}
+        onUploadProgress={setProgress}
+        onUploadAborted={() => done('Upload stopped. Nothing was saved; take the photo again.')}
+        onUploadError={(error) => done(error.message)}
+        onClientUploadComplete={(files) => {
+          const data = files[0]?.serverData;
+          if (!data) return done('The upload service did not answer. Try again.');
+          if (!data.ok) return done(data.message);
+          done(null);
+          onAdded({ id: data.photoId, kind, note, url: data.url });
+        }}
+        appearance={{
+          container: 'flex flex-col items-stretch gap-1',
+          button: ({ ready, isUploading }) =>
+            `relative flex min-h-14 cursor-pointer items-center justify-center rounded-xl px-4 text-lg font-bold text-white focus-within:outline focus-within:outline-4 focus-within:outline-offset-2 focus-within:outline-work ${!ready ? 'bg-ink-soft' : isUploading ? 'bg-work-dark' : 'bg-work'}`,
+          allowedContent: 'text-sm text-ink-soft',
+        }}
+        content={{
+          button: ({ ready, isUploading, uploadProgress }) => (
+            <>
+              {!ready ? 'Getting ready…' : isUploading ? `Uploading ${Math.round(uploadProgress)} % · tap to stop` : photos.length ? 'Take or choose another' : 'Take or choose a photo'}
+              <span className="sr-only"> — {title}</span>
+            </>
+          ),
+          allowedContent: 'JPEG, PNG or WebP photo, at most 10 MB; shrunk on this phone first.',
+        }}
+      />
       {progress !== null ? <progress max={100} value={progress} aria-label={`Uploading ${LABELS[kind]}`} className="h-4 w-full" /> : null}
       {message ? (
         <p role="alert" className="font-bold text-danger">

@@ -56,18 +56,21 @@ export function Runner(props: RunnerProps) {
 
   return (
     <div className="mx-auto flex min-h-dvh max-w-xl flex-col">
-      <header className="sticky top-0 z-10 bg-ink px-3 py-2 text-white">
+      <header className="sticky top-0 z-10 bg-ink px-3 py-2 text-white landscape:py-1">
         <div className="flex items-center justify-between gap-2">
-          <Link href={`/jobs/${props.jobId}`} className="inline-flex min-h-touch items-center font-bold underline">
-            ← Job #{props.jobNumber}
-          </Link>
-          <p role="status" aria-live="polite" className={`rounded-full px-3 py-1 text-sm font-bold ${!status.ready ? 'bg-white text-ink' : status.waiting ? 'bg-caution text-caution-ink' : 'bg-ok text-white'}`}>
+          {/* On its side the phone has little height: one line, so the ring keeps the room. */}
+          <div className="flex min-w-0 flex-col landscape:flex-row landscape:items-center landscape:gap-3">
+            <Link href={`/jobs/${props.jobId}`} className="inline-flex min-h-touch shrink-0 items-center font-bold underline">
+              ← Job #{props.jobNumber}
+            </Link>
+            <p className="font-semibold">
+              {wheel.position} · {wheel.tireSize} · {props.spec.name}
+            </p>
+          </div>
+          <p role="status" aria-live="polite" className={`shrink-0 rounded-full px-3 py-1 text-sm font-bold ${!status.ready ? 'bg-white text-ink' : status.waiting ? 'bg-caution text-caution-ink' : 'bg-ok text-white'}`}>
             {!status.ready ? 'Checking this phone…' : status.waiting ? `${status.waiting} waiting${status.online ? '' : ' · offline'}` : 'Saved'}
           </p>
         </div>
-        <p className="font-semibold">
-          {wheel.position} · {wheel.tireSize} · {props.spec.name}
-        </p>
         {status.error ? <p role="alert" className="mt-1 rounded bg-danger px-2 py-1 text-sm font-bold">{status.error}</p> : null}
       </header>
       <main className="flex flex-1 flex-col gap-4 p-3">

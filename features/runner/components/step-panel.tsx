@@ -64,8 +64,8 @@ export function StepPanel({
             {step.measurement.label}
           </label>
           <div className="grid grid-cols-[2fr_1fr] gap-2">
-            <input id={`${step.id}-reading`} inputMode="decimal" value={value} onChange={(e) => setValue(e.target.value)} aria-invalid={overLimit || undefined} aria-describedby={`${step.id}-reading-note`} className="min-h-14 rounded-xl border-2 border-ink-soft px-3 text-xl" />
-            <select aria-label="Pressure unit" value={unit} onChange={(e) => setUnit(e.target.value as PressureUnit)} className="min-h-14 rounded-xl border-2 border-ink-soft px-2 text-lg">
+            <input id={`${step.id}-reading`} inputMode="decimal" value={value} onChange={(e) => setValue(e.target.value)} aria-invalid={overLimit || undefined} aria-describedby={`${step.id}-reading-note`} className="min-h-14 min-w-0 rounded-xl border-2 border-ink-soft px-3 text-xl" />
+            <select aria-label="Pressure unit" value={unit} onChange={(e) => setUnit(e.target.value as PressureUnit)} className="min-h-14 min-w-0 rounded-xl border-2 border-ink-soft px-2 text-lg">
               {(['psi', 'kPa', 'bar'] as const).map((u) => (
                 <option key={u} value={u}>
                   {UNIT_LABELS[u]}

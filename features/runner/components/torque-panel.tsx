@@ -112,26 +112,33 @@ export function TorquePanel({
       {wrench && !ok.includes(wrench.id) ? (
         <VerifyInline wrench={wrench} onResult={(within) => (within ? setOk((v) => [...v, wrench.id]) : setFailed((f) => [...f, wrench.id]))} />
       ) : wrench && choice?.ok ? (
-        <>
-          <BoltCircle count={boltCount} order={pass.order} done={pass.confirmed} next={pass.next} passLabel={label} selected={selected} onSelect={setSelected} label={`Bolt circle, ${label}: ${pass.confirmed.length} of ${boltCount} done`} />
-          <p aria-live="polite" className="text-center text-lg">
-            {pass.confirmed.length} of {boltCount} bolts · next: bolt {pass.next}
-          </p>
-          {selected && selected !== pass.next ? (
-            pass.confirmed.includes(selected) ? (
-              <button type="button" onClick={() => { void record({ type: 'bolt_undone', payload: { pass: pass.index, bolt: selected } }); setSelected(null); }} className={`${big} border-2 border-ink`}>
-                Undo bolt {selected}
-              </button>
-            ) : (
-              <button type="button" onClick={() => confirm(selected)} className={`${big} border-4 border-caution bg-caution-tint text-caution-ink`}>
-                Bolt {selected} is out of sequence: confirm it anyway
-              </button>
-            )
-          ) : null}
-          <button type="button" onClick={() => pass.next && confirm(pass.next)} className="min-h-24 w-full rounded-2xl bg-work px-4 text-2xl font-black text-white active:bg-work-dark">
-            Clicked — bolt {pass.next}
-          </button>
-        </>
+        // Portrait: circle above the button. Landscape (phone on its side): side by side, the circle
+        // as tall as the screen allows, so the bolt and the button are in view together.
+        <div className="flex flex-col gap-4 landscape:grid landscape:grid-cols-2 landscape:items-center">
+          <div className="landscape:[&>svg]:max-h-[calc(100dvh-5rem)]">
+            <BoltCircle count={boltCount} order={pass.order} done={pass.confirmed} next={pass.next} passLabel={label} selected={selected} onSelect={setSelected} label={`Bolt circle, ${label}: ${pass.confirmed.length} of ${boltCount} done`} />
+          </div>
+          <div className="flex flex-col gap-4">
+            <p aria-live="polite" className="text-center text-lg">
+              {pass.confirmed.length} of {boltCount} bolts · next: bolt {pass.next}
+            </p>
+            <p className="text-center text-sm text-ink-soft">Number inside a bolt: its turn in this pass. Number outside: the bolt. Tap a bolt to undo or correct it.</p>
+            {selected && selected !== pass.next ? (
+              pass.confirmed.includes(selected) ? (
+                <button type="button" onClick={() => { void record({ type: 'bolt_undone', payload: { pass: pass.index, bolt: selected } }); setSelected(null); }} className={`${big} border-2 border-ink`}>
+                  Undo bolt {selected}
+                </button>
+              ) : (
+                <button type="button" onClick={() => confirm(selected)} className={`${big} border-4 border-caution bg-caution-tint text-caution-ink`}>
+                  Bolt {selected} is out of sequence: confirm it anyway
+                </button>
+              )
+            ) : null}
+            <button type="button" onClick={() => pass.next && confirm(pass.next)} className="min-h-24 w-full rounded-2xl bg-work px-4 text-2xl font-black text-white active:bg-work-dark">
+              Clicked — bolt {pass.next}
+            </button>
+          </div>
+        </div>
       ) : null}
     </div>
   );

@@ -35,13 +35,13 @@ export function VerifyInline({ wrench, onResult }: { wrench: Wrench & { label: s
     <section aria-label="Verify the wrench" className="flex flex-col gap-3 rounded-xl border-2 border-caution p-3">
       <p className="font-bold">{wrench.label} has no verification today. Check it on the tester before its first pass.</p>
       <div className="grid grid-cols-2 gap-2">
-        <label className="flex flex-col gap-1 font-semibold">
+        <label className="flex min-w-0 flex-col gap-1 font-semibold">
           Reference ({unit})
-          <input inputMode="decimal" value={reference} onChange={(e) => setReference(e.target.value)} className="min-h-14 rounded-xl border-2 border-ink-soft px-3 text-lg" />
+          <input inputMode="decimal" value={reference} onChange={(e) => setReference(e.target.value)} className="min-h-14 min-w-0 rounded-xl border-2 border-ink-soft px-3 text-lg" />
         </label>
-        <label className="flex flex-col gap-1 font-semibold">
+        <label className="flex min-w-0 flex-col gap-1 font-semibold">
           Reading ({unit})
-          <input inputMode="decimal" value={reading} onChange={(e) => setReading(e.target.value)} className="min-h-14 rounded-xl border-2 border-ink-soft px-3 text-lg" />
+          <input inputMode="decimal" value={reading} onChange={(e) => setReading(e.target.value)} className="min-h-14 min-w-0 rounded-xl border-2 border-ink-soft px-3 text-lg" />
         </label>
       </div>
       {message ? (
