@@ -1,0 +1,76 @@
+// @vitest-environment jsdom
+import { act, renderHook, waitFor } from '@testing-library/react';
+import { UnrecognizedActionError } from 'next/dist/client/components/unrecognized-action-error';
+import { beforeEach, describe, expect, it, vi } from 'vitest';
+import { useRunQueue, type SaveEvents } from '@/features/runner/api/use-run-queue';
+
+// The device's IndexedDB, in memory.
+const idb = new Map<string, unknown>();
+vi.mock('idb-keyval', () => ({
+  get: async (key: string) => idb.get(key),
+  set: async (key: string, value: unknown) => void idb.set(key, structuredClone(value)),
+}));
+
+const WHEEL = '6d3a0f7e-1c1b-4c55-9f3e-2a7d1f0c9b11';
+const confirm = { type: 'bolt_confirmed', payload: { pass: 1, bolt: 1 } } as const;
+const saved = { ok: true as const, data: { saved: 1, duplicates: 0 } };
+
+function setUp(save: SaveEvents) {
+  const action = vi.fn(save);
+  const hook = renderHook(() => useRunQueue(WHEEL, [], action));
+  return { action, hook };
+}
+
+describe('the runner outbox', () => {
+  beforeEach(() => {
+    idb.clear();
+    sessionStorage.clear();
+    vi.useRealTimers();
+  });
+
+  it('says nothing is saved until it has read the phone, then sends and reports "saved"', async () => {
+    const { action, hook } = setUp(async () => saved);
+    expect(hook.result.current.status.ready).toBe(false);
+    await waitFor(() => expect(hook.result.current.status.ready).toBe(true));
+    await act(() => hook.result.current.record(confirm));
+    await waitFor(() => expect(hook.result.current.status.waiting).toBe(0));
+    expect(action).toHaveBeenCalledWith(null, { wheelId: WHEEL, events: [expect.objectContaining({ ...confirm, clientId: expect.any(String) })] });
+    expect(hook.result.current.events).toHaveLength(1);
+  });
+
+  it('an ended session keeps the confirmation on the phone and asks to sign in again', async () => {
+    const { action, hook } = setUp(async () => ({ ok: false, code: 'unauthenticated', message: 'Your session has ended. Sign in again.' }));
+    await waitFor(() => expect(hook.result.current.status.ready).toBe(true));
+    await act(() => hook.result.current.record(confirm));
+    await waitFor(() => expect(hook.result.current.status.error).toMatch(/sign in again.*stays on this phone/i));
+    expect(hook.result.current.status.waiting).toBe(1);
+    expect(action).toHaveBeenCalledTimes(1);
+    expect((idb.get(`ringpass:run:${WHEEL}`) as { pending: unknown[] }).pending).toHaveLength(1);
+  });
+
+  it('a refusal for good (bad data) leaves the queue, so what follows can go, and says why', async () => {
+    const { hook } = setUp(async () => ({ ok: false, code: 'invalid', message: 'Bolt 99 is not on this 8-bolt ring.' }));
+    await waitFor(() => expect(hook.result.current.status.ready).toBe(true));
+    await act(() => hook.result.current.record(confirm));
+    await waitFor(() => expect(hook.result.current.status.error).toBe('Bolt 99 is not on this 8-bolt ring.'));
+    expect(hook.result.current.status.waiting).toBe(0);
+  });
+
+  it('an action id retired by a deploy reloads the page once, keeping the queue for the new build', async () => {
+    const reload = vi.fn();
+    vi.stubGlobal('location', { ...window.location, reload });
+    const { hook } = setUp(async () => {
+      throw new UnrecognizedActionError('Server Action "7f00" was not found on the server.');
+    });
+    await waitFor(() => expect(hook.result.current.status.ready).toBe(true));
+    await act(() => hook.result.current.record(confirm));
+    await waitFor(() => expect(reload).toHaveBeenCalledTimes(1));
+    expect((idb.get(`ringpass:run:${WHEEL}`) as { pending: unknown[] }).pending).toHaveLength(1);
+    // Reloaded a moment ago and still refused: no reload loop, the queue waits and retries.
+    await act(() => hook.result.current.record(confirm));
+    await new Promise((r) => setTimeout(r, 50));
+    expect(reload).toHaveBeenCalledTimes(1);
+    expect(hook.result.current.status.waiting).toBe(2);
+    vi.unstubAllGlobals();
+  });
+});
