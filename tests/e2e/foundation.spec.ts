@@ -51,6 +51,7 @@ test('a wrong password gets a clear error; the sixth wrong password in a row is 
   const lead = uniqueEmail('locked');
   await signUp(page, 'Rockcrawl Rims', 'Omar Seat', lead);
   await page.getByRole('button', { name: 'Sign out' }).click();
+  await expect(page.getByRole('heading', { name: 'Sign in' })).toBeVisible(); // the session is gone before we go on
   for (let i = 1; i <= 5; i++) {
     await signIn(page, lead, `not-the-password-${i}`);
     await expect(page.getByRole('alert').filter({ hasText: /./ })).toHaveText('Wrong e-mail or password.');
