@@ -1,6 +1,7 @@
 import { drizzle, type PostgresJsDatabase } from 'drizzle-orm/postgres-js';
 import postgres from 'postgres';
 import { env } from '@/server/env.mjs';
+import { withPreparedStatements } from './prepared-statements';
 import * as schema from './schema';
 
 export type Database = PostgresJsDatabase<typeof schema>;
@@ -11,7 +12,7 @@ const globalForDb = globalThis as unknown as { ringpassDb?: { db: Database; sql:
 
 function connect() {
   const sql = postgres(env().DATABASE_URL, { max: 10, onnotice: () => {} });
-  return { db: drizzle(sql, { schema, casing: 'snake_case' }), sql };
+  return { db: drizzle(withPreparedStatements(sql), { schema, casing: 'snake_case' }), sql };
 }
 
 export function getDb(): Database {
