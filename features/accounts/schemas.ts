@@ -32,6 +32,8 @@ export const signUpSchema = z.object({
 export const signInSchema = z.object({
   email: emailField,
   password: z.string({ error: 'Enter your password.' }).min(1, { error: 'Enter your password.' }).max(128),
+  /** Where the person was before their session ended (checked again before use). */
+  next: z.string().max(300).optional(),
 });
 
 export type SignUpInput = z.infer<typeof signUpSchema>;

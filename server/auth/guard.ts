@@ -2,15 +2,17 @@ import 'server-only';
 import { forbidden, redirect } from 'next/navigation';
 import { DomainError } from '@/server/errors';
 import { can, type Permission } from './permissions';
+import { signInThenBackTo } from './return-path';
 import { getCurrentMember, sessionCookieName, validateSessionId, type Member } from './session';
 
 /**
- * For pages and layouts: the signed-in member, or a redirect to sign-in; a member without the
- * permission gets the 403 page. Every shop page calls it itself (layouts do not protect pages).
+ * For pages and layouts: the signed-in member, or a redirect to sign-in (and back to `returnTo`
+ * afterwards, when the page says where it is); a member without the permission gets the 403
+ * page. Every shop page calls it itself (layouts do not protect pages).
  */
-export async function requireMember(permission: Permission = 'board.view'): Promise<Member> {
+export async function requireMember(permission: Permission = 'board.view', returnTo?: string): Promise<Member> {
   const member = await getCurrentMember();
-  if (!member) redirect('/sign-in');
+  if (!member) redirect(returnTo ? signInThenBackTo(returnTo) : '/sign-in');
   if (!can(member.role, permission)) forbidden();
   return member;
 }

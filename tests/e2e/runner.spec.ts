@@ -2,7 +2,7 @@ import { expect, test, type Page } from '@playwright/test';
 import { readFileSync } from 'node:fs';
 import { serverActionId } from '../helpers/next-build';
 import { E2E } from '../helpers/test-services';
-import { expectNoSideScroll, signUp, uniqueEmail } from './helpers';
+import { expectNoSideScroll, PASSWORD, signUp, uniqueEmail } from './helpers';
 
 /** A same-origin API call with the page's session, as the app itself would make it. */
 async function api<T>(page: Page, method: 'GET' | 'POST', path: string, body?: unknown): Promise<T> {
@@ -15,7 +15,8 @@ async function api<T>(page: Page, method: 'GET' | 'POST', path: string, body?: u
 
 /** A shop with a verified wrench, an 8-bolt spec and a one-wheel job assigned to its lead. */
 async function setUpWheel(page: Page) {
-  await signUp(page, 'Offline Rim Shop', 'Lou Bead', uniqueEmail('runner'));
+  const email = uniqueEmail('runner');
+  await signUp(page, 'Offline Rim Shop', 'Lou Bead', email);
   const me = (await api<{ id: string }[]>(page, 'GET', '/api/team/members'))[0]!;
   const today = new Date(Date.now() + 200 * 86_400_000).toISOString().slice(0, 10);
   const wrench = await api<{ id: string }>(page, 'POST', '/api/wrenches', { label: 'Blue click 20–200 in-lb', kind: 'click', min: 20, max: 200, unit: 'lbf-in', graduation: 1, calibrationDueOn: today });
@@ -30,7 +31,7 @@ async function setUpWheel(page: Page) {
     assigneeId: me.id,
   });
 
-  return { job, wheelId: job.wheels[0]!.id };
+  return { job, wheelId: job.wheels[0]!.id, email };
 }
 
 test('at 360×640 a wheel runs through its steps; offline, 10 bolts are confirmed, the page reloads offline, and back online exactly those 10 are stored, in order', async ({ page, context }, testInfo) => {
@@ -187,4 +188,27 @@ test('a confirmation queued before a deploy is delivered to the new build', asyn
   expect(events.map((e) => `${e.type}:${e.payload.step}`)).toEqual(['step_done:safety']);
   await page.reload();
   await expect(page.getByRole('heading', { name: /Inspect rim and ring/ })).toBeVisible();
+});
+
+test('a session that ends mid-wheel keeps the confirmation; signing in again comes back to the runner and sends it', async ({ page, context }) => {
+  const { job, wheelId, email } = await setUpWheel(page);
+  await page.goto(`/jobs/${job.id}/wheels/${wheelId}/run`);
+  await expect(page.getByRole('heading', { name: /Safety gate/ })).toBeVisible();
+
+  await context.clearCookies(); // the session ends (expired, or a lead changed the role)
+  for (const box of await page.locator('main input[type=checkbox]').all()) await box.check();
+  await page.getByRole('button', { name: 'Step done' }).click();
+  await expect(page.getByRole('alert').filter({ hasText: 'Your session has ended. Everything waiting stays on this phone.' })).toBeVisible();
+  await expect(page.getByRole('status').filter({ hasText: '1 waiting' })).toBeVisible();
+
+  await page.getByRole('link', { name: 'Sign in again' }).click();
+  await expect(page.getByText('Your session ended. Sign in to carry on where you were')).toBeVisible();
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await expect(page).toHaveURL(new RegExp(`/jobs/${job.id}/wheels/${wheelId}/run$`));
+  await expect(page.getByRole('status').filter({ hasText: 'Saved' })).toBeVisible();
+  await expect(page.getByRole('heading', { name: /Inspect rim and ring/ })).toBeVisible();
+  const { events } = (await (await page.request.get(`/api/wheels/${wheelId}/events`)).json()).data as { events: { type: string; payload: { step?: string } }[] };
+  expect(events.map((e) => `${e.type}:${e.payload.step}`)).toEqual(['step_done:safety']);
 });

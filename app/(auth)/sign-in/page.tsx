@@ -2,16 +2,19 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { redirect } from 'next/navigation';
 import { SignInForm } from '@/features/accounts/components/sign-in-form';
+import { returnPath } from '@/server/auth/return-path';
 import { getCurrentMember } from '@/server/auth/session';
 
 export const metadata: Metadata = { title: 'Sign in' };
 
-export default async function SignInPage() {
-  if (await getCurrentMember()) redirect('/board');
+export default async function SignInPage({ searchParams }: PageProps<'/sign-in'>) {
+  const next = returnPath((await searchParams).next) ?? undefined;
+  if (await getCurrentMember()) redirect(next ?? '/board');
   return (
     <>
       <h1 className="text-2xl font-bold">Sign in</h1>
-      <SignInForm />
+      {next ? <p className="font-semibold">Your session ended. Sign in to carry on where you were; nothing waiting on this device is lost.</p> : null}
+      <SignInForm next={next} />
       <p>
         New shop?{' '}
         <Link href="/sign-up" className="font-semibold text-work underline">

@@ -3,6 +3,7 @@
 import { headers } from 'next/headers';
 import { redirect } from 'next/navigation';
 import { publicAction } from '@/server/action';
+import { returnPath } from '@/server/auth/return-path';
 import { createSessionCookie, setSessionCookie } from '@/server/auth/session';
 import { clientAddress } from '@/server/http/request-meta';
 import { signInSchema } from '../schemas';
@@ -11,5 +12,5 @@ import { authenticate } from '../server/accounts';
 export const signIn = publicAction(signInSchema, async (input) => {
   const { userId } = await authenticate(input, clientAddress(await headers()));
   await setSessionCookie(await createSessionCookie(userId));
-  redirect('/board');
+  redirect(returnPath(input.next) ?? '/board');
 });

@@ -7,7 +7,8 @@ import type { ActionResult } from '@/server/action';
 import type { ClientEvent, RunEvent } from '../events';
 
 // `ready` stays false until this phone's own queue is read: before that "saved" would be a guess.
-type Status = { waiting: number; error: string | null; ready: boolean };
+// `signedOut`: the session ended; what waits is kept and goes once the person signs in again.
+type Status = { waiting: number; error: string | null; ready: boolean; signedOut: boolean };
 
 function subscribeOnline(change: () => void) {
   window.addEventListener('online', change);
@@ -43,7 +44,7 @@ function reloadForNewBuild(): boolean {
 export function useRunQueue(wheelId: string, serverEvents: ClientEvent[], saveEvents: SaveEvents) {
   const [saved, setSaved] = useState<ClientEvent[]>(serverEvents);
   const [pending, setPending] = useState<ClientEvent[]>([]);
-  const [status, setStatus] = useState<Status>({ waiting: 0, error: null, ready: false });
+  const [status, setStatus] = useState<Status>({ waiting: 0, error: null, ready: false, signedOut: false });
   const online = useSyncExternalStore(subscribeOnline, () => navigator.onLine, () => true);
   const flushRef = useRef<() => Promise<void>>(async () => {});
   const pendingRef = useRef<ClientEvent[]>([]);
@@ -92,9 +93,10 @@ export function useRunQueue(wheelId: string, serverEvents: ClientEvent[], saveEv
         attempt.current = 0;
         addSaved(batch);
         await store(pendingRef.current.filter((e) => !sent.has(e.clientId)));
-        setStatus((s) => ({ ...s, error: null }));
+        setStatus((s) => ({ ...s, error: null, signedOut: false }));
       } else if (KEEP_AND_RETRY.has(result.code)) {
-        setStatus((s) => ({ ...s, error: result.code === 'unauthenticated' ? 'Your session has ended: sign in again. Everything waiting stays on this phone.' : result.message }));
+        const signedOut = result.code === 'unauthenticated';
+        setStatus((s) => ({ ...s, signedOut, error: signedOut ? 'Your session has ended. Everything waiting stays on this phone.' : result.message }));
         backOff();
       } else {
         // The server refused these for good (bad data, no permission): keep them out of the queue

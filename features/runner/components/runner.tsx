@@ -27,6 +27,8 @@ export type RunnerProps = {
   photos: Photo[];
   /** The server action that stores confirmed events; the page hands it down. */
   saveEvents: SaveEvents;
+  /** Sign-in that comes back to this runner, for when the session ends mid-wheel. */
+  signInHref: string;
 };
 
 /** The guided procedure for one wheel on a phone at the tire cart. */
@@ -71,7 +73,19 @@ export function Runner(props: RunnerProps) {
             {!status.ready ? 'Checking this phone…' : status.waiting ? `${status.waiting} waiting${status.online ? '' : ' · offline'}` : 'Saved'}
           </p>
         </div>
-        {status.error ? <p role="alert" className="mt-1 rounded bg-danger px-2 py-1 text-sm font-bold">{status.error}</p> : null}
+        {status.error ? (
+          <p role="alert" className="mt-1 rounded bg-danger px-2 py-1 text-sm font-bold">
+            {status.error}
+            {status.signedOut ? (
+              <>
+                {' '}
+                <a href={props.signInHref} className="inline-flex min-h-touch items-center underline">
+                  Sign in again
+                </a>
+              </>
+            ) : null}
+          </p>
+        ) : null}
       </header>
       <main className="flex flex-1 flex-col gap-4 p-3">
         {state.flagged ? (

@@ -47,6 +47,14 @@ describe('sign-in', () => {
     expect((await validateSessionId(cookieValue(SESSION)))?.member).toMatchObject({ userId: shop.technician.userId, role: 'technician' });
   });
 
+  it('goes back to the page the session ended on, and never to another site', async () => {
+    const shop = await createTestShop();
+    resetNextRequest();
+    await expectRedirect(signIn(null, { email: shop.lead.email, password: PASSWORD, next: '/jobs/1/wheels/2/run' }), '/jobs/1/wheels/2/run');
+    resetNextRequest();
+    await expectRedirect(signIn(null, { email: shop.lead.email, password: PASSWORD, next: '//evil.example/board' }), ';/board;');
+  });
+
   it('says "wrong e-mail or password" for both a wrong password and an unknown address', async () => {
     const shop = await createTestShop();
     resetNextRequest('198.51.100.1');

@@ -42,7 +42,8 @@ describe('the runner outbox', () => {
     const { action, hook } = setUp(async () => ({ ok: false, code: 'unauthenticated', message: 'Your session has ended. Sign in again.' }));
     await waitFor(() => expect(hook.result.current.status.ready).toBe(true));
     await act(() => hook.result.current.record(confirm));
-    await waitFor(() => expect(hook.result.current.status.error).toMatch(/sign in again.*stays on this phone/i));
+    await waitFor(() => expect(hook.result.current.status.error).toMatch(/session has ended.*stays on this phone/i));
+    expect(hook.result.current.status.signedOut).toBe(true);
     expect(hook.result.current.status.waiting).toBe(1);
     expect(action).toHaveBeenCalledTimes(1);
     expect((idb.get(`ringpass:run:${WHEEL}`) as { pending: unknown[] }).pending).toHaveLength(1);

@@ -7,14 +7,16 @@ import { assertMayRun, listEvents, loadWheel, planFor } from '@/features/runner/
 import { verifiedToday, wrenchesForEngine } from '@/features/tool-crib/server/wrenches';
 import { formatTorque, passPlan } from '@/features/torque-plan';
 import { requireMember } from '@/server/auth/guard';
+import { signInThenBackTo } from '@/server/auth/return-path';
 import { DomainError, orNotFound } from '@/server/errors';
 import { saveWheelEvents } from './actions';
 
 export const metadata: Metadata = { title: 'Runner' };
 
 export default async function RunPage({ params }: PageProps<'/jobs/[jobId]/wheels/[wheelId]/run'>) {
-  const member = await requireMember('jobs.run');
   const p = await params;
+  const here = `/jobs/${p.jobId}/wheels/${p.wheelId}/run`;
+  const member = await requireMember('jobs.run', here);
   const jobId = ids.job.safeParse(p.jobId);
   const wheelId = ids.wheel.safeParse(p.wheelId);
   if (!jobId.success || !wheelId.success) notFound();
@@ -42,6 +44,7 @@ export default async function RunPage({ params }: PageProps<'/jobs/[jobId]/wheel
       events={events}
       photos={photos}
       saveEvents={saveWheelEvents}
+      signInHref={signInThenBackTo(here)}
     />
   );
 }
