@@ -2,6 +2,7 @@
 
 import { useState } from 'react';
 import { chooseWrench, formatTorque, UNIT_LABELS, type Torque, type Wrench } from '@/features/torque-plan';
+import { formatDuration } from '../duration';
 import { submitBlockers, type RunnerPlan, type RunnerState } from '../state';
 
 /** The wheel at a glance before it is submitted: passes, wrench and setting, anomalies, time per step. */
@@ -12,8 +13,8 @@ export function SummaryPanel({ wheelId, plan, state, targets, wrenches, photoKin
     .filter((s) => state.doneAt[s.id])
     .map((s, i, done) => {
       const prev = i > 0 ? state.doneAt[done[i - 1]!.id] : undefined;
-      const minutes = prev ? (Date.parse(state.doneAt[s.id]!) - Date.parse(prev)) / 60_000 : null;
-      return { title: s.title, status: state.status[s.id], minutes };
+      const took = prev ? formatDuration(Date.parse(state.doneAt[s.id]!) - Date.parse(prev)) : null;
+      return { title: s.title, status: state.status[s.id], took };
     });
 
   async function submit() {
@@ -64,7 +65,7 @@ export function SummaryPanel({ wheelId, plan, state, targets, wrenches, photoKin
           {times.map((t) => (
             <li key={t.title}>
               {t.title}: {t.status === 'skipped' ? `skipped (${state.skipReasons[plan.steps.find((s) => s.title === t.title)!.id]})` : 'done'}
-              {t.minutes !== null ? ` · ${t.minutes.toFixed(1)} min` : ''}
+              {t.took !== null ? ` · ${t.took}` : ''}
             </li>
           ))}
         </ul>
