@@ -2,11 +2,18 @@
 
 import { useEffect, useMemo, useState } from 'react';
 import { BoltCircle } from '@/features/bolt-circle/bolt-circle';
-import { chooseWrench, formatTorque, UNIT_LABELS, type Torque, type Wrench } from '@/features/torque-plan';
+import {
+  chooseWrench,
+  formatTorque,
+  UNIT_LABELS,
+  type Torque,
+  type Wrench,
+} from '@/features/torque-plan';
 import type { RunEvent } from '../events';
 import type { RunnerState } from '../state';
 import { useRunnerSettings } from '../settings-store';
 import { Caution } from './caution';
+import { RingLayout } from './ring-layout';
 import { VerifyInline } from './verify-inline';
 
 type CribWrench = Wrench & { label: string };
@@ -52,7 +59,12 @@ export function TorquePanel({
 
   const best = target ? chooseWrench(target, usable) : null;
   const suitable = target ? usable.filter((w) => chooseWrench(target, [w]).ok) : [];
-  const wrenchId = pass?.wrenchId && suitable.some((w) => w.id === pass.wrenchId) ? pass.wrenchId : best?.ok ? best.wrenchId : null;
+  const wrenchId =
+    pass?.wrenchId && suitable.some((w) => w.id === pass.wrenchId)
+      ? pass.wrenchId
+      : best?.ok
+        ? best.wrenchId
+        : null;
   const wrench = usable.find((w) => w.id === wrenchId) ?? null;
   const choice = target && wrench ? chooseWrench(target, [wrench]) : null;
 
@@ -63,8 +75,16 @@ export function TorquePanel({
   if (!pass || !target) {
     return (
       <div className="flex flex-col gap-4">
-        <p className="rounded-xl border-2 border-ok bg-ok-tint p-4 text-lg font-bold text-ok">Every pass is done, check pass included.</p>
-        <button type="button" onClick={() => void record({ type: 'step_done', payload: { step: 'torque', checklist: [] } })} className={`${big} bg-work text-white`}>
+        <p className="border-ok bg-ok-tint text-ok rounded-xl border-2 p-4 text-lg font-bold">
+          Every pass is done, check pass included.
+        </p>
+        <button
+          type="button"
+          onClick={() =>
+            void record({ type: 'step_done', payload: { step: 'torque', checklist: [] } })
+          }
+          className={`${big} bg-work text-white`}
+        >
           Torque passes done
         </button>
       </div>
@@ -81,24 +101,42 @@ export function TorquePanel({
   return (
     <div className="flex flex-col gap-4">
       <Caution items={cautions} />
-      <section aria-label="This pass" className="rounded-xl border-2 border-ink p-3">
+      <section aria-label="This pass" className="border-ink rounded-xl border-2 p-3">
         <p className="text-lg font-bold">
-          {pass.kind === 'check' ? 'Check pass' : `Pass ${pass.index} of ${state.passes.filter((p) => p.kind === 'staged').length}`}: {formatTorque(target, 2)}
+          {pass.kind === 'check'
+            ? 'Check pass'
+            : `Pass ${pass.index} of ${state.passes.filter((p) => p.kind === 'staged').length}`}
+          : {formatTorque(target, 2)}
         </p>
         {choice?.ok ? (
           <p className="text-2xl font-black">
             Set {wrench!.label} to {choice.setting.value} {UNIT_LABELS[choice.setting.unit]}
           </p>
         ) : (
-          <p role="alert" className="font-bold text-danger">
+          <p role="alert" className="text-danger font-bold">
             {best && !best.ok ? best.reason : 'No in-service wrench suits this pass.'}
           </p>
         )}
-        {choice?.ok ? choice.warnings.map((w) => <p key={w} className="mt-1 font-semibold text-caution-ink">⚠ {w}</p>) : null}
+        {choice?.ok
+          ? choice.warnings.map((w) => (
+              <p key={w} className="text-caution-ink mt-1 font-semibold">
+                ⚠ {w}
+              </p>
+            ))
+          : null}
         {suitable.length > 1 ? (
           <label className="mt-2 flex flex-col gap-1 font-semibold">
             Wrench
-            <select value={wrenchId ?? ''} onChange={(e) => void record({ type: 'wrench_chosen', payload: { pass: pass.index, wrenchId: e.target.value } })} className="min-h-14 rounded-xl border-2 border-ink-soft px-2 text-lg">
+            <select
+              value={wrenchId ?? ''}
+              onChange={(e) =>
+                void record({
+                  type: 'wrench_chosen',
+                  payload: { pass: pass.index, wrenchId: e.target.value },
+                })
+              }
+              className="border-ink-soft min-h-14 rounded-xl border-2 px-2 text-lg"
+            >
               {suitable.map((w) => (
                 <option key={w.id} value={w.id}>
                   {w.label}
@@ -110,35 +148,67 @@ export function TorquePanel({
         ) : null}
       </section>
       {wrench && !ok.includes(wrench.id) ? (
-        <VerifyInline wrench={wrench} onResult={(within) => (within ? setOk((v) => [...v, wrench.id]) : setFailed((f) => [...f, wrench.id]))} />
+        <VerifyInline
+          wrench={wrench}
+          onResult={(within) =>
+            within ? setOk((v) => [...v, wrench.id]) : setFailed((f) => [...f, wrench.id])
+          }
+        />
       ) : wrench && choice?.ok ? (
-        // Portrait: circle above the button. Landscape (phone on its side): side by side, the circle
-        // as tall as the screen allows, so the bolt and the button are in view together.
-        <div className="flex flex-col gap-4 landscape:grid landscape:grid-cols-2 landscape:items-center">
-          <div className="landscape:[&>svg]:max-h-[calc(100dvh-5rem)]">
-            <BoltCircle count={boltCount} order={pass.order} done={pass.confirmed} next={pass.next} passLabel={label} selected={selected} onSelect={setSelected} label={`Bolt circle, ${label}: ${pass.confirmed.length} of ${boltCount} done`} />
-          </div>
-          <div className="flex flex-col gap-4">
-            <p aria-live="polite" className="text-center text-lg">
-              {pass.confirmed.length} of {boltCount} bolts · next: bolt {pass.next}
-            </p>
-            <p className="text-center text-sm text-ink-soft">Number inside a bolt: its turn in this pass. Number outside: the bolt. Tap a bolt to undo or correct it.</p>
-            {selected && selected !== pass.next ? (
-              pass.confirmed.includes(selected) ? (
-                <button type="button" onClick={() => { void record({ type: 'bolt_undone', payload: { pass: pass.index, bolt: selected } }); setSelected(null); }} className={`${big} border-2 border-ink`}>
-                  Undo bolt {selected}
-                </button>
-              ) : (
-                <button type="button" onClick={() => confirm(selected)} className={`${big} border-4 border-caution bg-caution-tint text-caution-ink`}>
-                  Bolt {selected} is out of sequence: confirm it anyway
-                </button>
-              )
-            ) : null}
-            <button type="button" onClick={() => pass.next && confirm(pass.next)} className="min-h-24 w-full rounded-2xl bg-work px-4 text-2xl font-black text-white active:bg-work-dark">
-              Clicked — bolt {pass.next}
-            </button>
-          </div>
-        </div>
+        <RingLayout
+          ring={
+            <BoltCircle
+              count={boltCount}
+              order={pass.order}
+              done={pass.confirmed}
+              next={pass.next}
+              passLabel={label}
+              selected={selected}
+              onSelect={setSelected}
+              label={`Bolt circle, ${label}: ${pass.confirmed.length} of ${boltCount} done`}
+            />
+          }
+        >
+          <p aria-live="polite" className="text-center text-lg">
+            {pass.confirmed.length} of {boltCount} bolts · next: bolt {pass.next}
+          </p>
+          <p className="text-ink-soft text-center text-sm">
+            Number inside a bolt: its turn in this pass. Number outside: the bolt. Tap a bolt to
+            undo or correct it.
+          </p>
+          {selected && selected !== pass.next ? (
+            pass.confirmed.includes(selected) ? (
+              <button
+                type="button"
+                onClick={() => {
+                  void record({
+                    type: 'bolt_undone',
+                    payload: { pass: pass.index, bolt: selected },
+                  });
+                  setSelected(null);
+                }}
+                className={`${big} border-ink border-2`}
+              >
+                Undo bolt {selected}
+              </button>
+            ) : (
+              <button
+                type="button"
+                onClick={() => confirm(selected)}
+                className={`${big} border-caution bg-caution-tint text-caution-ink border-4`}
+              >
+                Bolt {selected} is out of sequence: confirm it anyway
+              </button>
+            )
+          ) : null}
+          <button
+            type="button"
+            onClick={() => pass.next && confirm(pass.next)}
+            className="bg-work active:bg-work-dark min-h-24 w-full rounded-2xl px-4 text-2xl font-black text-white"
+          >
+            Clicked — bolt {pass.next}
+          </button>
+        </RingLayout>
       ) : null}
     </div>
   );

@@ -1,0 +1,15 @@
+import type { ReactNode } from 'react';
+
+/**
+ * The bolt circle with its controls. Portrait: the ring above the buttons. Landscape (the phone
+ * on its side): side by side, the ring as tall as the screen allows, so the bolt and the button
+ * are in view together.
+ */
+export function RingLayout({ ring, children }: { ring: ReactNode; children: ReactNode }) {
+  return (
+    <div className="flex flex-col gap-4 landscape:grid landscape:grid-cols-2 landscape:items-center">
+      <div className="landscape:[&>svg]:max-h-[calc(100dvh-5rem)]">{ring}</div>
+      <div className="flex flex-col gap-4">{children}</div>
+    </div>
+  );
+}
