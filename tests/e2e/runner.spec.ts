@@ -212,3 +212,23 @@ test('a session that ends mid-wheel keeps the confirmation; signing in again com
   const { events } = (await (await page.request.get(`/api/wheels/${wheelId}/events`)).json()).data as { events: { type: string; payload: { step?: string } }[] };
   expect(events.map((e) => `${e.type}:${e.payload.step}`)).toEqual(['step_done:safety']);
 });
+
+test('a save that fails in flight (Wi-Fi up, no route to the server) waits and goes on the retry', async ({ page }) => {
+  const { job, wheelId } = await setUpWheel(page);
+  const runner = `/jobs/${job.id}/wheels/${wheelId}/run`;
+  await page.goto(runner);
+  await expect(page.getByRole('heading', { name: /Safety gate/ })).toBeVisible();
+
+  // The phone still believes it is online; every save to the server fails at the network.
+  const saves = (url: URL) => url.pathname === runner;
+  await page.route(saves, (route) => (route.request().method() === 'POST' ? route.abort('internetdisconnected') : route.continue()));
+  for (const box of await page.locator('main input[type=checkbox]').all()) await box.check();
+  await page.getByRole('button', { name: 'Step done' }).click();
+  await expect(page.getByRole('status').filter({ hasText: /^1 waiting$/ })).toBeVisible();
+  await expect(page.getByRole('heading', { name: /Inspect rim and ring/ })).toBeVisible(); // applied at once all the same
+
+  await page.unroute(saves);
+  await expect(page.getByRole('status').filter({ hasText: 'Saved' })).toBeVisible({ timeout: 15_000 });
+  const { events } = (await (await page.request.get(`/api/wheels/${wheelId}/events`)).json()).data as { events: { type: string; payload: { step?: string } }[] };
+  expect(events.map((e) => `${e.type}:${e.payload.step}`)).toEqual(['step_done:safety']);
+});
