@@ -13,14 +13,21 @@ async function api<T>(page: Page, method: 'GET' | 'POST', path: string, body?: u
 }
 
 
-/** A shop with a verified wrench, an 8-bolt spec and a one-wheel job assigned to its lead. */
-async function setUpWheel(page: Page) {
+const BLUE = { label: 'Blue click 20–200 in-lb', kind: 'click', min: 20, max: 200, unit: 'lbf-in', graduation: 1 };
+
+/**
+ * A shop with a wrench (verified today unless `unverified`), an 8-bolt spec and a one-wheel job
+ * assigned to its lead.
+ */
+async function setUpWheel(page: Page, { wrenches = [BLUE], unverified = false }: { wrenches?: (typeof BLUE)[]; unverified?: boolean } = {}) {
   const email = uniqueEmail('runner');
   await signUp(page, 'Offline Rim Shop', 'Lou Bead', email);
   const me = (await api<{ id: string }[]>(page, 'GET', '/api/team/members'))[0]!;
-  const today = new Date(Date.now() + 200 * 86_400_000).toISOString().slice(0, 10);
-  const wrench = await api<{ id: string }>(page, 'POST', '/api/wrenches', { label: 'Blue click 20–200 in-lb', kind: 'click', min: 20, max: 200, unit: 'lbf-in', graduation: 1, calibrationDueOn: today });
-  await api(page, 'POST', `/api/wrenches/${wrench.id}/verifications`, { referenceValue: 100, readingValue: 101, unit: 'lbf-in' });
+  const calibrationDueOn = new Date(Date.now() + 200 * 86_400_000).toISOString().slice(0, 10);
+  for (const body of wrenches) {
+    const wrench = await api<{ id: string }>(page, 'POST', '/api/wrenches', { ...body, calibrationDueOn });
+    if (!unverified) await api(page, 'POST', `/api/wrenches/${wrench.id}/verifications`, { referenceValue: 100, readingValue: 101, unit: 'lbf-in' });
+  }
   const spec = await api<{ id: string }>(page, 'POST', '/api/specs', { name: '8-bolt test ring', boltCount: 8, boltThread: 'M8×1.25', finalTorque: 12, torqueUnit: 'lbf-ft', passPercents: [30, 70, 100], patternKind: 'cross', checkPass: true, maxBeadSeatPressure: 30, runningPressure: 14, pressureUnit: 'psi' });
   const job = await api<{ id: string; wheels: { id: string }[] }>(page, 'POST', '/api/jobs', {
     customer: { name: 'Ada Offroad', phone: '', email: '' },
@@ -231,4 +238,38 @@ test('a save that fails in flight (Wi-Fi up, no route to the server) waits and g
   await expect(page.getByRole('status').filter({ hasText: 'Saved' })).toBeVisible({ timeout: 15_000 });
   const { events } = (await (await page.request.get(`/api/wheels/${wheelId}/events`)).json()).data as { events: { type: string; payload: { step?: string } }[] };
   expect(events.map((e) => `${e.type}:${e.payload.step}`)).toEqual(['step_done:safety']);
+});
+
+test('a wrench not verified today is checked on the spot: out of tolerance takes it out, the next suitable one is offered', async ({ page }) => {
+  const RED = { ...BLUE, label: 'Red click 10–150 in-lb', min: 10, max: 150 };
+  const { job, wheelId } = await setUpWheel(page, { wrenches: [BLUE, RED], unverified: true });
+  await page.goto(`/jobs/${job.id}/wheels/${wheelId}/run`);
+  // Safety gate, inspect, clean, mount, index: ticked and done, one screen after another.
+  for (let n = 1; n <= 5; n++) {
+    await expect(page.getByRole('heading', { name: new RegExp(`^Step ${n} of`) })).toBeVisible();
+    for (const box of await page.locator('main input[type=checkbox]').all()) await box.check();
+    await page.getByRole('button', { name: 'Step done' }).click();
+  }
+  for (let i = 1; i <= 8; i++) await page.getByRole('button', { name: `Bolt ${i} started by hand` }).click();
+  await page.getByRole('button', { name: 'All bolts started — step done' }).click();
+
+  // 43 in-lb sits higher on the red wrench's scale, so the engine suggests it; it has no check today.
+  const check = page.getByRole('region', { name: 'Verify the wrench' });
+  await expect(check).toContainText('Red click 10–150 in-lb has no verification today');
+  await expect(page.getByRole('button', { name: /^Clicked/ })).toHaveCount(0);
+  await check.getByLabel('Reference (in-lb)').fill('100');
+  await check.getByLabel('Reading (in-lb)').fill('93');
+  await check.getByRole('button', { name: 'Record verification' }).click();
+  await expect(page.getByRole('alert').filter({ hasText: 'Out of tolerance (-7.0 %, allowed ±4 %)' })).toBeVisible();
+
+  // The red wrench is out; the blue one is next, and it too is checked before its first pass.
+  await expect(check).toContainText('Blue click 20–200 in-lb has no verification today');
+  await check.getByLabel('Reference (in-lb)').fill('100');
+  await check.getByLabel('Reading (in-lb)').fill('102');
+  await check.getByRole('button', { name: 'Record verification' }).click();
+  await expect(page.getByText('Set Blue click 20–200 in-lb to 43 in-lb')).toBeVisible();
+  await expect(page.getByRole('button', { name: 'Clicked — bolt 1' })).toBeVisible();
+
+  await page.goto('/tool-crib');
+  await expect(page.getByRole('row', { name: /Red click 10–150 in-lb/ })).toContainText(/out of service/i);
 });
