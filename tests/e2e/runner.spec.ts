@@ -209,7 +209,7 @@ test('a session that ends mid-wheel keeps the confirmation; signing in again com
   await expect(page.getByRole('status').filter({ hasText: '1 waiting' })).toBeVisible();
 
   await page.getByRole('link', { name: 'Sign in again' }).click();
-  await expect(page.getByText('Your session ended. Sign in to carry on where you were')).toBeVisible();
+  await expect(page.getByText('Sign in to go back to where you were. Nothing waiting on this device is lost.')).toBeVisible();
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill(PASSWORD);
   await page.getByRole('button', { name: 'Sign in' }).click();

@@ -13,7 +13,7 @@ export default async function SignInPage({ searchParams }: PageProps<'/sign-in'>
   return (
     <>
       <h1 className="text-2xl font-bold">Sign in</h1>
-      {next ? <p className="font-semibold">Your session ended. Sign in to carry on where you were; nothing waiting on this device is lost.</p> : null}
+      {next ? <p className="font-semibold">Sign in to go back to where you were. Nothing waiting on this device is lost.</p> : null}
       <SignInForm next={next} />
       <p>
         New shop?{' '}
