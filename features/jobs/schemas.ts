@@ -1,10 +1,11 @@
 import { z } from 'zod';
+import { PRESSURE_UNITS } from '@/features/torque-plan';
 import { checkbox, integerField, optional, positiveNumber, requiredText, text } from '@/features/ui/form-data';
 
 export const JOB_STATES = ['open', 'in_progress', 'awaiting_signoff', 'signed_off', 'sent_back'] as const;
 export type JobStateName = (typeof JOB_STATES)[number];
 export const POSITIONS = ['LF', 'RF', 'LR', 'RR', 'spare'] as const;
-const pressureUnit = z.enum(['psi', 'kPa', 'bar'], { error: 'Choose psi, kPa or bar.' });
+const pressureUnit = z.enum(PRESSURE_UNITS, { error: 'Choose psi, kPa or bar.' });
 const uuid = (what: string) => z.uuid({ error: `Unknown ${what}.` });
 
 export const customerSchema = z.object({

@@ -1,7 +1,7 @@
 import { z } from 'zod';
-import { MAX_BOLTS, MIN_BOLTS, TORQUE_UNITS, type TorqueUnit } from '@/features/torque-plan';
+import { MAX_BOLTS, MIN_BOLTS, TORQUE_UNITS } from '@/features/torque-plan';
 
-const torqueUnit = z.enum(['lbf-ft', 'lbf-in', 'Nm'] satisfies readonly TorqueUnit[], { error: `Use one of: ${TORQUE_UNITS.join(', ')}.` });
+const torqueUnit = z.enum(TORQUE_UNITS, { error: `Use one of: ${TORQUE_UNITS.join(', ')}.` });
 
 const torque = z.object({
   value: z.number({ error: 'Give the torque as a number.' }).positive({ error: 'The torque must be greater than zero.' }),

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { PRESSURE_UNITS } from '@/features/torque-plan';
 
 const step = z.enum(['safety', 'dismount', 'inspect', 'clean', 'mount', 'index', 'hand_start', 'torque', 'seat_bead', 'leak_check', 'reinstall', 'submit']);
 const bolt = z.number().int().min(1).max(64);
@@ -8,7 +9,7 @@ const pass = z.number().int().min(1).max(10);
 export const runEventSchema = z.discriminatedUnion(
   'type',
   [
-    z.object({ type: z.literal('step_done'), payload: z.object({ step, checklist: z.array(z.string().max(40)).max(20).default([]), measurement: z.object({ value: z.number().positive().max(10_000), unit: z.enum(['psi', 'kPa', 'bar']) }).optional() }) }),
+    z.object({ type: z.literal('step_done'), payload: z.object({ step, checklist: z.array(z.string().max(40)).max(20).default([]), measurement: z.object({ value: z.number().positive().max(10_000), unit: z.enum(PRESSURE_UNITS) }).optional() }) }),
     z.object({ type: z.literal('step_skipped'), payload: z.object({ step, reason: z.string().trim().min(3, { error: 'Say why the step is skipped.' }).max(300) }) }),
     z.object({ type: z.literal('inspection_failed'), payload: z.object({ notes: z.string().trim().min(3, { error: 'Say what failed.' }).max(500) }) }),
     z.object({ type: z.literal('hand_started'), payload: z.object({ bolt }) }),

@@ -1,12 +1,11 @@
 import { z } from 'zod';
+import { PRESSURE_UNITS, TORQUE_UNITS } from '@/features/torque-plan';
 import { checkbox, integerField, optional, positiveNumber, requiredText, text } from '@/features/ui/form-data';
 
-export const TORQUE_UNIT_VALUES = ['lbf-ft', 'lbf-in', 'Nm'] as const;
-export const PRESSURE_UNIT_VALUES = ['psi', 'kPa', 'bar'] as const;
 export const PATTERN_VALUES = ['cross', 'skip', 'sequential'] as const;
 
-const torqueUnit = z.enum(TORQUE_UNIT_VALUES, { error: 'Choose ft-lb, in-lb or N·m.' });
-const pressureUnit = z.enum(PRESSURE_UNIT_VALUES, { error: 'Choose psi, kPa or bar.' });
+const torqueUnit = z.enum(TORQUE_UNITS, { error: 'Choose ft-lb, in-lb or N·m.' });
+const pressureUnit = z.enum(PRESSURE_UNITS, { error: 'Choose psi, kPa or bar.' });
 
 /** "30, 70, 100" (a form) or [30, 70, 100] (JSON): the passes as percent of the final torque. */
 const passPercents = z.preprocess(

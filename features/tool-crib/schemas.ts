@@ -1,8 +1,9 @@
 import { z } from 'zod';
+import { TORQUE_UNITS } from '@/features/torque-plan';
 import { integerField, optional, positiveNumber, numberField, requiredText, text } from '@/features/ui/form-data';
 
 export const WRENCH_KINDS = ['click', 'beam', 'dial', 'digital'] as const;
-const torqueUnit = z.enum(['lbf-ft', 'lbf-in', 'Nm'], { error: 'Choose ft-lb, in-lb or N·m.' });
+const torqueUnit = z.enum(TORQUE_UNITS, { error: 'Choose ft-lb, in-lb or N·m.' });
 const isoDate = z.iso.date({ error: 'Enter a date (YYYY-MM-DD).' });
 
 export const wrenchSchema = z.object({

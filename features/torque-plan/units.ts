@@ -3,13 +3,14 @@ import pressure, { type PressureSystems, type PressureUnits } from 'convert-unit
 import torque, { type TorqueSystems, type TorqueUnits } from 'convert-units/definitions/torque';
 import { assertFiniteNumber, TorquePlanError } from './errors';
 
-export type TorqueUnit = 'lbf-ft' | 'lbf-in' | 'Nm';
-export type PressureUnit = 'psi' | 'kPa' | 'bar';
+/** The units the product works in, in the order pickers show them (schemas use these too). */
+export const TORQUE_UNITS = ['lbf-ft', 'lbf-in', 'Nm'] as const;
+export const PRESSURE_UNITS = ['psi', 'kPa', 'bar'] as const;
+
+export type TorqueUnit = (typeof TORQUE_UNITS)[number];
+export type PressureUnit = (typeof PRESSURE_UNITS)[number];
 export type Torque = { value: number; unit: TorqueUnit };
 export type Pressure = { value: number; unit: PressureUnit };
-
-export const TORQUE_UNITS: readonly TorqueUnit[] = ['lbf-ft', 'lbf-in', 'Nm'];
-export const PRESSURE_UNITS: readonly PressureUnit[] = ['psi', 'kPa', 'bar'];
 
 /** How the trade writes each unit on screen. */
 export const UNIT_LABELS: Record<TorqueUnit | PressureUnit, string> = {

@@ -46,8 +46,8 @@ export async function inviteAndJoin(page: Page, browser: Browser, email: string,
 }
 
 /** A phone screen never scrolls sideways: a technician with gloves on cannot chase a clipped control. */
-export async function expectNoSideScroll(page: Page) {
+export async function expectNoSideScroll(page: Page, where = 'the page') {
   // Against the emulated viewport, not innerWidth: a phone widens its layout viewport to fit what overflows.
   const scroll = await page.evaluate(() => document.documentElement.scrollWidth);
-  expect(scroll, 'page wider than the screen').toBeLessThanOrEqual(page.viewportSize()!.width);
+  expect(scroll, `${where} is wider than the screen`).toBeLessThanOrEqual(page.viewportSize()!.width);
 }

@@ -1,17 +1,15 @@
 import { expect, test } from '@playwright/test';
-import { signUp, uniqueEmail } from './helpers';
+import { expectNoSideScroll, signUp, uniqueEmail } from './helpers';
 
 test('at 360×640 the pages fit the screen and every control is at least 48 px tall', async ({ page }) => {
   for (const path of ['/sign-in', '/sign-up']) {
     await page.goto(path);
-    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
-    expect(overflow, `${path} scrolls sideways`).toBeLessThanOrEqual(0);
+    await expectNoSideScroll(page, path);
   }
   await signUp(page, 'Narrow Screen Tires', 'Vera Stem', uniqueEmail('phone'));
   for (const path of ['/board', '/team']) {
     await page.goto(path);
-    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
-    expect(overflow, `${path} scrolls sideways`).toBeLessThanOrEqual(0);
+    await expectNoSideScroll(page, path);
     const small = await page.evaluate(() =>
       [...document.querySelectorAll('button, input, select, nav a')]
         .map((el) => ({ text: (el as HTMLElement).innerText || el.getAttribute('name') || '', h: el.getBoundingClientRect().height }))

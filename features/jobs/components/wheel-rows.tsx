@@ -1,6 +1,7 @@
 'use client';
 
-import { UNIT_LABELS } from '@/features/torque-plan';
+import { PRESSURE_UNITS } from '@/features/torque-plan';
+import { UnitOptions } from '@/features/ui/unit-options';
 import { POSITIONS } from '../schemas';
 
 export type WheelDraft = { position: (typeof POSITIONS)[number]; specId: string; tireSize: string; directional: boolean; targetPressure: string; pressureUnit: 'psi' | 'kPa' | 'bar' };
@@ -85,11 +86,7 @@ export function WheelRows({
               <div className="flex flex-col gap-1">
                 <label htmlFor={id('unit')} className="font-semibold">Unit</label>
                 <select id={id('unit')} value={w.pressureUnit} className={input} onChange={(e) => set(w.position, { pressureUnit: e.target.value as WheelDraft['pressureUnit'] })}>
-                  {(['psi', 'kPa', 'bar'] as const).map((u) => (
-                    <option key={u} value={u}>
-                      {UNIT_LABELS[u]}
-                    </option>
-                  ))}
+                  <UnitOptions units={PRESSURE_UNITS} />
                 </select>
               </div>
             </div>

@@ -3,7 +3,7 @@
 import { get, set } from 'idb-keyval';
 import { useCallback, useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'react';
 import { unstable_isUnrecognizedActionError } from 'next/navigation';
-import type { ActionResult } from '@/server/action';
+import type { ActionResult, FailureCode } from '@/server/action';
 import type { ClientEvent, RunEvent } from '../events';
 
 // `ready` stays false until this phone's own queue is read: before that "saved" would be a guess.
@@ -25,7 +25,7 @@ const key = (wheelId: string) => `ringpass:run:${wheelId}`;
 export type SaveEvents = (prev: unknown, input: { wheelId: string; events: ClientEvent[] }) => Promise<ActionResult<{ saved: number; duplicates: number }>>;
 
 // Refusals that may pass: a session that ended (sign in again), a rate limit, our own failure.
-const KEEP_AND_RETRY = new Set<string | undefined>(['unauthenticated', 'rate_limited', 'internal']);
+const KEEP_AND_RETRY = new Set<FailureCode>(['unauthenticated', 'rate_limited', 'internal']);
 
 const RELOADED_AT = 'ringpass:reloaded-for-new-build';
 function reloadForNewBuild(): boolean {

@@ -3,7 +3,7 @@
 import { BoltCircle } from '@/features/bolt-circle/bolt-circle';
 import type { RunEvent } from '../events';
 import { Caution } from './caution';
-import { RingLayout } from './ring-layout';
+import { RingLayout, ringButtonClass } from './ring-layout';
 
 /** Every bolt started by hand: tap a bolt to mark or unmark it, or take them in turn clockwise. */
 export function HandStartPanel({
@@ -45,7 +45,7 @@ export function HandStartPanel({
           <button
             type="button"
             onClick={() => toggle(next)}
-            className="bg-work min-h-24 w-full rounded-2xl px-4 text-2xl font-black text-white"
+            className={ringButtonClass}
           >
             Bolt {next} started by hand
           </button>

@@ -1,5 +1,9 @@
 import type { ReactNode } from 'react';
 
+/** The one big button beside the ring ("Clicked — bolt 7"): the control a gloved hand aims for. */
+export const ringButtonClass =
+  'min-h-24 w-full rounded-2xl bg-work px-4 text-2xl font-black text-white active:bg-work-dark';
+
 /**
  * The bolt circle with its controls. Portrait: the ring above the buttons. Landscape (the phone
  * on its side): side by side, the ring as tall as the screen allows, so the bolt and the button

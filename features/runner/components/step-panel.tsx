@@ -1,7 +1,8 @@
 'use client';
 
 import { useState } from 'react';
-import { convertPressure, UNIT_LABELS, type PressureUnit } from '@/features/torque-plan';
+import { convertPressure, PRESSURE_UNITS, UNIT_LABELS, type PressureUnit } from '@/features/torque-plan';
+import { UnitOptions } from '@/features/ui/unit-options';
 import type { RunEvent } from '../events';
 import type { Step } from '../steps';
 import { Caution } from './caution';
@@ -66,18 +67,14 @@ export function StepPanel({
           <div className="grid grid-cols-[2fr_1fr] gap-2">
             <input id={`${step.id}-reading`} inputMode="decimal" value={value} onChange={(e) => setValue(e.target.value)} aria-invalid={overLimit || undefined} aria-describedby={`${step.id}-reading-note`} className="min-h-14 min-w-0 rounded-xl border-2 border-ink-soft px-3 text-xl" />
             <select aria-label="Pressure unit" value={unit} onChange={(e) => setUnit(e.target.value as PressureUnit)} className="min-h-14 min-w-0 rounded-xl border-2 border-ink-soft px-2 text-lg">
-              {(['psi', 'kPa', 'bar'] as const).map((u) => (
-                <option key={u} value={u}>
-                  {UNIT_LABELS[u]}
-                </option>
-              ))}
+              <UnitOptions units={PRESSURE_UNITS} />
             </select>
           </div>
           <p id={`${step.id}-reading-note`} className={overLimit ? 'font-bold text-danger' : 'text-sm text-ink-soft'} role={overLimit ? 'alert' : undefined}>
             {overLimit
               ? `Above the tire's maximum bead-seating pressure (${limit!.value} ${UNIT_LABELS[limit!.unit]}). Stop, deflate and find the cause.`
               : reading && Number.isFinite(reading)
-                ? (['psi', 'kPa', 'bar'] as const).filter((u) => u !== unit).map((u) => `${Number(convertPressure(reading, unit, u).toFixed(2))} ${UNIT_LABELS[u]}`).join(' · ')
+                ? PRESSURE_UNITS.filter((u) => u !== unit).map((u) => `${Number(convertPressure(reading, unit, u).toFixed(2))} ${UNIT_LABELS[u]}`).join(' · ')
                 : limit
                   ? `At most ${limit.value} ${UNIT_LABELS[limit.unit]}.`
                   : ' '}

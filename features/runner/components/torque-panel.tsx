@@ -13,7 +13,7 @@ import type { RunEvent } from '../events';
 import type { RunnerState } from '../state';
 import { useRunnerSettings } from '../settings-store';
 import { Caution } from './caution';
-import { RingLayout } from './ring-layout';
+import { RingLayout, ringButtonClass } from './ring-layout';
 import { VerifyInline } from './verify-inline';
 
 type CribWrench = Wrench & { label: string };
@@ -204,7 +204,7 @@ export function TorquePanel({
           <button
             type="button"
             onClick={() => pass.next && confirm(pass.next)}
-            className="bg-work active:bg-work-dark min-h-24 w-full rounded-2xl px-4 text-2xl font-black text-white"
+            className={ringButtonClass}
           >
             Clicked — bolt {pass.next}
           </button>

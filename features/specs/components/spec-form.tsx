@@ -1,7 +1,7 @@
 'use client';
 
 import { useState } from 'react';
-import { UNIT_LABELS } from '@/features/torque-plan';
+import { PRESSURE_UNITS, TORQUE_UNITS, UNIT_LABELS } from '@/features/torque-plan';
 import { Button } from '@/features/ui/button';
 import { CheckboxField } from '@/features/ui/checkbox';
 import { SelectField, TextField } from '@/features/ui/field';
@@ -9,12 +9,12 @@ import { FormMessage } from '@/features/ui/form-message';
 import { useFormAction } from '@/features/ui/use-form-action';
 import { createWheelSpec, updateWheelSpec } from '../actions/save-spec';
 import { engineErrors, specToInput } from '../engine-check';
-import { PRESSURE_UNIT_VALUES, specSchema, TORQUE_UNIT_VALUES, type SpecInput } from '../schemas';
+import { specSchema, type SpecInput } from '../schemas';
 import type { Spec } from '../server/specs';
 import { SpecPreview, type CribWrench } from './spec-preview';
 
-const torqueOptions = TORQUE_UNIT_VALUES.map((u) => ({ value: u, label: UNIT_LABELS[u] }));
-const pressureOptions = PRESSURE_UNIT_VALUES.map((u) => ({ value: u, label: UNIT_LABELS[u] }));
+const torqueOptions = TORQUE_UNITS.map((u) => ({ value: u, label: UNIT_LABELS[u] }));
+const pressureOptions = PRESSURE_UNITS.map((u) => ({ value: u, label: UNIT_LABELS[u] }));
 const patternOptions = [
   { value: 'cross', label: 'Cross (groups of four, 90° apart)' },
   { value: 'skip', label: 'Skip (every k-th bolt)' },

@@ -1,13 +1,13 @@
 'use client';
 
-import { UNIT_LABELS } from '@/features/torque-plan';
+import { TORQUE_UNITS, UNIT_LABELS } from '@/features/torque-plan';
 import { Button } from '@/features/ui/button';
 import { SelectField, TextField } from '@/features/ui/field';
 import { FormMessage } from '@/features/ui/form-message';
 import { useFormAction } from '@/features/ui/use-form-action';
 import { verifyWrench } from '../actions/wrench-actions';
 
-const units = (['lbf-ft', 'lbf-in', 'Nm'] as const).map((u) => ({ value: u, label: UNIT_LABELS[u] }));
+const units = TORQUE_UNITS.map((u) => ({ value: u, label: UNIT_LABELS[u] }));
 
 export function VerificationForm({ wrenchId, unit }: { wrenchId: string; unit: 'lbf-ft' | 'lbf-in' | 'Nm' }) {
   const { state, formAction, pending, errors, value } = useFormAction(verifyWrench);

@@ -1,6 +1,6 @@
 'use client';
 
-import { UNIT_LABELS } from '@/features/torque-plan';
+import { TORQUE_UNITS, UNIT_LABELS } from '@/features/torque-plan';
 import { Button } from '@/features/ui/button';
 import { SelectField, TextField } from '@/features/ui/field';
 import { FormMessage } from '@/features/ui/form-message';
@@ -9,7 +9,7 @@ import { addWrench, editWrench } from '../actions/wrench-actions';
 import { WRENCH_KINDS } from '../schemas';
 import type { CribWrenchDto } from '../server/wrenches';
 
-const units = (['lbf-ft', 'lbf-in', 'Nm'] as const).map((u) => ({ value: u, label: UNIT_LABELS[u] }));
+const units = TORQUE_UNITS.map((u) => ({ value: u, label: UNIT_LABELS[u] }));
 const kinds = WRENCH_KINDS.map((k) => ({ value: k, label: k[0]!.toUpperCase() + k.slice(1) }));
 
 export function WrenchForm({ wrench }: { wrench?: CribWrenchDto }) {
