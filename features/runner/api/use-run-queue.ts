@@ -48,7 +48,7 @@ export function useRunQueue(wheelId: string, serverEvents: ClientEvent[], saveEv
   const online = useSyncExternalStore(subscribeOnline, () => navigator.onLine, () => true);
   const flushRef = useRef<() => Promise<void>>(async () => {});
   const pendingRef = useRef<ClientEvent[]>([]);
-  const loaded = useRef(false);
+  const loaded = useRef(false); // status.ready, readable inside the send callback without re-creating it
   const sending = useRef(false);
   const retry = useRef<ReturnType<typeof setTimeout> | null>(null);
   const attempt = useRef(0);
