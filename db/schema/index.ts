@@ -1,3 +1,4 @@
 export * from './shops';
 export * from './auth';
 export * from './records';
+export * from './settings';

@@ -52,6 +52,18 @@ export const wheelSpecs = pgTable(
     pressureUnit: pressureUnitEnum().notNull(),
     makerReference: text().notNull().default(''),
     notes: text().notNull().default(''),
+    /**
+     * The tire maker's published rating that allows a bead-seating limit above the industry's
+     * 40 psi guidance (document, page); required, with a lead's confirmation, for such a limit.
+     */
+    beadSeatRatingReference: text().notNull().default(''),
+    beadSeatRatingConfirmedById: uuid().references(() => users.id),
+    beadSeatRatingConfirmedAt: timestamp({ withTimezone: true }),
+    /**
+     * Why a stored spec fails the plausibility rules (set by migration 0003 for rows stored before
+     * the rules existed); null when it passes. The runner will not start a wheel on a flagged spec.
+     */
+    plausibilityFlag: text(),
     createdAt: createdAt(),
     updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
