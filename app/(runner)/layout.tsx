@@ -1,6 +1,16 @@
 import type { ReactNode } from 'react';
+import { ShopTimeZoneProvider } from '@/features/ui/shop-time-zone';
+import { getCurrentMember } from '@/server/auth/session';
+import { getShopSettings } from '@/server/shop/settings';
 
-/** Full screen for the runner: no shop header, the phone's whole height for the work. */
-export default function RunnerLayout({ children }: { children: ReactNode }) {
-  return children;
+/**
+ * Full screen for the runner: no shop header, the phone's whole height for the work. The shop's
+ * clock comes from its settings; signed out, the page itself sends the person to sign-in (and
+ * back), so the layout neither redirects nor guesses a zone.
+ */
+export default async function RunnerLayout({ children }: { children: ReactNode }) {
+  const member = await getCurrentMember();
+  if (!member) return children;
+  const { timeZone } = await getShopSettings(member.shopId);
+  return <ShopTimeZoneProvider timeZone={timeZone}>{children}</ShopTimeZoneProvider>;
 }

@@ -1,17 +1,20 @@
 import type { ReactNode } from 'react';
 import { ShopHeader } from '@/features/accounts/components/shop-header';
 import { getShopName } from '@/features/accounts/server/shop';
+import { ShopTimeZoneProvider } from '@/features/ui/shop-time-zone';
 import { requireMember } from '@/server/auth/guard';
 import { mailboxEnabled } from '@/server/mail/mailbox';
+import { getShopSettings } from '@/server/shop/settings';
 
 // The header needs the member; each page still calls requireMember itself, since a layout
 // does not re-run on every navigation and is not an authorisation boundary.
 export default async function ShopLayout({ children }: { children: ReactNode }) {
   const member = await requireMember();
+  const [shopName, settings] = await Promise.all([getShopName(member.shopId), getShopSettings(member.shopId)]);
   return (
-    <>
-      <ShopHeader member={member} shopName={await getShopName(member.shopId)} mailbox={mailboxEnabled()} />
+    <ShopTimeZoneProvider timeZone={settings.timeZone}>
+      <ShopHeader member={member} shopName={shopName} mailbox={mailboxEnabled()} />
       <main className="mx-auto w-full max-w-5xl p-4">{children}</main>
-    </>
+    </ShopTimeZoneProvider>
   );
 }
