@@ -33,7 +33,7 @@ export function engineErrors(s: SpecInput): Record<string, string[]> | null {
 
 /** The engine speaks in fractions; the form in percent. */
 function inPercent(message: string): string {
-  if (/rise strictly/.test(message)) return 'Each pass must be higher than the one before.';
+  if (/must not go down/.test(message)) return 'Each pass must be at least the one before (a repeated pass is fine).';
   if (/last pass/.test(message)) return 'The last pass must be 100 (the final torque).';
   if (/above 0 and at most 1/.test(message)) return 'Each pass must be above 0 and at most 100.';
   return message;

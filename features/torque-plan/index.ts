@@ -20,7 +20,6 @@ export { DEFAULT_FRACTIONS, passPlan, type PlannedPass } from './pass-plan';
 export {
   chooseWrench,
   assertWrench,
-  DEFAULT_MIN_FRACTION_OF_MAX,
   tolerancePct,
   verifyReading,
   type Wrench,
@@ -29,3 +28,25 @@ export {
 export { axleMismatch, circumferenceAllowancePct, tireDiameter, type TireConstruction, type TireSize } from './tire';
 export { arrowDirection, WHEEL_POSITIONS, type ArrowDirection, type WheelPosition } from './direction';
 export { planTorque, type TorquePlan, type TorquePlanInput } from './plan';
+export {
+  isNearEnough,
+  isRecentEnough,
+  nearBand,
+  verificationFor,
+  type RecordedVerification,
+  type VerificationPolicy,
+  type VerificationVerdict,
+} from './verification-policy';
+export {
+  BEAD_SEAT_CEILING_PSI,
+  checkPlausibility,
+  pressureLimitIn,
+  RING_BOLT_FT_LB_RANGE,
+  RUNNING_PSI_RANGE,
+  SEAT_TO_RUNNING_RATIO,
+  torqueLimitIn,
+  type Plausibility,
+  type PlausibilityField,
+  type PlausibilityInput,
+  type PlausibilityIssue,
+} from './plausibility';

@@ -17,8 +17,9 @@ export function assertFractions(fractions: unknown): asserts fractions is number
     if (typeof f !== 'number' || !Number.isFinite(f) || f <= 0 || f > 1) {
       throw new TorquePlanError(`Pass ${i + 1}'s fraction must be above 0 and at most 1; got ${String(f)}.`, `fractions.${i}`);
     }
-    if (i > 0 && f <= (fractions[i - 1] as number)) {
-      throw new TorquePlanError('Pass fractions must rise strictly from one pass to the next.', `fractions.${i}`);
+    // A repeated fraction is allowed: many repeat the first pass as a second lap at the same target.
+    if (i > 0 && f < (fractions[i - 1] as number)) {
+      throw new TorquePlanError('Pass fractions must not go down from one pass to the next (a repeated pass is allowed).', `fractions.${i}`);
     }
   });
   if (fractions[fractions.length - 1] !== 1) {
