@@ -1,7 +1,7 @@
 'use client';
 
 import { useState } from 'react';
-import { PRESSURE_UNITS, TORQUE_UNITS, UNIT_LABELS } from '@/features/torque-plan';
+import { PRESSURE_UNITS, TORQUE_UNITS, UNIT_LABELS, type PressureUnit, type TorqueUnit } from '@/features/torque-plan';
 import { Button } from '@/features/ui/button';
 import { CheckboxField } from '@/features/ui/checkbox';
 import { SelectField, TextField } from '@/features/ui/field';
@@ -34,7 +34,19 @@ function readLive(form: HTMLFormElement): Live {
  * Create or edit a wheel spec. While typing, the engine checks the spec in the browser and the
  * preview shows each pass's wrench and setting; the server checks it all again on save.
  */
-export function SpecForm({ spec, wrenches }: { spec?: Spec; wrenches: CribWrench[] }) {
+export function SpecForm({
+  spec,
+  wrenches,
+  minFractionOfMax,
+  units,
+}: {
+  spec?: Spec;
+  wrenches: CribWrench[];
+  /** The shop's wrench floor, for the preview. */
+  minFractionOfMax: number;
+  /** The shop's default units, for a new spec. */
+  units: { torque: TorqueUnit; pressure: PressureUnit };
+}) {
   const { state, formAction, pending, errors, value } = useFormAction(spec ? updateWheelSpec : createWheelSpec);
   const [live, setLive] = useState<Live>({});
   const initial = (name: keyof Spec, fallback = '') => value(name) ?? (spec?.[name] == null ? fallback : String(spec[name]));
@@ -56,7 +68,7 @@ export function SpecForm({ spec, wrenches }: { spec?: Spec; wrenches: CribWrench
           <legend className="mb-2 text-lg font-bold">Torque passes</legend>
           <div className="grid grid-cols-[2fr_1fr] gap-3">
             <TextField label="Final torque" name="finalTorque" inputMode="decimal" required defaultValue={initial('finalTorque')} errors={fieldErrors('finalTorque')} />
-            <SelectField label="Unit" name="torqueUnit" options={torqueOptions} defaultValue={initial('torqueUnit', 'lbf-ft')} errors={fieldErrors('torqueUnit')} />
+            <SelectField label="Unit" name="torqueUnit" options={torqueOptions} defaultValue={initial('torqueUnit', units.torque)} errors={fieldErrors('torqueUnit')} />
           </div>
           <TextField label="Passes (% of final)" name="passPercents" defaultValue={value('passPercents') ?? spec?.passPercents.join(', ') ?? '30, 70, 100'} errors={fieldErrors('passPercents')} hint="Rising, ending at 100. ASME PCC-1 (from memory) uses rounds of about 20–30, 50–70 and 100." />
           <SelectField label="Tightening pattern" name="patternKind" options={patternOptions} defaultValue={initial('patternKind', 'cross')} errors={fieldErrors('patternKind')} />
@@ -67,7 +79,7 @@ export function SpecForm({ spec, wrenches }: { spec?: Spec; wrenches: CribWrench
           <legend className="mb-2 text-lg font-bold">Lug nuts (re-install)</legend>
           <div className="grid grid-cols-[2fr_1fr] gap-3">
             <TextField label="Lug-nut torque" name="lugTorque" inputMode="decimal" defaultValue={initial('lugTorque')} errors={fieldErrors('lugTorque')} />
-            <SelectField label="Unit" name="lugTorqueUnit" options={torqueOptions} defaultValue={initial('lugTorqueUnit', 'lbf-ft')} errors={fieldErrors('lugTorqueUnit')} />
+            <SelectField label="Unit" name="lugTorqueUnit" options={torqueOptions} defaultValue={initial('lugTorqueUnit', units.torque)} errors={fieldErrors('lugTorqueUnit')} />
           </div>
           <TextField label="Lug count" name="lugCount" inputMode="numeric" defaultValue={initial('lugCount')} errors={fieldErrors('lugCount')} />
         </fieldset>
@@ -75,7 +87,7 @@ export function SpecForm({ spec, wrenches }: { spec?: Spec; wrenches: CribWrench
           <legend className="mb-2 text-lg font-bold">Pressure</legend>
           <TextField label="Maximum bead-seating pressure" name="maxBeadSeatPressure" inputMode="decimal" required defaultValue={initial('maxBeadSeatPressure')} errors={fieldErrors('maxBeadSeatPressure')} hint="From the tire maker. Never exceed it while seating the bead." />
           <TextField label="Running pressure" name="runningPressure" inputMode="decimal" required defaultValue={initial('runningPressure')} errors={fieldErrors('runningPressure')} />
-          <SelectField label="Pressure unit" name="pressureUnit" options={pressureOptions} defaultValue={initial('pressureUnit', 'psi')} errors={fieldErrors('pressureUnit')} />
+          <SelectField label="Pressure unit" name="pressureUnit" options={pressureOptions} defaultValue={initial('pressureUnit', units.pressure)} errors={fieldErrors('pressureUnit')} />
         </fieldset>
         <fieldset className="flex flex-col gap-4">
           <legend className="mb-2 text-lg font-bold">Maker&apos;s spec and notes</legend>
@@ -86,7 +98,7 @@ export function SpecForm({ spec, wrenches }: { spec?: Spec; wrenches: CribWrench
       </form>
       <div>
         {live.spec || spec ? (
-          <SpecPreview spec={live.spec ?? specToInput(spec!)} wrenches={wrenches} />
+          <SpecPreview spec={live.spec ?? specToInput(spec!)} wrenches={wrenches} minFractionOfMax={minFractionOfMax} />
         ) : (
           <p className="rounded-xl border-2 border-dashed border-paper-line p-4 text-ink-soft">Fill in the bolt count, torque and passes to see the sequence and each pass&apos;s wrench.</p>
         )}

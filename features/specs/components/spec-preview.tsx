@@ -5,8 +5,11 @@ import type { SpecInput } from '../schemas';
 
 export type CribWrench = Wrench & { label: string };
 
-/** What each pass of this spec will use with the shop's in-service wrenches, as the engine plans it. */
-export function SpecPreview({ spec, wrenches, floor }: { spec: SpecInput; wrenches: CribWrench[]; floor?: number }) {
+/**
+ * What each pass of this spec will use with the shop's in-service wrenches, as the engine plans it
+ * under the shop's wrench floor (`minFractionOfMax`, a fraction of each wrench's maximum).
+ */
+export function SpecPreview({ spec, wrenches, minFractionOfMax }: { spec: SpecInput; wrenches: CribWrench[]; minFractionOfMax: number }) {
   const plan = planTorque({
     boltCount: spec.boltCount,
     pattern: specPattern(spec),
@@ -14,7 +17,7 @@ export function SpecPreview({ spec, wrenches, floor }: { spec: SpecInput; wrench
     fractions: spec.passPercents.map((p) => p / 100),
     checkPass: spec.checkPass,
     wrenches,
-    minFractionOfMax: floor,
+    minFractionOfMax,
   });
   const label = (id: string) => wrenches.find((w) => w.id === id)?.label ?? id;
   return (

@@ -11,6 +11,7 @@ import { PageHeader } from '@/features/ui/page';
 import { requireMember } from '@/server/auth/guard';
 import { can } from '@/server/auth/permissions';
 import { orNotFound } from '@/server/errors';
+import { getShopSettings } from '@/server/shop/settings';
 
 export const metadata: Metadata = { title: 'Wheel spec' };
 
@@ -18,14 +19,19 @@ export default async function SpecPage({ params }: PageProps<'/specs/[specId]'>)
   const member = await requireMember('board.view');
   const id = specIdField.safeParse((await params).specId);
   if (!id.success) notFound();
-  const [spec, wrenches] = await Promise.all([orNotFound(getSpec(member.shopId, id.data)), wrenchesForEngine(member.shopId)]);
+  const [spec, wrenches, settings] = await Promise.all([orNotFound(getSpec(member.shopId, id.data)), wrenchesForEngine(member.shopId), getShopSettings(member.shopId)]);
+  const minFractionOfMax = settings.wrenchFloorPercent / 100;
   return (
     <>
       <Link href="/specs" className="font-semibold text-work underline">
         ← Wheel specs
       </Link>
       <PageHeader title={spec.name} />
-      {can(member.role, 'specs.manage') ? <SpecForm spec={spec} wrenches={wrenches} /> : <SpecPreview spec={specToInput(spec)} wrenches={wrenches} />}
+      {can(member.role, 'specs.manage') ? (
+        <SpecForm spec={spec} wrenches={wrenches} minFractionOfMax={minFractionOfMax} units={{ torque: settings.torqueUnit, pressure: settings.pressureUnit }} />
+      ) : (
+        <SpecPreview spec={specToInput(spec)} wrenches={wrenches} minFractionOfMax={minFractionOfMax} />
+      )}
     </>
   );
 }
