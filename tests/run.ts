@@ -2,12 +2,13 @@
  * `npm test`: every layer, in order, from a bare machine. Installs what is missing (Debian's
  * PostgreSQL server and Chromium, with apt, when run as root), starts the project's database,
  * then: typecheck, lint, unit + component + integration tests (vitest), browser tests (Playwright).
- * Ends with one line "N passed, N failed" over everything that ran.
+ * Ends with one line "N passed, N failed" over everything that ran. A cluster this run started is
+ * stopped at the end, pass or fail (one that was already running, say for `npm start`, stays).
  */
 import { spawnSync } from 'node:child_process';
 import { existsSync, readFileSync, rmSync } from 'node:fs';
 import path from 'node:path';
-import { ensureBinaries, startCluster } from '@/db/cluster';
+import { ensureBinaries, startCluster, stopCluster } from '@/db/cluster';
 import { ROOT } from './helpers/test-services';
 
 const CHROMIUM = '/usr/bin/chromium';
@@ -41,11 +42,20 @@ function readCounts(file: string, pick: (json: Record<string, unknown>) => [numb
   }
 }
 
-async function main() {
+let stopOurCluster = async () => {};
+
+async function main(): Promise<number> {
   rmSync(path.join(ROOT, '.data', 'reports'), { recursive: true, force: true });
   ensureBinaries();
   ensureChromium();
-  await startCluster();
+  const cluster = await startCluster();
+  if (cluster.started) {
+    stopOurCluster = async () => {
+      stopOurCluster = async () => {};
+      console.log('[test] stopping the database cluster this run started');
+      await stopCluster();
+    };
+  }
 
   const noEnv = { RINGPASS_SKIP_ENV_CHECK: '1', NEXT_TELEMETRY_DISABLED: '1' };
   const results = [
@@ -67,10 +77,20 @@ async function main() {
   const checksPassed = 2 - checksFailed;
   console.log(`\n[test] typecheck + lint ${checksPassed}/2, vitest ${vPassed}/${vPassed + vFailed}, browser ${ePassed}/${ePassed + eFailed}`);
   console.log(`${checksPassed + vPassed + ePassed} passed, ${checksFailed + vitestFailed + browserFailed} failed`);
-  process.exit(results.every(Boolean) ? 0 : 1);
+  return results.every(Boolean) ? 0 : 1;
 }
 
-main().catch((error: unknown) => {
-  console.error(`[test] ${error instanceof Error ? error.message : String(error)}`);
-  process.exit(1);
-});
+// Ctrl+C reaches the children too; once they are gone, stop the cluster and leave.
+for (const signal of ['SIGINT', 'SIGTERM'] as const) {
+  process.once(signal, () => void stopOurCluster().finally(() => process.exit(130)));
+}
+
+void main()
+  .catch((error: unknown) => {
+    console.error(`[test] ${error instanceof Error ? error.message : String(error)}`);
+    return 1;
+  })
+  .then(async (code) => {
+    await stopOurCluster().catch((error: unknown) => console.error('[test] could not stop the cluster', error));
+    process.exit(code);
+  });

@@ -1,0 +1,78 @@
+import { chmodSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import net from 'node:net';
+import os from 'node:os';
+import path from 'node:path';
+import postgres from 'postgres';
+import { afterAll, describe, expect, it } from 'vitest';
+import { clusterDataDir, clusterPort, clusterUrl, startCluster, stopCluster } from '@/db/cluster';
+
+// Two throwaway "checkouts" in /tmp, each with a cluster of its own: A plays the other checkout
+// whose server already answers on the port that B remembers. The project's own cluster is never
+// touched (every call names its root).
+const base = mkdtempSync(path.join(os.tmpdir(), 'ringpass-cluster-test-'));
+chmodSync(base, 0o755); // the postgres user must reach the data folders
+const checkoutA = path.join(base, 'a');
+const checkoutB = path.join(base, 'b');
+for (const dir of [checkoutA, checkoutB]) mkdirSync(dir, { mode: 0o755 });
+
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const server = net.createServer();
+    server.once('error', reject);
+    server.listen(0, '127.0.0.1', () => {
+      const { port } = server.address() as net.AddressInfo;
+      server.close(() => resolve(port));
+    });
+  });
+}
+
+async function dataDirectoryAt(url: string) {
+  const sql = postgres(url, { max: 1, onnotice: () => {} });
+  try {
+    const [row] = await sql<{ data_directory: string }[]>`show data_directory`;
+    return row!.data_directory;
+  } finally {
+    await sql.end({ timeout: 1 });
+  }
+}
+
+afterAll(async () => {
+  await stopCluster({ root: checkoutA });
+  await stopCluster({ root: checkoutB });
+  rmSync(base, { recursive: true, force: true });
+}, 60_000);
+
+describe('startCluster on a machine with another checkout’s cluster', () => {
+  let port = 0;
+
+  it('does not use a server that is not its own: takes the next free port and remembers it', async () => {
+    port = await freePort();
+    const foreign = await startCluster({ root: checkoutA, port });
+    expect(foreign).toEqual({ port, started: true });
+
+    // Checkout B remembers that very port (as if A had taken it over since).
+    mkdirSync(path.join(checkoutB, '.data'), { recursive: true });
+    writeFileSync(path.join(checkoutB, '.data', 'pg-port'), `${port}\n`);
+    const own = await startCluster({ root: checkoutB });
+
+    expect(own.started).toBe(true);
+    expect(own.port).not.toBe(port);
+    expect(clusterPort({ root: checkoutB })).toBe(own.port);
+    expect(readFileSync(path.join(checkoutB, '.data', 'pg-port'), 'utf8').trim()).toBe(String(own.port));
+    // B's URL reaches B's own folder; A's data is left alone.
+    expect(await dataDirectoryAt(clusterUrl('postgres', { root: checkoutB }))).toBe(clusterDataDir(checkoutB));
+    expect(await dataDirectoryAt(`postgres://postgres@127.0.0.1:${port}/postgres`)).toBe(clusterDataDir(checkoutA));
+
+    // Called again, it finds its own running cluster and starts nothing.
+    expect(await startCluster({ root: checkoutB })).toEqual({ port: own.port, started: false });
+  }, 90_000);
+
+  it('stops with a clear message when the port was fixed and another server answers there', async () => {
+    const { port: ownPort } = await startCluster({ root: checkoutB });
+    await stopCluster({ root: checkoutB });
+    await expect(startCluster({ root: checkoutB, port })).rejects.toThrow(
+      /is answered by a PostgreSQL cluster in .*\/a\/\.data\/pg, not by this checkout's cluster/,
+    );
+    expect(clusterPort({ root: checkoutB })).toBe(ownPort); // the remembered port is unchanged
+  }, 60_000);
+});
