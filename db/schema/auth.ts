@@ -27,11 +27,12 @@ export const users = pgTable(
 export const sessions = pgTable(
   'sessions',
   {
+    /** Hex SHA-256 of the token in the cookie; the token itself is never stored. */
     id: text().primaryKey(),
     userId: uuid()
       .notNull()
       .references(() => users.id, { onDelete: 'cascade' }),
-    /** Sliding expiry, renewed by Lucia while the session is used. */
+    /** Sliding expiry, renewed while the session is used. */
     expiresAt: timestamp({ withTimezone: true, mode: 'date' }).notNull(),
     /** Hard end of the session however active it is. */
     absoluteExpiresAt: timestamp({ withTimezone: true, mode: 'date' }).notNull(),

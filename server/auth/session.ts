@@ -1,10 +1,11 @@
 import 'server-only';
-import type { Cookie } from 'lucia';
+import { and, eq, lt, or } from 'drizzle-orm';
 import { cookies } from 'next/headers';
 import { cache } from 'react';
-import type { Role } from '@/db/schema';
+import { getDb } from '@/db';
+import { sessions, users, type Role } from '@/db/schema';
 import { env } from '@/server/env.mjs';
-import { lucia } from './lucia';
+import { blankCookie, generateSessionToken, SESSION_COOKIE, sessionCookie, sessionIdOf, type SessionCookie } from './session-token';
 
 /** The signed-in person as every guard hands it on: who, which shop, which role. */
 export type Member = {
@@ -13,46 +14,81 @@ export type Member = {
   role: Role;
   name: string;
   email: string;
+  /** The session's id in the database (the hash of the cookie's token, never the token). */
   sessionId: string;
 };
 
+export type Cookie = SessionCookie;
+
+// An unused session ends after 12 hours; use renews it once half of that has passed (the idle
+// lifetime the app had under Lucia). Independently it ends at its absolute lifetime.
+const IDLE_MS = 12 * 3_600_000;
+
 export async function createSessionCookie(userId: string): Promise<Cookie> {
-  const absoluteExpiresAt = new Date(Date.now() + env().SESSION_ABSOLUTE_HOURS * 3_600_000);
-  const session = await lucia().createSession(userId, { absoluteExpiresAt });
-  return lucia().createSessionCookie(session.id);
+  const token = generateSessionToken();
+  const now = Date.now();
+  const absoluteExpiresAt = new Date(now + env().SESSION_ABSOLUTE_HOURS * 3_600_000);
+  const expiresAt = new Date(Math.min(now + IDLE_MS, absoluteExpiresAt.getTime()));
+  const db = getDb();
+  // Housekeeping: this person's ended sessions go when they start a new one.
+  await db
+    .delete(sessions)
+    .where(and(eq(sessions.userId, userId), or(lt(sessions.expiresAt, new Date(now)), lt(sessions.absoluteExpiresAt, new Date(now)))));
+  await db.insert(sessions).values({ id: sessionIdOf(token)!, userId, expiresAt, absoluteExpiresAt });
+  return sessionCookie(token, absoluteExpiresAt);
 }
 
 export function blankSessionCookie(): Cookie {
-  return lucia().createBlankSessionCookie();
+  return blankCookie();
 }
 
 export function sessionCookieName(): string {
-  return lucia().sessionCookieName;
+  return SESSION_COOKIE;
 }
 
 /**
- * Checks a session id: Lucia's sliding expiry, then our absolute lifetime and the member's
- * removal. `refresh` is a cookie to send back when Lucia extended the session.
+ * Checks a cookie's token: the idle expiry (renewed in the database when half used), the
+ * absolute lifetime and the member's removal. The cookie itself never changes, so nothing needs
+ * sending back.
  */
-export async function validateSessionId(
-  sessionId: string | null | undefined,
-): Promise<{ member: Member; refresh?: Cookie } | null> {
-  if (!sessionId) return null;
-  const { session, user } = await lucia().validateSession(sessionId);
-  if (!session || !user) return null;
-  if (session.absoluteExpiresAt.getTime() <= Date.now() || user.removedAt) {
-    await lucia().invalidateSession(session.id);
+export async function validateSessionId(token: string | null | undefined): Promise<{ member: Member } | null> {
+  const id = token ? sessionIdOf(token) : null;
+  if (!id) return null;
+  const db = getDb();
+  const [row] = await db
+    .select({
+      id: sessions.id,
+      expiresAt: sessions.expiresAt,
+      absoluteExpiresAt: sessions.absoluteExpiresAt,
+      userId: users.id,
+      shopId: users.shopId,
+      role: users.role,
+      name: users.name,
+      email: users.email,
+      removedAt: users.removedAt,
+    })
+    .from(sessions)
+    .innerJoin(users, eq(users.id, sessions.userId))
+    .where(eq(sessions.id, id));
+  if (!row) return null;
+  const now = Date.now();
+  if (row.expiresAt.getTime() <= now || row.absoluteExpiresAt.getTime() <= now || row.removedAt) {
+    await db.delete(sessions).where(eq(sessions.id, id));
     return null;
   }
+  if (row.expiresAt.getTime() - now < IDLE_MS / 2) {
+    const expiresAt = new Date(Math.min(now + IDLE_MS, row.absoluteExpiresAt.getTime()));
+    await db.update(sessions).set({ expiresAt }).where(eq(sessions.id, id));
+  }
   const member: Member = {
-    userId: user.id,
-    shopId: user.shopId,
-    role: user.role,
-    name: user.name,
-    email: user.email,
-    sessionId: session.id,
+    userId: row.userId,
+    shopId: row.shopId,
+    role: row.role,
+    name: row.name,
+    email: row.email,
+    sessionId: row.id,
   };
-  return { member, refresh: session.fresh ? lucia().createSessionCookie(session.id) : undefined };
+  return { member };
 }
 
 export async function setSessionCookie(cookie: Cookie) {
@@ -61,24 +97,16 @@ export async function setSessionCookie(cookie: Cookie) {
 
 /** The member behind this request's cookie, once per request. Null when signed out. */
 export const getCurrentMember = cache(async (): Promise<Member | null> => {
-  const jar = await cookies();
-  const result = await validateSessionId(jar.get(sessionCookieName())?.value);
-  if (!result) return null;
-  if (result.refresh) {
-    // Server components may not set cookies; the next action or route handler will.
-    try {
-      jar.set(result.refresh.name, result.refresh.value, result.refresh.attributes);
-    } catch {}
-  }
-  return result.member;
+  const result = await validateSessionId((await cookies()).get(SESSION_COOKIE)?.value);
+  return result?.member ?? null;
 });
 
 export async function endSession(sessionId: string) {
-  await lucia().invalidateSession(sessionId);
+  await getDb().delete(sessions).where(eq(sessions.id, sessionId));
   await setSessionCookie(blankSessionCookie());
 }
 
 /** Ends every session of a user: on a role change and on removal. */
 export async function endAllSessionsOf(userId: string) {
-  await lucia().invalidateUserSessions(userId);
+  await getDb().delete(sessions).where(eq(sessions.userId, userId));
 }

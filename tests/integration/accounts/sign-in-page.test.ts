@@ -3,7 +3,7 @@ import SignInPage from '@/app/(auth)/sign-in/page';
 import { createTestShop } from '@/tests/helpers/factories';
 import { actAs } from '@/tests/helpers/next-request';
 
-const open = (next: string) => SignInPage({ params: Promise.resolve({}), searchParams: Promise.resolve({ next }) } as PageProps<'/sign-in'>);
+const open = (next: string) => SignInPage({ params: Promise.resolve({}), searchParams: Promise.resolve({ next }) } as Parameters<typeof SignInPage>[0]);
 
 describe('the sign-in page for someone already signed in', () => {
   it('sends /sign-in?next=/.//evil.test/x to the board on this site, not to evil.test', async () => {

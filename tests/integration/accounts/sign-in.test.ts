@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import { describe, expect, it } from 'vitest';
 import { getDb } from '@/db';
@@ -9,6 +10,8 @@ import { createTestShop, PASSWORD } from '@/tests/helpers/factories';
 import { cookieAttributes, cookieValue, resetNextRequest, setRequestAddress } from '@/tests/helpers/next-request';
 
 const SESSION = 'ringpass_session';
+// The database keeps the SHA-256 of the cookie's token (hex), never the token.
+const storedSessionId = (token: string) => createHash('sha256').update(token).digest('hex');
 
 async function expectRedirect(call: Promise<unknown>, to: string) {
   await expect(call).rejects.toMatchObject({ digest: expect.stringContaining(to) });
@@ -95,9 +98,10 @@ describe('sessions', () => {
     const shop = await createTestShop();
     const cookie = await createSessionCookie(shop.lead.userId);
     expect(await validateSessionId(cookie.value)).not.toBeNull();
-    await getDb().update(sessions).set({ absoluteExpiresAt: new Date(Date.now() - 1000) }).where(eq(sessions.id, cookie.value));
+    const id = storedSessionId(cookie.value);
+    await getDb().update(sessions).set({ absoluteExpiresAt: new Date(Date.now() - 1000) }).where(eq(sessions.id, id));
     expect(await validateSessionId(cookie.value)).toBeNull();
-    expect(await getDb().$count(sessions, eq(sessions.id, cookie.value))).toBe(0);
+    expect(await getDb().$count(sessions, eq(sessions.id, id))).toBe(0);
   });
 
   it('a removed member is signed out and cannot sign in', async () => {
