@@ -287,6 +287,31 @@ export async function stopCluster(options: ClusterOptions = {}): Promise<void> {
   log('stopped');
 }
 
+/**
+ * Runs `body` with this checkout's cluster up, and afterwards, pass or fail, stops it again if
+ * this call started it (a cluster that was already running, say for `npm start`, stays).
+ * `onStarted` hands out the stop for a caller that may be interrupted by a signal.
+ */
+export async function withCluster<T>(
+  body: () => Promise<T>,
+  options: ClusterOptions & { onStarted?: (stop: () => Promise<void>) => void } = {},
+): Promise<T> {
+  const { started } = await startCluster(options);
+  let stopped = !started;
+  const stop = async () => {
+    if (stopped) return;
+    stopped = true;
+    log('stopping the cluster this run started');
+    await stopCluster(options);
+  };
+  if (started) options.onStarted?.(stop);
+  try {
+    return await body();
+  } finally {
+    await stop();
+  }
+}
+
 /** Creates the database when it does not exist yet. */
 export async function ensureDatabase(name: string): Promise<void> {
   if (!/^[a-z0-9_]+$/.test(name)) throw new Error(`unsafe database name: ${name}`);

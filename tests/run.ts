@@ -8,7 +8,7 @@
 import { spawnSync } from 'node:child_process';
 import { existsSync, readFileSync, rmSync } from 'node:fs';
 import path from 'node:path';
-import { ensureBinaries, startCluster, stopCluster } from '@/db/cluster';
+import { ensureBinaries, withCluster } from '@/db/cluster';
 import { ROOT } from './helpers/test-services';
 
 const CHROMIUM = '/usr/bin/chromium';
@@ -48,15 +48,11 @@ async function main(): Promise<number> {
   rmSync(path.join(ROOT, '.data', 'reports'), { recursive: true, force: true });
   ensureBinaries();
   ensureChromium();
-  const cluster = await startCluster();
-  if (cluster.started) {
-    stopOurCluster = async () => {
-      stopOurCluster = async () => {};
-      console.log('[test] stopping the database cluster this run started');
-      await stopCluster();
-    };
-  }
+  return withCluster(runSteps, { onStarted: (stop) => (stopOurCluster = stop) });
+}
 
+/** Every layer in order; the exit code (0 when all passed). */
+function runSteps(): Promise<number> {
   const noEnv = { RINGPASS_SKIP_ENV_CHECK: '1', NEXT_TELEMETRY_DISABLED: '1' };
   const results = [
     step('typecheck', 'sh', ['-c', `${bin('next')} typegen && ${bin('tsc')} --noEmit`], noEnv),
@@ -77,7 +73,7 @@ async function main(): Promise<number> {
   const checksPassed = 2 - checksFailed;
   console.log(`\n[test] typecheck + lint ${checksPassed}/2, vitest ${vPassed}/${vPassed + vFailed}, browser ${ePassed}/${ePassed + eFailed}`);
   console.log(`${checksPassed + vPassed + ePassed} passed, ${checksFailed + vitestFailed + browserFailed} failed`);
-  return results.every(Boolean) ? 0 : 1;
+  return Promise.resolve(results.every(Boolean) ? 0 : 1);
 }
 
 // Ctrl+C reaches the children too; once they are gone, stop the cluster and leave.
@@ -90,7 +86,4 @@ void main()
     console.error(`[test] ${error instanceof Error ? error.message : String(error)}`);
     return 1;
   })
-  .then(async (code) => {
-    await stopOurCluster().catch((error: unknown) => console.error('[test] could not stop the cluster', error));
-    process.exit(code);
-  });
+  .then((code) => process.exit(code));

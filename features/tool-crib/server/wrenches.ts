@@ -3,8 +3,10 @@ import { and, asc, desc, eq, gte, inArray, lt, or, sql } from 'drizzle-orm';
 import { getDb } from '@/db';
 import { users, wrenches, wrenchStatusEvents, wrenchVerifications, type WrenchRow } from '@/db/schema';
 import { assertWrench, TorquePlanError, verifyReading, type Wrench } from '@/features/torque-plan';
+import { shopDay } from '@/features/ui/shop-time';
 import type { Member } from '@/server/auth/session';
 import { DomainError, notFound } from '@/server/errors';
+import { getShopSettings } from '@/server/shop/settings';
 import type { VerificationInput, WrenchInput } from '../schemas';
 
 /** Recalibration after this many cycles (ISO 6789, secondary sources), unless the shop says otherwise. */
@@ -40,19 +42,28 @@ function checkWithEngine(input: WrenchInput) {
 }
 
 /**
+ * The shop's calendar day now ('YYYY-MM-DD'): a wrench due "today" is good until the shop's own
+ * midnight, not the database server's.
+ */
+async function shopToday(shopId: string, now = new Date()): Promise<string> {
+  return shopDay(now, (await getShopSettings(shopId)).timeZone);
+}
+
+/**
  * Puts wrenches whose calibration is overdue (or whose cycle count reached the limit) out of
  * service, with an event each. Run before the crib is read, so nobody is offered such a wrench.
  */
-export async function sweepOverdue(shopId: string): Promise<void> {
+export async function sweepOverdue(shopId: string, now = new Date()): Promise<void> {
   const db = getDb();
+  const today = await shopToday(shopId, now);
   const overdue = await db
     .update(wrenches)
-    .set({ status: 'out_of_service', statusReason: sql`case when ${wrenches.calibrationDueOn} < current_date then 'Calibration overdue (was due ' || ${wrenches.calibrationDueOn}::text || ')' else 'Cycle count reached ${sql.raw(String(CYCLE_LIMIT))}: recalibrate' end` })
+    .set({ status: 'out_of_service', statusReason: sql`case when ${wrenches.calibrationDueOn} < ${today}::date then 'Calibration overdue (was due ' || ${wrenches.calibrationDueOn}::text || ')' else 'Cycle count reached ${sql.raw(String(CYCLE_LIMIT))}: recalibrate' end` })
     .where(
       and(
         eq(wrenches.shopId, shopId),
         eq(wrenches.status, 'in_service'),
-        or(lt(wrenches.calibrationDueOn, sql`current_date`), gte(wrenches.cyclesSinceCalibration, CYCLE_LIMIT)),
+        or(lt(wrenches.calibrationDueOn, today), gte(wrenches.cyclesSinceCalibration, CYCLE_LIMIT)),
       ),
     )
     .returning({ id: wrenches.id, reason: wrenches.statusReason });
@@ -130,7 +141,7 @@ export async function clearWrench(actor: Member, wrenchId: string, reason: strin
   const wrench = await getWrench(actor.shopId, wrenchId);
   if (wrench.status === 'in_service') throw new DomainError('conflict', 'This wrench is already in service.');
   const [overdue] = await getDb()
-    .select({ yes: sql<boolean>`${wrenches.calibrationDueOn} < current_date or coalesce(${wrenches.cyclesSinceCalibration}, 0) >= ${CYCLE_LIMIT}` })
+    .select({ yes: sql<boolean>`${wrenches.calibrationDueOn} < ${await shopToday(actor.shopId)}::date or coalesce(${wrenches.cyclesSinceCalibration}, 0) >= ${CYCLE_LIMIT}` })
     .from(wrenches)
     .where(and(eq(wrenches.shopId, actor.shopId), eq(wrenches.id, wrenchId)));
   if (overdue?.yes) {

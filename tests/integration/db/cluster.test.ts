@@ -4,7 +4,7 @@ import os from 'node:os';
 import path from 'node:path';
 import postgres from 'postgres';
 import { afterAll, describe, expect, it } from 'vitest';
-import { clusterDataDir, clusterPort, clusterUrl, startCluster, stopCluster } from '@/db/cluster';
+import { clusterDataDir, clusterPort, clusterUrl, startCluster, stopCluster, withCluster } from '@/db/cluster';
 
 // Two throwaway "checkouts" in /tmp, each with a cluster of its own: A plays the other checkout
 // whose server already answers on the port that B remembers. The project's own cluster is never
@@ -74,5 +74,21 @@ describe('startCluster on a machine with another checkout’s cluster', () => {
       /is answered by a PostgreSQL cluster in .*\/a\/\.data\/pg, not by this checkout's cluster/,
     );
     expect(clusterPort({ root: checkoutB })).toBe(ownPort); // the remembered port is unchanged
+  }, 60_000);
+
+  it('a run that started the cluster stops it at the end, pass or fail; one already running stays', async () => {
+    await stopCluster({ root: checkoutB });
+    const answering = () => clusterPort({ root: checkoutB });
+    await expect(
+      withCluster(async () => {
+        expect(await dataDirectoryAt(clusterUrl('postgres', { root: checkoutB }))).toBe(clusterDataDir(checkoutB));
+        throw new Error('a failing test run');
+      }, { root: checkoutB }),
+    ).rejects.toThrow('a failing test run');
+    await expect(dataDirectoryAt(clusterUrl('postgres', { root: checkoutB }))).rejects.toThrow();
+
+    await startCluster({ root: checkoutB });
+    expect(await withCluster(() => Promise.resolve('passed'), { root: checkoutB })).toBe('passed');
+    expect(await dataDirectoryAt(`postgres://postgres@127.0.0.1:${answering()}/postgres`)).toBe(clusterDataDir(checkoutB));
   }, 60_000);
 });
