@@ -1,4 +1,7 @@
 import { z } from 'zod';
+import { hasControlCharacters } from '@/features/ui/bounded';
+
+const noControl = { error: 'Remove the control character (such as a NUL byte) from this field.' };
 
 export const emailField = z
   .string({ error: 'Enter your e-mail address.' })
@@ -16,14 +19,16 @@ export const personName = z
   .string({ error: 'Enter a name.' })
   .trim()
   .min(1, { error: 'Enter a name.' })
-  .max(80, { error: 'Keep the name under 80 characters.' });
+  .max(80, { error: 'Keep the name under 80 characters.' })
+  .refine((s) => !hasControlCharacters(s), noControl);
 
 export const signUpSchema = z.object({
   shopName: z
     .string({ error: 'Enter the shop name.' })
     .trim()
     .min(2, { error: 'Enter the shop name (at least 2 characters).' })
-    .max(80, { error: 'Keep the shop name under 80 characters.' }),
+    .max(80, { error: 'Keep the shop name under 80 characters.' })
+    .refine((s) => !hasControlCharacters(s), noControl),
   name: personName,
   email: emailField,
   password: newPasswordField,
@@ -33,7 +38,7 @@ export const signInSchema = z.object({
   email: emailField,
   password: z.string({ error: 'Enter your password.' }).min(1, { error: 'Enter your password.' }).max(128),
   /** Where the person was before their session ended (checked again before use). */
-  next: z.string().max(300).optional(),
+  next: z.string().max(300).refine((s) => !hasControlCharacters(s), noControl).optional(),
 });
 
 export type SignUpInput = z.infer<typeof signUpSchema>;
@@ -52,7 +57,7 @@ export const changeRoleSchema = z.object({ memberId: memberIdField, role: roleFi
 export const removeMemberSchema = z.object({ memberId: memberIdField });
 export const revokeInviteSchema = z.object({ inviteId: z.uuid({ error: 'Unknown invite.' }) });
 export const acceptInviteSchema = z.object({
-  token: z.string().min(20).max(200),
+  token: z.string().min(20).max(200).refine((s) => !hasControlCharacters(s), noControl),
   name: personName,
   password: newPasswordField,
 });

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { PRESSURE_UNITS } from '@/features/torque-plan';
+import { dateTime, queryInt, searchText } from '@/features/ui/bounded';
 import { checkbox, integerField, optional, positiveNumber, requiredText, text } from '@/features/ui/form-data';
 
 export const JOB_STATES = ['open', 'in_progress', 'awaiting_signoff', 'signed_off', 'sent_back'] as const;
@@ -11,7 +12,7 @@ const uuid = (what: string) => z.uuid({ error: `Unknown ${what}.` });
 export const customerSchema = z.object({
   name: requiredText("the customer's name", 120),
   phone: text('the phone number', 40).regex(/^[0-9+()\-.\s]*$/, { error: 'A phone number has digits, spaces and + ( ) - only.' }).default(''),
-  email: z.union([z.literal(''), z.string().trim().toLowerCase().pipe(z.email({ error: 'Enter a valid e-mail address, or leave it empty.' }))]).default(''),
+  email: z.union([z.literal(''), z.string().trim().toLowerCase().pipe(z.email({ error: 'Enter a valid e-mail address, or leave it empty.' }).max(254, { error: 'Keep the e-mail address under 254 characters.' }))]).default(''),
 });
 
 export const vehicleFields = {
@@ -47,7 +48,7 @@ const wheelsField = z.preprocess((v) => {
   }
 }, z.array(wheelSchema, { error: 'Add the wheels on the job.' }).min(1, { error: 'Add at least one wheel.' }).max(5));
 
-const dueAt = optional(z.coerce.date({ error: 'Enter a due date and time.' }));
+const dueAt = optional(dateTime('the due date and time'));
 
 export const jobSchema = z
   .object({
@@ -73,7 +74,7 @@ export type JobInput = z.infer<typeof jobSchema>;
 
 export const jobUpdateSchema = z.object({
   assigneeId: z.preprocess((v) => (v === '' ? null : v), uuid('assignee').nullable()).optional(),
-  dueAt: z.preprocess((v) => (v === '' ? null : v), z.coerce.date({ error: 'Enter a due date and time.' }).nullable()).optional(),
+  dueAt: z.preprocess((v) => (v === '' ? null : v), dateTime('the due date and time').nullable()).optional(),
   notes: text('the notes', 2000).optional(),
   dismount: checkbox.optional(),
   reinstall: checkbox.optional(),
@@ -86,14 +87,14 @@ export const transitionSchema = z.object({
 });
 
 export const boardQuerySchema = z.object({
-  state: optional(z.string().transform((s) => s.split(',').filter(Boolean)).pipe(z.array(z.enum(JOB_STATES, { error: 'Unknown job state.' })))),
+  state: optional(z.string().max(200).transform((s) => s.split(',').filter(Boolean)).pipe(z.array(z.enum(JOB_STATES, { error: 'Unknown job state.' })))),
   assignee: optional(z.union([z.literal('me'), z.literal('unassigned'), z.uuid()], { error: 'Assignee is me, unassigned or a member id.' })),
   due: optional(z.enum(['overdue', 'today', 'week'], { error: 'Due is overdue, today or week.' })),
-  q: optional(z.string().trim().max(100)),
+  q: searchText(),
   sort: z.enum(['due', 'number', 'state', 'customer', 'updated'], { error: 'Sort by due, number, state, customer or updated.' }).default('due'),
   dir: z.enum(['asc', 'desc']).default('asc'),
-  page: z.coerce.number().int().min(1).max(100_000).default(1),
-  pageSize: z.coerce.number().int().min(1).max(100).default(25),
+  page: queryInt('the page', { min: 1, max: 100_000 }, 1),
+  pageSize: queryInt('the page size', { min: 1, max: 100 }, 25),
 });
 export type BoardQuery = z.infer<typeof boardQuerySchema>;
 

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { PRESSURE_UNITS } from '@/features/torque-plan';
+import { cleanString, isoDateTime } from '@/features/ui/bounded';
 
 const step = z.enum(['safety', 'dismount', 'inspect', 'clean', 'mount', 'index', 'hand_start', 'torque', 'seat_bead', 'leak_check', 'reinstall', 'submit']);
 const bolt = z.number().int().min(1).max(64);
@@ -9,9 +10,9 @@ const pass = z.number().int().min(1).max(10);
 export const runEventSchema = z.discriminatedUnion(
   'type',
   [
-    z.object({ type: z.literal('step_done'), payload: z.object({ step, checklist: z.array(z.string().max(40)).max(20).default([]), measurement: z.object({ value: z.number().positive().max(10_000), unit: z.enum(PRESSURE_UNITS) }).optional() }) }),
-    z.object({ type: z.literal('step_skipped'), payload: z.object({ step, reason: z.string().trim().min(3, { error: 'Say why the step is skipped.' }).max(300) }) }),
-    z.object({ type: z.literal('inspection_failed'), payload: z.object({ notes: z.string().trim().min(3, { error: 'Say what failed.' }).max(500) }) }),
+    z.object({ type: z.literal('step_done'), payload: z.object({ step, checklist: z.array(cleanString('a checklist item', 40)).max(20).default([]), measurement: z.object({ value: z.number().positive().max(10_000), unit: z.enum(PRESSURE_UNITS) }).optional() }) }),
+    z.object({ type: z.literal('step_skipped'), payload: z.object({ step, reason: cleanString('the reason', 300).min(3, { error: 'Say why the step is skipped.' }) }) }),
+    z.object({ type: z.literal('inspection_failed'), payload: z.object({ notes: cleanString('the notes', 500).min(3, { error: 'Say what failed.' }) }) }),
     z.object({ type: z.literal('hand_started'), payload: z.object({ bolt }) }),
     z.object({ type: z.literal('hand_unstarted'), payload: z.object({ bolt }) }),
     z.object({ type: z.literal('wrench_chosen'), payload: z.object({ pass, wrenchId: z.uuid() }) }),
@@ -23,10 +24,37 @@ export const runEventSchema = z.discriminatedUnion(
 
 export const clientEventSchema = z.intersection(
   runEventSchema,
-  z.object({ clientId: z.uuid({ error: 'Each event needs its own id.' }), clientAt: z.iso.datetime({ error: 'Each event needs the time it happened.' }) }),
+  z.object({ clientId: z.uuid({ error: 'Each event needs its own id.' }), clientAt: isoDateTime('the time it happened') }),
 );
 
 export const eventBatchSchema = z.object({ events: z.array(clientEventSchema).min(1).max(200, { error: 'At most 200 events at once.' }) });
 
 export type RunEvent = z.infer<typeof runEventSchema>;
 export type ClientEvent = z.infer<typeof clientEventSchema>;
+
+/** One event the server would not take, by its place in the batch the phone sent. */
+export type EventRefusal = { index: number; clientId: string | null; message: string; fieldErrors: Record<string, string[]> };
+
+/** What the phone sends: the events are judged one by one, so one bad event cannot hold up the rest. */
+export const looseEventBatchSchema = z.object({
+  events: z.array(z.unknown(), { error: 'Send the events as a list.' }).min(1, { error: 'Send at least one event.' }).max(200, { error: 'At most 200 events at once.' }),
+});
+
+const idOf = (raw: unknown) => {
+  const id = raw && typeof raw === 'object' ? (raw as { clientId?: unknown }).clientId : undefined;
+  return typeof id === 'string' && id.length <= 100 ? id : null;
+};
+
+/** Splits a batch into the events that pass the schema and a refusal (with its field errors) for each that does not. */
+export function partitionEvents(raw: unknown[]): { events: ClientEvent[]; refused: EventRefusal[] } {
+  const events: ClientEvent[] = [];
+  const refused: EventRefusal[] = [];
+  raw.forEach((item, index) => {
+    const parsed = clientEventSchema.safeParse(item);
+    if (parsed.success) return void events.push(parsed.data);
+    const fieldErrors: Record<string, string[]> = {};
+    for (const issue of parsed.error.issues) (fieldErrors[issue.path.join('.') || 'event'] ??= []).push(issue.message);
+    refused.push({ index, clientId: idOf(item), message: parsed.error.issues[0]?.message ?? 'This event is not valid.', fieldErrors });
+  });
+  return { events, refused };
+}

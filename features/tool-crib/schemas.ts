@@ -1,10 +1,11 @@
 import { z } from 'zod';
 import { TORQUE_UNITS } from '@/features/torque-plan';
+import { isoDate as boundedIsoDate } from '@/features/ui/bounded';
 import { integerField, optional, positiveNumber, numberField, requiredText, text } from '@/features/ui/form-data';
 
 export const WRENCH_KINDS = ['click', 'beam', 'dial', 'digital'] as const;
 const torqueUnit = z.enum(TORQUE_UNITS, { error: 'Choose ft-lb, in-lb or N·m.' });
-const isoDate = z.iso.date({ error: 'Enter a date (YYYY-MM-DD).' });
+const isoDate = boundedIsoDate('the calibration due date');
 
 export const wrenchSchema = z.object({
   label: requiredText('a label (what is written on the wrench or its case)', 60),
@@ -15,7 +16,7 @@ export const wrenchSchema = z.object({
   graduation: positiveNumber('the graduation (smallest step of the scale)'),
   serial: text('the serial number', 60).default(''),
   calibrationDueOn: isoDate,
-  cyclesSinceCalibration: optional(integerField('the cycle count').pipe(z.number().min(0, { error: 'The cycle count cannot be negative.' }))),
+  cyclesSinceCalibration: optional(integerField('the cycle count', { min: 0, max: 100_000_000 })),
 });
 
 export const verificationSchema = z.object({

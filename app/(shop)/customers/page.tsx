@@ -2,6 +2,7 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { CustomerForm } from '@/features/jobs/components/customer-forms';
 import { listCustomers } from '@/features/jobs/server/customers';
+import { searchText } from '@/features/ui/bounded';
 import { EmptyState, PageHeader } from '@/features/ui/page';
 import { requireMember } from '@/server/auth/guard';
 
@@ -10,7 +11,9 @@ export const metadata: Metadata = { title: 'Customers' };
 export default async function CustomersPage({ searchParams }: PageProps<'/customers'>) {
   const member = await requireMember('jobs.create');
   const raw = (await searchParams).q;
-  const q = typeof raw === 'string' ? raw.slice(0, 100) : undefined;
+  // A search the database cannot take (a control character) is dropped, not a failed page.
+  const parsed = searchText().safeParse(typeof raw === 'string' ? raw.slice(0, 100) : undefined);
+  const q = parsed.success ? parsed.data : undefined;
   const { data, total } = await listCustomers(member.shopId, { page: 1, pageSize: 100, q });
   return (
     <>

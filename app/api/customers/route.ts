@@ -1,10 +1,10 @@
-import { z } from 'zod';
 import { customerSchema } from '@/features/jobs/schemas';
 import { createCustomer, listCustomers } from '@/features/jobs/server/customers';
+import { searchText } from '@/features/ui/bounded';
 import { apiRoute } from '@/server/http/handler';
 import { pageQuery } from '@/server/http/paginate';
 
-const query = pageQuery.extend({ q: z.string().trim().max(100).optional() });
+const query = pageQuery.extend({ q: searchText('the customer search') });
 
 export const GET = apiRoute({ permission: 'jobs.create', query }, ({ member, query }) => listCustomers(member.shopId, query));
 

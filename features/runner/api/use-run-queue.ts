@@ -4,7 +4,7 @@ import { get, set } from 'idb-keyval';
 import { useCallback, useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'react';
 import { unstable_isUnrecognizedActionError } from 'next/navigation';
 import type { ActionResult, FailureCode } from '@/server/action';
-import type { ClientEvent, RunEvent } from '../events';
+import type { ClientEvent, EventRefusal, RunEvent } from '../events';
 
 // `ready` stays false until this phone's own queue is read: before that "saved" would be a guess.
 // `signedOut`: the session ended; what waits is kept and goes once the person signs in again.
@@ -22,10 +22,17 @@ function subscribeOnline(change: () => void) {
 const key = (wheelId: string) => `ringpass:run:${wheelId}`;
 
 /** The server action that stores a batch (passed down from the runner page). */
-export type SaveEvents = (prev: unknown, input: { wheelId: string; events: ClientEvent[] }) => Promise<ActionResult<{ saved: number; duplicates: number }>>;
+export type SaveEvents = (prev: unknown, input: { wheelId: string; events: ClientEvent[] }) => Promise<ActionResult<{ saved: number; duplicates: number; refused?: EventRefusal[] }>>;
 
 // Refusals that may pass: a session that ended (sign in again), a rate limit, our own failure.
 const KEEP_AND_RETRY = new Set<FailureCode>(['unauthenticated', 'rate_limited', 'internal']);
+
+/** What the technician reads when the server set some confirmations aside. */
+export function refusalMessage(refused: EventRefusal[]): string | null {
+  if (refused.length === 0) return null;
+  const what = refused.length === 1 ? 'One confirmation was' : `${refused.length} confirmations were`;
+  return `${what} not saved and set aside: ${refused[0]!.message} Everything else was saved; redo that step if it still needs doing.`;
+}
 
 const RELOADED_AT = 'ringpass:reloaded-for-new-build';
 function reloadForNewBuild(): boolean {
@@ -91,9 +98,12 @@ export function useRunQueue(wheelId: string, serverEvents: ClientEvent[], saveEv
       const result = await saveEvents(null, { wheelId, events: batch });
       if (result.ok) {
         attempt.current = 0;
-        addSaved(batch);
+        // The server judged each event alone: the ones it refused for good leave the queue (with
+        // a message), everything else in the batch was stored.
+        const refused = new Set((result.data.refused ?? []).map((r) => batch[r.index]?.clientId));
+        addSaved(batch.filter((e) => !refused.has(e.clientId)));
         await store(pendingRef.current.filter((e) => !sent.has(e.clientId)));
-        setStatus((s) => ({ ...s, error: null, signedOut: false }));
+        setStatus((s) => ({ ...s, error: refusalMessage(result.data.refused ?? []), signedOut: false }));
       } else if (KEEP_AND_RETRY.has(result.code)) {
         const signedOut = result.code === 'unauthenticated';
         setStatus((s) => ({ ...s, signedOut, error: signedOut ? 'Your session has ended. Everything waiting stays on this phone.' : result.message }));

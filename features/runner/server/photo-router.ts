@@ -5,6 +5,7 @@ import { UploadThingError, UTApi } from 'uploadthing/server';
 import { z } from 'zod';
 import { getDb } from '@/db';
 import { wheelPhotos } from '@/db/schema';
+import { cleanString } from '@/features/ui/bounded';
 import { requireMemberForRequest } from '@/server/auth/guard';
 import { DomainError } from '@/server/errors';
 import { inspectPhoto } from './photo-check';
@@ -15,7 +16,7 @@ const f = createUploadthing();
 export const photoInput = z.object({
   wheelId: z.uuid(),
   kind: z.enum(['bead_outer', 'bead_inner', 'other']),
-  note: z.string().trim().max(300).default(''),
+  note: cleanString('the note', 300).default(''),
 });
 
 /** Photo evidence for a wheel: who may add it is checked here, what it is after it arrives. */

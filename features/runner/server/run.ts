@@ -6,7 +6,7 @@ import { passPlan, tighteningSequence, type Pattern } from '@/features/torque-pl
 import { can } from '@/server/auth/permissions';
 import type { Member } from '@/server/auth/session';
 import { DomainError, notFound } from '@/server/errors';
-import type { ClientEvent } from '../events';
+import type { ClientEvent, EventRefusal } from '../events';
 import { reduceRun, submitBlockers, type RunnerPlan } from '../state';
 import { stepsFor } from '../steps';
 
@@ -91,48 +91,57 @@ async function insertIfAllowed(member: Member, wheelId: string, events: ClientEv
   return inserted.length;
 }
 
+/** An event off this wheel's plan (a bolt or pass it does not have), refused by itself. */
+type PlanRefusal = Omit<EventRefusal, 'index'> & { clientId: string };
+
 /**
  * Stores confirmed events exactly once each (the device's id is unique), in any order, from any
- * device. The job must be in progress and the wheel not yet submitted.
+ * device. The job must be in progress and the wheel not yet submitted. An event naming a bolt or
+ * pass the wheel does not have is refused alone (in `refused`); the others are stored.
  */
-export async function saveRunEvents(member: Member, wheelId: string, events: ClientEvent[]) {
-  const unique = new Set(events.map((e) => e.clientId)).size;
+export async function saveRunEvents(member: Member, wheelId: string, batch: ClientEvent[]): Promise<{ saved: number; duplicates: number; refused: PlanRefusal[] }> {
+  const unique = new Set(batch.map((e) => e.clientId)).size;
   // Rows the fast path already stored when the batch mixed new events with a replay.
   let fast = 0;
-  if (unique === events.length && !events.some((e) => e.type === 'inspection_failed')) {
-    fast = await insertIfAllowed(member, wheelId, events);
-    if (fast === events.length) return { saved: fast, duplicates: 0 };
+  if (unique === batch.length && !batch.some((e) => e.type === 'inspection_failed')) {
+    fast = await insertIfAllowed(member, wheelId, batch);
+    if (fast === batch.length) return { saved: fast, duplicates: 0, refused: [] };
   }
   const ctx = await loadWheel(member.shopId, wheelId);
   assertMayRun(member, ctx);
   if (ctx.job.state !== 'in_progress') throw new JobNotStartedError(ctx.job.id, ctx.job.state);
   if (ctx.wheel.submittedAt) throw new DomainError('conflict', 'This wheel was submitted; its record is closed.');
   const plan = planFor(ctx);
-  for (const [i, e] of events.entries()) {
+  const refused: PlanRefusal[] = [];
+  const events = batch.filter((e) => {
     const bolt = 'bolt' in e.payload ? e.payload.bolt : undefined;
     const pass = 'pass' in e.payload ? e.payload.pass : undefined;
-    if (bolt !== undefined && bolt > plan.boltCount) throw new DomainError('invalid', `Bolt ${bolt} is not on this ${plan.boltCount}-bolt ring.`, { [`events.${i}.payload.bolt`]: ['No such bolt.'] });
-    if (pass !== undefined && pass > plan.passes.length) throw new DomainError('invalid', `Pass ${pass} is not in this wheel's plan.`, { [`events.${i}.payload.pass`]: ['No such pass.'] });
-  }
+    if (bolt !== undefined && bolt > plan.boltCount) refused.push({ clientId: e.clientId, message: `Bolt ${bolt} is not on this ${plan.boltCount}-bolt ring.`, fieldErrors: { 'payload.bolt': ['No such bolt.'] } });
+    else if (pass !== undefined && pass > plan.passes.length) refused.push({ clientId: e.clientId, message: `Pass ${pass} is not in this wheel's plan.`, fieldErrors: { 'payload.pass': ['No such pass.'] } });
+    else return true;
+    return false;
+  });
+  if (events.length === 0) return { saved: fast, duplicates: 0, refused };
+  const kept = new Set(events.map((e) => e.clientId)).size;
   const db = getDb();
   const stored = await db
     .insert(wheelRunEvents)
     .values(events.map((e) => ({ shopId: member.shopId, jobId: ctx.job.id, wheelId, clientId: e.clientId, type: e.type, payload: e.payload as Record<string, unknown>, byId: member.userId, clientAt: new Date(e.clientAt) })))
     .onConflictDoNothing({ target: wheelRunEvents.clientId })
     .returning({ clientId: wheelRunEvents.clientId });
-  if (stored.length < unique) {
+  if (stored.length < kept) {
     // Replays are fine; an id already stored for another wheel or shop is not this request's to claim.
     const known = await db
       .select({ clientId: wheelRunEvents.clientId })
       .from(wheelRunEvents)
       .where(and(eq(wheelRunEvents.wheelId, wheelId), eq(wheelRunEvents.shopId, member.shopId), inArray(wheelRunEvents.clientId, events.map((e) => e.clientId))));
-    if (known.length !== unique) throw new DomainError('conflict', 'An event id was already used elsewhere.');
+    if (known.length !== kept) throw new DomainError('conflict', 'An event id was already used elsewhere.');
   }
   const failed = events.find((e) => e.type === 'inspection_failed');
   if (failed && !ctx.wheel.flaggedReason) {
     await db.update(jobWheels).set({ flaggedReason: failed.payload.notes }).where(and(eq(jobWheels.shopId, member.shopId), eq(jobWheels.id, wheelId)));
   }
-  return { saved: stored.length + fast, duplicates: events.length - stored.length - fast };
+  return { saved: stored.length + fast, duplicates: events.length - stored.length - fast, refused };
 }
 
 /** Closes the wheel's record when nothing blocks it; answers whether every wheel of the job is in. */

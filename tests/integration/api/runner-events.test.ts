@@ -34,8 +34,8 @@ const stored = () => getDb().select({ clientId: wheelRunEvents.clientId }).from(
 describe('the runner save action (saveWheelEvents)', () => {
   it('stores each event once however often it is replayed, and starts the job', async () => {
     const batch = [confirm(1), confirm(13)];
-    expect(await post(shop.technician.userId, batch)).toEqual({ ok: true, data: { saved: 2, duplicates: 0 } });
-    expect(await post(shop.technician.userId, batch)).toEqual({ ok: true, data: { saved: 0, duplicates: 2 } });
+    expect(await post(shop.technician.userId, batch)).toEqual({ ok: true, data: { saved: 2, duplicates: 0, refused: [] } });
+    expect(await post(shop.technician.userId, batch)).toEqual({ ok: true, data: { saved: 0, duplicates: 2, refused: [] } });
     expect(await stored()).toHaveLength(2);
     expect((await getJob(shop.shopId, jobId)).state).toBe('in_progress');
     const res = await GET(apiRequest(`/api/wheels/${wheelId}/events`, { cookie: await cookieFor(shop.technician.userId) }), params({ wheelId }));
@@ -46,7 +46,7 @@ describe('the runner save action (saveWheelEvents)', () => {
     const a = confirm(1);
     await post(shop.technician.userId, [a]);
     await post(shop.technician.userId, [a]); // the job is in progress from here on
-    expect(await post(shop.technician.userId, [a, confirm(13)])).toEqual({ ok: true, data: { saved: 1, duplicates: 1 } });
+    expect(await post(shop.technician.userId, [a, confirm(13)])).toEqual({ ok: true, data: { saved: 1, duplicates: 1, refused: [] } });
     expect(await stored()).toHaveLength(2);
   });
 
@@ -85,19 +85,39 @@ describe('the runner save action (saveWheelEvents)', () => {
     expect(await post(shop.lead.userId, [confirm(1)])).toMatchObject({ ok: true, data: { saved: 1 } });
   });
 
-  it('bad payloads are refused with a message and change nothing', async () => {
+  it('bad events are refused one by one with a message and change nothing', async () => {
     const cases: unknown[][] = [
       [{ type: 'bolt_confirmed', payload: { pass: 1, bolt: 99 }, clientId: randomUUID(), clientAt: new Date().toISOString() }],
       [{ type: 'bolt_confirmed', payload: { pass: 1, bolt: 30 }, clientId: randomUUID(), clientAt: new Date().toISOString() }],
       [{ type: 'explode', payload: {}, clientId: randomUUID(), clientAt: new Date().toISOString() }],
       [{ type: 'bolt_confirmed', payload: { pass: 1, bolt: 1 }, clientId: 'not-a-uuid', clientAt: new Date().toISOString() }],
       [{ type: 'step_skipped', payload: { step: 'clean', reason: '' }, clientId: randomUUID(), clientAt: new Date().toISOString() }],
-      [],
     ];
     for (const events of cases) {
-      expect(await post(shop.technician.userId, events), JSON.stringify(events)).toMatchObject({ ok: false, code: 'invalid', message: expect.any(String) });
+      expect(await post(shop.technician.userId, events), JSON.stringify(events)).toMatchObject({ ok: true, data: { saved: 0, refused: [{ index: 0, message: expect.any(String), fieldErrors: expect.any(Object) }] } });
     }
+    expect(await post(shop.technician.userId, [])).toMatchObject({ ok: false, code: 'invalid', fieldErrors: { events: expect.any(Array) } });
     expect(await stored()).toHaveLength(0);
+  });
+
+  // Values PostgreSQL cannot store (a NUL byte in jsonb, the year 0000, a lone surrogate) used to
+  // fail inside the insert as our own error, which the phone retries for ever, stalling its queue.
+  it('an event the database could not store is refused alone with its field; the rest of the batch is saved', async () => {
+    const nul = { type: 'step_done', payload: { step: 'clean', checklist: ['holes blown out\u0000'] }, clientId: randomUUID(), clientAt: new Date().toISOString() };
+    const yearZero = { ...confirm(2), clientAt: '0000-01-01T00:00:00Z' };
+    const surrogate = { type: 'inspection_failed', payload: { notes: 'cracked ring \ud800' }, clientId: randomUUID(), clientAt: new Date().toISOString() };
+    const offRing = confirm(99);
+    const good = [confirm(1), confirm(13)];
+    const result = await post(shop.technician.userId, [good[0], nul, yearZero, surrogate, offRing, good[1]]);
+    expect(result).toMatchObject({ ok: true, data: { saved: 2, duplicates: 0 } });
+    const refused = (result as { data: { refused: { index: number; clientId: string; fieldErrors: Record<string, string[]> }[] } }).data.refused;
+    expect(refused.map((r) => r.index)).toEqual([1, 2, 3, 4]);
+    expect(refused.map((r) => r.clientId)).toEqual([nul.clientId, yearZero.clientId, surrogate.clientId, offRing.clientId]);
+    expect(Object.keys(refused[0]!.fieldErrors)).toEqual(['payload.checklist.0']);
+    expect(Object.keys(refused[1]!.fieldErrors)).toEqual(['clientAt']);
+    expect(Object.keys(refused[2]!.fieldErrors)).toEqual(['payload.notes']);
+    expect(Object.keys(refused[3]!.fieldErrors)).toEqual(['payload.bolt']);
+    expect((await stored()).map((r) => r.clientId).sort()).toEqual(good.map((e) => e.clientId).sort());
   });
 
   it('an event id used for another wheel is not accepted twice', async () => {

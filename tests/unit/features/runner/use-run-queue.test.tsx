@@ -57,6 +57,22 @@ describe('the runner outbox', () => {
     expect(hook.result.current.status.waiting).toBe(0);
   });
 
+  it('one event the server refuses for good is set aside alone: the rest of the queue is saved, nothing retries', async () => {
+    const at = '2026-01-01T09:00:00.000Z';
+    const queued = [1, 99, 2].map((bolt) => ({ type: 'bolt_confirmed' as const, payload: { pass: 1, bolt }, clientId: crypto.randomUUID(), clientAt: at }));
+    idb.set(`ringpass:run:${WHEEL}`, { pending: queued, saved: [] });
+    const { action, hook } = setUp(async () => ({
+      ok: true,
+      data: { saved: 2, duplicates: 0, refused: [{ index: 1, clientId: queued[1]!.clientId, message: 'Bolt 99 is not on this 24-bolt ring.', fieldErrors: { 'payload.bolt': ['No such bolt.'] } }] },
+    }));
+    await waitFor(() => expect(hook.result.current.status.error).toMatch(/^One confirmation was not saved and set aside: Bolt 99 is not on this 24-bolt ring\./));
+    expect(hook.result.current.status.waiting).toBe(0);
+    expect(hook.result.current.events.map((e) => e.clientId)).toEqual([queued[0]!.clientId, queued[2]!.clientId]);
+    await new Promise((r) => setTimeout(r, 50));
+    expect(action).toHaveBeenCalledTimes(1);
+    expect(idb.get(`ringpass:run:${WHEEL}`)).toMatchObject({ pending: [], saved: [expect.objectContaining({ clientId: queued[0]!.clientId }), expect.objectContaining({ clientId: queued[2]!.clientId })] });
+  });
+
   it('an action id retired by a deploy reloads the page once, keeping the queue for the new build', async () => {
     const reload = vi.fn();
     vi.stubGlobal('location', { ...window.location, reload });
