@@ -56,7 +56,20 @@ const toDate = (when: When) => (when instanceof Date ? when : new Date(when));
 
 /** A date and time as the shop reads it, e.g. "Mar 8, 2026, 3:30 AM" (no zone name: it is the shop's). */
 export function formatShopTime(when: When, timeZone: string, style: TimeStyle = 'dateTime'): string {
-  return formatter(timeZone, style).format(toDate(when));
+  return plainSpaces(formatter(timeZone, style).format(toDate(when)));
+}
+
+/**
+ * Newer ICU puts a narrow no-break space before "AM"; browsers and Node differ on it, and a
+ * server-rendered time must match the browser's text exactly when React hydrates it.
+ */
+const plainSpaces = (text: string) => text.replace(/[\u202f\u00a0]/g, ' ');
+
+const UNIVERSAL = new Set(['UTC', 'Etc/UTC', 'Etc/UCT', 'UCT', 'Etc/Universal', 'Universal', 'Etc/Zulu', 'Zulu', 'GMT', 'Etc/GMT', 'Etc/GMT0', 'Etc/GMT+0', 'Etc/GMT-0', 'Etc/Greenwich', 'Greenwich']);
+
+/** The zone as a person reads it beside a form: "America/Denver", "Coordinated Universal Time". */
+export function zoneLabel(timeZone: string): string {
+  return UNIVERSAL.has(timeZone) ? 'Coordinated Universal Time' : timeZone.replaceAll('_', ' ');
 }
 
 /**
@@ -64,7 +77,7 @@ export function formatShopTime(when: When, timeZone: string, style: TimeStyle = 
  * so the reader can tell it is the shop's time, never an abbreviation to decode.
  */
 export function formatShopTimeForMail(when: When, timeZone: string): string {
-  const text = formatter(timeZone, 'long').format(toDate(when));
+  const text = plainSpaces(formatter(timeZone, 'long').format(toDate(when)));
   const zone = formatter(timeZone, 'zone').formatToParts(toDate(when)).find((p) => p.type === 'timeZoneName')?.value;
   return zone ? `${text} ${zone}` : text;
 }

@@ -86,7 +86,7 @@ async function main() {
     const { boardQuery } = await import('@/features/jobs/server/board');
     const { boardQuerySchema } = await import('@/features/jobs/schemas');
     const member = { userId: lead!.id, shopId: lead!.shop_id, role: 'lead' as const, name: '', email: '', sessionId };
-    const query = boardQuery(member, boardQuerySchema.parse(Object.fromEntries(new URLSearchParams(FILTER)))).toSQL();
+    const query = boardQuery(member, boardQuerySchema.parse(Object.fromEntries(new URLSearchParams(FILTER))), { timeZone: 'UTC', now: new Date() }).toSQL();
     for (let i = 0; i < 30; i++) await sql.unsafe(query.sql, query.params as never[]);
     const raw: number[] = [];
     for (let i = 0; i < RUNS; i++) {

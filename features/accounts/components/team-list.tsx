@@ -1,4 +1,5 @@
 import Link from 'next/link';
+import { ShopTime } from '@/features/ui/shop-time-zone';
 import { ROLE_LABELS } from '@/server/auth/permissions';
 import type { PendingInvite } from '../server/invites';
 import type { TeamMember } from '../server/team';
@@ -18,6 +19,9 @@ export function TeamList({ members, invites }: { members: TeamMember[]; invites:
                 <span>
                   <span className="block font-semibold">{m.name}</span>
                   <span className="block break-all text-ink-soft">{m.email}</span>
+                  <span className="block text-sm text-ink-soft">
+                    Joined <ShopTime when={m.joinedAt} style="date" />
+                  </span>
                 </span>
                 <span className="rounded-full border-2 border-ink px-3 py-0.5 text-sm font-semibold">{ROLE_LABELS[m.role]}</span>
               </Link>
@@ -37,7 +41,7 @@ export function TeamList({ members, invites }: { members: TeamMember[]; invites:
               <li key={i.id} className="flex flex-wrap items-center justify-between gap-2 p-3">
                 <span>
                   <span className="font-semibold">{i.email}</span> — {ROLE_LABELS[i.role]}, expires{' '}
-                  <time dateTime={i.expiresAt}>{new Date(i.expiresAt).toUTCString()}</time>
+                  <ShopTime when={i.expiresAt} />
                 </span>
                 <RevokeInviteButton inviteId={i.id} email={i.email} />
               </li>

@@ -8,6 +8,7 @@ import type { Member } from '@/server/auth/session';
 import { env } from '@/server/env.mjs';
 import { DomainError, notFound } from '@/server/errors';
 import { sendMail } from '@/server/mail/mailer';
+import { getShopSettings } from '@/server/shop/settings';
 import type { AcceptInviteInput, InviteInput } from '../schemas';
 import { inviteMail } from './invite-mail';
 
@@ -44,10 +45,10 @@ export async function createInvite(actor: Member, input: InviteInput): Promise<P
     return row!;
   });
 
-  const [shop] = await db.select({ name: shops.name }).from(shops).where(eq(shops.id, actor.shopId));
+  const [[shop], { timeZone }] = await Promise.all([db.select({ name: shops.name }).from(shops).where(eq(shops.id, actor.shopId)), getShopSettings(actor.shopId)]);
   const link = new URL(`/invite/${token}`, env().APP_URL).toString();
   try {
-    await sendMail({ to: input.email, ...inviteMail({ shopName: shop?.name ?? 'your shop', inviterName: actor.name, role: input.role, link, expiresAt }) });
+    await sendMail({ to: input.email, ...inviteMail({ shopName: shop?.name ?? 'your shop', inviterName: actor.name, role: input.role, link, expiresAt, timeZone }) });
   } catch (error) {
     console.error('[invite] mail failed', error);
     await db.delete(invites).where(eq(invites.id, invite.id));

@@ -5,6 +5,7 @@ import Link from 'next/link';
 import { usePathname, useRouter, useSearchParams } from 'next/navigation';
 import { useCallback, useMemo } from 'react';
 import { EmptyState } from '@/features/ui/page';
+import { useShopTime } from '@/features/ui/shop-time-zone';
 import { useJobs, type BoardFilters as Filters } from '../api/get-jobs';
 import type { BoardRow } from '../server/board';
 import { BoardFilters } from './board-filters';
@@ -30,19 +31,22 @@ const columns = [
   col.accessor('dueAt', {
     id: 'due',
     header: 'Due',
-    cell: (c) => {
-      const v = c.getValue();
-      if (!v) return '—';
-      const overdue = new Date(v).getTime() < Date.now() && c.row.original.state !== 'signed_off';
-      return (
-        <time dateTime={v} className={overdue ? 'font-bold text-danger' : ''}>
-          {new Date(v).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' })}
-          {overdue ? ' (overdue)' : ''}
-        </time>
-      );
-    },
+    cell: (c) => <DueTime dueAt={c.getValue()} state={c.row.original.state} />,
   }),
 ];
+
+/** A due time on the shop's clock, marked when it is past or later today on the shop's calendar. */
+function DueTime({ dueAt, state }: { dueAt: string | null; state: BoardRow['state'] }) {
+  const clock = useShopTime();
+  if (!dueAt) return '—';
+  const status = state === 'signed_off' ? 'later' : clock.dueStatus(dueAt);
+  return (
+    <time dateTime={dueAt} className={status === 'overdue' ? 'font-bold text-danger' : ''}>
+      {clock.format(dueAt)}
+      {status === 'overdue' ? ' (overdue)' : status === 'today' ? ' (today)' : ''}
+    </time>
+  );
+}
 
 /**
  * The live board: filters, sort and page live in the URL; rows come from GET /api/jobs through
@@ -138,7 +142,12 @@ export function Board({ people, defaultAssignee, canCreate }: { people: { id: st
                   </span>
                   <span className="text-sm text-ink-soft">
                     {r.assignee ? r.assignee.name : 'Not assigned'}
-                    {r.dueAt ? ` · due ${new Date(r.dueAt).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' })}` : ''}
+                    {r.dueAt ? (
+                      <>
+                        {' · due '}
+                        <DueTime dueAt={r.dueAt} state={r.state} />
+                      </>
+                    ) : null}
                   </span>
                 </Link>
               </li>

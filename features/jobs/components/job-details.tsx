@@ -1,10 +1,9 @@
 import Link from 'next/link';
 import { arrowDirection, UNIT_LABELS } from '@/features/torque-plan';
+import { ShopTime } from '@/features/ui/shop-time-zone';
 import type { JobCard } from '../server/jobs';
 import { STATE_LABELS } from '../transitions';
 import { StateBadge } from './state-badge';
-
-const when = (iso: string) => new Date(iso).toUTCString().replace(' GMT', ' UTC');
 
 type Thumb = { id: string; kind: string; note: string; url: string };
 const PHOTO_LABELS: Record<string, string> = { bead_outer: 'Seated bead, outer face', bead_inner: 'Seated bead, inner face', other: 'Other photo' };
@@ -15,7 +14,7 @@ export function JobDetails({ job, canRun = false, photos = {} }: { job: JobCard;
       <div className="flex flex-wrap items-center gap-3">
         <StateBadge state={job.state} />
         <span>{job.assignee ? `Assigned to ${job.assignee.name}` : 'Not assigned yet'}</span>
-        {job.dueAt ? <span>· due <time dateTime={job.dueAt}>{when(job.dueAt)}</time></span> : null}
+        {job.dueAt ? <span>· due <ShopTime when={job.dueAt} /></span> : null}
       </div>
       <dl className="grid gap-x-6 gap-y-2 sm:grid-cols-[max-content_1fr]">
         <dt className="font-semibold">Customer</dt>
@@ -58,7 +57,11 @@ export function JobDetails({ job, canRun = false, photos = {} }: { job: JobCard;
                   ))}
                 </div>
               ) : null}
-              {w.submittedAt ? <p className="mt-1 font-semibold text-ok">✓ Submitted</p> : null}
+              {w.submittedAt ? (
+                <p className="mt-1 font-semibold text-ok">
+                  ✓ Submitted <ShopTime when={w.submittedAt} />
+                </p>
+              ) : null}
               {w.flaggedReason ? (
                 <p role="alert" className="mt-1 rounded border-l-4 border-danger bg-danger-tint p-2 font-semibold text-danger">
                   ■ Inspection failed, parts needed: {w.flaggedReason}
@@ -78,7 +81,7 @@ export function JobDetails({ job, canRun = false, photos = {} }: { job: JobCard;
         <ol className="flex flex-col gap-1">
           {job.events.map((e, i) => (
             <li key={i}>
-              <time dateTime={e.at}>{when(e.at)}</time> — {e.by}: {e.fromState ? `${STATE_LABELS[e.fromState]} → ` : 'created, '}
+              <ShopTime when={e.at} /> — {e.by}: {e.fromState ? `${STATE_LABELS[e.fromState]} → ` : 'created, '}
               {STATE_LABELS[e.toState]}
               {e.note ? ` (“${e.note}”)` : ''}
             </li>

@@ -5,6 +5,8 @@ import { Button } from '@/features/ui/button';
 import { CheckboxField } from '@/features/ui/checkbox';
 import { SelectField, TextField } from '@/features/ui/field';
 import { FormMessage } from '@/features/ui/form-message';
+import { zoneLabel } from '@/features/ui/shop-time';
+import { useShopTime } from '@/features/ui/shop-time-zone';
 import { useFormAction } from '@/features/ui/use-form-action';
 import { createJobCard } from '../actions/job-actions';
 import { axleWarnings } from '../axle-check';
@@ -25,6 +27,7 @@ type Props = {
  */
 export function JobForm({ customers, vehicles, specs, assignees, canAcceptVin }: Props) {
   const { state, formAction, pending, errors } = useFormAction(createJobCard);
+  const clock = useShopTime();
   const [customerMode, setCustomerMode] = useState<'existing' | 'new'>(customers.length ? 'existing' : 'new');
   const [customerId, setCustomerId] = useState(customers[0]?.id ?? '');
   const ownVehicles = useMemo(() => vehicles.filter((v) => v.customerId === customerId), [vehicles, customerId]);
@@ -47,7 +50,8 @@ export function JobForm({ customers, vehicles, specs, assignees, canAcceptVin }:
       dismount: f.get('dismount') === 'on',
       reinstall: f.get('reinstall') === 'on',
       assigneeId: get('assigneeId'),
-      dueAt: get('dueAt') ? new Date(get('dueAt')).toISOString() : '',
+      // Typed on the shop's clock, not the phone's.
+      dueAt: clock.fromLocalInput(get('dueAt')),
       notes: get('notes'),
       acceptAxleMismatch: f.get('acceptAxleMismatch') === 'on',
     };
@@ -112,7 +116,7 @@ export function JobForm({ customers, vehicles, specs, assignees, canAcceptVin }:
         <CheckboxField label="Dismount the old tire" name="dismount" defaultChecked />
         <CheckboxField label="Re-install the wheel on the vehicle" name="reinstall" defaultChecked />
         <SelectField label="Assigned to" name="assigneeId" options={[{ value: '', label: 'Nobody yet' }, ...assignees.map((a) => ({ value: a.id, label: a.name }))]} errors={errors('assigneeId')} />
-        <TextField label="Due" name="dueAt" type="datetime-local" errors={errors('dueAt')} />
+        <TextField label="Due" name="dueAt" type="datetime-local" errors={errors('dueAt')} hint={`Shop time: ${zoneLabel(clock.timeZone)}.`} />
         <TextField label="Notes" name="notes" errors={errors('notes')} />
       </fieldset>
       <Button disabled={pending}>{pending ? 'Creating…' : 'Create job card'}</Button>

@@ -1,9 +1,11 @@
 import 'server-only';
-import { and, asc, desc, eq, ilike, inArray, isNull, lt, ne, or, sql, type SQL } from 'drizzle-orm';
+import { and, asc, desc, eq, gte, ilike, inArray, isNull, lt, ne, or, sql, type SQL } from 'drizzle-orm';
 import { getDb } from '@/db';
 import { customers, jobs, jobWheels, users, vehicles } from '@/db/schema';
+import { dueWindows, type ShopClock } from '@/features/ui/shop-time';
 import type { Member } from '@/server/auth/session';
 import { containsPattern } from '@/server/db-search';
+import { getShopSettings } from '@/server/shop/settings';
 import type { BoardQuery, JobStateName } from '../schemas';
 import { vehicleLabel } from './customers';
 
@@ -21,15 +23,18 @@ export type BoardRow = {
 
 export type BoardPage = { data: BoardRow[]; page: number; pageSize: number; total: number };
 
-function filters(member: Member, q: BoardQuery): SQL | undefined {
+function filters(member: Member, q: BoardQuery, clock: ShopClock): SQL | undefined {
   const search = q.q ? containsPattern(q.q) : undefined;
+  // "Today" and "next 7 days" are the shop's calendar days in its zone, not the database's:
+  // bounds computed as instants, so the due-date index still serves them.
+  const windows = dueWindows(clock);
   return and(
     eq(jobs.shopId, member.shopId),
     q.state?.length ? inArray(jobs.state, q.state) : undefined,
     q.assignee === 'me' ? eq(jobs.assigneeId, member.userId) : q.assignee === 'unassigned' ? isNull(jobs.assigneeId) : q.assignee ? eq(jobs.assigneeId, q.assignee) : undefined,
-    q.due === 'overdue' ? and(lt(jobs.dueAt, sql`now()`), ne(jobs.state, 'signed_off')) : undefined,
-    q.due === 'today' ? sql`(${jobs.dueAt} at time zone 'UTC')::date = (now() at time zone 'UTC')::date` : undefined,
-    q.due === 'week' ? sql`${jobs.dueAt} between now() and now() + interval '7 days'` : undefined,
+    q.due === 'overdue' ? and(lt(jobs.dueAt, clock.now), ne(jobs.state, 'signed_off')) : undefined,
+    q.due === 'today' ? and(gte(jobs.dueAt, windows.today.from), lt(jobs.dueAt, windows.today.to)) : undefined,
+    q.due === 'week' ? and(gte(jobs.dueAt, windows.week.from), lt(jobs.dueAt, windows.week.to)) : undefined,
     search
       ? or(
           ilike(customers.name, search),
@@ -60,7 +65,7 @@ function ordering(q: BoardQuery): SQL[] {
 }
 
 /** The board's page of job cards: the member's shop only, filtered, sorted and paginated in SQL. */
-export function boardQuery(member: Member, q: BoardQuery) {
+export function boardQuery(member: Member, q: BoardQuery, clock: ShopClock) {
   return getDb()
     .select({
       id: jobs.id,
@@ -82,14 +87,18 @@ export function boardQuery(member: Member, q: BoardQuery) {
     .innerJoin(customers, eq(customers.id, jobs.customerId))
     .innerJoin(vehicles, eq(vehicles.id, jobs.vehicleId))
     .leftJoin(users, eq(users.id, jobs.assigneeId))
-    .where(filters(member, q))
+    .where(filters(member, q, clock))
     .orderBy(...ordering(q))
     .limit(q.pageSize)
     .offset((q.page - 1) * q.pageSize);
 }
 
-export async function listBoard(member: Member, q: BoardQuery): Promise<BoardPage> {
-  const rows = await boardQuery(member, q);
+/** `now` is for tests that stand at a chosen moment (say 23:30 at the shop); the app passes none. */
+export async function listBoard(member: Member, q: BoardQuery, now = new Date()): Promise<BoardPage> {
+  // Only the calendar windows need the zone; the board's hot path skips the settings read.
+  const calendar = q.due === 'today' || q.due === 'week';
+  const timeZone = calendar ? (await getShopSettings(member.shopId)).timeZone : 'UTC';
+  const rows = await boardQuery(member, q, { timeZone, now });
   return {
     data: rows.map((r) => ({
       id: r.id,

@@ -1,5 +1,6 @@
 import Link from 'next/link';
 import type { ReactNode } from 'react';
+import { ShopTime } from '@/features/ui/shop-time-zone';
 import type { SinkMessage } from '@/server/mail/mailbox';
 
 /** Turns bare links in a plain-text mail into links, so an invite can be followed. */
@@ -34,7 +35,7 @@ export function MailboxList({ messages }: { messages: SinkMessage[] }) {
               <article className="rounded-xl border-2 border-paper-line p-4" aria-label={`${m.subject} to ${m.to.join(', ')}`}>
                 <h2 className="text-lg font-bold">{m.subject}</h2>
                 <p className="text-sm text-ink-soft">
-                  To {m.to.join(', ')} · <time dateTime={m.receivedAt}>{new Date(m.receivedAt).toUTCString()}</time>
+                  To {m.to.join(', ')} · <ShopTime when={m.receivedAt} />
                 </p>
                 <p className="mt-3 whitespace-pre-wrap">{linkify(m.text)}</p>
               </article>

@@ -2,19 +2,21 @@
 
 import { useState } from 'react';
 import { chooseWrench, formatTorque, UNIT_LABELS, type Torque, type Wrench } from '@/features/torque-plan';
+import { useShopTime } from '@/features/ui/shop-time-zone';
 import { formatDuration } from '../duration';
 import { submitBlockers, type RunnerPlan, type RunnerState } from '../state';
 
 /** The wheel at a glance before it is submitted: passes, wrench and setting, anomalies, time per step. */
 export function SummaryPanel({ wheelId, plan, state, targets, wrenches, photoKinds }: { wheelId: string; plan: RunnerPlan; state: RunnerState; targets: Torque[]; wrenches: (Wrench & { label: string })[]; photoKinds: string[] }) {
   const [result, setResult] = useState<{ ok: boolean; text: string } | null>(null);
+  const clock = useShopTime();
   const blockers = submitBlockers(plan, state, photoKinds);
   const times = plan.steps
     .filter((s) => state.doneAt[s.id])
     .map((s, i, done) => {
       const prev = i > 0 ? state.doneAt[done[i - 1]!.id] : undefined;
       const took = prev ? formatDuration(Date.parse(state.doneAt[s.id]!) - Date.parse(prev)) : null;
-      return { title: s.title, status: state.status[s.id], took };
+      return { title: s.title, status: state.status[s.id], at: state.doneAt[s.id]!, took };
     });
 
   async function submit() {
@@ -64,7 +66,8 @@ export function SummaryPanel({ wheelId, plan, state, targets, wrenches, photoKin
         <ul>
           {times.map((t) => (
             <li key={t.title}>
-              {t.title}: {t.status === 'skipped' ? `skipped (${state.skipReasons[plan.steps.find((s) => s.title === t.title)!.id]})` : 'done'}
+              {t.title}: {t.status === 'skipped' ? `skipped (${state.skipReasons[plan.steps.find((s) => s.title === t.title)!.id]})` : 'done'} at{' '}
+              {clock.format(t.at, 'time')}
               {t.took !== null ? ` · ${t.took}` : ''}
             </li>
           ))}

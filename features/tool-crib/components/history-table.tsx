@@ -1,4 +1,5 @@
 import { UNIT_LABELS } from '@/features/torque-plan';
+import { ShopTime } from '@/features/ui/shop-time-zone';
 import type { WrenchHistoryEntry } from '../server/wrenches';
 
 export function HistoryTable({ entries }: { entries: WrenchHistoryEntry[] }) {
@@ -18,7 +19,7 @@ export function HistoryTable({ entries }: { entries: WrenchHistoryEntry[] }) {
           {entries.map((e, i) => (
             <tr key={`${e.at}-${i}`} className="border-b border-paper-line align-top">
               <td className="p-2 whitespace-nowrap">
-                <time dateTime={e.at}>{new Date(e.at).toUTCString().replace(' GMT', ' UTC')}</time>
+                <ShopTime when={e.at} />
               </td>
               <td className="p-2">
                 {e.type === 'verification' ? (

@@ -1,6 +1,7 @@
 import Link from 'next/link';
 import { UNIT_LABELS } from '@/features/torque-plan';
 import type { CribWrenchDto } from '../server/wrenches';
+import { CalibrationDue } from './calibration-due';
 import { StatusBadge } from './status-badge';
 
 export function WrenchTable({ wrenches }: { wrenches: CribWrenchDto[] }) {
@@ -28,7 +29,9 @@ export function WrenchTable({ wrenches }: { wrenches: CribWrenchDto[] }) {
               <td className="p-2">
                 {w.min}–{w.max} {UNIT_LABELS[w.unit]} <span className="block text-sm text-ink-soft">steps of {w.graduation}</span>
               </td>
-              <td className="p-2">{w.calibrationDueOn}</td>
+              <td className="p-2">
+                <CalibrationDue day={w.calibrationDueOn} />
+              </td>
               <td className="p-2">
                 <StatusBadge status={w.status} />
                 {w.statusReason ? <span className="mt-1 block text-sm">{w.statusReason}</span> : null}

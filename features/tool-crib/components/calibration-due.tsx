@@ -1,0 +1,15 @@
+'use client';
+
+import { ShopDate, useShopTime } from '@/features/ui/shop-time-zone';
+
+/** A calibration due date, flagged against the shop's own today (its calendar, not the server's). */
+export function CalibrationDue({ day }: { day: string }) {
+  const status = useShopTime().dayStatus(day);
+  return (
+    <>
+      <ShopDate day={day} />
+      {status === 'overdue' ? <span className="block text-sm font-bold text-danger">■ Overdue</span> : null}
+      {status === 'today' ? <span className="block text-sm font-bold text-caution-ink">▲ Due today</span> : null}
+    </>
+  );
+}
