@@ -20,6 +20,9 @@ const schema = z.object({
   COOKIE_SECURE: bool.optional(),
   SESSION_ABSOLUTE_HOURS: z.coerce.number().int().min(1).max(24 * 90).default(24 * 14),
   INVITE_TTL_HOURS: z.coerce.number().int().min(1).max(24 * 30).default(72),
+  // How many reverse proxies in front of the app append to X-Forwarded-For. 0: the socket's
+  // address is the client's (a client-sent X-Forwarded-For is ignored).
+  TRUST_PROXY_HOPS: z.coerce.number().int().min(0).max(10).default(0),
 });
 
 /** @typedef {z.infer<typeof schema>} Env */
