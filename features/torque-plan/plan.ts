@@ -11,7 +11,8 @@ export type TorquePlanInput = {
   fractions?: readonly number[];
   checkPass?: boolean;
   wrenches: readonly Wrench[];
-  minFractionOfMax?: number;
+  /** The shop's wrench floor, a fraction of each wrench's maximum (0 to below 1). */
+  minFractionOfMax: number;
 };
 
 export type TorquePlan = {

@@ -16,12 +16,6 @@ export type WrenchChoice =
   | { ok: true; wrenchId: string; setting: Torque; fractionOfMax: number; roundingErrorPct: number; warnings: string[] }
   | { ok: false; reason: string };
 
-/**
- * ISO 6789 click-wrench calibration starts at 20 % of the maximum (2003 edition; the 2017
- * edition from the lowest marked value; secondary sources). The shop may set its own floor.
- */
-export const DEFAULT_MIN_FRACTION_OF_MAX = 0.2;
-
 const WRENCH_KINDS = ['click', 'beam', 'dial', 'digital'] as const;
 
 export function assertWrench(w: unknown, field = 'wrench'): asserts w is Wrench {
@@ -67,7 +61,7 @@ function whyNot(target: Torque, w: Wrench, floor: number): string {
   const name = w.label ?? w.id;
   if (t > w.max + EPS) return `${name}: ${shown} is above its maximum ${formatTorque({ value: w.max, unit: w.unit })}`;
   if (t < w.min - EPS) return `${name}: ${shown} is below its lowest mark ${formatTorque({ value: w.min, unit: w.unit })}`;
-  return `${name}: ${shown} is below the shop's floor of ${Math.round(floor * 100)} % of its maximum (${formatTorque({ value: floor * w.max, unit: w.unit })})`;
+  return `${name}: ${shown} is below the shop's floor of ${Number((floor * 100).toFixed(1))} % of its maximum (${formatTorque({ value: floor * w.max, unit: w.unit })})`;
 }
 
 /**
@@ -75,14 +69,14 @@ function whyNot(target: Torque, w: Wrench, floor: number): string {
  * its marked range and not below `minFractionOfMax` of its maximum; among those, the one where the
  * target is the largest fraction of the maximum (ties: finer graduation). The setting is rounded
  * to the wrench's graduation, with a warning when that moves it by more than the tolerance.
+ *
+ * The floor is the shop's own setting and always given: ISO 6789 click-wrench calibration starts
+ * at 20 % of the maximum (2003 edition; the 2017 edition from the lowest marked value; secondary
+ * sources), and a shop may choose 0, where only the wrench's lowest mark limits it.
  */
-export function chooseWrench(
-  target: Torque,
-  wrenches: readonly Wrench[],
-  options: { minFractionOfMax?: number } = {},
-): WrenchChoice {
+export function chooseWrench(target: Torque, wrenches: readonly Wrench[], options: { minFractionOfMax: number }): WrenchChoice {
   assertTorque(target, 'target');
-  const floor = options.minFractionOfMax ?? DEFAULT_MIN_FRACTION_OF_MAX;
+  const floor = options?.minFractionOfMax;
   assertFiniteNumber(floor, 'minFractionOfMax', "The shop's floor");
   if (floor < 0 || floor >= 1) throw new TorquePlanError("The shop's floor must be from 0 to below 1 (a fraction of maximum).", 'minFractionOfMax');
   if (!Array.isArray(wrenches)) throw new TorquePlanError('Wrenches must be a list.', 'wrenches');

@@ -17,7 +17,8 @@ const BLUE = { label: 'Blue click 20–200 in-lb', kind: 'click', min: 20, max: 
 
 /**
  * A shop with a wrench (verified today unless `unverified`), an 8-bolt spec and a one-wheel job
- * assigned to its lead.
+ * assigned to its lead. A verification counts only near the setting it is used at (the shop's
+ * default: ±25 %), so the wrench is checked at each working point: 43, 101 and 144 in-lb.
  */
 async function setUpWheel(page: Page, { wrenches = [BLUE], unverified = false }: { wrenches?: (typeof BLUE)[]; unverified?: boolean } = {}) {
   const email = uniqueEmail('runner');
@@ -26,7 +27,10 @@ async function setUpWheel(page: Page, { wrenches = [BLUE], unverified = false }:
   const calibrationDueOn = new Date(Date.now() + 200 * 86_400_000).toISOString().slice(0, 10);
   for (const body of wrenches) {
     const wrench = await api<{ id: string }>(page, 'POST', '/api/wrenches', { ...body, calibrationDueOn });
-    if (!unverified) await api(page, 'POST', `/api/wrenches/${wrench.id}/verifications`, { referenceValue: 100, readingValue: 101, unit: 'lbf-in' });
+    if (unverified) continue;
+    for (const referenceValue of [43, 101, 144]) {
+      await api(page, 'POST', `/api/wrenches/${wrench.id}/verifications`, { referenceValue, readingValue: referenceValue, unit: 'lbf-in' });
+    }
   }
   const spec = await api<{ id: string }>(page, 'POST', '/api/specs', { name: '8-bolt test ring', boltCount: 8, boltThread: 'M8×1.25', finalTorque: 12, torqueUnit: 'lbf-ft', passPercents: [30, 70, 100], patternKind: 'cross', checkPass: true, maxBeadSeatPressure: 30, runningPressure: 14, pressureUnit: 'psi' });
   const job = await api<{ id: string; wheels: { id: string }[] }>(page, 'POST', '/api/jobs', {
@@ -255,17 +259,19 @@ test('a wrench not verified today is checked on the spot: out of tolerance takes
 
   // 43 in-lb sits higher on the red wrench's scale, so the engine suggests it; it has no check today.
   const check = page.getByRole('region', { name: 'Verify the wrench' });
-  await expect(check).toContainText('Red click 10–150 in-lb has no verification today');
+  await expect(check).toContainText('Check Red click 10–150 in-lb on the tester before this pass. No passing verification today.');
   await expect(page.getByRole('button', { name: /^Clicked/ })).toHaveCount(0);
+  // The reference proposed is the pass's own setting.
+  await expect(check.getByLabel('Reference (in-lb)')).toHaveValue('43');
   await check.getByLabel('Reference (in-lb)').fill('100');
   await check.getByLabel('Reading (in-lb)').fill('93');
   await check.getByRole('button', { name: 'Record verification' }).click();
   await expect(page.getByRole('alert').filter({ hasText: 'Out of tolerance (-7.0 %, allowed ±4 %)' })).toBeVisible();
 
   // The red wrench is out; the blue one is next, and it too is checked before its first pass.
-  await expect(check).toContainText('Blue click 20–200 in-lb has no verification today');
-  await check.getByLabel('Reference (in-lb)').fill('100');
-  await check.getByLabel('Reading (in-lb)').fill('102');
+  await expect(check).toContainText('Check Blue click 20–200 in-lb on the tester before this pass.');
+  await check.getByLabel('Reference (in-lb)').fill('43');
+  await check.getByLabel('Reading (in-lb)').fill('44');
   await check.getByRole('button', { name: 'Record verification' }).click();
   await expect(page.getByText('Set Blue click 20–200 in-lb to 43 in-lb')).toBeVisible();
   await expect(page.getByRole('button', { name: 'Clicked — bolt 1' })).toBeVisible();

@@ -5,11 +5,13 @@ import type { TorquePlanRequest } from '../schemas';
 
 /**
  * Resolves the wrenches and runs the engine; the engine's refusals become field errors.
- * Tool-crib ids are resolved through `findShopWrenches`, scoped to the member's shop.
+ * Tool-crib ids are resolved through `findShopWrenches`, scoped to the member's shop. A request
+ * without its own `minFractionOfMax` is planned with the shop's wrench floor (`shopFloor`, a fraction).
  */
 export async function computePlan(
   request: TorquePlanRequest,
   findShopWrenches: (ids: string[]) => Promise<Wrench[]>,
+  shopFloor: number,
 ): Promise<TorquePlan> {
   const ids = request.wrenchIds ?? [];
   const fromCrib = ids.length ? await findShopWrenches(ids) : [];
@@ -19,7 +21,7 @@ export async function computePlan(
     throw new DomainError('invalid', message, { wrenchIds: [message] });
   }
   try {
-    return planTorque({ ...request, wrenches: [...fromCrib, ...(request.wrenches ?? [])] });
+    return planTorque({ ...request, minFractionOfMax: request.minFractionOfMax ?? shopFloor, wrenches: [...fromCrib, ...(request.wrenches ?? [])] });
   } catch (error) {
     if (error instanceof TorquePlanError) {
       throw new DomainError('invalid', error.message, { [error.field ?? 'body']: [error.message] });

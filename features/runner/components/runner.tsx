@@ -2,11 +2,12 @@
 
 import Link from 'next/link';
 import { useEffect, useMemo, useState } from 'react';
-import { arrowDirection, type PressureUnit, type Torque, type WheelPosition, type Wrench } from '@/features/torque-plan';
+import { arrowDirection, type PressureUnit, type RecordedVerification, type Torque, type WheelPosition } from '@/features/torque-plan';
 import { useRunQueue, type SaveEvents } from '../api/use-run-queue';
 import type { ClientEvent } from '../events';
 import { useRunnerSettings } from '../settings-store';
 import { reduceRun, type RunnerPlan } from '../state';
+import type { CribWrench, WrenchRules } from '../wrench-gate';
 import { HandStartPanel } from './hand-start-panel';
 import { PhotoCapture, type Photo } from './photo-capture';
 import { StepPanel } from './step-panel';
@@ -21,8 +22,11 @@ export type RunnerProps = {
   spec: { name: string; maxBeadSeatPressure: number; pressureUnit: PressureUnit; lugTorque: string | null };
   plan: RunnerPlan;
   targets: Torque[];
-  wrenches: (Wrench & { label: string })[];
-  verified: string[];
+  wrenches: CribWrench[];
+  /** Recent passing verifications; the shop's policy (in `rules`) decides per pass which count. */
+  verifications: RecordedVerification[];
+  /** The shop's wrench floor and verification policy. */
+  rules: WrenchRules;
   events: ClientEvent[];
   photos: Photo[];
   /** The server action that stores confirmed events; the page hands it down. */
@@ -103,9 +107,9 @@ export function Runner(props: RunnerProps) {
             {step.id === 'hand_start' ? (
               <HandStartPanel boltCount={plan.boltCount} started={state.handStarted} cautions={step.cautions} record={record} />
             ) : step.id === 'torque' ? (
-              <TorquePanel state={state} targets={props.targets} wrenches={props.wrenches} verified={props.verified} cautions={step.cautions} boltCount={plan.boltCount} record={record} />
+              <TorquePanel state={state} targets={props.targets} wrenches={props.wrenches} verifications={props.verifications} rules={props.rules} cautions={step.cautions} boltCount={plan.boltCount} record={record} />
             ) : step.id === 'submit' ? (
-              <SummaryPanel wheelId={wheel.id} plan={plan} state={state} targets={props.targets} wrenches={props.wrenches} photoKinds={photoKinds} />
+              <SummaryPanel wheelId={wheel.id} plan={plan} state={state} targets={props.targets} wrenches={props.wrenches} minFractionOfMax={props.rules.minFractionOfMax} photoKinds={photoKinds} />
             ) : (
               <StepPanel
                 key={step.id}

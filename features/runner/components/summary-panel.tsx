@@ -7,7 +7,7 @@ import { formatDuration } from '../duration';
 import { submitBlockers, type RunnerPlan, type RunnerState } from '../state';
 
 /** The wheel at a glance before it is submitted: passes, wrench and setting, anomalies, time per step. */
-export function SummaryPanel({ wheelId, plan, state, targets, wrenches, photoKinds }: { wheelId: string; plan: RunnerPlan; state: RunnerState; targets: Torque[]; wrenches: (Wrench & { label: string })[]; photoKinds: string[] }) {
+export function SummaryPanel({ wheelId, plan, state, targets, wrenches, minFractionOfMax, photoKinds }: { wheelId: string; plan: RunnerPlan; state: RunnerState; targets: Torque[]; wrenches: (Wrench & { label: string })[]; minFractionOfMax: number; photoKinds: string[] }) {
   const [result, setResult] = useState<{ ok: boolean; text: string } | null>(null);
   const clock = useShopTime();
   const blockers = submitBlockers(plan, state, photoKinds);
@@ -33,7 +33,7 @@ export function SummaryPanel({ wheelId, plan, state, targets, wrenches, photoKin
         <ul className="flex flex-col gap-1">
           {state.passes.map((p, i) => {
             const w = wrenches.find((x) => x.id === p.wrenchId) ?? null;
-            const choice = w ? chooseWrench(targets[i]!, [w]) : chooseWrench(targets[i]!, wrenches);
+            const choice = chooseWrench(targets[i]!, w ? [w] : wrenches, { minFractionOfMax });
             const label = choice.ok ? `${wrenches.find((x) => x.id === choice.wrenchId)?.label} at ${choice.setting.value} ${UNIT_LABELS[choice.setting.unit]}` : 'no wrench';
             return (
               <li key={p.index}>

@@ -2,21 +2,15 @@
 
 import { useEffect, useMemo, useState } from 'react';
 import { BoltCircle } from '@/features/bolt-circle/bolt-circle';
-import {
-  chooseWrench,
-  formatTorque,
-  UNIT_LABELS,
-  type Torque,
-  type Wrench,
-} from '@/features/torque-plan';
+import { formatTorque, UNIT_LABELS, type RecordedVerification, type Torque } from '@/features/torque-plan';
 import type { RunEvent } from '../events';
 import type { RunnerState } from '../state';
 import { useRunnerSettings } from '../settings-store';
+import { passWrench, type CribWrench, type WrenchRules } from '../wrench-gate';
 import { Caution } from './caution';
 import { RingLayout, ringButtonClass } from './ring-layout';
 import { VerifyInline } from './verify-inline';
 
-type CribWrench = Wrench & { label: string };
 const big = 'min-h-16 w-full rounded-xl px-4 text-lg font-bold';
 
 function cue(text: string, speak: boolean, vibrate: boolean) {
@@ -35,7 +29,8 @@ export function TorquePanel({
   state,
   targets,
   wrenches,
-  verified,
+  verifications,
+  rules,
   cautions,
   boltCount,
   record,
@@ -43,30 +38,26 @@ export function TorquePanel({
   state: RunnerState;
   targets: Torque[];
   wrenches: CribWrench[];
-  verified: string[];
+  verifications: RecordedVerification[];
+  rules: WrenchRules;
   cautions: string[];
   boltCount: number;
   record: (e: RunEvent) => Promise<void>;
 }) {
   const { speak, vibrate } = useRunnerSettings();
-  const [ok, setOk] = useState<string[]>(verified);
+  // Verifications recorded on this phone since the page loaded, judged like the server's.
+  const [fresh, setFresh] = useState<RecordedVerification[]>([]);
   const [failed, setFailed] = useState<string[]>([]);
   const [selected, setSelected] = useState<number | null>(null);
   const index = state.currentPass;
   const pass = index ? state.passes[index - 1]! : null;
   const target = index ? targets[index - 1]! : null;
-  const usable = useMemo(() => wrenches.filter((w) => !failed.includes(w.id)), [wrenches, failed]);
-
-  const best = target ? chooseWrench(target, usable) : null;
-  const suitable = target ? usable.filter((w) => chooseWrench(target, [w]).ok) : [];
-  const wrenchId =
-    pass?.wrenchId && suitable.some((w) => w.id === pass.wrenchId)
-      ? pass.wrenchId
-      : best?.ok
-        ? best.wrenchId
-        : null;
-  const wrench = usable.find((w) => w.id === wrenchId) ?? null;
-  const choice = target && wrench ? chooseWrench(target, [wrench]) : null;
+  const allVerifications = useMemo(() => [...fresh, ...verifications], [fresh, verifications]);
+  const gate = target
+    ? passWrench({ target, wrenches, failed, chosenId: pass?.wrenchId, rules, verifications: allVerifications, now: new Date() })
+    : null;
+  const { best = null, suitable = [], wrench = null, choice = null, verification = null } = gate ?? {};
+  const wrenchId = wrench?.id ?? null;
 
   useEffect(() => {
     if (pass?.next && speak) cue(`Bolt ${pass.next}`, speak, false);
@@ -147,11 +138,15 @@ export function TorquePanel({
           </label>
         ) : null}
       </section>
-      {wrench && !ok.includes(wrench.id) ? (
+      {wrench && choice?.ok && verification && !verification.counts ? (
         <VerifyInline
           wrench={wrench}
-          onResult={(within) =>
-            within ? setOk((v) => [...v, wrench.id]) : setFailed((f) => [...f, wrench.id])
+          setting={choice.setting}
+          why={verification.reason}
+          onResult={(recorded) =>
+            recorded.withinTolerance
+              ? setFresh((v) => [recorded, ...v])
+              : setFailed((f) => [...f, wrench.id])
           }
         />
       ) : wrench && choice?.ok ? (

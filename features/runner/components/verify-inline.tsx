@@ -1,28 +1,55 @@
 'use client';
 
 import { useState } from 'react';
-import { UNIT_LABELS, type Wrench } from '@/features/torque-plan';
+import { UNIT_LABELS, type RecordedVerification, type Torque, type Wrench } from '@/features/torque-plan';
 
-/** The runner's on-the-spot verification: the wrench must be checked today before its first pass. */
-export function VerifyInline({ wrench, onResult }: { wrench: Wrench & { label: string }; onResult: (withinTolerance: boolean) => void }) {
-  const [reference, setReference] = useState('');
+type Saved = RecordedVerification & { withinTolerance: boolean };
+
+/**
+ * The runner's on-the-spot verification: before a pass, the wrench needs a verification that
+ * counts under the shop's policy. The reference starts at the pass's own setting, the point that
+ * matters for this pass; the technician types what the tester shows.
+ */
+export function VerifyInline({
+  wrench,
+  setting,
+  why,
+  onResult,
+}: {
+  wrench: Wrench & { label: string };
+  /** The setting this pass uses, in the wrench's unit: proposed as the reference. */
+  setting: Torque;
+  /** Why the wrench's earlier verifications do not count for this pass. */
+  why: string;
+  onResult: (saved: Saved) => void;
+}) {
+  const [reference, setReference] = useState(String(setting.value));
   const [reading, setReading] = useState('');
   const [message, setMessage] = useState<{ ok: boolean; text: string } | null>(null);
   const [busy, setBusy] = useState(false);
+  // A new pass (or another wrench's unit) proposes its own setting; the last result stays in view.
+  const proposed = `${wrench.id} ${setting.value} ${setting.unit}`;
+  const [shownFor, setShownFor] = useState(proposed);
+  if (shownFor !== proposed) {
+    setShownFor(proposed);
+    setReference(String(setting.value));
+    setReading('');
+  }
 
   async function submit() {
     setBusy(true);
     try {
+      const referenceValue = Number(reference);
       const res = await fetch(`/api/wrenches/${wrench.id}/verifications`, {
         method: 'POST',
         headers: { 'content-type': 'application/json' },
-        body: JSON.stringify({ referenceValue: Number(reference), readingValue: Number(reading), unit: wrench.unit }),
+        body: JSON.stringify({ referenceValue, readingValue: Number(reading), unit: wrench.unit }),
       });
-      const body = (await res.json()) as { data?: { withinTolerance: boolean; deviationPct: number; tolerancePct: number }; error?: { message: string } };
+      const body = (await res.json()) as { data?: { recordedAt: string; withinTolerance: boolean; deviationPct: number; tolerancePct: number }; error?: { message: string } };
       if (!res.ok || !body.data) return setMessage({ ok: false, text: body.error?.message ?? 'The verification was not saved.' });
       const d = body.data;
       setMessage({ ok: d.withinTolerance, text: d.withinTolerance ? `Within tolerance (${d.deviationPct.toFixed(1)} %).` : `Out of tolerance (${d.deviationPct.toFixed(1)} %, allowed ±${d.tolerancePct} %): the wrench is out of service. Pick another.` });
-      onResult(d.withinTolerance);
+      onResult({ wrenchId: wrench.id, recordedAt: d.recordedAt, referenceValue, unit: wrench.unit, withinTolerance: d.withinTolerance });
     } catch {
       setMessage({ ok: false, text: 'No connection: a verification has to reach the server. Try again when the Wi-Fi is back.' });
     } finally {
@@ -33,7 +60,12 @@ export function VerifyInline({ wrench, onResult }: { wrench: Wrench & { label: s
   const unit = UNIT_LABELS[wrench.unit];
   return (
     <section aria-label="Verify the wrench" className="flex flex-col gap-3 rounded-xl border-2 border-caution p-3">
-      <p className="font-bold">{wrench.label} has no verification today. Check it on the tester before its first pass.</p>
+      <p className="font-bold">
+        Check {wrench.label} on the tester before this pass. {why}
+      </p>
+      <p className="text-sm">
+        The reference is this pass&apos;s setting, {setting.value} {unit}; change it to what the tester is set to.
+      </p>
       <div className="grid grid-cols-2 gap-2">
         <label className="flex min-w-0 flex-col gap-1 font-semibold">
           Reference ({unit})

@@ -2,7 +2,7 @@ import 'server-only';
 import { and, asc, desc, eq, gte, inArray, lt, or, sql } from 'drizzle-orm';
 import { getDb } from '@/db';
 import { users, wrenches, wrenchStatusEvents, wrenchVerifications, type WrenchRow } from '@/db/schema';
-import { assertWrench, TorquePlanError, verifyReading, type Wrench } from '@/features/torque-plan';
+import { assertWrench, TorquePlanError, verifyReading, type RecordedVerification, type Wrench } from '@/features/torque-plan';
 import { shopDay } from '@/features/ui/shop-time';
 import type { Member } from '@/server/auth/session';
 import { DomainError, notFound } from '@/server/errors';
@@ -186,11 +186,18 @@ export async function wrenchHistory(shopId: string, wrenchId: string): Promise<W
   return entries.sort((a, b) => b.at.localeCompare(a.at) || (a.type === 'status' ? -1 : 1));
 }
 
-/** Wrenches with a passing verification today (the runner's default policy: verified the same day). */
-export async function verifiedToday(shopId: string): Promise<string[]> {
+/**
+ * Passing verifications recent enough that the shop's policy might count them (the engine's
+ * `verificationFor` decides, per pass setting, on the shop's calendar). `days` shop days back,
+ * plus one day of margin for any time zone's offset; newest first.
+ */
+export async function recentPassingVerifications(shopId: string, days: number, now = new Date()): Promise<RecordedVerification[]> {
+  const since = new Date(now.getTime() - (Math.max(1, days) + 1) * 86_400_000);
   const rows = await getDb()
-    .selectDistinct({ id: wrenchVerifications.wrenchId })
+    .select({ wrenchId: wrenchVerifications.wrenchId, recordedAt: wrenchVerifications.recordedAt, referenceValue: wrenchVerifications.referenceValue, unit: wrenchVerifications.unit })
     .from(wrenchVerifications)
-    .where(and(eq(wrenchVerifications.shopId, shopId), eq(wrenchVerifications.withinTolerance, true), gte(wrenchVerifications.recordedAt, sql`date_trunc('day', now())`)));
-  return rows.map((r) => r.id);
+    .where(and(eq(wrenchVerifications.shopId, shopId), eq(wrenchVerifications.withinTolerance, true), gte(wrenchVerifications.recordedAt, since)))
+    .orderBy(desc(wrenchVerifications.recordedAt))
+    .limit(1000);
+  return rows.map((r) => ({ ...r, recordedAt: r.recordedAt.toISOString() }));
 }

@@ -11,6 +11,9 @@ const wrenches = [
   { id: 'w2', label: 'Grey click 5–80 ft-lb', min: 5, max: 80, unit: 'lbf-ft' as const, graduation: 1, kind: 'click' as const },
 ];
 
+/** The product's defaults for a new shop: a 20 % wrench floor, ft-lb and psi. */
+const shop = { minFractionOfMax: 0.2, units: { torque: 'lbf-ft', pressure: 'psi' } } as const;
+
 async function fill(values: Record<string, string>) {
   for (const [label, value] of Object.entries(values)) {
     const field = screen.getByLabelText(label);
@@ -21,7 +24,7 @@ async function fill(values: Record<string, string>) {
 
 describe('SpecForm', () => {
   it('previews the sequence and each pass’s wrench and setting as the spec is typed', async () => {
-    render(<SpecForm wrenches={wrenches} />);
+    render(<SpecForm wrenches={wrenches} {...shop} />);
     await fill({ 'Spec name': 'Test ring', 'Bolt count': '16', 'Ring bolt thread': 'M8×1.25', 'Final torque': '12', 'Maximum bead-seating pressure': '30', 'Running pressure': '14' });
     expect(await screen.findByText('1 · 9 · 5 · 13 · 3 · 11 · 7 · 15 · 2 · 10 · 6 · 14 · 4 · 12 · 8 · 16')).toBeInTheDocument();
     const pass1 = screen.getByRole('row', { name: /Pass 1 \(30 %\)/ });
@@ -29,7 +32,7 @@ describe('SpecForm', () => {
   });
 
   it('shows the engine’s refusal at the field it concerns', async () => {
-    render(<SpecForm wrenches={wrenches} />);
+    render(<SpecForm wrenches={wrenches} {...shop} />);
     await fill({ 'Spec name': 'Too many', 'Bolt count': '70', 'Ring bolt thread': 'M8', 'Final torque': '12', 'Maximum bead-seating pressure': '30', 'Running pressure': '14' });
     const count = screen.getByLabelText('Bolt count');
     expect(count).toHaveAttribute('aria-invalid', 'true');
@@ -42,10 +45,29 @@ describe('SpecForm', () => {
   });
 
   it('a skip step of N or more is refused at the skip step', async () => {
-    render(<SpecForm wrenches={wrenches} />);
+    render(<SpecForm wrenches={wrenches} {...shop} />);
     await fill({ 'Spec name': 'Skip', 'Bolt count': '20', 'Ring bolt thread': 'M8', 'Final torque': '12', 'Maximum bead-seating pressure': '30', 'Running pressure': '14' });
     await userEvent.selectOptions(screen.getByLabelText('Tightening pattern'), 'skip');
     await fill({ 'Skip step (skip pattern only)': '20' });
     expect(screen.getByLabelText('Skip step (skip pattern only)')).toHaveAccessibleDescription(/skip step must be from 1 to 19/);
+  });
+
+  it("previews with the shop's wrench floor: a 5–80 ft-lb wrench takes a 10 ft-lb pass at 0 %, not at 20 %", async () => {
+    const grey = [wrenches[1]!];
+    const typed = { 'Spec name': 'Test ring', 'Bolt count': '16', 'Ring bolt thread': 'M8×1.25', 'Final torque': '10', 'Maximum bead-seating pressure': '30', 'Running pressure': '14' };
+    const { unmount } = render(<SpecForm wrenches={grey} {...shop} />);
+    await fill(typed);
+    // 10 ft-lb is 12.5 % of 80: below a 20 % floor (16 ft-lb).
+    expect(await screen.findByRole('row', { name: /Pass 3 \(100 %\)/ })).toHaveTextContent(/No wrench: .*below the shop's floor of 20 %/);
+    unmount();
+    render(<SpecForm wrenches={grey} {...shop} minFractionOfMax={0} />);
+    await fill(typed);
+    expect(await screen.findByRole('row', { name: /Pass 3 \(100 %\)/ })).toHaveTextContent('Grey click 5–80 ft-lb set to 10 ft-lb');
+  });
+
+  it("a new spec starts in the shop's own units", () => {
+    render(<SpecForm wrenches={wrenches} minFractionOfMax={0.2} units={{ torque: 'Nm', pressure: 'bar' }} />);
+    expect(screen.getAllByLabelText('Unit').map((u) => (u as HTMLSelectElement).value)).toEqual(['Nm', 'Nm']);
+    expect(screen.getByLabelText<HTMLSelectElement>('Pressure unit').value).toBe('bar');
   });
 });

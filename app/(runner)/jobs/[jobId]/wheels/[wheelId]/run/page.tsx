@@ -4,11 +4,12 @@ import { ids } from '@/features/jobs/schemas';
 import { Runner } from '@/features/runner/components/runner';
 import { listPhotos } from '@/features/runner/server/photo-router';
 import { assertMayRun, listEvents, loadWheel, planFor } from '@/features/runner/server/run';
-import { verifiedToday, wrenchesForEngine } from '@/features/tool-crib/server/wrenches';
+import { recentPassingVerifications, wrenchesForEngine } from '@/features/tool-crib/server/wrenches';
 import { formatTorque, passPlan } from '@/features/torque-plan';
 import { requireMember } from '@/server/auth/guard';
 import { signInThenBackTo } from '@/server/auth/return-path';
 import { DomainError, orNotFound } from '@/server/errors';
+import { getShopSettings } from '@/server/shop/settings';
 import { saveWheelEvents } from './actions';
 
 export const metadata: Metadata = { title: 'Runner' };
@@ -29,7 +30,14 @@ export default async function RunPage({ params }: PageProps<'/jobs/[jobId]/wheel
     throw error;
   }
   const { spec, wheel } = ctx;
-  const [wrenches, verified, events, photos] = await Promise.all([wrenchesForEngine(member.shopId), verifiedToday(member.shopId), listEvents(member.shopId, wheel.id), listPhotos(member.shopId, wheel.id)]);
+  const settings = await getShopSettings(member.shopId);
+  const { verification } = settings;
+  const [wrenches, verifications, events, photos] = await Promise.all([
+    wrenchesForEngine(member.shopId),
+    recentPassingVerifications(member.shopId, verification.recency === 'same_day' ? 1 : verification.days),
+    listEvents(member.shopId, wheel.id),
+    listPhotos(member.shopId, wheel.id),
+  ]);
   const targets = passPlan({ value: spec.finalTorque, unit: spec.torqueUnit }, spec.passFractions, { checkPass: spec.checkPass }).map((x) => x.target);
   return (
     <Runner
@@ -40,7 +48,8 @@ export default async function RunPage({ params }: PageProps<'/jobs/[jobId]/wheel
       plan={planFor(ctx)}
       targets={targets}
       wrenches={wrenches}
-      verified={verified}
+      verifications={verifications}
+      rules={{ minFractionOfMax: settings.wrenchFloorPercent / 100, verification, timeZone: settings.timeZone }}
       events={events}
       photos={photos}
       saveEvents={saveWheelEvents}
