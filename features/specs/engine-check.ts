@@ -1,4 +1,4 @@
-import { passPlan, tighteningSequence, TorquePlanError, type Pattern } from '@/features/torque-plan';
+import { checkPlausibility, passPlan, tighteningSequence, TorquePlanError, type Pattern, type Plausibility, type PlausibilityInput } from '@/features/torque-plan';
 import type { SpecInput } from './schemas';
 import type { Spec } from './server/specs';
 
@@ -31,6 +31,44 @@ export function engineErrors(s: SpecInput): Record<string, string[]> | null {
   }
 }
 
+/** The plausibility module's field names → the spec form's. */
+const formField = (field: string) => (field === 'fractions' ? 'passPercents' : field);
+
+type Numbers = Pick<SpecInput, 'maxBeadSeatPressure' | 'runningPressure' | 'pressureUnit' | 'finalTorque' | 'torqueUnit' | 'passPercents'> &
+  Partial<Pick<SpecInput, 'lugTorque' | 'lugTorqueUnit' | 'beadSeatRatingReference' | 'beadSeatRatingConfirmed'>>;
+
+export function plausibilityInput(s: Numbers): PlausibilityInput {
+  return {
+    maxBeadSeatPressure: s.maxBeadSeatPressure,
+    runningPressure: s.runningPressure,
+    pressureUnit: s.pressureUnit,
+    finalTorque: s.finalTorque,
+    torqueUnit: s.torqueUnit,
+    fractions: s.passPercents.map((p) => p / 100),
+    lugTorque: s.lugTorque === undefined ? null : { value: s.lugTorque, unit: s.lugTorqueUnit ?? 'lbf-ft' },
+    beadSeatRating: { reference: s.beadSeatRatingReference ?? '', confirmed: s.beadSeatRatingConfirmed ?? false },
+  };
+}
+
+/** The spec's plausibility, keyed by the form's field names: errors refuse the save, warnings are shown. */
+export function specPlausibility(s: Numbers): { errors: Record<string, string[]>; warnings: Record<string, string[]> } {
+  const byField = (issues: Plausibility['errors']) => {
+    const out: Record<string, string[]> = {};
+    for (const { field, message } of issues) (out[formField(field)] ??= []).push(message);
+    return out;
+  };
+  const { errors, warnings } = checkPlausibility(plausibilityInput(s));
+  return { errors: byField(errors), warnings: byField(warnings) };
+}
+
+/** What refuses this spec: the engine's error, or else the plausibility errors; null when it may be saved. */
+export function specErrors(s: SpecInput): Record<string, string[]> | null {
+  const engine = engineErrors(s);
+  if (engine) return engine;
+  const { errors } = specPlausibility(s);
+  return Object.keys(errors).length ? errors : null;
+}
+
 /** The engine speaks in fractions; the form in percent. */
 function inPercent(message: string): string {
   if (/must not go down/.test(message)) return 'Each pass must be at least the one before (a repeated pass is fine).';
@@ -47,5 +85,6 @@ export function specToInput(spec: Spec): SpecInput {
     lugTorque: spec.lugTorque ?? undefined,
     lugTorqueUnit: spec.lugTorqueUnit ?? undefined,
     lugCount: spec.lugCount ?? undefined,
+    beadSeatRatingConfirmed: spec.beadSeatRatingConfirmedAt !== null,
   };
 }

@@ -36,6 +36,10 @@ export const specSchema = z
     runningPressure: positiveNumber('the running pressure'),
     pressureUnit,
     makerReference: text("the maker's reference", 300).default(''),
+    /** The tire maker's published higher bead-seat rating (document and page), for a limit above 40 psi. */
+    beadSeatRatingReference: text("the tire maker's rating reference", 300).default(''),
+    /** Ticked by a lead who checked that rating; only a lead may tick it. */
+    beadSeatRatingConfirmed: checkbox.default(false),
     notes: text('the notes', 2000).default(''),
   })
   .superRefine((s, ctx) => {

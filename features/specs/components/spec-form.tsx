@@ -9,8 +9,11 @@ import { FormMessage } from '@/features/ui/form-message';
 import { useFormAction } from '@/features/ui/use-form-action';
 import { createWheelSpec, updateWheelSpec } from '../actions/save-spec';
 import { engineErrors, specToInput } from '../engine-check';
+import { liveCheck } from '../live-check';
 import { specSchema, type SpecInput } from '../schemas';
 import type { Spec } from '../server/specs';
+import { FieldNote } from './field-note';
+import { SpecFlag } from './spec-flag';
 import { SpecPreview, type CribWrench } from './spec-preview';
 
 const torqueOptions = TORQUE_UNITS.map((u) => ({ value: u, label: UNIT_LABELS[u] }));
@@ -21,13 +24,16 @@ const patternOptions = [
   { value: 'sequential', label: 'Sequential (clockwise)' },
 ];
 
-type Live = { spec?: SpecInput; engine?: Record<string, string[]> };
+type Live = { spec?: SpecInput; engine?: Record<string, string[]>; checks?: ReturnType<typeof liveCheck> };
 
 function readLive(form: HTMLFormElement): Live {
-  const parsed = specSchema.safeParse(Object.fromEntries(new FormData(form)));
-  if (!parsed.success) return {};
+  const raw = Object.fromEntries(new FormData(form));
+  // Plausibility runs on whatever is typed so far; the preview needs the whole spec.
+  const checks = liveCheck(raw);
+  const parsed = specSchema.safeParse(raw);
+  if (!parsed.success) return { checks };
   const engine = engineErrors(parsed.data);
-  return engine ? { engine } : { spec: parsed.data };
+  return engine ? { engine, checks } : { spec: parsed.data, checks };
 }
 
 /**
@@ -50,13 +56,15 @@ export function SpecForm({
   const { state, formAction, pending, errors, value } = useFormAction(spec ? updateWheelSpec : createWheelSpec);
   const [live, setLive] = useState<Live>({});
   const initial = (name: keyof Spec, fallback = '') => value(name) ?? (spec?.[name] == null ? fallback : String(spec[name]));
-  const fieldErrors = (name: string) => errors(name) ?? live.engine?.[name];
+  const fieldErrors = (name: string) => errors(name) ?? live.engine?.[name] ?? live.checks?.errors[name];
+  const warnings = (name: string) => live.checks?.warnings[name];
   const shown = state?.ok ? { ok: true, message: 'Spec saved.' } : state;
 
   return (
     <div className="grid gap-8 lg:grid-cols-2">
       <form action={formAction} onChange={(e) => setLive(readLive(e.currentTarget))} noValidate className="flex flex-col gap-6" aria-label="Wheel spec">
         <FormMessage state={shown} />
+        {spec?.plausibilityFlag ? <SpecFlag reason={spec.plausibilityFlag} canFix /> : null}
         {spec ? <input type="hidden" name="specId" value={spec.id} /> : null}
         <fieldset className="flex flex-col gap-4">
           <legend className="mb-2 text-lg font-bold">Wheel and ring</legend>
@@ -67,10 +75,10 @@ export function SpecForm({
         <fieldset className="flex flex-col gap-4">
           <legend className="mb-2 text-lg font-bold">Torque passes</legend>
           <div className="grid grid-cols-[2fr_1fr] gap-3">
-            <TextField label="Final torque" name="finalTorque" inputMode="decimal" required defaultValue={initial('finalTorque')} errors={fieldErrors('finalTorque')} />
+            <TextField label="Final torque" name="finalTorque" inputMode="decimal" required defaultValue={initial('finalTorque')} errors={fieldErrors('finalTorque')} hint={<FieldNote warnings={warnings('finalTorque')} />} />
             <SelectField label="Unit" name="torqueUnit" options={torqueOptions} defaultValue={initial('torqueUnit', units.torque)} errors={fieldErrors('torqueUnit')} />
           </div>
-          <TextField label="Passes (% of final)" name="passPercents" defaultValue={value('passPercents') ?? spec?.passPercents.join(', ') ?? '30, 70, 100'} errors={fieldErrors('passPercents')} hint="Rising, ending at 100. ASME PCC-1 (from memory) uses rounds of about 20–30, 50–70 and 100." />
+          <TextField label="Passes (% of final)" name="passPercents" defaultValue={value('passPercents') ?? spec?.passPercents.join(', ') ?? '30, 70, 100'} errors={fieldErrors('passPercents')} hint="Never going down, ending at 100; repeat a pass for a second lap at the same target. ASME PCC-1 (from memory) uses rounds of about 20–30, 50–70 and 100." />
           <SelectField label="Tightening pattern" name="patternKind" options={patternOptions} defaultValue={initial('patternKind', 'cross')} errors={fieldErrors('patternKind')} />
           <TextField label="Skip step (skip pattern only)" name="skipStep" inputMode="numeric" defaultValue={initial('skipStep')} errors={fieldErrors('skipStep')} hint="Tighten every k-th bolt, e.g. 5 on a 20-bolt ring." />
           <CheckboxField label="Check pass at 100 %" name="checkPass" defaultChecked={spec ? spec.checkPass : true} hint="Goes round clockwise after the last staged pass." />
@@ -85,9 +93,10 @@ export function SpecForm({
         </fieldset>
         <fieldset className="flex flex-col gap-4">
           <legend className="mb-2 text-lg font-bold">Pressure</legend>
-          <TextField label="Maximum bead-seating pressure" name="maxBeadSeatPressure" inputMode="decimal" required defaultValue={initial('maxBeadSeatPressure')} errors={fieldErrors('maxBeadSeatPressure')} hint="From the tire maker. Never exceed it while seating the bead." />
-          <TextField label="Running pressure" name="runningPressure" inputMode="decimal" required defaultValue={initial('runningPressure')} errors={fieldErrors('runningPressure')} />
+          <TextField label="Maximum bead-seating pressure" name="maxBeadSeatPressure" inputMode="decimal" required defaultValue={initial('maxBeadSeatPressure')} errors={fieldErrors('maxBeadSeatPressure')} hint={<FieldNote hint="From the tire maker. Never exceed it while seating the bead; above 40 psi needs the tire maker's rating below." warnings={warnings('maxBeadSeatPressure')} />} />
+          <TextField label="Running pressure" name="runningPressure" inputMode="decimal" required defaultValue={initial('runningPressure')} errors={fieldErrors('runningPressure')} hint={<FieldNote warnings={warnings('runningPressure')} />} />
           <SelectField label="Pressure unit" name="pressureUnit" options={pressureOptions} defaultValue={initial('pressureUnit', units.pressure)} errors={fieldErrors('pressureUnit')} />
+          <BeadSeatRating spec={spec} initial={initial('beadSeatRatingReference')} errors={fieldErrors('beadSeatRatingReference')} confirmErrors={fieldErrors('beadSeatRatingConfirmed')} />
         </fieldset>
         <fieldset className="flex flex-col gap-4">
           <legend className="mb-2 text-lg font-bold">Maker&apos;s spec and notes</legend>
@@ -107,3 +116,32 @@ export function SpecForm({
   );
 }
 
+
+/** The tire maker's higher bead-seat rating: its reference, and a lead's tick that they checked it. */
+function BeadSeatRating({ spec, initial, errors, confirmErrors }: { spec?: Spec; initial: string; errors?: string[]; confirmErrors?: string[] }) {
+  return (
+    <>
+      <TextField
+        label="Tire maker's higher bead-seat rating (document and page)"
+        name="beadSeatRatingReference"
+        defaultValue={initial}
+        errors={errors}
+        hint="Only for a limit above 40 psi (275.8 kPa, 2.758 bar), the tire industry's bead-seating ceiling: the tire maker's own published rating for this tire."
+      />
+      <div>
+        <CheckboxField
+          label="I am a lead and I checked this rating in the tire maker's document"
+          name="beadSeatRatingConfirmed"
+          defaultChecked={Boolean(spec?.beadSeatRatingConfirmedAt)}
+          aria-invalid={confirmErrors?.length ? true : undefined}
+          aria-describedby={confirmErrors?.length ? 'beadSeatRatingConfirmed-error' : undefined}
+        />
+        {confirmErrors?.length ? (
+          <p id="beadSeatRatingConfirmed-error" role="alert" className="text-sm font-semibold text-danger">
+            {confirmErrors.join(' ')}
+          </p>
+        ) : null}
+      </div>
+    </>
+  );
+}

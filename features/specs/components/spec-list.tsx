@@ -23,6 +23,12 @@ export function SpecList({ specs, canManage }: { specs: Spec[]; canManage: boole
               {s.boltCount} bolts {s.boltThread} · {formatTorque({ value: s.finalTorque, unit: s.torqueUnit }, 2)} · {PATTERN[s.patternKind]}
               {s.patternKind === 'skip' ? ` ${s.skipStep}` : ''} · passes {s.passPercents.join('/')} %
             </span>
+            {s.plausibilityFlag ? (
+              <span className="mt-1 rounded border-l-4 border-danger bg-danger-tint p-2 text-danger">
+                <span className="font-bold">Flagged, runner blocked: </span>
+                {s.plausibilityFlag}
+              </span>
+            ) : null}
           </Link>
         </li>
       ))}

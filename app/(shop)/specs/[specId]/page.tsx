@@ -3,6 +3,7 @@ import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { SpecForm } from '@/features/specs/components/spec-form';
 import { specToInput } from '@/features/specs/engine-check';
+import { SpecFlag } from '@/features/specs/components/spec-flag';
 import { SpecPreview } from '@/features/specs/components/spec-preview';
 import { specIdField } from '@/features/specs/schemas';
 import { getSpec } from '@/features/specs/server/specs';
@@ -30,7 +31,10 @@ export default async function SpecPage({ params }: PageProps<'/specs/[specId]'>)
       {can(member.role, 'specs.manage') ? (
         <SpecForm spec={spec} wrenches={wrenches} minFractionOfMax={minFractionOfMax} units={{ torque: settings.torqueUnit, pressure: settings.pressureUnit }} />
       ) : (
-        <SpecPreview spec={specToInput(spec)} wrenches={wrenches} minFractionOfMax={minFractionOfMax} />
+        <>
+          {spec.plausibilityFlag ? <SpecFlag reason={spec.plausibilityFlag} canFix={false} /> : null}
+          <SpecPreview spec={specToInput(spec)} wrenches={wrenches} minFractionOfMax={minFractionOfMax} />
+        </>
       )}
     </>
   );
