@@ -37,6 +37,12 @@ export function planFor(ctx: Pick<RunContext, 'spec' | 'job'>): RunnerPlan {
   };
 }
 
+/** Why the runner will not run a wheel whose spec is flagged as implausible; null when it may run. */
+export function flaggedSpecMessage(spec: Pick<RunContext['spec'], 'name' | 'plausibilityFlag'>): string | null {
+  if (!spec.plausibilityFlag) return null;
+  return `Stop: the spec "${spec.name}" is flagged and cannot be run until a lead corrects it. ${spec.plausibilityFlag}`;
+}
+
 /** Who may run this wheel: the assignee (technician or lead) or any lead; never an apprentice. */
 export function assertMayRun(member: Member, ctx: Pick<RunContext, 'job'>) {
   if (!can(member.role, 'jobs.run')) throw new DomainError('forbidden', 'Your role does not allow running job cards.');
@@ -65,7 +71,8 @@ const num = (payload: object, key: 'bolt' | 'pass') => (key in payload ? (payloa
 
 /**
  * The common case in one statement, without a transaction: insert the batch only if this member
- * may write to this wheel now (shop, in-progress job, assignee or lead, not submitted) and every
+ * may write to this wheel now (shop, in-progress job, assignee or lead, not submitted, spec not
+ * flagged) and every
  * bolt and pass of the batch is on the wheel's plan — all or nothing. Answers how many rows were
  * new; fewer than the batch (a replay, a refusal) sends the caller to the explaining path.
  */
@@ -77,6 +84,7 @@ async function insertIfAllowed(member: Member, wheelId: string, events: ClientEv
       select w.id, w.job_id, s.bolt_count, jsonb_array_length(s.pass_fractions) + (case when s.check_pass then 1 else 0 end) as passes
       from ${jobWheels} w join ${jobs} j on j.id = w.job_id join ${wheelSpecs} s on s.id = w.spec_id
       where w.id = ${wheelId} and w.shop_id = ${member.shopId} and j.state = 'in_progress' and w.submitted_at is null
+        and s.plausibility_flag is null
         and (${member.role} = 'lead' or j.assignee_id = ${member.userId})
     ),
     ok as (
@@ -111,6 +119,8 @@ export async function saveRunEvents(member: Member, wheelId: string, batch: Clie
   assertMayRun(member, ctx);
   if (ctx.job.state !== 'in_progress') throw new JobNotStartedError(ctx.job.id, ctx.job.state);
   if (ctx.wheel.submittedAt) throw new DomainError('conflict', 'This wheel was submitted; its record is closed.');
+  const flagged = flaggedSpecMessage(ctx.spec);
+  if (flagged) throw new DomainError('conflict', flagged);
   const plan = planFor(ctx);
   const refused: PlanRefusal[] = [];
   const events = batch.filter((e) => {
