@@ -15,6 +15,7 @@ vi.mock('next/navigation', () => ({
 }));
 
 const { Board } = await import('@/features/jobs/components/board');
+const { ShopTimeZoneProvider } = await import('@/features/ui/shop-time-zone');
 
 const row = { id: 'j1', number: 1042, state: 'in_progress', customer: 'Wren Halloway', vehicle: '2022 Talonworks Ridgeback', wheelCount: 4, assignee: { id: 't1', name: 'Theo Tech' }, dueAt: '2030-01-01T10:00:00.000Z', updatedAt: '2030-01-01T09:00:00.000Z' };
 const fetchMock = vi.fn(async (url: string) => {
@@ -22,12 +23,14 @@ const fetchMock = vi.fn(async (url: string) => {
   return new Response(JSON.stringify({ data: empty ? [] : [row], page: 1, pageSize: 25, total: empty ? 0 : 1 }), { status: 200 });
 });
 
-function renderBoard(props: Partial<Parameters<typeof Board>[0]> = {}) {
+function renderBoard(props: Partial<Parameters<typeof Board>[0]> = {}, timeZone = 'America/Denver') {
   const client = new QueryClient({ defaultOptions: { queries: { retry: false } } });
   return render(
-    <QueryClientProvider client={client}>
-      <Board people={[{ id: 't1', name: 'Theo Tech' }]} canCreate {...props} />
-    </QueryClientProvider>,
+    <ShopTimeZoneProvider timeZone={timeZone}>
+      <QueryClientProvider client={client}>
+        <Board people={[{ id: 't1', name: 'Theo Tech' }]} canCreate {...props} />
+      </QueryClientProvider>
+    </ShopTimeZoneProvider>,
   );
 }
 
@@ -40,6 +43,16 @@ beforeEach(() => {
 afterEach(() => vi.unstubAllGlobals());
 
 describe('Board', () => {
+  it("shows the due time on the shop's clock, whatever zone the browser is in", async () => {
+    const view = renderBoard();
+    const row = await screen.findByRole('row', { name: /Wren Halloway/ });
+    expect(row).toHaveTextContent('Jan 1, 2030, 3:00 AM'); // 10:00 UTC is 03:00 MST
+    expect(row).not.toHaveTextContent(/UTC|GMT/);
+    view.unmount();
+    renderBoard({}, 'Europe/Berlin');
+    expect(await screen.findByRole('row', { name: /Wren Halloway/ })).toHaveTextContent('Jan 1, 2030, 11:00 AM');
+  });
+
   it('shows the jobs the API returns, with a link to each card', async () => {
     renderBoard();
     expect(await screen.findByRole('link', { name: '#1042' })).toHaveAttribute('href', '/jobs/j1');
@@ -53,9 +66,11 @@ describe('Board', () => {
     await userEvent.selectOptions(screen.getByLabelText('State'), 'awaiting_signoff');
     expect(replace).toHaveBeenLastCalledWith('/board?state=awaiting_signoff', { scroll: false });
     view.rerender(
-      <QueryClientProvider client={new QueryClient()}>
-        <Board people={[{ id: 't1', name: 'Theo Tech' }]} canCreate />
-      </QueryClientProvider>,
+      <ShopTimeZoneProvider timeZone="America/Denver">
+        <QueryClientProvider client={new QueryClient()}>
+          <Board people={[{ id: 't1', name: 'Theo Tech' }]} canCreate />
+        </QueryClientProvider>
+      </ShopTimeZoneProvider>,
     );
     await waitFor(() => expect(fetchMock.mock.calls.some(([u]) => String(u) === '/api/jobs?state=awaiting_signoff')).toBe(true));
     await userEvent.selectOptions(screen.getByLabelText('Due'), 'overdue');
