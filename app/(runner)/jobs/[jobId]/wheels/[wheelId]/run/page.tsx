@@ -3,7 +3,8 @@ import { forbidden, notFound } from 'next/navigation';
 import { ids } from '@/features/jobs/schemas';
 import { Runner } from '@/features/runner/components/runner';
 import { listPhotos } from '@/features/runner/server/photo-router';
-import { assertMayRun, listEvents, loadWheel, planFor } from '@/features/runner/server/run';
+import { RunnerBlocked } from '@/features/runner/components/runner-blocked';
+import { assertMayRun, flaggedSpecMessage, listEvents, loadWheel, planFor } from '@/features/runner/server/run';
 import { recentPassingVerifications, wrenchesForEngine } from '@/features/tool-crib/server/wrenches';
 import { formatTorque, passPlan } from '@/features/torque-plan';
 import { requireMember } from '@/server/auth/guard';
@@ -29,6 +30,8 @@ export default async function RunPage({ params }: PageProps<'/jobs/[jobId]/wheel
     if (error instanceof DomainError && error.code === 'forbidden') forbidden();
     throw error;
   }
+  const flagged = flaggedSpecMessage(ctx.spec);
+  if (flagged) return <RunnerBlocked jobId={ctx.job.id} jobNumber={ctx.job.number} specId={ctx.spec.id} message={flagged} />;
   const { spec, wheel } = ctx;
   const settings = await getShopSettings(member.shopId);
   const { verification } = settings;
