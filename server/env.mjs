@@ -17,6 +17,8 @@ const schema = z.object({
   SMTP_URL: z.string().regex(/^smtps?:\/\//, 'must be an smtp:// or smtps:// URL'),
   MAIL_FROM: z.string().min(3).default('Ringpass <no-reply@ringpass.test>'),
   MAILBOX_DIR: z.string().min(1).optional(),
+  // The Mailbox on a production server only for a demo (npm start sets it); it then shows a banner.
+  MAILBOX_DEMO: bool.optional(),
   COOKIE_SECURE: bool.optional(),
   SESSION_ABSOLUTE_HOURS: z.coerce.number().int().min(1).max(24 * 90).default(24 * 14),
   INVITE_TTL_HOURS: z.coerce.number().int().min(1).max(24 * 30).default(72),

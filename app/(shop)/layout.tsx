@@ -3,6 +3,7 @@ import { ShopHeader } from '@/features/accounts/components/shop-header';
 import { getShopName } from '@/features/accounts/server/shop';
 import { ShopTimeZoneProvider } from '@/features/ui/shop-time-zone';
 import { requireMember } from '@/server/auth/guard';
+import { can } from '@/server/auth/permissions';
 import { mailboxEnabled } from '@/server/mail/mailbox';
 import { getShopSettings } from '@/server/shop/settings';
 
@@ -13,7 +14,7 @@ export default async function ShopLayout({ children }: { children: ReactNode }) 
   const [shopName, settings] = await Promise.all([getShopName(member.shopId), getShopSettings(member.shopId)]);
   return (
     <ShopTimeZoneProvider timeZone={settings.timeZone}>
-      <ShopHeader member={member} shopName={shopName} mailbox={mailboxEnabled()} />
+      <ShopHeader member={member} shopName={shopName} mailbox={mailboxEnabled() && can(member.role, 'team.manage')} />
       <main className="mx-auto w-full max-w-5xl p-4">{children}</main>
     </ShopTimeZoneProvider>
   );

@@ -1,7 +1,8 @@
 /**
  * A local SMTP sink for development and tests: accepts every message on 127.0.0.1 and stores it
- * as JSON in a folder that the development-only Mailbox page reads. Runs as part of the start
- * script and the test setup; the app talks to it through nodemailer exactly as to a real relay.
+ * as JSON in a folder that the development-only Mailbox page reads (each lead sees the mails whose
+ * X-Ringpass-Shop header names their shop). Runs as part of the start script and the test setup;
+ * the app talks to it through nodemailer exactly as to a real relay.
  * (server/dev/ holds processes, not app modules, so these files do not import 'server-only'.)
  */
 import { randomUUID } from 'node:crypto';
@@ -9,6 +10,10 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { simpleParser } from 'mailparser';
 import { SMTPServer } from 'smtp-server';
+
+// Lower case: mailparser keys its header map so. Same value as SHOP_HEADER in server/mail/mailer.ts.
+const SHOP_HEADER = 'x-ringpass-shop';
+const shopOf = (value: unknown) => (typeof value === 'string' && /^[0-9a-f-]{36}$/i.test(value.trim()) ? value.trim() : null);
 
 export type MailSink = { port: number; close: () => Promise<void> };
 
@@ -30,6 +35,7 @@ export async function startMailSink(options: { port: number; dir: string }): Pro
             to: session.envelope.rcptTo.map((r) => r.address),
             subject: mail.subject ?? '',
             text: mail.text ?? '',
+            shopId: shopOf(mail.headers.get(SHOP_HEADER)),
           };
           // Name sorts by time so the Mailbox can list newest first without reading every file.
           const name = `${receivedAt.replace(/[:.]/g, '-')}-${id}.json`;

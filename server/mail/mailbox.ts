@@ -11,14 +11,29 @@ export type SinkMessage = {
   to: string[];
   subject: string;
   text: string;
+  /** The shop the app tied the mail to (its X-Ringpass-Shop header); null when none. */
+  shopId: string | null;
 };
 
-/** The Mailbox exists only while mail goes to the local sink (MAILBOX_DIR set). */
+/**
+ * The Mailbox exists only while mail goes to the local sink (MAILBOX_DIR set), and never on a
+ * production server unless MAILBOX_DEMO=true says it is a demonstration: its invite links would
+ * let anyone who reads them join a shop.
+ */
 export function mailboxEnabled(): boolean {
-  return Boolean(env().MAILBOX_DIR);
+  const { MAILBOX_DIR, NODE_ENV, MAILBOX_DEMO } = env();
+  return Boolean(MAILBOX_DIR) && (NODE_ENV !== 'production' || MAILBOX_DEMO === true);
 }
 
-export async function listSinkMessages(limit = 100): Promise<SinkMessage[]> {
+/** A production server showing the Mailbox for a demo: the page says so in a banner. */
+export function mailboxIsDemo(): boolean {
+  return mailboxEnabled() && env().NODE_ENV === 'production';
+}
+
+const SCAN_LIMIT = 2000;
+
+/** The newest mails the app tied to this shop, newest first. */
+export async function listShopMail(shopId: string, limit = 100): Promise<SinkMessage[]> {
   const dir = env().MAILBOX_DIR;
   if (!dir) return [];
   let names: string[];
@@ -27,9 +42,13 @@ export async function listSinkMessages(limit = 100): Promise<SinkMessage[]> {
   } catch {
     return [];
   }
+  // File names sort by time (the sink names them so); read newest first until the page is full.
   names.sort().reverse();
-  const messages = await Promise.all(
-    names.slice(0, limit).map(async (n) => JSON.parse(await readFile(path.join(dir, n), 'utf8')) as SinkMessage),
-  );
-  return messages;
+  const found: SinkMessage[] = [];
+  for (const name of names.slice(0, SCAN_LIMIT)) {
+    const message = JSON.parse(await readFile(path.join(dir, name), 'utf8')) as Partial<SinkMessage>;
+    if (message.shopId === shopId) found.push(message as SinkMessage);
+    if (found.length >= limit) break;
+  }
+  return found;
 }

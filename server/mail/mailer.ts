@@ -2,7 +2,14 @@ import 'server-only';
 import nodemailer, { type Transporter } from 'nodemailer';
 import { env } from '@/server/env.mjs';
 
-export type OutgoingMail = { to: string; subject: string; text: string; html: string };
+/** The header that ties a mail to its shop, so the development Mailbox shows a lead only their own. */
+export const SHOP_HEADER = 'X-Ringpass-Shop';
+
+/**
+ * Every mail names the shop it concerns: an invite its inviting shop, a notice about an account
+ * that account's shop. `null` only for mail that concerns no shop; the Mailbox shows it nowhere.
+ */
+export type OutgoingMail = { to: string; subject: string; text: string; html: string; shopId: string | null };
 
 // SMTP_URL points at the local sink in development and tests and at the real relay in
 // production; the code path is the same.
@@ -12,6 +19,6 @@ function getTransport() {
   return transport;
 }
 
-export async function sendMail(mail: OutgoingMail): Promise<void> {
-  await getTransport().sendMail({ from: env().MAIL_FROM, ...mail });
+export async function sendMail({ shopId, ...mail }: OutgoingMail): Promise<void> {
+  await getTransport().sendMail({ from: env().MAIL_FROM, ...mail, headers: shopId ? { [SHOP_HEADER]: shopId } : {} });
 }

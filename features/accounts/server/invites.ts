@@ -48,7 +48,7 @@ export async function createInvite(actor: Member, input: InviteInput): Promise<P
   const [[shop], { timeZone }] = await Promise.all([db.select({ name: shops.name }).from(shops).where(eq(shops.id, actor.shopId)), getShopSettings(actor.shopId)]);
   const link = new URL(`/invite/${token}`, env().APP_URL).toString();
   try {
-    await sendMail({ to: input.email, ...inviteMail({ shopName: shop?.name ?? 'your shop', inviterName: actor.name, role: input.role, link, expiresAt, timeZone }) });
+    await sendMail({ to: input.email, shopId: actor.shopId, ...inviteMail({ shopName: shop?.name ?? 'your shop', inviterName: actor.name, role: input.role, link, expiresAt, timeZone }) });
   } catch (error) {
     console.error('[invite] mail failed', error);
     await db.delete(invites).where(eq(invites.id, invite.id));

@@ -1,4 +1,3 @@
-import Link from 'next/link';
 import type { ReactNode } from 'react';
 import { ShopTime } from '@/features/ui/shop-time-zone';
 import type { SinkMessage } from '@/server/mail/mailbox';
@@ -16,15 +15,22 @@ function linkify(text: string): ReactNode[] {
   );
 }
 
-export function MailboxList({ messages }: { messages: SinkMessage[] }) {
+/** The shop's mail from the local sink; `demo` when a production server shows it for a demonstration. */
+export function MailboxList({ messages, demo }: { messages: SinkMessage[]; demo: boolean }) {
   return (
-    <main className="mx-auto w-full max-w-3xl p-4">
-      <Link href="/board" className="inline-flex min-h-touch items-center font-semibold text-work underline">
-        ← Back to Ringpass
-      </Link>
-      <h1 className="text-2xl font-bold">Mailbox</h1>
-      <p className="mb-6 rounded-lg border-2 border-caution bg-caution-tint p-3 text-caution-ink">
-        Development only: every e-mail the app sent to the local mail sink, newest first. Nothing here was delivered.
+    <section className="mx-auto w-full max-w-3xl" aria-labelledby="mailbox-heading">
+      <h1 id="mailbox-heading" className="text-2xl font-bold">
+        Mailbox
+      </h1>
+      {demo ? (
+        <p className="mt-2 rounded-lg border-2 border-danger bg-danger-tint p-3 font-semibold text-danger">
+          Demo server: this Mailbox is switched on (MAILBOX_DEMO) and no mail leaves this machine. Never run a shop&apos;s
+          real work on it.
+        </p>
+      ) : null}
+      <p className="mb-6 mt-2 rounded-lg border-2 border-caution bg-caution-tint p-3 text-caution-ink">
+        Development only: the e-mails the app sent for this shop to the local mail sink, newest first. Nothing here was
+        delivered.
       </p>
       {messages.length === 0 ? (
         <p>No e-mail sent yet. Invite someone from the Team page and it shows up here.</p>
@@ -43,6 +49,6 @@ export function MailboxList({ messages }: { messages: SinkMessage[] }) {
           ))}
         </ol>
       )}
-    </main>
+    </section>
   );
 }
