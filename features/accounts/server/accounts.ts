@@ -3,7 +3,7 @@ import { eq } from 'drizzle-orm';
 import { getDb } from '@/db';
 import { shops, users } from '@/db/schema';
 import { burnPasswordCheck, hashPassword, verifyPassword } from '@/server/auth/password';
-import { clearAccountFailures, recordFailure, retryAfterMinutes } from '@/server/auth/throttle';
+import { accountDelayMs, accountFailures, recordFailure, recordSuccess, reserveAttempt } from '@/server/auth/throttle';
 import { DomainError } from '@/server/errors';
 import type { SignInInput, SignUpInput } from '../schemas';
 
@@ -36,18 +36,22 @@ export async function createShopWithLead(input: SignUpInput): Promise<{ userId: 
 const WRONG = 'Wrong e-mail or password.';
 
 /**
- * Checks a password with throttling per account and per address. The same message for an unknown
- * address and a wrong password, and the same time spent, so sign-in does not reveal accounts.
+ * Checks a password with throttling per account and address (see server/auth/throttle.ts). The
+ * same message for an unknown address and a wrong password, and the same time spent, so sign-in
+ * does not reveal accounts.
  */
 export async function authenticate(input: SignInInput, address: string): Promise<{ userId: string }> {
   const keys = { account: input.email, address };
-  const wait = await retryAfterMinutes(keys);
+  const wait = await reserveAttempt(keys);
   if (wait > 0) {
     throw new DomainError(
       'rate_limited',
       `Too many failed sign-ins. Try again later (in about ${wait} minute${wait === 1 ? '' : 's'}).`,
     );
   }
+  // Many failures on this account from anywhere: answer slowly rather than lock the owner out.
+  const delay = accountDelayMs(await accountFailures(input.email));
+  if (delay > 0) await new Promise((resolve) => setTimeout(resolve, delay));
   const [user] = await getDb()
     .select({ id: users.id, passwordHash: users.passwordHash, removedAt: users.removedAt })
     .from(users)
@@ -57,6 +61,6 @@ export async function authenticate(input: SignInInput, address: string): Promise
     await recordFailure(keys);
     throw new DomainError('unauthenticated', WRONG);
   }
-  await clearAccountFailures(input.email);
+  await recordSuccess(keys);
   return { userId: user.id };
 }

@@ -6,6 +6,7 @@ import { sessions, users } from '@/db/schema';
 import { signIn } from '@/features/accounts/actions/sign-in';
 import { signUp } from '@/features/accounts/actions/sign-up';
 import { createSessionCookie, validateSessionId } from '@/server/auth/session';
+import { accountDelayMs } from '@/server/auth/throttle';
 import { createTestShop, PASSWORD } from '@/tests/helpers/factories';
 import { cookieAttributes, cookieValue, resetNextRequest, setRequestAddress } from '@/tests/helpers/next-request';
 
@@ -66,15 +67,41 @@ describe('sign-in', () => {
     expect(cookieValue(SESSION)).toBeUndefined();
   });
 
-  it('refuses the sixth wrong password in a row with "try again later", even from a new address, and even with the right password', async () => {
+  it('refuses the sixth wrong password from one address, even with the right password; the owner elsewhere still gets in, only slowed', async () => {
     const shop = await createTestShop();
+    resetNextRequest('198.51.100.11');
     for (let i = 1; i <= 5; i++) {
-      setRequestAddress(`198.51.100.${10 + i}`);
       expect(await signIn(null, { email: shop.lead.email, password: `wrong-${i}` })).toMatchObject({ message: 'Wrong e-mail or password.' });
     }
-    setRequestAddress('198.51.100.99');
-    expect(await signIn(null, { email: shop.lead.email, password: 'wrong-6' })).toMatchObject({ ok: false, message: expect.stringMatching(/Try again later/) });
+    expect(await signIn(null, { email: shop.lead.email, password: 'wrong-6' })).toMatchObject({ ok: false, code: 'rate_limited', message: expect.stringMatching(/Try again later/) });
     expect(await signIn(null, { email: shop.lead.email, password: PASSWORD })).toMatchObject({ ok: false, message: expect.stringMatching(/Try again later/) });
+
+    setRequestAddress('198.51.100.99');
+    const started = Date.now();
+    await expectRedirect(signIn(null, { email: shop.lead.email, password: PASSWORD }), '/board');
+    expect(Date.now() - started).toBeGreaterThanOrEqual(accountDelayMs(5) - 10);
+  });
+
+  it('a parallel burst of 20 wrong passwords from one address gets at most 5 answered', async () => {
+    const shop = await createTestShop();
+    resetNextRequest('198.51.100.40');
+    const results = await Promise.all(Array.from({ length: 20 }, (_, i) => signIn(null, { email: shop.technician.email, password: `burst-${i}` })));
+    const checked = results.filter((r) => (r as { message?: string }).message === 'Wrong e-mail or password.');
+    const refused = results.filter((r) => /Try again later/.test((r as { message?: string }).message ?? ''));
+    expect(checked.length).toBeLessThanOrEqual(5);
+    expect(checked.length + refused.length).toBe(20);
+  });
+
+  it('wrong passwords for one account from many addresses slow it down but never lock it', async () => {
+    const shop = await createTestShop();
+    for (let i = 1; i <= 7; i++) {
+      resetNextRequest(`198.51.100.${60 + i}`);
+      expect(await signIn(null, { email: shop.apprentice.email, password: `spray-${i}` })).toMatchObject({ message: 'Wrong e-mail or password.' });
+    }
+    resetNextRequest('198.51.100.90');
+    const started = Date.now();
+    await expectRedirect(signIn(null, { email: shop.apprentice.email, password: PASSWORD }), '/board');
+    expect(Date.now() - started).toBeGreaterThanOrEqual(accountDelayMs(7) - 10);
   });
 
   it('a success ends the run of failures', async () => {
