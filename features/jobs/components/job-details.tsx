@@ -62,6 +62,11 @@ export function JobDetails({ job, canRun = false, photos = {} }: { job: JobCard;
                   ✓ Submitted <ShopTime when={w.submittedAt} />
                 </p>
               ) : null}
+              {w.specFlag ? (
+                <p role="alert" className="mt-1 rounded border-l-4 border-danger bg-danger-tint p-2 font-semibold text-danger">
+                  ■ This wheel&apos;s spec is flagged; the runner will not start it until a lead corrects the spec: {w.specFlag}
+                </p>
+              ) : null}
               {w.flaggedReason ? (
                 <p role="alert" className="mt-1 rounded border-l-4 border-danger bg-danger-tint p-2 font-semibold text-danger">
                   ■ Inspection failed, parts needed: {w.flaggedReason}

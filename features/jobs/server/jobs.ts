@@ -9,7 +9,8 @@ import { axleWarnings, tireSizeErrors } from '../axle-check';
 import type { JobInput, JobStateName, WheelInput } from '../schemas';
 import { createCustomer, createVehicle, getCustomer, getVehicle, vehicleLabel, type Customer, type Vehicle } from './customers';
 
-export type JobWheel = WheelInput & { id: string; specName: string; submittedAt: string | null; flaggedReason: string | null };
+/** `specFlag`: why the wheel's spec fails the plausibility rules (the runner will not run it), else null. */
+export type JobWheel = WheelInput & { id: string; specName: string; specFlag: string | null; submittedAt: string | null; flaggedReason: string | null };
 export type JobCard = {
   id: string;
   number: number;
@@ -33,6 +34,7 @@ const wheelColumns = {
   position: jobWheels.position,
   specId: jobWheels.specId,
   specName: wheelSpecs.name,
+  specFlag: wheelSpecs.plausibilityFlag,
   tireSize: jobWheels.tireSize,
   directional: jobWheels.directional,
   targetPressure: jobWheels.targetPressure,
