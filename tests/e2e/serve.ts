@@ -29,6 +29,8 @@ async function main() {
     APP_URL: `http://127.0.0.1:${E2E.appPort}`,
     SMTP_URL: `smtp://127.0.0.1:${E2E.sink.port}`,
     MAILBOX_DIR: E2E.sink.dir,
+    // A production build: the Mailbox, through which the tests read mail as a lead, needs the demo flag.
+    MAILBOX_DEMO: 'true',
     COOKIE_SECURE: 'false',
     ...uploads.env,
   };
