@@ -21,6 +21,7 @@ export function ShopHeader({ member, shopName, mailbox }: { member: Member; shop
           {can(member.role, 'team.manage') ? (
             <NavLink href="/team">Team</NavLink>
           ) : null}
+          {can(member.role, 'shop.settings') ? <NavLink href="/settings">Settings</NavLink> : null}
           {mailbox ? (
             <NavLink href="/mailbox">Mailbox</NavLink>
           ) : null}
