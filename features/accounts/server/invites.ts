@@ -1,6 +1,6 @@
 import 'server-only';
 import { createHash, randomBytes } from 'node:crypto';
-import { and, desc, eq, gt, isNull, sql } from 'drizzle-orm';
+import { and, desc, eq, gt, isNull, ne, sql } from 'drizzle-orm';
 import { getDb } from '@/db';
 import { invites, shops, users, type Role } from '@/db/schema';
 import { hashPassword } from '@/server/auth/password';
@@ -11,6 +11,7 @@ import { sendMail } from '@/server/mail/mailer';
 import { getShopSettings } from '@/server/shop/settings';
 import type { AcceptInviteInput, InviteInput } from '../schemas';
 import { inviteMail } from './invite-mail';
+import { inviteToExistingAccountMail } from './notice-mail';
 
 export type PendingInvite = { id: string; email: string; role: Role; expiresAt: string };
 
@@ -24,37 +25,44 @@ const usable = () =>
 
 /**
  * Creates an invite and e-mails its link. A newer invite to the same address replaces the older
- * one. If the e-mail cannot be sent the invite is removed again, so nothing half-done remains.
+ * one, but only once its e-mail is accepted by the mail server: if the mail fails, the new invite
+ * is removed and the older one still works, so the person is never left without a working link.
+ *
+ * An address that already has an account gets the same answer as any other (the lead must not
+ * learn who has an account): an invite row that no link points to, and the address's owner gets a
+ * notice instead of a link.
  */
 export async function createInvite(actor: Member, input: InviteInput): Promise<PendingInvite> {
   const db = getDb();
-  const [existing] = await db.select({ id: users.id }).from(users).where(eq(users.email, input.email));
-  if (existing) throw new DomainError('conflict', HAS_ACCOUNT, { email: [HAS_ACCOUNT] });
+  const [existing] = await db.select({ shopId: users.shopId }).from(users).where(eq(users.email, input.email));
 
   const token = randomBytes(32).toString('base64url');
   const expiresAt = new Date(Date.now() + env().INVITE_TTL_HOURS * 3_600_000);
-  const invite = await db.transaction(async (tx) => {
-    await tx
-      .update(invites)
-      .set({ revokedAt: new Date() })
-      .where(and(eq(invites.shopId, actor.shopId), eq(invites.email, input.email), usable()));
-    const [row] = await tx
-      .insert(invites)
-      .values({ shopId: actor.shopId, email: input.email, role: input.role, tokenHash: hashToken(token), invitedById: actor.userId, expiresAt })
-      .returning({ id: invites.id });
-    return row!;
-  });
+  const [invite] = await db
+    .insert(invites)
+    .values({ shopId: actor.shopId, email: input.email, role: input.role, tokenHash: hashToken(token), invitedById: actor.userId, expiresAt })
+    .returning({ id: invites.id });
 
   const [[shop], { timeZone }] = await Promise.all([db.select({ name: shops.name }).from(shops).where(eq(shops.id, actor.shopId)), getShopSettings(actor.shopId)]);
+  const shopName = shop?.name ?? 'your shop';
   const link = new URL(`/invite/${token}`, env().APP_URL).toString();
   try {
-    await sendMail({ to: input.email, shopId: actor.shopId, ...inviteMail({ shopName: shop?.name ?? 'your shop', inviterName: actor.name, role: input.role, link, expiresAt, timeZone }) });
+    if (existing) {
+      // The notice belongs to the owner's shop, so the inviting lead's Mailbox never shows it.
+      await sendMail({ to: input.email, shopId: existing.shopId, ...inviteToExistingAccountMail({ shopName, inviterName: actor.name }) });
+    } else {
+      await sendMail({ to: input.email, shopId: actor.shopId, ...inviteMail({ shopName, inviterName: actor.name, role: input.role, link, expiresAt, timeZone }) });
+    }
   } catch (error) {
     console.error('[invite] mail failed', error);
-    await db.delete(invites).where(eq(invites.id, invite.id));
+    await db.delete(invites).where(eq(invites.id, invite!.id));
     throw new DomainError('invalid', 'The invite e-mail could not be sent, so no invite was created. Try again in a moment.');
   }
-  return { id: invite.id, email: input.email, role: input.role, expiresAt: expiresAt.toISOString() };
+  await db
+    .update(invites)
+    .set({ revokedAt: new Date() })
+    .where(and(eq(invites.shopId, actor.shopId), eq(invites.email, input.email), ne(invites.id, invite!.id), usable()));
+  return { id: invite!.id, email: input.email, role: input.role, expiresAt: expiresAt.toISOString() };
 }
 
 export async function listPendingInvites(shopId: string): Promise<PendingInvite[]> {

@@ -1,7 +1,7 @@
 import 'server-only';
-import { and, asc, count, eq, isNull } from 'drizzle-orm';
+import { and, asc, eq, isNull } from 'drizzle-orm';
 import { getDb } from '@/db';
-import { users, type Role } from '@/db/schema';
+import { invites, users, type Role } from '@/db/schema';
 import { endAllSessionsOf, type Member } from '@/server/auth/session';
 import { DomainError, notFound } from '@/server/errors';
 
@@ -40,27 +40,50 @@ export async function getTeamMember(shopId: string, memberId: string): Promise<T
   return toDto(row);
 }
 
-async function leadCount(shopId: string): Promise<number> {
-  const [row] = await getDb()
-    .select({ n: count() })
+const LAST_LEAD = 'A shop needs at least one lead. Make someone else a lead first.';
+
+type Tx = Parameters<Parameters<ReturnType<typeof getDb>['transaction']>[0]>[0];
+
+/**
+ * Locks the shop's current leads (FOR UPDATE) and says whether one other than `memberId` stays.
+ * Two leads demoted or removed at once both wait here; the second sees the first's change and
+ * is refused, so a shop is never left without a lead.
+ */
+async function anotherLeadRemains(tx: Tx, shopId: string, memberId: string): Promise<boolean> {
+  const leads = await tx
+    .select({ id: users.id })
     .from(users)
-    .where(and(active(shopId), eq(users.role, 'lead')));
-  return row?.n ?? 0;
+    .where(and(active(shopId), eq(users.role, 'lead')))
+    .orderBy(asc(users.id))
+    .for('update');
+  return leads.some((l) => l.id !== memberId);
 }
 
-const LAST_LEAD = 'A shop needs at least one lead. Make someone else a lead first.';
+/** A lead's pending invites go with their rights: removed or no longer a lead, they stop working. */
+async function revokeInvitesSentBy(tx: Tx, shopId: string, memberId: string) {
+  await tx
+    .update(invites)
+    .set({ revokedAt: new Date() })
+    .where(and(eq(invites.shopId, shopId), eq(invites.invitedById, memberId), isNull(invites.acceptedAt), isNull(invites.revokedAt)));
+}
 
 /** Changes a role and ends that person's sessions, so the new role applies from their next sign-in. */
 export async function changeRole(actor: Member, memberId: string, role: Role): Promise<TeamMember> {
   const target = await getTeamMember(actor.shopId, memberId);
   if (target.role === role) return target;
-  if (target.role === 'lead' && (await leadCount(actor.shopId)) <= 1) {
-    throw new DomainError('conflict', LAST_LEAD, { role: [LAST_LEAD] });
-  }
-  await getDb()
-    .update(users)
-    .set({ role })
-    .where(and(active(actor.shopId), eq(users.id, memberId)));
+  await getDb().transaction(async (tx) => {
+    if (target.role === 'lead' && !(await anotherLeadRemains(tx, actor.shopId, memberId))) {
+      throw new DomainError('conflict', LAST_LEAD, { role: [LAST_LEAD] });
+    }
+    // Only from the role we read: a change made meanwhile wins and this one is told.
+    const changed = await tx
+      .update(users)
+      .set({ role })
+      .where(and(active(actor.shopId), eq(users.id, memberId), eq(users.role, target.role)))
+      .returning({ id: users.id });
+    if (!changed.length) throw new DomainError('conflict', 'This member changed meanwhile; reload and try again.');
+    if (target.role === 'lead') await revokeInvitesSentBy(tx, actor.shopId, memberId);
+  });
   await endAllSessionsOf(memberId);
   return { ...target, role };
 }
@@ -71,10 +94,15 @@ export async function removeMember(actor: Member, memberId: string): Promise<voi
   if (target.id === actor.userId) {
     throw new DomainError('conflict', 'You cannot remove yourself. Ask another lead to do it.');
   }
-  if (target.role === 'lead' && (await leadCount(actor.shopId)) <= 1) throw new DomainError('conflict', LAST_LEAD);
-  await getDb()
-    .update(users)
-    .set({ removedAt: new Date() })
-    .where(and(active(actor.shopId), eq(users.id, memberId)));
+  await getDb().transaction(async (tx) => {
+    if (target.role === 'lead' && !(await anotherLeadRemains(tx, actor.shopId, memberId))) throw new DomainError('conflict', LAST_LEAD);
+    const removed = await tx
+      .update(users)
+      .set({ removedAt: new Date() })
+      .where(and(active(actor.shopId), eq(users.id, memberId)))
+      .returning({ id: users.id });
+    if (!removed.length) throw notFound('That team member');
+    await revokeInvitesSentBy(tx, actor.shopId, memberId);
+  });
   await endAllSessionsOf(memberId);
 }

@@ -1,4 +1,4 @@
-import { eq } from 'drizzle-orm';
+import { and, eq, isNull } from 'drizzle-orm';
 import { describe, expect, it } from 'vitest';
 import { getDb } from '@/db';
 import { invites, users } from '@/db/schema';
@@ -8,6 +8,7 @@ import { inviteMember } from '@/features/accounts/actions/invite-member';
 import { removeTeamMember } from '@/features/accounts/actions/remove-member';
 import { revokeTeamInvite } from '@/features/accounts/actions/revoke-invite';
 import { findUsableInvite } from '@/features/accounts/server/invites';
+import { removeMember } from '@/features/accounts/server/team';
 import { createSessionCookie, validateSessionId } from '@/server/auth/session';
 import { createTestShop } from '@/tests/helpers/factories';
 import { inviteToken, waitForMail } from '@/tests/helpers/mailbox';
@@ -75,11 +76,21 @@ describe('invites', () => {
     });
   });
 
-  it('an address that already has an account cannot be invited', async () => {
-    const shop = await createTestShop();
+  it('an address that already has an account gets the same answer as a new one; its owner is told by e-mail and gets no link', async () => {
+    const shop = await createTestShop('Asking Shop');
     const other = await createTestShop('Other');
     await actAs(shop.lead.userId);
-    expect(await inviteMember(null, { email: other.technician.email, role: 'technician' })).toMatchObject({ ok: false, fieldErrors: { email: [expect.stringMatching(/already has a Ringpass account/)] } });
+    const taken = await inviteMember(null, { email: other.technician.email, role: 'technician' });
+    const fresh = await inviteMember(null, { email: 'fresh-face@example.test', role: 'technician' });
+    const shape = (r: typeof taken) => (r.ok ? { ok: r.ok, keys: Object.keys(r.data).sort(), role: r.data.role, message: r.message } : r);
+    expect(shape(taken)).toEqual(shape(fresh));
+    expect(taken).toMatchObject({ ok: true, data: { email: other.technician.email } });
+
+    const notice = await waitForMail(INTEGRATION_SINK.dir, other.technician.email);
+    expect(notice.subject).toBe('Lena Lead tried to invite you to Asking Shop on Ringpass');
+    expect(notice.text).toMatch(/already has a Ringpass account/);
+    expect(inviteToken(notice)).toBe('');
+    expect(notice.shopId).toBe(other.shopId); // never in the inviting shop's Mailbox
   });
 });
 
@@ -114,5 +125,43 @@ describe('roles and removal', () => {
     await actAs(shop.lead.userId);
     await expect(removeTeamMember(null, { memberId: shop.apprentice.userId })).rejects.toMatchObject({ digest: expect.stringContaining('/team') });
     expect(await validateSessionId(session.value)).toBeNull();
+  });
+
+  it('two leads demoted at once: one is refused, the shop keeps a lead', async () => {
+    const shop = await createTestShop();
+    await getDb().update(users).set({ role: 'lead' }).where(eq(users.id, shop.technician.userId));
+    await actAs(shop.lead.userId);
+    const results = await Promise.all([
+      changeMemberRole(null, { memberId: shop.lead.userId, role: 'technician' }),
+      changeMemberRole(null, { memberId: shop.technician.userId, role: 'technician' }),
+    ]);
+    expect(results.filter((r) => r.ok)).toHaveLength(1);
+    expect(results.filter((r) => !r.ok)).toEqual([expect.objectContaining({ message: expect.stringMatching(/at least one lead/) })]);
+    expect(await getDb().$count(users, and(eq(users.shopId, shop.shopId), eq(users.role, 'lead')))).toBe(1);
+  });
+
+  it('two leads removing each other at once: one is refused, the shop keeps a lead', async () => {
+    const shop = await createTestShop();
+    await getDb().update(users).set({ role: 'lead' }).where(eq(users.id, shop.technician.userId));
+    const secondLead = { ...shop.technician, role: 'lead' as const };
+    const results = await Promise.allSettled([removeMember(shop.lead, secondLead.userId), removeMember(secondLead, shop.lead.userId)]);
+    expect(results.filter((r) => r.status === 'fulfilled')).toHaveLength(1);
+    expect(results.filter((r) => r.status === 'rejected')).toEqual([expect.objectContaining({ reason: expect.objectContaining({ message: expect.stringMatching(/at least one lead/) }) })]);
+    expect(await getDb().$count(users, and(eq(users.shopId, shop.shopId), eq(users.role, 'lead'), isNull(users.removedAt)))).toBe(1);
+  });
+
+  it('removing a lead revokes the invites they sent', async () => {
+    const shop = await createTestShop('Two Lead Shop');
+    await getDb().update(users).set({ role: 'lead' }).where(eq(users.id, shop.technician.userId));
+    await actAs(shop.technician.userId);
+    expect(await inviteMember(null, { email: 'sent-by-leaver@example.test', role: 'lead' })).toMatchObject({ ok: true });
+    const token = inviteToken(await waitForMail(INTEGRATION_SINK.dir, 'sent-by-leaver@example.test'));
+    expect(await findUsableInvite(token)).not.toBeNull();
+
+    await actAs(shop.lead.userId);
+    await expect(removeTeamMember(null, { memberId: shop.technician.userId })).rejects.toMatchObject({ digest: expect.stringContaining('/team') });
+    expect(await findUsableInvite(token)).toBeNull();
+    resetNextRequest();
+    expect(await acceptTeamInvite(null, { token, name: 'Too Late', password: 'twelve chars at least' })).toMatchObject({ ok: false });
   });
 });
