@@ -8,12 +8,19 @@ const bool = z
   .enum(['true', 'false', '1', '0'])
   .transform((v) => v === 'true' || v === '1');
 
+/** Where this server listens (HOST and PORT, as `npm start` passes them): the default APP_URL. */
+function listeningUrl() {
+  const host = process.env.HOST?.trim() || '127.0.0.1';
+  const shown = ['0.0.0.0', '::', '[::]'].includes(host) ? '127.0.0.1' : host.includes(':') && !host.startsWith('[') ? `[${host}]` : host;
+  return `http://${shown}:${process.env.PORT?.trim() || '3000'}`;
+}
+
 const schema = z.object({
   NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
   DATABASE_URL: z
     .string()
     .regex(/^postgres(ql)?:\/\//, 'must be a postgres:// connection URL'),
-  APP_URL: z.url().default('http://127.0.0.1:3000'),
+  APP_URL: z.url().default(() => listeningUrl()),
   SMTP_URL: z.string().regex(/^smtps?:\/\//, 'must be an smtp:// or smtps:// URL'),
   MAIL_FROM: z.string().min(3).default('Ringpass <no-reply@ringpass.test>'),
   MAILBOX_DIR: z.string().min(1).optional(),

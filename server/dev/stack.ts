@@ -3,7 +3,9 @@
  *   1. PostgreSQL: DATABASE_URL when it is set, else the project's own cluster (db/cluster.ts);
  *   2. migrations, then the demo shop;
  *   3. mail: SMTP_URL when it is set, else the local sink and the Mailbox page;
- *   4. `next build` + `next start` (or `next dev`) on 127.0.0.1:3000, with the demo sign-ins printed.
+ *   4. `next build` + `next start` (or `next dev`) on HOST:PORT (127.0.0.1:3000), sign-ins printed.
+ * A production start (NODE_ENV=production without RINGPASS_DEMO=true) does none of the demo's
+ * shortcuts and stops unless every service is configured (server/dev/stack-plan.ts).
  */
 import { spawn, spawnSync } from 'node:child_process';
 import path from 'node:path';
@@ -12,42 +14,46 @@ import { clusterUrl, ensureDatabase, startCluster } from '@/db/cluster';
 import { migrateDatabase } from '@/db/migrate';
 import { DEMO_PASSWORD, DEMO_PEOPLE, DEMO_SHOP, seedDemoShop } from '@/db/seed';
 import { startMailSink } from './mail-sink';
+import { planStack } from './stack-plan';
 import { startUploadFake } from './upload-fake';
 
 const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
-const PORT = 3000;
 const SINK_PORT = 2525;
 const UPLOAD_PORT = 2530;
 const NEXT = path.join(ROOT, 'node_modules', '.bin', 'next');
 
 async function main(mode: 'start' | 'dev') {
-  const env: NodeJS.ProcessEnv = { ...process.env, NEXT_TELEMETRY_DISABLED: '1', APP_URL: process.env.APP_URL ?? `http://127.0.0.1:${PORT}` };
+  const plan = planStack(process.env);
+  if (!plan.ok) throw new Error(plan.message);
+  const env: NodeJS.ProcessEnv = { ...process.env, NEXT_TELEMETRY_DISABLED: '1', APP_URL: plan.appUrl, HOST: plan.host, PORT: String(plan.port) };
 
-  if (!env.DATABASE_URL) {
+  if (plan.localCluster) {
     await startCluster();
     await ensureDatabase('ringpass');
     env.DATABASE_URL = clusterUrl('ringpass');
   }
   process.env.DATABASE_URL = env.DATABASE_URL;
   await migrateDatabase(env.DATABASE_URL);
-  const seeded = await seedDemoShop(env.DATABASE_URL);
+  const seeded = plan.seedDemoShop ? await seedDemoShop(env.DATABASE_URL) : undefined;
 
   let closeSink = async () => {};
-  if (!env.SMTP_URL) {
+  if (plan.mailSink) {
     const dir = path.join(ROOT, '.data', 'mailbox');
     const sink = await startMailSink({ port: SINK_PORT, dir });
     closeSink = sink.close;
     env.SMTP_URL = `smtp://127.0.0.1:${SINK_PORT}`;
     env.MAILBOX_DIR = dir;
+    // `next start` runs as production, where the Mailbox exists only for a demo (with a banner).
+    env.MAILBOX_DEMO = 'true';
   }
   let closeUploads = async () => {};
-  if (!env.UPLOADTHING_TOKEN) {
+  if (plan.uploadFake) {
     const fake = await startUploadFake({ port: UPLOAD_PORT, dir: path.join(ROOT, '.data', 'uploads') });
     closeUploads = fake.close;
     Object.assign(env, fake.env);
   }
-  // Plain http on 127.0.0.1: the cookie cannot be Secure. A deployment behind TLS leaves this unset.
-  if (env.APP_URL?.startsWith('http://')) env.COOKIE_SECURE ??= 'false';
+  // Plain http on this machine: the cookie cannot be Secure. A deployment behind TLS leaves this unset.
+  if (plan.demo && env.APP_URL?.startsWith('http://')) env.COOKIE_SECURE ??= 'false';
 
   if (mode === 'start') {
     console.log('[start] building the app (next build)…');
@@ -55,18 +61,22 @@ async function main(mode: 'start' | 'dev') {
     if (build.status !== 0) throw new Error('next build failed');
   }
 
-  const child = spawn(NEXT, [mode, '-H', '127.0.0.1', '-p', String(PORT)], {
+  const child = spawn(NEXT, [mode, '-H', plan.host, '-p', String(plan.port)], {
     cwd: ROOT,
     env: { ...env, NODE_ENV: mode === 'start' ? 'production' : 'development' },
     stdio: 'inherit',
   });
 
-  console.log(`\nRingpass: ${env.APP_URL}  (${seeded.created ? 'demo shop created' : 'demo shop already there'})`);
-  console.log(`Demo shop "${DEMO_SHOP}", password for everyone: ${DEMO_PASSWORD}`);
-  for (const p of DEMO_PEOPLE) console.log(`  ${p.role.padEnd(10)} ${p.email}`);
+  if (seeded) {
+    console.log(`\nRingpass: ${env.APP_URL}  (${seeded.created ? 'demo shop created' : 'demo shop already there'})`);
+    console.log(`Demo shop "${DEMO_SHOP}", password for everyone: ${DEMO_PASSWORD}`);
+    for (const p of DEMO_PEOPLE) console.log(`  ${p.role.padEnd(10)} ${p.email}`);
+  } else {
+    console.log(`\nRingpass: ${env.APP_URL} (listening on ${plan.host}:${plan.port})`);
+  }
   if (env.MAILBOX_DIR) console.log(`Mail goes to the local sink: ${env.APP_URL}/mailbox`);
   if (env.UPLOADTHING_INGEST_URL?.includes('127.0.0.1')) console.log(`Photos go to the local upload fake: ${env.UPLOADTHING_INGEST_URL} (files in .data/uploads)`);
-  console.log('Stop with Ctrl+C; the database keeps running (npm run db:stop).\n');
+  console.log(plan.localCluster ? 'Stop with Ctrl+C; the database keeps running (npm run db:stop).\n' : 'Stop with Ctrl+C.\n');
 
   const stop = (signal: NodeJS.Signals) => child.kill(signal);
   process.on('SIGINT', stop);
