@@ -2,8 +2,10 @@
  * The demo shop's records: invented wheel specs, a tool crib, customers with vehicles, and a
  * dozen job cards in every state. Every name, vehicle and brand here is made up.
  */
+import { eq } from 'drizzle-orm';
 import type { PostgresJsDatabase } from 'drizzle-orm/postgres-js';
 import * as schema from './schema';
+import { assertDemoCompletable, type SeedSpec, type SeedWrench } from './seed-check';
 
 type Db = PostgresJsDatabase<typeof schema>;
 type People = { lead: string; tech: string };
@@ -11,30 +13,45 @@ type People = { lead: string; tech: string };
 const day = 86_400_000;
 const isoDate = (offsetDays: number) => new Date(Date.now() + offsetDays * day).toISOString().slice(0, 10);
 
+// Invented figures that a careful shop could have on file: bead-seating limits at or under the
+// tire industry's 40 psi guidance, each spec in its maker's unit.
+export const DEMO_SPECS = [
+  { name: 'Gritline 15 in UTV beadlock, 24 bolts', boltCount: 24, boltThread: 'M8×1.25', finalTorque: 12, torqueUnit: 'lbf-ft', passFractions: [0.3, 0.7, 1], patternKind: 'cross', checkPass: true, lugTorque: 90, lugTorqueUnit: 'lbf-ft', lugCount: 4, maxBeadSeatPressure: 30, runningPressure: 14, pressureUnit: 'psi', makerReference: 'Gritline install sheet GL-15B rev C (fictional)' },
+  { name: 'Mesa Forge 17 in truck beadlock, 32 bolts', boltCount: 32, boltThread: '5/16-18', finalTorque: 20, torqueUnit: 'Nm', passFractions: [0.3, 0.7, 1], patternKind: 'cross', checkPass: true, lugTorque: 150, lugTorqueUnit: 'lbf-ft', lugCount: 6, maxBeadSeatPressure: 40, runningPressure: 35, pressureUnit: 'psi', makerReference: 'Mesa Forge MF-17 manual §4 (fictional)' },
+  { name: 'Dune Ring 14 in ATV, 20 bolts', boltCount: 20, boltThread: 'M6×1.0', finalTorque: 96, torqueUnit: 'lbf-in', passFractions: [0.3, 0.7, 1], patternKind: 'skip', skipStep: 5, checkPass: true, lugTorque: 40, lugTorqueUnit: 'lbf-ft', lugCount: 4, maxBeadSeatPressure: 20, runningPressure: 8, pressureUnit: 'psi' },
+  // A maker that writes bar: 2.4 bar (34.8 psi) to seat, 1.0 bar (14.5 psi) to run.
+  { name: 'Kestrel 16 in sport, 16 bolts', boltCount: 16, boltThread: 'M8×1.25', finalTorque: 15, torqueUnit: 'lbf-ft', passFractions: [0.25, 0.6, 1], patternKind: 'cross', checkPass: true, maxBeadSeatPressure: 2.4, runningPressure: 1, pressureUnit: 'bar' },
+] satisfies (SeedSpec & Omit<typeof schema.wheelSpecs.$inferInsert, 'shopId'>)[];
+
+// The small click wrench carries the first pass of the 96 in-lb ATV ring (28.8 in-lb), which is
+// below the 20 % floor of the 20–200 in-lb wrench and under the digital one's lowest mark.
+export const DEMO_WRENCHES = [
+  { label: 'Blue click 20–200 in-lb', kind: 'click', min: 20, max: 200, unit: 'lbf-in', graduation: 1, serial: 'BC-20418', calibrationDueOn: isoDate(200) },
+  { label: 'Grey click 5–80 ft-lb', kind: 'click', min: 5, max: 80, unit: 'lbf-ft', graduation: 1, serial: 'GC-7731', calibrationDueOn: isoDate(120), cyclesSinceCalibration: 1800 },
+  { label: 'Digital 4–40 N·m', kind: 'digital', min: 4, max: 40, unit: 'Nm', graduation: 0.1, serial: 'DG-0042', calibrationDueOn: isoDate(300) },
+  { label: 'Long click 30–250 ft-lb (lug nuts)', kind: 'click', min: 30, max: 250, unit: 'lbf-ft', graduation: 1, serial: 'LC-5512', calibrationDueOn: isoDate(90) },
+  { label: 'Old beam 0–150 ft-lb', kind: 'beam', min: 0, max: 150, unit: 'lbf-ft', graduation: 5, serial: 'OB-1', calibrationDueOn: isoDate(60), status: 'out_of_service', statusReason: 'Verification out of tolerance: +6.5 % (allowed ±4 %)' },
+  { label: 'Small click 10–100 in-lb', kind: 'click', min: 10, max: 100, unit: 'lbf-in', graduation: 0.5, serial: 'SC-1107', calibrationDueOn: isoDate(250) },
+] satisfies (SeedWrench & Omit<typeof schema.wrenches.$inferInsert, 'shopId'>)[];
+
 export async function seedDemoRecords(tx: Db, shopId: string, people: People) {
+  // The shop's own floor (its settings row is made with the shop): the demo must work at it.
+  const [settings] = await tx.select({ floor: schema.shopSettings.wrenchFloorPercent }).from(schema.shopSettings).where(eq(schema.shopSettings.shopId, shopId));
+  assertDemoCompletable(DEMO_SPECS, DEMO_WRENCHES, settings?.floor ?? 20);
+
   const specs = await tx
     .insert(schema.wheelSpecs)
-    .values([
-      { shopId, name: 'Gritline 15 in UTV beadlock, 24 bolts', boltCount: 24, boltThread: 'M8×1.25', finalTorque: 12, torqueUnit: 'lbf-ft', passFractions: [0.3, 0.7, 1], patternKind: 'cross', checkPass: true, lugTorque: 90, lugTorqueUnit: 'lbf-ft', lugCount: 4, maxBeadSeatPressure: 30, runningPressure: 14, pressureUnit: 'psi', makerReference: 'Gritline install sheet GL-15B rev C (fictional)' },
-      { shopId, name: 'Mesa Forge 17 in truck beadlock, 32 bolts', boltCount: 32, boltThread: '5/16-18', finalTorque: 20, torqueUnit: 'Nm', passFractions: [0.3, 0.7, 1], patternKind: 'cross', checkPass: true, lugTorque: 150, lugTorqueUnit: 'lbf-ft', lugCount: 6, maxBeadSeatPressure: 40, runningPressure: 35, pressureUnit: 'psi', makerReference: 'Mesa Forge MF-17 manual §4 (fictional)' },
-      { shopId, name: 'Dune Ring 14 in ATV, 20 bolts', boltCount: 20, boltThread: 'M6×1.0', finalTorque: 96, torqueUnit: 'lbf-in', passFractions: [0.3, 0.7, 1], patternKind: 'skip', skipStep: 5, checkPass: true, lugTorque: 40, lugTorqueUnit: 'lbf-ft', lugCount: 4, maxBeadSeatPressure: 25, runningPressure: 8, pressureUnit: 'psi' },
-      { shopId, name: 'Kestrel 16 in sport, 16 bolts', boltCount: 16, boltThread: 'M8×1.25', finalTorque: 15, torqueUnit: 'lbf-ft', passFractions: [0.25, 0.6, 1], patternKind: 'cross', checkPass: true, maxBeadSeatPressure: 35, runningPressure: 1.2, pressureUnit: 'bar' },
-    ])
+    .values(DEMO_SPECS.map((spec) => ({ ...spec, shopId })))
     .returning({ id: schema.wheelSpecs.id });
 
   const wrenches = await tx
     .insert(schema.wrenches)
-    .values([
-      { shopId, label: 'Blue click 20–200 in-lb', kind: 'click', min: 20, max: 200, unit: 'lbf-in', graduation: 1, serial: 'BC-20418', calibrationDueOn: isoDate(200) },
-      { shopId, label: 'Grey click 5–80 ft-lb', kind: 'click', min: 5, max: 80, unit: 'lbf-ft', graduation: 1, serial: 'GC-7731', calibrationDueOn: isoDate(120), cyclesSinceCalibration: 1800 },
-      { shopId, label: 'Digital 4–40 N·m', kind: 'digital', min: 4, max: 40, unit: 'Nm', graduation: 0.1, serial: 'DG-0042', calibrationDueOn: isoDate(300) },
-      { shopId, label: 'Long click 30–250 ft-lb (lug nuts)', kind: 'click', min: 30, max: 250, unit: 'lbf-ft', graduation: 1, serial: 'LC-5512', calibrationDueOn: isoDate(90) },
-      { shopId, label: 'Old beam 0–150 ft-lb', kind: 'beam', min: 0, max: 150, unit: 'lbf-ft', graduation: 5, serial: 'OB-1', calibrationDueOn: isoDate(60), status: 'out_of_service', statusReason: 'Verification out of tolerance: +6.5 % (allowed ±4 %)' },
-    ])
+    .values(DEMO_WRENCHES.map((wrench) => ({ ...wrench, shopId })))
     .returning({ id: schema.wrenches.id });
   const oldBeam = wrenches[4]!.id;
   await tx.insert(schema.wrenchVerifications).values([
     { shopId, wrenchId: wrenches[0]!.id, referenceValue: 100, readingValue: 101.5, unit: 'lbf-in', deviationPct: 1.5, tolerancePct: 4, withinTolerance: true, recordedById: people.tech },
+    { shopId, wrenchId: wrenches[5]!.id, referenceValue: 50, readingValue: 50.5, unit: 'lbf-in', deviationPct: 1, tolerancePct: 4, withinTolerance: true, recordedById: people.tech },
     { shopId, wrenchId: oldBeam, referenceValue: 100, readingValue: 106.5, unit: 'lbf-ft', deviationPct: 6.5, tolerancePct: 4, withinTolerance: false, recordedById: people.lead },
   ]);
   await tx.insert(schema.wrenchStatusEvents).values({ shopId, wrenchId: oldBeam, status: 'out_of_service', reason: 'Verification out of tolerance: +6.5 % (allowed ±4 %)', byId: people.lead });
@@ -93,7 +110,11 @@ export async function seedDemoRecords(tx: Db, shopId: string, people: People) {
     .returning({ id: schema.jobs.id });
   const positions = ['LF', 'RF', 'LR', 'RR'] as const;
   await tx.insert(schema.jobWheels).values(
-    jobs.flatMap((j, i) => positions.map((position) => ({ shopId, jobId: j.id, position, specId: specs[plan[i]!.spec]!.id, tireSize: plan[i]!.tire, directional: i % 3 === 0, targetPressure: 14, pressureUnit: 'psi' as const }))),
+    // Each wheel is filled to its spec's running pressure, in the spec's unit.
+    jobs.flatMap((j, i) => {
+      const spec = DEMO_SPECS[plan[i]!.spec]!;
+      return positions.map((position) => ({ shopId, jobId: j.id, position, specId: specs[plan[i]!.spec]!.id, tireSize: plan[i]!.tire, directional: i % 3 === 0, targetPressure: spec.runningPressure, pressureUnit: spec.pressureUnit }));
+    }),
   );
   await tx.insert(schema.jobEvents).values(jobs.map((j, i) => ({ shopId, jobId: j.id, action: 'create', fromState: null, toState: plan[i]!.state, byId: people.lead, note: 'Demo record' })));
 }
