@@ -41,16 +41,6 @@ function formatter(timeZone: string, style: TimeStyle | 'parts' | 'long' | 'zone
   return f;
 }
 
-/** True when the runtime knows the zone (a stored name could be from a newer zone database). */
-export function isTimeZone(timeZone: string): boolean {
-  try {
-    formatter(timeZone, 'parts');
-    return true;
-  } catch {
-    return false;
-  }
-}
-
 type When = Date | string | number;
 const toDate = (when: When) => (when instanceof Date ? when : new Date(when));
 
