@@ -117,10 +117,11 @@ export async function saveRunEvents(member: Member, wheelId: string, batch: Clie
   }
   const ctx = await loadWheel(member.shopId, wheelId);
   assertMayRun(member, ctx);
-  if (ctx.job.state !== 'in_progress') throw new JobNotStartedError(ctx.job.id, ctx.job.state);
-  if (ctx.wheel.submittedAt) throw new DomainError('conflict', 'This wheel was submitted; its record is closed.');
+  // Before the job-state check, so a wheel on a flagged spec does not start its job card either.
   const flagged = flaggedSpecMessage(ctx.spec);
   if (flagged) throw new DomainError('conflict', flagged);
+  if (ctx.job.state !== 'in_progress') throw new JobNotStartedError(ctx.job.id, ctx.job.state);
+  if (ctx.wheel.submittedAt) throw new DomainError('conflict', 'This wheel was submitted; its record is closed.');
   const plan = planFor(ctx);
   const refused: PlanRefusal[] = [];
   const events = batch.filter((e) => {
