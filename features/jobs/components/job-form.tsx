@@ -1,6 +1,7 @@
 'use client';
 
 import { startTransition, useMemo, useState } from 'react';
+import type { PressureUnit } from '@/features/torque-plan';
 import { Button } from '@/features/ui/button';
 import { CheckboxField } from '@/features/ui/checkbox';
 import { SelectField, TextField } from '@/features/ui/field';
@@ -19,13 +20,15 @@ type Props = {
   specs: SpecOption[];
   assignees: { id: string; name: string }[];
   canAcceptVin: boolean;
+  /** The shop's pressure unit, for the wheels' target pressures. */
+  pressureUnit: PressureUnit;
 };
 
 /**
  * A new job card: customer and vehicle (picked or added here), the wheels, and who does it when.
  * The axle check runs as the tires are typed; mismatched tires need "Save anyway".
  */
-export function JobForm({ customers, vehicles, specs, assignees, canAcceptVin }: Props) {
+export function JobForm({ customers, vehicles, specs, assignees, canAcceptVin, pressureUnit }: Props) {
   const { state, formAction, pending, errors } = useFormAction(createJobCard);
   const clock = useShopTime();
   const [customerMode, setCustomerMode] = useState<'existing' | 'new'>(customers.length ? 'existing' : 'new');
@@ -101,7 +104,7 @@ export function JobForm({ customers, vehicles, specs, assignees, canAcceptVin }:
           </>
         )}
       </fieldset>
-      <WheelRows wheels={wheels} specs={specs} onChange={setWheels} errors={errors} />
+      <WheelRows wheels={wheels} specs={specs} pressureUnit={pressureUnit} onChange={setWheels} errors={errors} />
       {warnings.length ? (
         <div role="alert" className="flex flex-col gap-2 rounded-lg border-l-8 border-caution bg-caution-tint p-3 text-caution-ink">
           <p className="font-bold">Tire check</p>

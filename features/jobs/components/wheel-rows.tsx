@@ -1,6 +1,6 @@
 'use client';
 
-import { PRESSURE_UNITS } from '@/features/torque-plan';
+import { convertPressure, PRESSURE_UNITS, type PressureUnit } from '@/features/torque-plan';
 import { UnitOptions } from '@/features/ui/unit-options';
 import { POSITIONS } from '../schemas';
 
@@ -8,24 +8,37 @@ export type WheelDraft = { position: (typeof POSITIONS)[number]; specId: string;
 export type SpecOption = { id: string; name: string; runningPressure: number; pressureUnit: 'psi' | 'kPa' | 'bar' };
 
 const POSITION_LABELS: Record<WheelDraft['position'], string> = { LF: 'Left front', RF: 'Right front', LR: 'Left rear', RR: 'Right rear', spare: 'Spare' };
+/** Decimals a gauge in each unit is read to (common practice, no source). */
+const GAUGE_DIGITS: Record<PressureUnit, number> = { psi: 1, kPa: 0, bar: 2 };
+
+/** A wheel's target starts at its spec's running pressure, in the shop's unit (a spec in bar, a shop gauge in psi). */
+function targetFrom(spec: SpecOption, unit: PressureUnit): Pick<WheelDraft, 'targetPressure' | 'pressureUnit'> {
+  if (spec.pressureUnit === unit) return { targetPressure: String(spec.runningPressure), pressureUnit: unit };
+  const value = convertPressure(spec.runningPressure, spec.pressureUnit, unit);
+  return { targetPressure: String(Number(value.toFixed(GAUGE_DIGITS[unit]))), pressureUnit: unit };
+}
+
 const input = 'min-h-touch w-full rounded-lg border-2 border-ink-soft bg-paper px-3 text-base aria-[invalid=true]:border-danger';
 
 /** The wheels on the job: tick a position, then its spec, tire, direction and pressure. */
 export function WheelRows({
   wheels,
   specs,
+  pressureUnit,
   onChange,
   errors,
 }: {
   wheels: WheelDraft[];
   specs: SpecOption[];
+  /** The shop's pressure unit: new wheels' targets start in it. */
+  pressureUnit: PressureUnit;
   onChange: (wheels: WheelDraft[]) => void;
   errors: (path: string) => string[] | undefined;
 }) {
   const toggle = (position: WheelDraft['position'], on: boolean) => {
     if (!on) return onChange(wheels.filter((w) => w.position !== position));
     const spec = specs[0];
-    const draft: WheelDraft = { position, specId: spec?.id ?? '', tireSize: wheels[0]?.tireSize ?? '', directional: false, targetPressure: spec ? String(spec.runningPressure) : '', pressureUnit: spec?.pressureUnit ?? 'psi' };
+    const draft: WheelDraft = { position, specId: spec?.id ?? '', tireSize: wheels[0]?.tireSize ?? '', directional: false, ...(spec ? targetFrom(spec, pressureUnit) : { targetPressure: '', pressureUnit }) };
     onChange([...wheels, draft].sort((a, b) => POSITIONS.indexOf(a.position) - POSITIONS.indexOf(b.position)));
   };
   const set = (position: WheelDraft['position'], patch: Partial<WheelDraft>) => onChange(wheels.map((w) => (w.position === position ? { ...w, ...patch } : w)));
@@ -61,7 +74,7 @@ export function WheelRows({
                 className={input}
                 onChange={(e) => {
                   const spec = specs.find((s) => s.id === e.target.value);
-                  set(w.position, { specId: e.target.value, ...(spec ? { targetPressure: String(spec.runningPressure), pressureUnit: spec.pressureUnit } : {}) });
+                  set(w.position, { specId: e.target.value, ...(spec ? targetFrom(spec, pressureUnit) : {}) });
                 }}
               >
                 {specs.map((s) => (

@@ -1,6 +1,6 @@
 'use client';
 
-import { TORQUE_UNITS, UNIT_LABELS } from '@/features/torque-plan';
+import { TORQUE_UNITS, UNIT_LABELS, type TorqueUnit } from '@/features/torque-plan';
 import { Button } from '@/features/ui/button';
 import { SelectField, TextField } from '@/features/ui/field';
 import { FormMessage } from '@/features/ui/form-message';
@@ -12,7 +12,8 @@ import type { CribWrenchDto } from '../server/wrenches';
 const units = TORQUE_UNITS.map((u) => ({ value: u, label: UNIT_LABELS[u] }));
 const kinds = WRENCH_KINDS.map((k) => ({ value: k, label: k[0]!.toUpperCase() + k.slice(1) }));
 
-export function WrenchForm({ wrench }: { wrench?: CribWrenchDto }) {
+/** Add a wrench (starting in the shop's torque unit) or edit one. */
+export function WrenchForm({ wrench, defaultUnit }: { wrench: CribWrenchDto; defaultUnit?: never } | { wrench?: undefined; defaultUnit: TorqueUnit }) {
   const { state, formAction, pending, errors, value } = useFormAction(wrench ? editWrench : addWrench);
   const initial = (name: keyof CribWrenchDto, fallback = '') => value(name) ?? (wrench?.[name] == null ? fallback : String(wrench[name]));
   return (
@@ -24,7 +25,7 @@ export function WrenchForm({ wrench }: { wrench?: CribWrenchDto }) {
       <div className="grid grid-cols-3 gap-3">
         <TextField label="Lowest mark" name="min" inputMode="decimal" required defaultValue={initial('min')} errors={errors('min')} />
         <TextField label="Highest mark" name="max" inputMode="decimal" required defaultValue={initial('max')} errors={errors('max')} />
-        <SelectField label="Unit" name="unit" options={units} defaultValue={initial('unit', 'lbf-ft')} errors={errors('unit')} />
+        <SelectField label="Unit" name="unit" options={units} defaultValue={initial('unit', defaultUnit ?? wrench?.unit)} errors={errors('unit')} />
       </div>
       <TextField label="Graduation" name="graduation" inputMode="decimal" required defaultValue={initial('graduation', '1')} errors={errors('graduation')} hint="The smallest step you can set, in the wrench's unit." />
       <TextField label="Serial number" name="serial" defaultValue={initial('serial')} errors={errors('serial')} />

@@ -7,16 +7,18 @@ import { listSpecs } from '@/features/specs/server/specs';
 import { EmptyState, PageHeader } from '@/features/ui/page';
 import { requireMember } from '@/server/auth/guard';
 import { can } from '@/server/auth/permissions';
+import { getShopSettings } from '@/server/shop/settings';
 
 export const metadata: Metadata = { title: 'New job card' };
 
 export default async function NewJobPage() {
   const member = await requireMember('jobs.create');
-  const [customers, vehicles, specs, people] = await Promise.all([
+  const [customers, vehicles, specs, people, settings] = await Promise.all([
     listCustomers(member.shopId, { page: 1, pageSize: 500 }),
     listVehicles(member.shopId, { page: 1, pageSize: 2000 }),
     listSpecs(member.shopId),
     listAssignees(member.shopId),
+    getShopSettings(member.shopId),
   ]);
   const canAssign = can(member.role, 'jobs.assign');
   return (
@@ -40,6 +42,7 @@ export default async function NewJobPage() {
           specs={specs.map((s) => ({ id: s.id, name: s.name, runningPressure: s.runningPressure, pressureUnit: s.pressureUnit }))}
           assignees={canAssign ? people : people.filter((p) => p.id === member.userId)}
           canAcceptVin={can(member.role, 'jobs.edit')}
+          pressureUnit={settings.pressureUnit}
         />
       )}
     </>
