@@ -4,20 +4,45 @@
  *   UPLOADTHING_TOKEN, UPLOADTHING_INGEST_URL, UPLOADTHING_API_URL, UPLOADTHING_UFS_HOST,
  *   UPLOADTHING_UFS_APP_ID_LOCATION=path, UPLOADTHING_IS_DEV=false (see uploadFakeEnv).
  * It speaks the part of the protocol the SDK uses: route metadata, HEAD/PUT of a presigned URL
- * (signature checked), the signed callback to the app and its result, file serving, deleteFiles.
+ * (signature checked, no more bytes than the declared size), the signed callback to the app and
+ * its result, file serving, deleteFiles. A file uploaded with `x-ut-acl=private` is served only
+ * through a URL signed by UTApi.generateSignedURL and not yet expired, as the service does.
  * Files are stored in a folder on disk. Loopback only.
  */
 import { createHmac, randomBytes, timingSafeEqual } from 'node:crypto';
 import { createServer, type IncomingMessage, type ServerResponse } from 'node:http';
 import { mkdirSync, readFileSync, rmSync, writeFileSync, existsSync } from 'node:fs';
 import path from 'node:path';
-import { Readable } from 'node:stream';
+import { Readable, Transform } from 'node:stream';
 
 export type UploadFake = { port: number; env: Record<string, string>; close: () => Promise<void> };
 
 type Pending = { metadata: unknown; callbackUrl: string; callbackSlug: string };
 
 const sign = (payload: string, key: string) => `hmac-sha256=${createHmac('sha256', key).update(payload).digest('hex')}`;
+
+/** Room for the multipart envelope around the file (boundary, part headers). */
+const MULTIPART_OVERHEAD = 64 * 1024;
+
+/** Whether `raw` carries a valid `&signature=` over everything before it, made with `key`. */
+function signedBy(raw: string, key: string): boolean {
+  const at = raw.indexOf('&signature=');
+  if (at < 0) return false;
+  const given = decodeURIComponent(raw.slice(at + '&signature='.length));
+  const expected = sign(raw.slice(0, at), key);
+  return given.length === expected.length && timingSafeEqual(Buffer.from(given), Buffer.from(expected));
+}
+
+/** Passes a request body through, failing it once more than `limit` bytes have arrived. */
+function capped(limit: number) {
+  let seen = 0;
+  return new Transform({
+    transform(chunk: Buffer, _enc, done) {
+      seen += chunk.length;
+      done(seen > limit ? new Error('more bytes than the declared size') : null, chunk);
+    },
+  });
+}
 
 export function uploadFakeEnv(port: number, apiKey: string, appId: string): Record<string, string> {
   const token = Buffer.from(JSON.stringify({ apiKey, appId, regions: ['local'] })).toString('base64');
@@ -61,22 +86,27 @@ export async function startUploadFake(options: { port: number; dir: string }): P
   async function handlePut(req: IncomingMessage, res: ServerResponse, key: string, url: URL) {
     // The SDK signs the URL up to "&signature"; values are encoded twice.
     const raw = `${base}${req.url!}`;
-    const at = raw.indexOf('&signature=');
-    const given = at > 0 ? decodeURIComponent(raw.slice(at + '&signature='.length)) : '';
-    const expected = at > 0 ? sign(raw.slice(0, at), apiKey) : '';
-    if (!given || given.length !== expected.length || !timingSafeEqual(Buffer.from(given), Buffer.from(expected))) return json(res, 403, { error: 'Invalid signature' });
+    if (!signedBy(raw, apiKey)) return json(res, 403, { error: 'Invalid signature' });
     if (Number(url.searchParams.get('expires')) < Date.now()) return json(res, 403, { error: 'URL expired' });
     const meta = pending.get(key);
     if (!meta) return json(res, 404, { error: 'Unknown upload' });
     const q = (k: string) => decodeURIComponent(url.searchParams.get(k) ?? '');
-    const request = new Request(raw, { method: 'PUT', headers: req.headers as HeadersInit, body: Readable.toWeb(req) as ReadableStream, duplex: 'half' } as RequestInit);
-    const form = await request.formData();
+    // The presigned URL carries the size the app agreed to; a body beyond it is refused unread.
+    const declared = Number(q('x-ut-file-size'));
+    if (!Number.isSafeInteger(declared) || declared < 0) return json(res, 400, { error: 'No declared file size' });
+    if (Number(req.headers['content-length'] ?? 0) > declared + MULTIPART_OVERHEAD) return json(res, 413, { error: 'More bytes than the declared size' });
+    const upload = Readable.toWeb(req.pipe(capped(declared + MULTIPART_OVERHEAD))) as ReadableStream;
+    const request = new Request(raw, { method: 'PUT', headers: req.headers as HeadersInit, body: upload, duplex: 'half' } as RequestInit);
+    const form = await request.formData().catch(() => null);
+    if (!form) return json(res, 413, { error: 'More bytes than the declared size' });
     const file = form.get('file');
     if (!(file instanceof Blob)) return json(res, 400, { error: 'No file field' });
+    if (file.size > declared) return json(res, 413, { error: 'More bytes than the declared size' });
     const bytes = Buffer.from(await file.arrayBuffer());
     const type = q('x-ut-file-type') || file.type || 'application/octet-stream';
+    const acl = q('x-ut-acl') === 'private' ? 'private' : 'public-read';
     writeFileSync(path.join(options.dir, key), bytes);
-    writeFileSync(path.join(options.dir, `${key}.json`), JSON.stringify({ type, name: q('x-ut-file-name') }));
+    writeFileSync(path.join(options.dir, `${key}.json`), JSON.stringify({ type, name: q('x-ut-file-name'), acl }));
     const ufsUrl = fileUrl(key);
     const fileHash = createHmac('md5', 'x').update(bytes).digest('hex');
     const payload = JSON.stringify({
@@ -137,8 +167,13 @@ export async function startUploadFake(options: { port: number; dir: string }): P
       if (req.method === 'GET' && fileMatch) {
         const file = path.join(options.dir, fileMatch[1]!);
         if (!existsSync(file)) return json(res, 404, { error: 'Not found' });
-        const { type } = JSON.parse(readFileSync(`${file}.json`, 'utf8')) as { type: string };
-        res.writeHead(200, { 'content-type': type, 'cache-control': 'private, max-age=3600' });
+        const { type, acl } = JSON.parse(readFileSync(`${file}.json`, 'utf8')) as { type: string; acl?: string };
+        // A private file needs UTApi's signed URL (signed over the URL as the SDK built it, host included).
+        if (acl === 'private') {
+          if (!signedBy(`http://${req.headers.host ?? ''}${req.url!}`, apiKey)) return json(res, 403, { error: 'This file is private: a signed URL is required' });
+          if (!(Number(url.searchParams.get('expires')) >= Date.now())) return json(res, 403, { error: 'URL expired' });
+        }
+        res.writeHead(200, { 'content-type': type, 'cache-control': 'private, max-age=300' });
         return res.end(readFileSync(file));
       }
       const keyMatch = /^\/([\w-]+)$/.exec(url.pathname);

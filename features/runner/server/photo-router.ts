@@ -8,7 +8,8 @@ import { wheelPhotos } from '@/db/schema';
 import { cleanString } from '@/features/ui/bounded';
 import { requireMemberForRequest } from '@/server/auth/guard';
 import { DomainError } from '@/server/errors';
-import { inspectPhoto } from './photo-check';
+import { photoPath } from '../photo-path';
+import { inspectPhotoStream } from './photo-check';
 import { assertMayRun, loadWheel } from './run';
 
 const f = createUploadthing();
@@ -19,9 +20,12 @@ export const photoInput = z.object({
   note: cleanString('the note', 300).default(''),
 });
 
-/** Photo evidence for a wheel: who may add it is checked here, what it is after it arrives. */
+/**
+ * Photo evidence for a wheel: who may add it is checked here, what it is after it arrives. The
+ * files are private at the upload service; people see them through /api/photos/:id only.
+ */
 export const photoRouter = {
-  wheelPhoto: f({ image: { maxFileSize: '16MB', maxFileCount: 1 } })
+  wheelPhoto: f({ image: { maxFileSize: '16MB', maxFileCount: 1, acl: 'private' } })
     .input(photoInput)
     .middleware(async ({ req, input }) => {
       try {
@@ -36,39 +40,43 @@ export const photoRouter = {
       }
     })
     .onUploadComplete(async ({ metadata, file }) => {
-      const res = await fetch(file.ufsUrl);
-      const bytes = new Uint8Array(await res.arrayBuffer());
-      const verdict = res.ok ? await inspectPhoto(bytes) : { ok: false as const, message: 'The photo could not be read back.' };
+      // Read back through a short-lived signed URL (the file is private), streamed with a limit.
+      const utapi = new UTApi();
+      const { ufsUrl } = await utapi.generateSignedURL(file.key, { expiresIn: 60 });
+      const res = await fetch(ufsUrl);
+      const verdict = res.ok && res.body ? await inspectPhotoStream(res.body) : { ok: false as const, message: 'The photo could not be read back.' };
       if (!verdict.ok) {
-        await new UTApi().deleteFiles(file.key);
+        await utapi.deleteFiles(file.key);
         return { ok: false as const, message: verdict.message };
       }
       const [row] = await getDb()
         .insert(wheelPhotos)
-        .values({ shopId: metadata.shopId, jobId: metadata.jobId, wheelId: metadata.wheelId, kind: metadata.kind, note: metadata.note, fileKey: file.key, url: file.ufsUrl, bytes: bytes.byteLength, mime: verdict.mime, uploadedById: metadata.userId })
+        .values({ shopId: metadata.shopId, jobId: metadata.jobId, wheelId: metadata.wheelId, kind: metadata.kind, note: metadata.note, fileKey: file.key, url: file.ufsUrl, bytes: verdict.bytes, mime: verdict.mime, uploadedById: metadata.userId })
         .returning({ id: wheelPhotos.id });
-      return { ok: true as const, photoId: row!.id, kind: metadata.kind, url: file.ufsUrl };
+      return { ok: true as const, photoId: row!.id, kind: metadata.kind, url: photoPath(row!.id) };
     }),
 } satisfies FileRouter;
 
 export type PhotoRouter = typeof photoRouter;
 
+/** `url` is the app's own photo route (session and shop checked), never the storage's address. */
 export type WheelPhoto = { id: string; kind: 'bead_outer' | 'bead_inner' | 'other'; note: string; url: string };
 
 export async function listPhotos(shopId: string, wheelId: string): Promise<WheelPhoto[]> {
-  return getDb()
-    .select({ id: wheelPhotos.id, kind: wheelPhotos.kind, note: wheelPhotos.note, url: wheelPhotos.url })
+  const rows = await getDb()
+    .select({ id: wheelPhotos.id, kind: wheelPhotos.kind, note: wheelPhotos.note })
     .from(wheelPhotos)
     .where(and(eq(wheelPhotos.shopId, shopId), eq(wheelPhotos.wheelId, wheelId)));
+  return rows.map((p) => ({ ...p, url: photoPath(p.id) }));
 }
 
 /** Every wheel's photos of a job in one read, keyed by wheel id (for the job card's thumbnails). */
 export async function listJobPhotos(shopId: string, jobId: string): Promise<Record<string, WheelPhoto[]>> {
   const rows = await getDb()
-    .select({ wheelId: wheelPhotos.wheelId, id: wheelPhotos.id, kind: wheelPhotos.kind, note: wheelPhotos.note, url: wheelPhotos.url })
+    .select({ wheelId: wheelPhotos.wheelId, id: wheelPhotos.id, kind: wheelPhotos.kind, note: wheelPhotos.note })
     .from(wheelPhotos)
     .where(and(eq(wheelPhotos.shopId, shopId), eq(wheelPhotos.jobId, jobId)));
   const byWheel: Record<string, WheelPhoto[]> = {};
-  for (const { wheelId, ...photo } of rows) (byWheel[wheelId] ??= []).push(photo);
+  for (const { wheelId, ...photo } of rows) (byWheel[wheelId] ??= []).push({ ...photo, url: photoPath(photo.id) });
   return byWheel;
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { inspectPhoto, MAX_PHOTO_BYTES } from '@/features/runner/server/photo-check';
+import { inspectPhoto, inspectPhotoStream, MAX_PHOTO_BYTES } from '@/features/runner/server/photo-check';
 
 // The first bytes of real files: JPEG (JFIF) and PNG signatures per their specifications.
 const JPEG_HEAD = [0xff, 0xd8, 0xff, 0xe0, 0x00, 0x10, 0x4a, 0x46, 0x49, 0x46, 0x00, 0x01];
@@ -23,5 +23,28 @@ describe('inspectPhoto: judged by the bytes, not the name or declared type', () 
   });
   it('refuses an image over 10 MB', async () => {
     expect(await inspectPhoto(withHead(JPEG_HEAD, MAX_PHOTO_BYTES + 1))).toEqual({ ok: false, message: 'The photo is 10.0 MB; at most 10 MB.' });
+  });
+});
+
+describe('inspectPhotoStream: the upload callback reads the file as a stream with a limit', () => {
+  const chunks = (first: Uint8Array, count: number, size = 1024 * 1024) => {
+    let pulled = 0;
+    const stream = new ReadableStream<Uint8Array>({
+      pull(controller) {
+        if (pulled === count) return controller.close();
+        controller.enqueue(pulled === 0 ? first : new Uint8Array(size));
+        pulled++;
+      },
+    });
+    return { stream, pulled: () => pulled };
+  };
+  it('judges a photo by its first bytes and counts the rest', async () => {
+    const { stream } = chunks(withHead(JPEG_HEAD, 1024 * 1024), 3);
+    expect(await inspectPhotoStream(stream)).toEqual({ ok: true, mime: 'image/jpeg', bytes: 3 * 1024 * 1024 });
+  });
+  it('stops reading a file past 10 MB instead of holding it all', async () => {
+    const { stream, pulled } = chunks(withHead(JPEG_HEAD, 1024 * 1024), 500);
+    expect(await inspectPhotoStream(stream)).toEqual({ ok: false, message: 'The photo is over 10 MB; at most 10 MB.' });
+    expect(pulled()).toBeLessThan(15);
   });
 });
