@@ -30,11 +30,11 @@ async function main(mode: 'start' | 'dev') {
   if (plan.localCluster) {
     await startCluster();
     await ensureDatabase('ringpass');
-    env.DATABASE_URL = clusterUrl('ringpass');
   }
-  process.env.DATABASE_URL = env.DATABASE_URL;
-  await migrateDatabase(env.DATABASE_URL);
-  const seeded = plan.seedDemoShop ? await seedDemoShop(env.DATABASE_URL) : undefined;
+  const databaseUrl = plan.localCluster ? clusterUrl('ringpass') : String(env.DATABASE_URL);
+  env.DATABASE_URL = process.env.DATABASE_URL = databaseUrl;
+  await migrateDatabase(databaseUrl);
+  const seeded = plan.seedDemoShop ? await seedDemoShop(databaseUrl) : undefined;
 
   let closeSink = async () => {};
   if (plan.mailSink) {
