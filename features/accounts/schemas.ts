@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { hasControlCharacters } from '@/features/ui/bounded';
+import { knownTimeZone } from '@/features/ui/time-zone-names';
 
 const noControl = { error: 'Remove the control character (such as a NUL byte) from this field.' };
 
@@ -32,6 +33,8 @@ export const signUpSchema = z.object({
   name: personName,
   email: emailField,
   password: newPasswordField,
+  /** The browser's own zone, filled in by the form; anything unknown (or missing) leaves the shop on UTC. */
+  timeZone: z.preprocess((v) => knownTimeZone(v) ?? undefined, z.string().optional()),
 });
 
 export const signInSchema = z.object({

@@ -1,7 +1,7 @@
 import 'server-only';
 import { eq } from 'drizzle-orm';
 import { getDb } from '@/db';
-import { shops, users } from '@/db/schema';
+import { shops, shopSettings, users } from '@/db/schema';
 import { burnPasswordCheck, hashPassword, verifyPassword } from '@/server/auth/password';
 import { accountDelayMs, accountFailures, recordFailure, recordSuccess, reserveAttempt } from '@/server/auth/throttle';
 import { DomainError } from '@/server/errors';
@@ -18,6 +18,8 @@ export async function createShopWithLead(input: SignUpInput): Promise<{ userId: 
   try {
     return await db.transaction(async (tx) => {
       const [shop] = await tx.insert(shops).values({ name: input.shopName }).returning({ id: shops.id });
+      // The trigger made the settings row with the shop; the clock starts as the browser's.
+      if (input.timeZone) await tx.update(shopSettings).set({ timeZone: input.timeZone }).where(eq(shopSettings.shopId, shop!.id));
       const [user] = await tx
         .insert(users)
         .values({ shopId: shop!.id, email: input.email, name: input.name, role: 'lead', passwordHash })
