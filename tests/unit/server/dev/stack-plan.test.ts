@@ -41,7 +41,7 @@ describe('npm start in production (item: no demo defaults)', () => {
   });
 
   it('the start script itself stops before touching anything, with the list', () => {
-    const env: Record<string, string> = { PATH: process.env.PATH ?? '', HOME: process.env.HOME ?? '/root', NODE_ENV: 'production' };
+    const env: NodeJS.ProcessEnv = { PATH: process.env.PATH ?? '', HOME: process.env.HOME ?? '/root', NODE_ENV: 'production' };
     const run = spawnSync(path.join(ROOT, 'node_modules', '.bin', 'tsx'), ['--conditions=react-server', 'server/dev/stack.ts', 'start'], { cwd: ROOT, env, encoding: 'utf8', timeout: 30_000 });
     expect(run.status).toBe(1);
     expect(run.stderr).toMatch(/DATABASE_URL[\s\S]*SMTP_URL[\s\S]*UPLOADTHING_TOKEN[\s\S]*APP_URL/);
