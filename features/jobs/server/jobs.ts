@@ -175,19 +175,41 @@ export async function updateJob(
   const job = await getJob(actor.shopId, jobId);
   if (job.state === 'signed_off') throw new DomainError('conflict', 'A signed-off job card is a record and cannot be edited.');
   if (patch.assigneeId !== undefined) await assertAssignee(actor, patch.assigneeId);
-  await getDb()
+  // Not signed off at the moment of writing: a sign-off that lands first keeps the record whole.
+  const edited = await getDb()
     .update(jobs)
     .set({ ...patch, updatedAt: new Date() })
-    .where(and(eq(jobs.shopId, actor.shopId), eq(jobs.id, jobId)));
+    .where(and(eq(jobs.shopId, actor.shopId), eq(jobs.id, jobId), ne(jobs.state, 'signed_off')))
+    .returning({ id: jobs.id });
+  if (!edited.length) throw new DomainError('conflict', 'A signed-off job card is a record and cannot be edited.');
   return getJob(actor.shopId, jobId);
 }
 
+type Tx = Parameters<Parameters<ReturnType<typeof getDb>['transaction']>[0]>[0];
+
+const WHEELS_LOCKED = 'Wheels can change only while the job card is open or sent back.';
+const WHEELS_EDITABLE_IN: JobStateName[] = ['open', 'sent_back'];
+
 async function assertWheelsEditable(actor: Member, jobId: string) {
   const job = await getJob(actor.shopId, jobId);
-  if (job.state !== 'open' && job.state !== 'sent_back') {
-    throw new DomainError('conflict', 'Wheels can change only while the job card is open or sent back.');
-  }
+  if (!WHEELS_EDITABLE_IN.includes(job.state)) throw new DomainError('conflict', WHEELS_LOCKED);
   return job;
+}
+
+/**
+ * Writes a wheel while holding the job card's row, and only if the card is still editable then:
+ * a start that lands between the check above and the write waits for it, or wins and refuses it.
+ */
+async function whileWheelsEditable<T>(actor: Member, jobId: string, write: (tx: Tx) => Promise<T>): Promise<T> {
+  return getDb().transaction(async (tx) => {
+    const [held] = await tx
+      .select({ id: jobs.id })
+      .from(jobs)
+      .where(and(eq(jobs.shopId, actor.shopId), eq(jobs.id, jobId), inArray(jobs.state, WHEELS_EDITABLE_IN)))
+      .for('update');
+    if (!held) throw new DomainError('conflict', WHEELS_LOCKED);
+    return write(tx);
+  });
 }
 
 export async function addWheel(actor: Member, jobId: string, wheel: WheelInput, acceptAxleMismatch = false): Promise<JobWheel> {
@@ -197,7 +219,7 @@ export async function addWheel(actor: Member, jobId: string, wheel: WheelInput, 
   }
   await assertSpecs(actor.shopId, [wheel.specId]);
   assertTires([...job.wheels, wheel], acceptAxleMismatch);
-  const [row] = await getDb().insert(jobWheels).values({ ...wheel, shopId: actor.shopId, jobId }).returning({ id: jobWheels.id });
+  const [row] = await whileWheelsEditable(actor, jobId, (tx) => tx.insert(jobWheels).values({ ...wheel, shopId: actor.shopId, jobId }).returning({ id: jobWheels.id }));
   return (await getJob(actor.shopId, jobId)).wheels.find((w) => w.id === row!.id)!;
 }
 
@@ -219,7 +241,7 @@ export async function updateWheel(actor: Member, wheelId: string, wheel: WheelIn
   }
   await assertSpecs(actor.shopId, [wheel.specId]);
   assertTires([...job.wheels.filter((w) => w.id !== wheelId), wheel], acceptAxleMismatch);
-  await getDb().update(jobWheels).set(wheel).where(and(eq(jobWheels.shopId, actor.shopId), eq(jobWheels.id, wheelId)));
+  await whileWheelsEditable(actor, current.jobId, (tx) => tx.update(jobWheels).set(wheel).where(and(eq(jobWheels.shopId, actor.shopId), eq(jobWheels.id, wheelId))));
   return getWheel(actor.shopId, wheelId);
 }
 

@@ -1,5 +1,5 @@
 import 'server-only';
-import { and, eq, inArray } from 'drizzle-orm';
+import { and, eq, inArray, isNull } from 'drizzle-orm';
 import { getDb } from '@/db';
 import { jobEvents, jobs } from '@/db/schema';
 import type { Member } from '@/server/auth/session';
@@ -17,11 +17,13 @@ export async function transitionJob(actor: Member, jobId: string, name: Transiti
     throw new DomainError('invalid', 'Say what needs fixing, so the technician knows.', { note: ['Say what needs fixing, so the technician knows.'] });
   }
   await getDb().transaction(async (tx) => {
-    // Only from the state we checked: a second device that moved it first wins, this one is told.
+    // Only from the state and assignee we checked: a second device that moved or reassigned it
+    // first wins, this one is told.
+    const sameAssignee = job.assignee ? eq(jobs.assigneeId, job.assignee.id) : isNull(jobs.assigneeId);
     const moved = await tx
       .update(jobs)
       .set({ state: rule.to, updatedAt: new Date() })
-      .where(and(eq(jobs.shopId, actor.shopId), eq(jobs.id, jobId), inArray(jobs.state, [job.state])))
+      .where(and(eq(jobs.shopId, actor.shopId), eq(jobs.id, jobId), inArray(jobs.state, [job.state]), sameAssignee))
       .returning({ id: jobs.id });
     if (!moved.length) throw new DomainError('conflict', 'The job card changed meanwhile; reload and try again.');
     await tx.insert(jobEvents).values({ shopId: actor.shopId, jobId, action: name, fromState: job.state, toState: rule.to, byId: actor.userId, note: note.trim() });
