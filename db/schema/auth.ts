@@ -1,5 +1,5 @@
 import { sql } from 'drizzle-orm';
-import { index, integer, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
+import { index, integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
 import { shops } from './shops';
 
 export const roleEnum = pgEnum('role', ['lead', 'technician', 'apprentice']);
@@ -63,6 +63,27 @@ export const invites = pgTable(
     uniqueIndex('invites_token_hash_key').on(t.tokenHash),
     index('invites_shop_idx').on(t.shopId),
   ],
+);
+
+/**
+ * A new shop waiting for its e-mail address to be confirmed: nothing is created until the link in
+ * the mail is used, so sign-up answers the same whether or not the address has an account.
+ */
+export const signUpRequests = pgTable(
+  'sign_up_requests',
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    email: text().notNull(),
+    /** SHA-256 of the token in the link; the token itself is only ever in the e-mail. */
+    tokenHash: text().notNull(),
+    /** The rest of the sign-up form (shop name, the person's name, ...), checked again when used. */
+    details: jsonb().notNull(),
+    passwordHash: text().notNull(),
+    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    expiresAt: timestamp({ withTimezone: true }).notNull(),
+    usedAt: timestamp({ withTimezone: true }),
+  },
+  (t) => [uniqueIndex('sign_up_requests_token_hash_key').on(t.tokenHash)],
 );
 
 /**
