@@ -89,3 +89,13 @@ describe('reduceRun', () => {
     expect(blockers).toContain('Step not finished: Safety gate.');
   });
 });
+
+describe('a repeated pass (a second lap at the same target)', () => {
+  it('is its own pass: finishing the first lap does not finish the second', () => {
+    const repeated: RunnerPlan = { ...plan, passes: [{ index: 1, kind: 'staged', order }, { index: 2, kind: 'staged', order }, ...plan.passes.slice(1).map((p, i) => ({ ...p, index: i + 3 }))] };
+    const s = reduceRun(repeated, order.map((bolt) => confirm(1, bolt)));
+    expect(s.passes.map((p) => p.complete)).toEqual([true, false, false, false]);
+    expect(s.currentPass).toBe(2);
+    expect(s.passes[1]!.next).toBe(order[0]);
+  });
+});

@@ -40,8 +40,31 @@ describe('SpecForm', () => {
 
     await fill({ 'Bolt count': '20', 'Passes (% of final)': '70, 30, 100' });
     fireEvent.change(screen.getByLabelText('Passes (% of final)'));
-    expect(screen.getByLabelText('Passes (% of final)')).toHaveAccessibleDescription(/Each pass must be higher than the one before\./);
+    expect(screen.getByLabelText('Passes (% of final)')).toHaveAccessibleDescription(/Each pass must be at least the one before \(a repeated pass is fine\)\./);
     expect(screen.getByLabelText('Bolt count')).not.toHaveAttribute('aria-invalid');
+  });
+
+  it('refuses a bead-seating limit in bar as it is typed, naming psi (35 bar is 507.6 psi: NIST SP 811 App. B; 40 psi: tire industry bead-seating guidance)', async () => {
+    render(<SpecForm wrenches={wrenches} {...shop} />);
+    await userEvent.selectOptions(screen.getByLabelText('Pressure unit'), 'bar');
+    await fill({ 'Maximum bead-seating pressure': '35' });
+    const seat = screen.getByLabelText('Maximum bead-seating pressure');
+    expect(seat).toHaveAttribute('aria-invalid', 'true');
+    expect(seat).toHaveAccessibleDescription(/35 bar is 507\.6 psi: above the 40 psi bead-seating ceiling/);
+    // Nothing is said yet about fields not typed.
+    expect(screen.getByLabelText('Running pressure')).not.toHaveAttribute('aria-invalid');
+
+    await fill({ 'Maximum bead-seating pressure': '2.4', 'Running pressure': '0.7' });
+    expect(seat).not.toHaveAttribute('aria-invalid');
+    // More than 3× the running pressure (common practice, no source): a warning, not a refusal.
+    expect(seat).toHaveAccessibleDescription(/Check: The bead-seating limit \(2\.4 bar\) is more than 3× the running pressure \(0\.7 bar\)/);
+  });
+
+  it('warns at the final torque when it looks like a unit slip (5–40 ft-lb for ring bolts: common practice, no source)', async () => {
+    render(<SpecForm wrenches={wrenches} {...shop} />);
+    await fill({ 'Final torque': '96' });
+    expect(screen.getByLabelText('Final torque')).toHaveAccessibleDescription(/Check: 96 ft-lb is 130\.2 N·m: outside the usual 5–40 ft-lb/);
+    expect(screen.getByLabelText('Final torque')).not.toHaveAttribute('aria-invalid');
   });
 
   it('a skip step of N or more is refused at the skip step', async () => {
