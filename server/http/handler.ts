@@ -6,6 +6,7 @@ import type { Permission } from '@/server/auth/permissions';
 import type { Member } from '@/server/auth/session';
 import { env } from '@/server/env.mjs';
 import { DomainError, type DomainErrorCode } from '@/server/errors';
+import { BodyTooLarge, readLimitedText } from './body-limit';
 
 /** The one error shape of the JSON API. */
 export type ApiError = { error: { code: string; message: string; fields?: Record<string, string[]> } };
@@ -46,7 +47,7 @@ export function assertSameOrigin(request: Request) {
 }
 
 async function readJson(request: Request): Promise<unknown> {
-  const text = await request.text();
+  const text = await readLimitedText(request);
   if (!text) return {};
   try {
     return JSON.parse(text);
@@ -99,6 +100,9 @@ export function apiRoute<
       return Response.json(data ?? { ok: true }, { status: options.status ?? 200 });
     } catch (error) {
       if (error instanceof DomainError) return errorResponse(error);
+      if (error instanceof BodyTooLarge) {
+        return Response.json({ error: { code: 'too_large', message: error.message } } satisfies ApiError, { status: 413 });
+      }
       console.error('[api] unexpected failure', error);
       return Response.json(
         { error: { code: 'internal', message: 'Something went wrong on our side.' } } satisfies ApiError,
