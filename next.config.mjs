@@ -12,6 +12,23 @@ const nextConfig = {
   experimental: {
     // forbidden() and app/forbidden.tsx give a real 403 page to a signed-in user without the role.
     authInterrupts: true,
+    // The same cap as the JSON API (server/http/body-limit.ts). Next 16 refuses a larger body
+    // before the action runs; a fetch-called action then rejects on the phone (HTTP 500).
+    serverActions: { bodySizeLimit: '256kb' },
+  },
+  // Fixed security headers on every response; the per-request ones (CSP nonce, HSTS) are set in proxy.ts.
+  async headers() {
+    return [
+      {
+        source: '/:path*',
+        headers: [
+          { key: 'X-Content-Type-Options', value: 'nosniff' },
+          { key: 'Referrer-Policy', value: 'strict-origin-when-cross-origin' },
+          // For browsers that predate CSP's frame-ancestors.
+          { key: 'X-Frame-Options', value: 'DENY' },
+        ],
+      },
+    ];
   },
 };
 

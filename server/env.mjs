@@ -26,6 +26,10 @@ const schema = z.object({
   MAILBOX_DIR: z.string().min(1).optional(),
   // The Mailbox on a production server only for a demo (npm start sets it); it then shows a banner.
   MAILBOX_DEMO: bool.optional(),
+  // Read by the upload SDK itself; here only so the Content-Security-Policy allows the upload
+  // service (the local fake in development and tests, the hosted service by default).
+  UPLOADTHING_INGEST_URL: z.url().optional(),
+  UPLOADTHING_UFS_HOST: z.string().min(1).optional(),
   COOKIE_SECURE: bool.optional(),
   SESSION_ABSOLUTE_HOURS: z.coerce.number().int().min(1).max(24 * 90).default(24 * 14),
   INVITE_TTL_HOURS: z.coerce.number().int().min(1).max(24 * 30).default(72),

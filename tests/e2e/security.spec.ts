@@ -1,0 +1,103 @@
+import { expect, test, type Page } from '@playwright/test';
+import { invite, inviteAndJoin, signIn, signUp, uniqueEmail } from './helpers';
+
+/** Collects what Chromium reports as blocked by the Content-Security-Policy on this page. */
+function cspViolations(page: Page) {
+  const seen: string[] = [];
+  page.on('console', (message) => {
+    if (/Content Security Policy/i.test(message.text())) seen.push(message.text());
+  });
+  return seen;
+}
+
+test('pages carry a per-response CSP nonce on every script, refuse framing and sniffing; the app runs under it', async ({ page }) => {
+  const violations = cspViolations(page);
+  const first = await page.request.get('/sign-in');
+  const second = await page.request.get('/sign-in');
+  const csp = first.headers()['content-security-policy'] ?? '';
+  const nonce = /'nonce-([^']+)'/.exec(csp)?.[1];
+  expect(nonce, 'a nonce in script-src').toBeTruthy();
+  expect(second.headers()['content-security-policy']).not.toContain(nonce!);
+  expect(csp).toContain("frame-ancestors 'none'");
+  expect(first.headers()['x-content-type-options']).toBe('nosniff');
+  expect(first.headers()['referrer-policy']).toBe('strict-origin-when-cross-origin');
+  expect(first.headers()['strict-transport-security'], 'no HSTS over plain http').toBeUndefined();
+  const html = await first.text();
+  const scripts = html.match(/<script\b[^>]*>/g) ?? [];
+  expect(scripts.length).toBeGreaterThan(0);
+  for (const tag of scripts) expect(tag).toContain(`nonce="${nonce}"`);
+
+  // The whole sign-up → board → team flow hydrates and works with the policy on.
+  await signUp(page, 'Policy Check Tires', 'Cora Nonce', uniqueEmail('csp'));
+  await invite(page, uniqueEmail('csp-invitee'), 'Technician');
+  expect(violations).toEqual([]);
+});
+
+test('a server action with a body over 256 kB is refused before it runs', async ({ page }) => {
+  const email = uniqueEmail('action-cap');
+  await signUp(page, 'Body Cap Wheels', 'Bea Limit', email);
+  await page.getByRole('button', { name: 'Sign out' }).click();
+  await expect(page.getByRole('heading', { name: 'Sign in' })).toBeVisible();
+
+  // Catch the sign-in action as the form sends it, then send it again with padding added.
+  let captured: { url: string; headers: Record<string, string>; body: Buffer } | undefined;
+  await page.route('**/sign-in**', async (route) => {
+    const request = route.request();
+    if (request.method() === 'POST' && request.headers()['next-action']) {
+      captured = { url: request.url(), headers: request.headers(), body: request.postDataBuffer() ?? Buffer.alloc(0) };
+    }
+    await route.continue();
+  });
+  await signIn(page, email);
+  await expect(page.getByRole('heading', { name: 'Board' })).toBeVisible();
+  expect(captured, 'the sign-in form posts a server action').toBeDefined();
+  const { url, headers, body } = captured!;
+  const boundary = /boundary=(.+)$/.exec(headers['content-type'] ?? '')?.[1];
+  expect(boundary, 'a multipart action body').toBeTruthy();
+
+  const padded = (bytes: number) =>
+    Buffer.concat([Buffer.from(`--${boundary}\r\nContent-Disposition: form-data; name="padding"\r\n\r\n${'x'.repeat(bytes)}\r\n`), body]);
+  const send = (bytes: number) =>
+    page.request.post(url, {
+      headers: { 'next-action': headers['next-action']!, 'content-type': headers['content-type']!, origin: new URL(url).origin, accept: 'text/x-component' },
+      data: padded(bytes),
+      maxRedirects: 0,
+    });
+  const small = await send(1024);
+  expect(small.status(), 'the same action with a little padding runs').toBeLessThan(400);
+  const large = await send(300 * 1024);
+  // Next 16 refuses it while reading the body; for a fetch-called action it answers 500 with no result.
+  expect(large.status()).toBeGreaterThanOrEqual(400);
+});
+
+test('the Mailbox: signed out goes to sign-in; a technician is refused; a lead sees only their own shop’s mail, under a demo banner', async ({ page, browser }) => {
+  const signedOut = await browser.newContext();
+  const anonymous = await signedOut.newPage();
+  await anonymous.goto('/mailbox');
+  await expect(anonymous.getByRole('heading', { name: 'Sign in' })).toBeVisible();
+  expect(new URL(anonymous.url()).searchParams.get('next')).toBe('/mailbox');
+  await signedOut.close();
+
+  await signUp(page, 'Mailbox Shop A', 'Ana Inbox', uniqueEmail('mail-a'));
+  const invitedToA = uniqueEmail('mail-a-tech');
+  const tech = await inviteAndJoin(page, browser, invitedToA, 'Tia Tech', 'Technician');
+  const refused = await tech.page.goto('/mailbox');
+  expect(refused?.status()).toBe(403);
+  await expect(tech.page.getByRole('heading', { name: 'Not for your role' })).toBeVisible();
+  await expect(tech.page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Mailbox' })).toHaveCount(0);
+  await tech.context.close();
+
+  // The e2e server is a production build with MAILBOX_DEMO=true: the page says it is a demo.
+  await page.goto('/mailbox');
+  await expect(page.getByText(/Demo server: this Mailbox is switched on/)).toBeVisible();
+  await expect(page.getByRole('article', { name: new RegExp(`to ${invitedToA.replace(/[.+]/g, '\\$&')}`) })).toBeVisible();
+
+  const otherShop = await browser.newContext();
+  const leadB = await otherShop.newPage();
+  await signUp(leadB, 'Mailbox Shop B', 'Ben Inbox', uniqueEmail('mail-b'));
+  await leadB.goto('/mailbox');
+  await expect(leadB.getByRole('heading', { name: 'Mailbox' })).toBeVisible();
+  await expect(leadB.getByText(invitedToA)).toHaveCount(0);
+  await expect(leadB.getByRole('article')).toHaveCount(0);
+  await otherShop.close();
+});
