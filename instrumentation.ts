@@ -21,6 +21,6 @@ export async function register() {
       const request = args[0] as IncomingMessage;
       request.headers[PEER_ADDRESS_HEADER] = request.socket.remoteAddress ?? 'unknown';
     }
-    return emit.call(this, event, ...args);
+    return Reflect.apply(emit, this, [event, ...args]) as boolean;
   } as typeof proto.emit;
 }

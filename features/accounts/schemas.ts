@@ -45,6 +45,8 @@ export const signInSchema = z.object({
 });
 
 export type SignUpInput = z.infer<typeof signUpSchema>;
+
+export const confirmSignUpSchema = z.object({ token: z.string().min(20).max(200) });
 export type SignInInput = z.infer<typeof signInSchema>;
 
 

@@ -14,6 +14,14 @@ export function SignUpForm() {
   const { state, formAction, pending, errors, value } = useFormAction(signUp);
   // The new shop's clock starts as this browser's; the server checks the name (else UTC).
   const timeZone = useSyncExternalStore(noChange, browserTimeZone, () => '');
+  // The same answer for every address: whether it already has an account is told only by e-mail.
+  if (state?.ok) {
+    return (
+      <p role="status" className="rounded-lg border-2 border-ok bg-ok-tint p-3 font-semibold text-ok">
+        Check your e-mail at {state.data.email}. The link in it finishes creating your shop.
+      </p>
+    );
+  }
   return (
     <form action={formAction} noValidate className="flex flex-col gap-4">
       <FormMessage state={state} />
@@ -30,7 +38,7 @@ export function SignUpForm() {
         hint="At least 12 characters. A short sentence works well."
         errors={errors('password')}
       />
-      <Button disabled={pending}>{pending ? 'Creating your shop…' : 'Create shop and sign in'}</Button>
+      <Button disabled={pending}>{pending ? 'Sending…' : 'Create shop'}</Button>
     </form>
   );
 }

@@ -9,9 +9,12 @@ import type { SignInInput, SignUpInput } from '../schemas';
 
 const EMAIL_TAKEN = 'An account with this e-mail already exists. Sign in instead.';
 
+/** The sign-up form's fields, with the password or (from a confirmed sign-up) its hash. */
+export type NewShop = Omit<SignUpInput, 'password'> & ({ password: string } | { passwordHash: string });
+
 /** A new shop and its first lead, in one transaction. */
-export async function createShopWithLead(input: SignUpInput): Promise<{ userId: string; shopId: string }> {
-  const passwordHash = await hashPassword(input.password);
+export async function createShopWithLead(input: NewShop): Promise<{ userId: string; shopId: string }> {
+  const passwordHash = 'passwordHash' in input ? input.passwordHash : await hashPassword(input.password);
   const db = getDb();
   const existing = await db.select({ id: users.id }).from(users).where(eq(users.email, input.email));
   if (existing.length) throw new DomainError('conflict', EMAIL_TAKEN, { email: [EMAIL_TAKEN] });

@@ -2,13 +2,16 @@ import { createHash } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import { describe, expect, it } from 'vitest';
 import { getDb } from '@/db';
-import { sessions, users } from '@/db/schema';
+import { sessions, shops, signUpRequests, users } from '@/db/schema';
 import { signIn } from '@/features/accounts/actions/sign-in';
-import { signUp } from '@/features/accounts/actions/sign-up';
+import { finishSignUp, signUp } from '@/features/accounts/actions/sign-up';
 import { createSessionCookie, validateSessionId } from '@/server/auth/session';
 import { accountDelayMs } from '@/server/auth/throttle';
+import type { SinkMessage } from '@/server/mail/mailbox';
 import { createTestShop, PASSWORD } from '@/tests/helpers/factories';
+import { waitForMail } from '@/tests/helpers/mailbox';
 import { cookieAttributes, cookieValue, resetNextRequest, setRequestAddress } from '@/tests/helpers/next-request';
+import { INTEGRATION_SINK } from '@/tests/helpers/test-services';
 
 const SESSION = 'ringpass_session';
 // The database keeps the SHA-256 of the cookie's token (hex), never the token.
@@ -18,15 +21,26 @@ async function expectRedirect(call: Promise<unknown>, to: string) {
   await expect(call).rejects.toMatchObject({ digest: expect.stringContaining(to) });
 }
 
+const signUpToken = (m: SinkMessage) => /\/sign-up\/([A-Za-z0-9_-]+)/.exec(m.text)?.[1] ?? '';
+
 describe('sign-up', () => {
-  it('creates the shop and its first lead, signs them in with an httpOnly Lax cookie', async () => {
+  it('sends a link; the link creates the shop and its first lead and signs them in with an httpOnly Lax cookie', async () => {
     resetNextRequest();
-    await expectRedirect(signUp(null, { shopName: 'Gravel Pit Tires', name: 'Rosa Vent', email: 'Rosa@Gravel.test', password: 'a long enough password' }), '/board');
+    expect(await signUp(null, { shopName: 'Gravel Pit Tires', name: 'Rosa Vent', email: 'Rosa@Gravel.test', password: 'a long enough password' })).toEqual({ ok: true, data: { email: 'rosa@gravel.test' } });
+    expect(await getDb().$count(users, eq(users.email, 'rosa@gravel.test'))).toBe(0);
+    const mail = await waitForMail(INTEGRATION_SINK.dir, 'rosa@gravel.test');
+    expect(mail.subject).toBe('Finish creating Gravel Pit Tires on Ringpass');
+    const token = signUpToken(mail);
+    expect(await getDb().$count(signUpRequests, eq(signUpRequests.tokenHash, token))).toBe(0); // only the hash is stored
+
+    await expectRedirect(finishSignUp(null, { token }), '/board');
     const [user] = await getDb().select().from(users).where(eq(users.email, 'rosa@gravel.test'));
     expect(user).toMatchObject({ role: 'lead', name: 'Rosa Vent' });
     expect(user!.passwordHash).toMatch(/^\$argon2id\$v=19\$m=19456,t=2,p=1\$/);
     expect(cookieValue(SESSION)).toBeTruthy();
     expect(cookieAttributes(SESSION)).toMatchObject({ httpOnly: true, sameSite: 'lax' });
+    resetNextRequest();
+    expect(await finishSignUp(null, { token })).toMatchObject({ ok: false, message: expect.stringMatching(/expired or was already used/) });
   });
 
   it('refuses bad input field by field and creates nothing', async () => {
@@ -36,10 +50,25 @@ describe('sign-up', () => {
     expect(await getDb().$count(users)).toBe(before);
   });
 
-  it('refuses an address that already has an account', async () => {
+  it('answers an address that already has an account exactly as a new one, and tells its owner by e-mail', async () => {
     const shop = await createTestShop();
-    const result = await signUp(null, { shopName: 'Copy', name: 'X', email: shop.lead.email, password: 'a long enough password' });
-    expect(result).toMatchObject({ ok: false, fieldErrors: { email: [expect.stringMatching(/already exists/)] } });
+    const form = (email: string) => ({ shopName: 'Copy', name: 'X', email, password: 'a long enough password' });
+    const startedTaken = Date.now();
+    const taken = await signUp(null, form(shop.lead.email));
+    const takenMs = Date.now() - startedTaken;
+    const startedFresh = Date.now();
+    const fresh = await signUp(null, form('brand-new@gravel.test'));
+    const freshMs = Date.now() - startedFresh;
+    expect(taken).toEqual({ ok: true, data: { email: shop.lead.email } });
+    expect(fresh).toEqual({ ok: true, data: { email: 'brand-new@gravel.test' } });
+    // Both hash the password; the difference is one insert, far below the hash's cost.
+    expect(Math.abs(takenMs - freshMs)).toBeLessThan(Math.max(takenMs, freshMs) * 0.75 + 50);
+
+    const notice = await waitForMail(INTEGRATION_SINK.dir, shop.lead.email);
+    expect(notice.subject).toBe('Someone tried to create a Ringpass shop with your address');
+    expect(signUpToken(notice)).toBe('');
+    expect(notice.shopId).toBe(shop.shopId);
+    expect(await getDb().$count(shops, eq(shops.name, 'Copy'))).toBe(0);
   });
 });
 
