@@ -1,6 +1,6 @@
 import 'server-only';
 import { env } from '@/server/env.mjs';
-import { PEER_ADDRESS_HEADER } from '@/server/http/peer-address-header';
+import { PEER_ADDRESS_HEADER } from '@/server/http/peer-address';
 
 /**
  * The client's address for throttling.

@@ -2,7 +2,7 @@ import { request as httpRequest, createServer, type IncomingHttpHeaders } from '
 import type { AddressInfo } from 'node:net';
 import { describe, expect, it } from 'vitest';
 import { register } from '@/instrumentation';
-import { PEER_ADDRESS_HEADER } from '@/server/http/peer-address-header';
+import { PEER_ADDRESS_HEADER } from '@/server/http/peer-address';
 import { clientAddress } from '@/server/http/request-meta';
 
 const headers = (forwarded: string | null, peer: string | null) => {
