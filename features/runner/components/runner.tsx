@@ -116,6 +116,7 @@ export function Runner(props: RunnerProps) {
                 step={step}
                 record={record}
                 limit={step.id === 'seat_bead' ? { value: props.spec.maxBeadSeatPressure, unit: props.spec.pressureUnit } : undefined}
+                readingUnit={wheel.pressureUnit}
                 blocked={step.id === 'seat_bead' && !(photoKinds.includes('bead_outer') && photoKinds.includes('bead_inner')) ? 'Add both bead photos first.' : undefined}
                 extra={
                   step.id === 'mount' && wheel.directional ? (

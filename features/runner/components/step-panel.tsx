@@ -18,6 +18,7 @@ export function StepPanel({
   record,
   extra,
   limit,
+  readingUnit,
   blocked,
 }: {
   step: Step;
@@ -25,12 +26,14 @@ export function StepPanel({
   extra?: React.ReactNode;
   /** The highest reading allowed (bead seating), with its unit. */
   limit?: { value: number; unit: PressureUnit };
+  /** The unit a reading starts in without a limit: the wheel's own (from the shop's setting). */
+  readingUnit: PressureUnit;
   /** Why "Step done" must wait (e.g. photos still missing). */
   blocked?: string;
 }) {
   const [ticked, setTicked] = useState<string[]>([]);
   const [value, setValue] = useState('');
-  const [unit, setUnit] = useState<PressureUnit>(limit?.unit ?? 'psi');
+  const [unit, setUnit] = useState<PressureUnit>(limit?.unit ?? readingUnit);
   const [skipping, setSkipping] = useState(false);
   const [failing, setFailing] = useState(false);
   const [reason, setReason] = useState('');
