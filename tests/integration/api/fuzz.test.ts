@@ -340,7 +340,7 @@ const routes = Object.entries(routeModules).flatMap(([file, mod]) =>
 );
 
 // A lone surrogate has no URL form (Next would hand the route U+FFFD); the params still carry it.
-const segment = (value: string) => encodeURIComponent(value.toWellFormed());
+const segment = (value: string) => encodeURIComponent(value.replace(/\p{Cs}/gu, '\ufffd'));
 function pathFor(file: string, values: Record<string, string>) {
   return file
     .replace(/^\/app/, '')

@@ -73,10 +73,10 @@ async function upload(bytes: Uint8Array, init: { origin?: string | null; declare
     body: JSON.stringify({ files: [{ name: 'bead.jpg', size: init.declaredSize ?? bytes.byteLength, type: 'image/jpeg', lastModified: Date.now() }], input: { wheelId, kind: 'bead_outer' } }),
   });
   if (!ask.ok) return { ask };
-  const [{ url }] = (await ask.json()) as { url: string; key: string }[];
+  const url = ((await ask.json()) as { url: string; key: string }[])[0]!.url;
   const form = new FormData();
-  form.set('file', new Blob([bytes], { type: 'image/jpeg' }), 'bead.jpg');
-  const put = await fetch(url!, { method: 'PUT', body: form });
+  form.set('file', new Blob([new Uint8Array(bytes)], { type: 'image/jpeg' }), 'bead.jpg');
+  const put = await fetch(url, { method: 'PUT', body: form });
   return { ask, put, body: (await put.json()) as { ufsUrl?: string; serverData?: { ok: boolean; photoId: string; url: string } } };
 }
 
