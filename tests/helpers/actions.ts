@@ -72,6 +72,8 @@ export const ACTION_CASES: Record<string, ActionCase> = {
   '/features/accounts/actions/accept-invite.ts#acceptTeamInvite': { permission: 'public', input: () => ({ token: 'x'.repeat(40), name: 'Nia New', password: 'a long enough password' }), otherShop: 'public', publicGets: 'invalid' },
   '/features/accounts/actions/sign-in.ts#signIn': { permission: 'public', input: (w) => ({ email: w.a.technician.email, password: PASSWORD }), otherShop: 'public' },
   '/features/accounts/actions/sign-up.ts#signUp': { permission: 'public', input: () => ({ shopName: 'New Shop', name: 'Nia New', email: `new-${randomUUID()}@shop.test`, password: 'a long enough password' }), otherShop: 'public' },
+  // An unknown link: the answer is the same for anyone, signed in or not.
+  '/features/accounts/actions/sign-up.ts#finishSignUp': { permission: 'public', input: () => ({ token: 'x'.repeat(40) }), otherShop: 'public', publicGets: 'invalid' },
   '/features/accounts/actions/sign-out.ts#signOut': { permission: 'session', input: () => undefined, otherShop: 'public' },
   '/features/accounts/actions/change-role.ts#changeMemberRole': { permission: 'team.manage', input: async (w) => ({ memberId: await freshTechnician(w.a), role: 'apprentice' }), otherShop: 'not_found' },
   '/features/accounts/actions/invite-member.ts#inviteMember': { permission: 'team.manage', input: () => ({ email: `invitee-${randomUUID()}@shop.test`, role: 'technician' }), otherShop: 'ok' },

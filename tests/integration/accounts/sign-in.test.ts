@@ -5,7 +5,9 @@ import { getDb } from '@/db';
 import { sessions, shops, signUpRequests, users } from '@/db/schema';
 import { signIn } from '@/features/accounts/actions/sign-in';
 import { finishSignUp, signUp } from '@/features/accounts/actions/sign-up';
+import { getShopName } from '@/features/accounts/server/shop';
 import { createSessionCookie, validateSessionId } from '@/server/auth/session';
+import { getShopSettings } from '@/server/shop/settings';
 import { accountDelayMs } from '@/server/auth/throttle';
 import type { SinkMessage } from '@/server/mail/mailbox';
 import { createTestShop, PASSWORD } from '@/tests/helpers/factories';
@@ -41,6 +43,15 @@ describe('sign-up', () => {
     expect(cookieAttributes(SESSION)).toMatchObject({ httpOnly: true, sameSite: 'lax' });
     resetNextRequest();
     expect(await finishSignUp(null, { token })).toMatchObject({ ok: false, message: expect.stringMatching(/expired or was already used/) });
+  });
+
+  it('the shop made from the link keeps what the form sent, the browser\'s time zone included', async () => {
+    resetNextRequest();
+    await signUp(null, { shopName: 'Mesa Bead Works', name: 'Mo Mesa', email: 'mo@mesa.test', password: 'a long enough password', timeZone: 'America/Denver' });
+    await expectRedirect(finishSignUp(null, { token: signUpToken(await waitForMail(INTEGRATION_SINK.dir, 'mo@mesa.test')) }), '/board');
+    const [user] = await getDb().select({ shopId: users.shopId }).from(users).where(eq(users.email, 'mo@mesa.test'));
+    expect((await getShopSettings(user!.shopId)).timeZone).toBe('America/Denver');
+    expect(await getShopName(user!.shopId)).toBe('Mesa Bead Works');
   });
 
   it('refuses bad input field by field and creates nothing', async () => {
