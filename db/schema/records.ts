@@ -213,13 +213,62 @@ export const jobWheels = pgTable(
     directional: boolean().notNull().default(false),
     targetPressure: doublePrecision().notNull(),
     pressureUnit: pressureUnitEnum().notNull(),
-    /** Set when the technician submits the wheel from the runner. */
+    /** Set when the technician submits the wheel from the runner; cleared when a lead sends the wheel back. */
     submittedAt: timestamp({ withTimezone: true }),
+    /** Who submitted it: a lead who submitted a wheel of a job may not sign that job off. */
+    submittedById: uuid().references(() => users.id),
     /** A failed inspection stops the wheel and flags it for the lead (parts needed). */
     flaggedReason: text(),
+    /** When the wheel's run started (its first stored event); the snapshot was taken then. */
+    startedAt: timestamp({ withTimezone: true }),
+    /**
+     * The spec and plan as they were when the run started. The runner, its save path, the review
+     * and reports read this once it exists, so editing the spec later never changes a past record.
+     * Null until the first event is stored.
+     */
+    snapshot: jsonb().$type<WheelSnapshot>(),
+    /**
+     * The lead's send-back for this wheel (null when it was never sent back): the note the
+     * technician sees at the top of the runner and the steps to redo (empty = the whole wheel).
+     */
+    rework: jsonb().$type<WheelRework>(),
   },
   (t) => [uniqueIndex('job_wheels_position_key').on(t.jobId, t.position), index('job_wheels_shop_idx').on(t.shopId)],
 );
+
+type TorqueValue = { value: number; unit: (typeof torqueUnitEnum.enumValues)[number] };
+type PressureValue = { value: number; unit: (typeof pressureUnitEnum.enumValues)[number] };
+
+/**
+ * `job_wheels.snapshot`: what the technician was told to do, frozen at the run's first event.
+ * Units travel with every number. `passes[i].index` is the pass number events carry (1-based);
+ * `order` is the bolt sequence that pass follows (the check pass goes round in order).
+ */
+export type WheelSnapshot = {
+  version: 1;
+  takenAt: string;
+  spec: {
+    id: string;
+    name: string;
+    boltCount: number;
+    boltThread: string;
+    pattern: { kind: (typeof patternKindEnum.enumValues)[number]; step: number | null };
+    passFractions: number[];
+    checkPass: boolean;
+    finalTorque: TorqueValue;
+    maxBeadSeatPressure: PressureValue;
+    runningPressure: PressureValue;
+    lugTorque: TorqueValue | null;
+    lugCount: number | null;
+    makerReference: string;
+  };
+  plan: { sequence: number[]; passes: { index: number; kind: 'staged' | 'check'; fraction: number; target: TorqueValue; order: number[] }[] };
+  /** The wheel's own running-pressure target (from the job card) at the start. */
+  targetPressure: PressureValue;
+};
+
+/** `job_wheels.rework`: a lead's send-back of one wheel. `steps` empty = redo the whole wheel. */
+export type WheelRework = { note: string; steps: string[]; byId: string; at: string };
 
 export type WheelSpecRow = typeof wheelSpecs.$inferSelect;
 export type WrenchRow = typeof wrenches.$inferSelect;
@@ -242,6 +291,13 @@ export const jobEvents = pgTable(
       .notNull()
       .references(() => users.id),
     note: text().notNull().default(''),
+    /**
+     * A sign-off by a lead who worked on the job, allowed only by the shop's single-lead setting;
+     * `note` then holds the lead's written reason, shown on the record.
+     */
+    selfSignoff: boolean().notNull().default(false),
+    /** A send-back's wheels, each with its own note and optional steps to redo. */
+    wheels: jsonb().$type<{ wheelId: string; note: string; steps: string[] }[]>(),
     at: createdAt(),
   },
   (t) => [index('job_events_job_idx').on(t.jobId, t.at)],
@@ -268,8 +324,16 @@ export const wheelRunEvents = pgTable(
     byId: uuid()
       .notNull()
       .references(() => users.id),
+    /** When it happened by the phone, clamped to the server's clock (24 h back, 5 min ahead). */
     clientAt: timestamp({ withTimezone: true }).notNull(),
+    /** The phone's own time when it differed from `clientAt` (clamped), else null. */
+    deviceAt: timestamp({ withTimezone: true }),
     receivedAt: createdAt(),
+    /**
+     * Set on every event of a wheel when a lead sends that wheel back: the event stays in the
+     * history, but the runner's reducer and the anomalies read only events where this is null.
+     */
+    supersededAt: timestamp({ withTimezone: true }),
   },
   (t) => [uniqueIndex('wheel_run_events_client_key').on(t.clientId), index('wheel_run_events_wheel_idx').on(t.wheelId, t.clientAt)],
 );
@@ -300,4 +364,32 @@ export const wheelPhotos = pgTable(
     createdAt: createdAt(),
   },
   (t) => [uniqueIndex('wheel_photos_file_key').on(t.fileKey), index('wheel_photos_wheel_idx').on(t.wheelId)],
+);
+
+/**
+ * Runner events the server refused for good (off the plan, a wrench that may not be used, a closed
+ * wheel, bad data). The phone keeps them in its "Needs attention" list; the review shows these
+ * rows so nothing a technician tapped disappears silently. `raw` is the event as the phone sent it.
+ */
+export const refusedRunEvents = pgTable(
+  'refused_run_events',
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    shopId: shopId(),
+    jobId: uuid()
+      .notNull()
+      .references(() => jobs.id, { onDelete: 'cascade' }),
+    wheelId: uuid()
+      .notNull()
+      .references(() => jobWheels.id, { onDelete: 'cascade' }),
+    /** The device's id for the event when it had a readable one. */
+    clientId: text(),
+    byId: uuid()
+      .notNull()
+      .references(() => users.id),
+    reason: text().notNull(),
+    raw: jsonb().$type<unknown>().notNull(),
+    at: createdAt(),
+  },
+  (t) => [uniqueIndex('refused_run_events_client_key').on(t.wheelId, t.clientId), index('refused_run_events_job_idx').on(t.shopId, t.jobId, t.at)],
 );
