@@ -4,10 +4,10 @@
  * route handler of the production build over loopback, and the same SQL straight on PostgreSQL.
  * Last line: `board p95 X ms, raw p95 Y ms, ratio Z`.
  */
-import { randomBytes } from 'node:crypto';
 import postgres from 'postgres';
 import { clusterUrl, recreateDatabase, startCluster } from '@/db/cluster';
 import { migrateDatabase } from '@/db/migrate';
+import { newSessionToken } from '../helpers/session-row';
 import { pct, run, startProductionServer } from './production-server';
 
 const DB = 'ringpass_bench';
@@ -63,13 +63,13 @@ async function main() {
 
   // Sign in as the lead of shop 1 by writing a session row (what sign-in does, minus the password).
   const [lead] = await sql`select u.id, u.shop_id from users u join shops s on s.id = u.shop_id where s.name = 'Bench shop 1' and u.role = 'lead'`;
-  const sessionId = randomBytes(20).toString('hex');
-  await sql`insert into sessions (id, user_id, expires_at, absolute_expires_at) values (${sessionId}, ${lead!.id}, now() + interval '1 day', now() + interval '1 day')`;
+  const session = newSessionToken();
+  await sql`insert into sessions (id, user_id, expires_at, absolute_expires_at) values (${session.id}, ${lead!.id}, now() + interval '1 day', now() + interval '1 day')`;
 
   const server = await startProductionServer(PORT, clusterUrl(DB));
   try {
     const url = `http://127.0.0.1:${PORT}/api/jobs?${FILTER}`;
-    const headers = { cookie: `ringpass_session=${sessionId}` };
+    const headers = { cookie: `ringpass_session=${session.token}` };
     const first = (await (await fetch(url, { headers })).json()) as { total: number; data: unknown[] };
     console.log(`[bench] board answers ${first.data.length} rows of ${first.total} in progress`);
 
@@ -85,7 +85,7 @@ async function main() {
     Object.assign(process.env, { DATABASE_URL: server.env.DATABASE_URL, SMTP_URL: server.env.SMTP_URL });
     const { boardQuery } = await import('@/features/jobs/server/board');
     const { boardQuerySchema } = await import('@/features/jobs/schemas');
-    const member = { userId: lead!.id, shopId: lead!.shop_id, role: 'lead' as const, name: '', email: '', sessionId };
+    const member = { userId: lead!.id, shopId: lead!.shop_id, role: 'lead' as const, name: '', email: '', sessionId: session.id };
     const query = boardQuery(member, boardQuerySchema.parse(Object.fromEntries(new URLSearchParams(FILTER))), { timeZone: 'UTC', now: new Date() }).toSQL();
     for (let i = 0; i < 30; i++) await sql.unsafe(query.sql, query.params as never[]);
     const raw: number[] = [];

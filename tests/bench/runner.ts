@@ -8,13 +8,14 @@
  * Last two lines: `capacity N confirmations/s at p95 <= 50 ms` and
  * `confirm p95 X ms, raw insert p95 Y ms, ratio Z`.
  */
-import { randomBytes, randomUUID } from 'node:crypto';
+import { randomUUID } from 'node:crypto';
 import http from 'node:http';
 import path from 'node:path';
 import postgres from 'postgres';
 import { clusterUrl, recreateDatabase, startCluster } from '@/db/cluster';
 import { migrateDatabase } from '@/db/migrate';
 import { serverActionId } from '../helpers/next-build';
+import { newSessionToken } from '../helpers/session-row';
 import { ROOT } from '../helpers/test-services';
 import { pct, run, startProductionServer } from './production-server';
 
@@ -41,9 +42,9 @@ async function seed(sql: postgres.Sql): Promise<Tech[]> {
     const [u] = await sql`insert into users (shop_id, email, name, role, password_hash) values (${shopId}, ${`t${i}@bench.test`}, ${`Tech ${i}`}, 'technician', 'x') returning id`;
     const [job] = await sql`insert into jobs (shop_id, number, customer_id, vehicle_id, state, assignee_id, created_by_id) values (${shopId}, ${1000 + i}, ${customer!.id}, ${vehicle!.id}, 'in_progress', ${u!.id}, ${lead!.id}) returning id`;
     const [wheel] = await sql`insert into job_wheels (shop_id, job_id, position, spec_id, tire_size, target_pressure, pressure_unit) values (${shopId}, ${job!.id}, 'LF', ${spec!.id}, '30x10R14', 14, 'psi') returning id`;
-    const sid = randomBytes(20).toString('hex');
-    await sql`insert into sessions (id, user_id, expires_at, absolute_expires_at) values (${sid}, ${u!.id}, now() + interval '1 day', now() + interval '1 day')`;
-    techs.push({ cookie: `ringpass_session=${sid}`, wheelId: wheel!.id, jobId: job!.id, userId: u!.id, shopId, n: 0 });
+    const session = newSessionToken();
+    await sql`insert into sessions (id, user_id, expires_at, absolute_expires_at) values (${session.id}, ${u!.id}, now() + interval '1 day', now() + interval '1 day')`;
+    techs.push({ cookie: `ringpass_session=${session.token}`, wheelId: wheel!.id, jobId: job!.id, userId: u!.id, shopId, n: 0 });
   }
   return techs;
 }
