@@ -24,6 +24,9 @@ const patternOptions = [
   { value: 'sequential', label: 'Sequential (clockwise)' },
 ];
 
+/** Fields the browser checks again as the person types (engine and plausibility). */
+const LIVE_FIELDS = new Set(['boltCount', 'skipStep', 'passPercents', 'finalTorque', 'torqueUnit', 'lugTorque', 'maxBeadSeatPressure', 'runningPressure', 'pressureUnit', 'beadSeatRatingReference', 'beadSeatRatingConfirmed']);
+
 type Live = { spec?: SpecInput; engine?: Record<string, string[]>; checks?: ReturnType<typeof liveCheck> };
 
 function readLive(form: HTMLFormElement): Live {
@@ -56,13 +59,23 @@ export function SpecForm({
   const { state, formAction, pending, errors, value } = useFormAction(spec ? updateWheelSpec : createWheelSpec);
   const [live, setLive] = useState<Live>({});
   const initial = (name: keyof Spec, fallback = '') => value(name) ?? (spec?.[name] == null ? fallback : String(spec[name]));
-  const fieldErrors = (name: string) => errors(name) ?? live.engine?.[name] ?? live.checks?.errors[name];
+  // After a refused save, what the person types next is judged live: the server's message at a
+  // field goes once that field (or, for the checks that read several fields, any field) changes.
+  const [edited, setEdited] = useState<{ after: unknown; names: string[] }>({ after: null, names: [] });
+  const editedSinceSave = edited.after === state && edited.names.length > 0;
+  const serverErrors = (name: string) => (editedSinceSave && (edited.names.includes(name) || LIVE_FIELDS.has(name)) ? undefined : errors(name));
+  const fieldErrors = (name: string) => serverErrors(name) ?? live.engine?.[name] ?? live.checks?.errors[name];
   const warnings = (name: string) => live.checks?.warnings[name];
   const shown = state?.ok ? { ok: true, message: 'Spec saved.' } : state;
 
   return (
     <div className="grid gap-8 lg:grid-cols-2">
-      <form action={formAction} onChange={(e) => setLive(readLive(e.currentTarget))} noValidate className="flex flex-col gap-6" aria-label="Wheel spec">
+      <form action={formAction} onChange={(e) => {
+          // The event bubbles from the input that changed (React types it as the form).
+          const { name = '' } = e.target as unknown as { name?: string };
+          setEdited((prev) => ({ after: state, names: prev.after === state ? [...prev.names, name] : [name] }));
+          setLive(readLive(e.currentTarget));
+        }} noValidate className="flex flex-col gap-6" aria-label="Wheel spec">
         <FormMessage state={shown} />
         {spec?.plausibilityFlag ? <SpecFlag reason={spec.plausibilityFlag} canFix /> : null}
         {spec ? <input type="hidden" name="specId" value={spec.id} /> : null}
