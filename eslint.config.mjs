@@ -3,7 +3,7 @@ import nextVitals from 'eslint-config-next/core-web-vitals';
 import nextTs from 'eslint-config-next/typescript';
 import tseslint from 'typescript-eslint';
 
-const productFeatures = ['accounts', 'jobs', 'mailbox', 'plans', 'runner', 'settings', 'specs', 'tool-crib'];
+const productFeatures = ['accounts', 'jobs', 'mailbox', 'plans', 'review', 'runner', 'settings', 'specs', 'tool-crib'];
 // Shared by every feature: the engine and the UI primitives.
 const shared = ['torque-plan', 'ui', 'bolt-circle'];
 
