@@ -81,10 +81,23 @@ export const jobUpdateSchema = z.object({
 });
 
 export const TRANSITIONS = ['start', 'submit', 'sign_off', 'send_back'] as const;
+/** One wheel a lead sends back: its own note, and the runner steps to redo (none named = the whole wheel). */
+export const sendBackWheelSchema = z.object({
+  wheelId: uuid('wheel'),
+  note: requiredText('the note for this wheel', 1000),
+  steps: z
+    .array(z.string().regex(/^[a-z_]{1,20}$/, { error: 'Unknown step.' }), { error: 'Name the steps as a list.' })
+    .max(12)
+    .default([]),
+});
+
 export const transitionSchema = z.object({
   action: z.enum(TRANSITIONS, { error: 'Unknown action.' }),
   note: text('the note', 1000).default(''),
+  /** With send_back: the wheels to redo. Left out, every wheel of the job reopens with the job's note. */
+  wheels: z.array(sendBackWheelSchema, { error: 'Send the wheels as a list.' }).max(5).optional(),
 });
+export type SendBackWheel = z.infer<typeof sendBackWheelSchema>;
 
 export const boardQuerySchema = z.object({
   state: optional(z.string().max(200).transform((s) => s.split(',').filter(Boolean)).pipe(z.array(z.enum(JOB_STATES, { error: 'Unknown job state.' })))),

@@ -20,8 +20,8 @@ export const updateJobCard = memberAction({ permission: 'jobs.edit', schema: job
 });
 
 /** Start, submit, sign off or send back; who may is decided per job in the server layer. */
-export const moveJobCard = memberAction({ permission: 'board.view', schema: transitionSchema.extend({ jobId: ids.job }) }, async ({ jobId, action, note }, member) => {
-  const job = await transitionJob(member, jobId, action, note);
+export const moveJobCard = memberAction({ permission: 'board.view', schema: transitionSchema.extend({ jobId: ids.job }) }, async ({ jobId, action, note, wheels }, member) => {
+  const job = await transitionJob(member, jobId, action, note, { wheels });
   revalidatePath(`/jobs/${jobId}`);
   return job;
 });

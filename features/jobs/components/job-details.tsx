@@ -88,7 +88,17 @@ export function JobDetails({ job, canRun = false, photos = {} }: { job: JobCard;
             <li key={i}>
               <ShopTime when={e.at} /> — {e.by}: {e.fromState ? `${STATE_LABELS[e.fromState]} → ` : 'created, '}
               {STATE_LABELS[e.toState]}
-              {e.note ? ` (“${e.note}”)` : ''}
+              {e.selfSignoff ? ` — signed off their own work (single-lead setting). Reason: “${e.note}”` : e.note ? ` (“${e.note}”)` : ''}
+              {e.wheels?.length ? (
+                <ul className="ml-4 list-disc">
+                  {e.wheels.map((w) => (
+                    <li key={w.wheelId}>
+                      {job.wheels.find((x) => x.id === w.wheelId)?.position ?? 'Wheel'}: {w.note}
+                      {w.steps.length ? ` (redo: ${w.steps.join(', ')})` : ''}
+                    </li>
+                  ))}
+                </ul>
+              ) : null}
             </li>
           ))}
         </ol>

@@ -1,5 +1,5 @@
 import 'server-only';
-import { and, asc, eq, inArray, isNull, ne, sql } from 'drizzle-orm';
+import { and, asc, eq, inArray, isNull, ne, notInArray, sql } from 'drizzle-orm';
 import { getDb } from '@/db';
 import { jobEvents, jobs, jobWheels, users, wheelSpecs } from '@/db/schema';
 import { can } from '@/server/auth/permissions';
@@ -25,7 +25,8 @@ export type JobCard = {
   createdAt: string;
   updatedAt: string;
   wheels: JobWheel[];
-  events: { action: string; fromState: JobStateName | null; toState: JobStateName; by: string; note: string; at: string }[];
+  /** `selfSignoff`: a lead signed off their own work under the single-lead setting; `note` is their reason. `wheels`: a send-back's wheels with their notes. */
+  events: { action: string; fromState: JobStateName | null; toState: JobStateName; by: string; note: string; selfSignoff: boolean; wheels: { wheelId: string; note: string; steps: string[] }[] | null; at: string }[];
 };
 
 const wheelColumns = {
@@ -142,7 +143,7 @@ export async function getJob(shopId: string, jobId: string): Promise<JobCard> {
       .innerJoin(wheelSpecs, eq(wheelSpecs.id, jobWheels.specId))
       .where(and(eq(jobWheels.shopId, shopId), eq(jobWheels.jobId, jobId))),
     db
-      .select({ action: jobEvents.action, fromState: jobEvents.fromState, toState: jobEvents.toState, by: users.name, note: jobEvents.note, at: jobEvents.at })
+      .select({ action: jobEvents.action, fromState: jobEvents.fromState, toState: jobEvents.toState, by: users.name, note: jobEvents.note, selfSignoff: jobEvents.selfSignoff, wheels: jobEvents.wheels, at: jobEvents.at })
       .from(jobEvents)
       .innerJoin(users, eq(users.id, jobEvents.byId))
       .where(and(eq(jobEvents.shopId, shopId), eq(jobEvents.jobId, jobId)))
@@ -167,6 +168,8 @@ export async function getJob(shopId: string, jobId: string): Promise<JobCard> {
   };
 }
 
+const ASSIGNEE_LOCKED = 'The assignee cannot change while the job card awaits sign-off: the record names who did the work.';
+
 export async function updateJob(
   actor: Member,
   jobId: string,
@@ -174,14 +177,18 @@ export async function updateJob(
 ): Promise<JobCard> {
   const job = await getJob(actor.shopId, jobId);
   if (job.state === 'signed_off') throw new DomainError('conflict', 'A signed-off job card is a record and cannot be edited.');
+  const reassigning = patch.assigneeId !== undefined && patch.assigneeId !== (job.assignee?.id ?? null);
+  if (reassigning && job.state === 'awaiting_signoff') throw new DomainError('conflict', ASSIGNEE_LOCKED, { assigneeId: [ASSIGNEE_LOCKED] });
   if (patch.assigneeId !== undefined) await assertAssignee(actor, patch.assigneeId);
-  // Not signed off at the moment of writing: a sign-off that lands first keeps the record whole.
+  // Not signed off at the moment of writing: a sign-off that lands first keeps the record whole;
+  // a reassignment only while the job is not awaiting sign-off then either.
+  const lockedStates: JobStateName[] = reassigning ? ['signed_off', 'awaiting_signoff'] : ['signed_off'];
   const edited = await getDb()
     .update(jobs)
     .set({ ...patch, updatedAt: new Date() })
-    .where(and(eq(jobs.shopId, actor.shopId), eq(jobs.id, jobId), ne(jobs.state, 'signed_off')))
+    .where(and(eq(jobs.shopId, actor.shopId), eq(jobs.id, jobId), notInArray(jobs.state, lockedStates)))
     .returning({ id: jobs.id });
-  if (!edited.length) throw new DomainError('conflict', 'A signed-off job card is a record and cannot be edited.');
+  if (!edited.length) throw new DomainError('conflict', reassigning ? ASSIGNEE_LOCKED : 'A signed-off job card is a record and cannot be edited.');
   return getJob(actor.shopId, jobId);
 }
 

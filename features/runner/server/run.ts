@@ -166,7 +166,7 @@ export async function submitWheel(member: Member, wheelId: string) {
   const photos = await getDb().select({ kind: wheelPhotos.kind }).from(wheelPhotos).where(and(eq(wheelPhotos.shopId, member.shopId), eq(wheelPhotos.wheelId, wheelId)));
   const blockers = submitBlockers(plan, state, photos.map((p) => p.kind));
   if (blockers.length) throw new DomainError('conflict', blockers.join(' '), { submit: blockers });
-  await getDb().update(jobWheels).set({ submittedAt: new Date() }).where(and(eq(jobWheels.shopId, member.shopId), eq(jobWheels.id, wheelId), isNull(jobWheels.submittedAt)));
+  await getDb().update(jobWheels).set({ submittedAt: new Date(), submittedById: member.userId }).where(and(eq(jobWheels.shopId, member.shopId), eq(jobWheels.id, wheelId), isNull(jobWheels.submittedAt)));
   return { jobId: ctx.job.id, allSubmitted: await allSubmitted(member.shopId, ctx.job.id) };
 }
 

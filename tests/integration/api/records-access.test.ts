@@ -17,6 +17,7 @@ import * as wrenchList from '@/app/api/wrenches/route';
 import { getJob } from '@/features/jobs/server/jobs';
 import { apiRequest, cookieFor, createTestShop, params } from '@/tests/helpers/factories';
 import { createRecords, fourWheels, specBody, wrenchBody } from '@/tests/helpers/records';
+import { workAndSubmitWheels } from '@/tests/helpers/wheel-work';
 
 type Handler = (req: Request, ctx: { params: Promise<Record<string, string>> }) => Promise<Response>;
 type Shop = Awaited<ReturnType<typeof createTestShop>>;
@@ -158,6 +159,8 @@ describe('POST /api/jobs/:id/transitions', () => {
     expect((await move(cookies.technician, { action: 'sign_off' })).status).toBe(409);
     expect((await move(cookies.technician, { action: 'fly' })).status).toBe(400);
     expect(await (await move(cookies.technician, { action: 'start' })).json()).toMatchObject({ data: { state: 'in_progress' } });
+    expect((await move(cookies.technician, { action: 'submit' })).status).toBe(409); // no wheel run yet
+    await workAndSubmitWheels(a.shopId, ra.job.id, a.technician.userId);
     expect(await (await move(cookies.technician, { action: 'submit' })).json()).toMatchObject({ data: { state: 'awaiting_signoff' } });
     expect((await move(cookies.technician, { action: 'sign_off' })).status).toBe(403);
     expect((await move(cookies.lead, { action: 'send_back' })).status).toBe(400); // needs a note

@@ -6,7 +6,8 @@ import { JobEditForm } from '@/features/jobs/components/job-edit-form';
 import { TransitionForm } from '@/features/jobs/components/transition-form';
 import { ids } from '@/features/jobs/schemas';
 import { getJob, listAssignees } from '@/features/jobs/server/jobs';
-import { allowedTransitions } from '@/features/jobs/transitions';
+import { getWorkFacts } from '@/features/jobs/server/work-facts';
+import { allowedTransitions, isSelfReview } from '@/features/jobs/transitions';
 import { listJobPhotos } from '@/features/runner/server/photo-router';
 import { PageHeader } from '@/features/ui/page';
 import { requireMember } from '@/server/auth/guard';
@@ -21,7 +22,7 @@ export default async function JobPage({ params }: PageProps<'/jobs/[jobId]'>) {
   if (!id.success) notFound();
   const job = await orNotFound(getJob(member.shopId, id.data));
   const editable = can(member.role, 'jobs.edit') && job.state !== 'signed_off';
-  const photos = await listJobPhotos(member.shopId, job.id);
+  const [photos, facts] = await Promise.all([listJobPhotos(member.shopId, job.id), getWorkFacts(member.shopId, job.id)]);
   return (
     <>
       <Link href="/board" className="font-semibold text-work underline">
@@ -31,7 +32,7 @@ export default async function JobPage({ params }: PageProps<'/jobs/[jobId]'>) {
       <div className="grid gap-8 lg:grid-cols-[2fr_1fr]">
         <JobDetails job={job} photos={photos} canRun={can(member.role, 'jobs.run') && (member.role === 'lead' || job.assignee?.id === member.userId)} />
         <div className="flex flex-col gap-6">
-          <TransitionForm jobId={job.id} allowed={allowedTransitions(member, job)} />
+          <TransitionForm jobId={job.id} allowed={allowedTransitions(member, job, facts)} selfReview={isSelfReview(member, job, 'sign_off', facts)} />
           {editable ? <JobEditForm job={job} assignees={await listAssignees(member.shopId)} /> : null}
         </div>
       </div>
