@@ -164,4 +164,15 @@ describe('roles and removal', () => {
     resetNextRequest();
     expect(await acceptTeamInvite(null, { token, name: 'Too Late', password: 'twelve chars at least' })).toMatchObject({ ok: false });
   });
+
+  it('a lead made a technician loses the invites they sent too', async () => {
+    const shop = await createTestShop('Demotion Shop');
+    await getDb().update(users).set({ role: 'lead' }).where(eq(users.id, shop.technician.userId));
+    await actAs(shop.technician.userId);
+    await inviteMember(null, { email: 'sent-before-demotion@example.test', role: 'lead' });
+    const token = inviteToken(await waitForMail(INTEGRATION_SINK.dir, 'sent-before-demotion@example.test'));
+    await actAs(shop.lead.userId);
+    expect(await changeMemberRole(null, { memberId: shop.technician.userId, role: 'technician' })).toMatchObject({ ok: true });
+    expect(await findUsableInvite(token)).toBeNull();
+  });
 });
