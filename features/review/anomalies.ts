@@ -7,6 +7,7 @@ import type { Anomaly, AnomalyCode, JobReviewInput, ReviewSettings, ReviewWrench
  * What a lead must look at before signing a job off, computed from the record alone (pure, no
  * I/O, and blind to the order the events arrived in). `blocks`: safety-relevant, sign-off waits
  * until a lead acknowledges it with a reason; `notes`: worth reading, does not hold the job.
+ * Sorted for reading: what blocks first, then by wheel (job-level first), then by kind and pass.
  */
 export function jobAnomalies(input: JobReviewInput): Anomaly[] {
   const found: Anomaly[] = [];
@@ -20,8 +21,8 @@ export function jobAnomalies(input: JobReviewInput): Anomaly[] {
   const wheelOrder = (a: Anomaly) => (a.wheelId === null ? -1 : input.wheels.findIndex((w) => w.wheelId === a.wheelId));
   return found.sort(
     (a, b) =>
-      wheelOrder(a) - wheelOrder(b) ||
       SEVERITY_ORDER.indexOf(a.severity) - SEVERITY_ORDER.indexOf(b.severity) ||
+      wheelOrder(a) - wheelOrder(b) ||
       CODE_ORDER.indexOf(a.code) - CODE_ORDER.indexOf(b.code) ||
       (a.pass ?? 0) - (b.pass ?? 0) ||
       a.key.localeCompare(b.key),
@@ -202,4 +203,29 @@ function statusAt(w: ReviewWrench, at: string): string | null {
   const t = Date.parse(at);
   const last = [...w.statusHistory].filter((s) => Date.parse(s.at) <= t).sort((a, b) => Date.parse(a.at) - Date.parse(b.at) || a.status.localeCompare(b.status)).at(-1);
   return last?.status === 'out_of_service' ? last.reason || 'no reason recorded' : null;
+}
+
+export type WrenchUse = { wrenchId: string | null; label: string; setting: Torque | null; bolts: number[]; verifiedAt: string | null; verification: string };
+
+/** Per wrench used on a pass: its setting and the verification that counted at its first use (or why none did). */
+export function wrenchUses(pass: PassRecord, wheel: Pick<WheelReviewInput, 'wrenches' | 'verifications'>, settings: ReviewSettings): WrenchUse[] {
+  const ids = [...new Set(pass.confirmed.map((c) => c.wrenchId))];
+  return ids.map((id) => {
+    const uses = pass.confirmed.filter((c) => c.wrenchId === id);
+    const first = uses[0]!;
+    const w = wheel.wrenches.find((x) => x.id === id);
+    if (!w) return { wrenchId: id, label: id ? 'A wrench not in the tool crib' : 'No wrench recorded', setting: first.setting, bolts: uses.map((c) => c.bolt), verifiedAt: null, verification: '' };
+    const choice = chooseWrench(pass.target, [w], { minFractionOfMax: settings.wrenchFloorPercent / 100 });
+    const setting = first.setting ?? (choice.ok ? choice.setting : null);
+    const usable = wheel.verifications.filter((v) => Date.parse(v.recordedAt) <= Date.parse(first.at) + VERIFICATION_GRACE_MS);
+    const verdict = setting ? verificationFor(w.id, setting, usable, settings.verification, { timeZone: settings.timeZone, now: new Date(first.at) }) : null;
+    return {
+      wrenchId: w.id,
+      label: w.label,
+      setting,
+      bolts: uses.map((c) => c.bolt),
+      verifiedAt: verdict?.counts ? verdict.verification.recordedAt : null,
+      verification: verdict ? (verdict.counts ? `verified at ${formatTorque({ value: verdict.verification.referenceValue, unit: verdict.verification.unit }, 2)}` : verdict.reason) : 'no setting fits this wrench',
+    };
+  });
 }
