@@ -2,3 +2,4 @@ export * from './shops';
 export * from './auth';
 export * from './records';
 export * from './settings';
+export * from './review';
