@@ -1,10 +1,11 @@
 import { z } from 'zod';
-import { PRESSURE_UNITS } from '@/features/torque-plan';
+import { PRESSURE_UNITS, TORQUE_UNITS } from '@/features/torque-plan';
 import { cleanString, isoDateTime } from '@/features/ui/bounded';
 
 const step = z.enum(['safety', 'dismount', 'inspect', 'clean', 'mount', 'index', 'hand_start', 'torque', 'seat_bead', 'leak_check', 'reinstall', 'submit']);
 const bolt = z.number().int().min(1).max(64);
 const pass = z.number().int().min(1).max(10);
+const torque = z.object({ value: z.number().positive().max(100_000), unit: z.enum(TORQUE_UNITS) });
 
 /** Every kind of event the runner sends; the server validates each against this. */
 export const runEventSchema = z.discriminatedUnion(
@@ -16,7 +17,10 @@ export const runEventSchema = z.discriminatedUnion(
     z.object({ type: z.literal('hand_started'), payload: z.object({ bolt }) }),
     z.object({ type: z.literal('hand_unstarted'), payload: z.object({ bolt }) }),
     z.object({ type: z.literal('wrench_chosen'), payload: z.object({ pass, wrenchId: z.uuid() }) }),
-    z.object({ type: z.literal('bolt_confirmed'), payload: z.object({ pass, bolt }) }),
+    // `wrenchId` and `setting`: the wrench and the setting the runner showed when the bolt was
+    // confirmed (older phones sent neither; such events still count). The server adds `target`,
+    // the pass's target from the wheel's snapshot, when it stores the event.
+    z.object({ type: z.literal('bolt_confirmed'), payload: z.object({ pass, bolt, wrenchId: z.uuid().optional(), setting: torque.optional() }) }),
     z.object({ type: z.literal('bolt_undone'), payload: z.object({ pass, bolt }) }),
   ],
   { error: 'Unknown runner event.' },

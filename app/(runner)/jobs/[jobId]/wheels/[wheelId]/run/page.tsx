@@ -4,9 +4,9 @@ import { ids } from '@/features/jobs/schemas';
 import { Runner } from '@/features/runner/components/runner';
 import { listPhotos } from '@/features/runner/server/photo-router';
 import { RunnerBlocked } from '@/features/runner/components/runner-blocked';
-import { assertMayRun, flaggedSpecMessage, listEvents, loadWheel, planFor } from '@/features/runner/server/run';
+import { assertMayRun, flaggedSpecMessage, listEvents, loadWheel, planFor, snapshotOf } from '@/features/runner/server/run';
 import { recentPassingVerifications, wrenchesForEngine } from '@/features/tool-crib/server/wrenches';
-import { formatTorque, passPlan } from '@/features/torque-plan';
+import { formatTorque } from '@/features/torque-plan';
 import { requireMember } from '@/server/auth/guard';
 import { signInThenBackTo } from '@/server/auth/return-path';
 import { DomainError, orNotFound } from '@/server/errors';
@@ -32,7 +32,7 @@ export default async function RunPage({ params }: PageProps<'/jobs/[jobId]/wheel
   }
   const flagged = flaggedSpecMessage(ctx.spec);
   if (flagged) return <RunnerBlocked jobId={ctx.job.id} jobNumber={ctx.job.number} specId={ctx.spec.id} message={flagged} />;
-  const { spec, wheel } = ctx;
+  const { wheel } = ctx;
   const settings = await getShopSettings(member.shopId);
   const { verification } = settings;
   const [wrenches, verifications, events, photos] = await Promise.all([
@@ -41,13 +41,15 @@ export default async function RunPage({ params }: PageProps<'/jobs/[jobId]/wheel
     listEvents(member.shopId, wheel.id),
     listPhotos(member.shopId, wheel.id),
   ]);
-  const targets = passPlan({ value: spec.finalTorque, unit: spec.torqueUnit }, spec.passFractions, { checkPass: spec.checkPass }).map((x) => x.target);
+  // Once the run started, the wheel's snapshot: a spec edited since changes nothing here.
+  const snap = snapshotOf(ctx);
+  const targets = snap.plan.passes.map((x) => x.target);
   return (
     <Runner
       jobId={ctx.job.id}
       jobNumber={ctx.job.number}
       wheel={{ id: wheel.id, position: wheel.position, tireSize: wheel.tireSize, directional: wheel.directional, targetPressure: wheel.targetPressure, pressureUnit: wheel.pressureUnit }}
-      spec={{ name: spec.name, maxBeadSeatPressure: spec.maxBeadSeatPressure, pressureUnit: spec.pressureUnit, lugTorque: spec.lugTorque && spec.lugTorqueUnit ? formatTorque({ value: spec.lugTorque, unit: spec.lugTorqueUnit }, 1) : null }}
+      spec={{ name: snap.spec.name, maxBeadSeatPressure: snap.spec.maxBeadSeatPressure.value, pressureUnit: snap.spec.maxBeadSeatPressure.unit, lugTorque: snap.spec.lugTorque ? formatTorque(snap.spec.lugTorque, 1) : null }}
       plan={planFor(ctx)}
       targets={targets}
       wrenches={wrenches}

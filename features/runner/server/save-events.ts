@@ -1,0 +1,202 @@
+import 'server-only';
+import { and, eq, inArray, sql } from 'drizzle-orm';
+import { getDb } from '@/db';
+import { jobs, jobWheels, refusedRunEvents, wheelRunEvents, wheelSpecs, type WheelSnapshot } from '@/db/schema';
+import type { Member } from '@/server/auth/session';
+import { DomainError } from '@/server/errors';
+import { clampClientAt } from '../clock-window';
+import { partitionEvents, type ClientEvent, type EventRefusal } from '../events';
+import { takeSnapshot } from '../snapshot';
+import { assertMayRun, flaggedSpecMessage, loadWheel } from './run';
+import { wrenchRefusals } from './wrench-check';
+
+export type Tx = Parameters<Parameters<ReturnType<typeof getDb>['transaction']>[0]>[0];
+/** Starts an open or sent-back job card inside the save's transaction (composed in app/ from the jobs feature). */
+export type StartJob = (jobId: string, tx: Tx) => Promise<unknown>;
+export type SaveResult = { saved: number; duplicates: number; refused: EventRefusal[] };
+
+/** An event with its stored time (clamped to the server's clock) and the phone's own when they differ. */
+type Timed = ClientEvent & { deviceAt: string | null };
+
+// Lone UTF-16 halves and NUL cannot be stored in jsonb; the refusal keeps the rest of the event.
+const UNSTORABLE = /\u0000|[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/g;
+
+/** The event as the phone sent it, made storable (bad characters replaced, at most 4 kB kept). */
+function storableRaw(raw: unknown): unknown {
+  try {
+    const text = JSON.stringify(raw ?? null, (_key, value: unknown) => (typeof value === 'string' ? value.replace(UNSTORABLE, '\uFFFD') : value));
+    return text.length <= 4096 ? (JSON.parse(text) as unknown) : { truncated: text.slice(0, 4096) };
+  } catch {
+    return { unreadable: true };
+  }
+}
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+const num = (payload: object, key: 'bolt' | 'pass') => (key in payload ? (payload as Record<string, number>)[key]! : null);
+
+/**
+ * The common case in one statement, without a transaction: insert the batch only if this member
+ * may write to this wheel now (shop, in-progress job, assignee or lead, started and not submitted,
+ * spec not flagged) and every bolt and pass is on the wheel's snapshot — all or nothing. Each
+ * bolt confirmation gets its pass's target from the snapshot. Answers how many rows were new;
+ * fewer than the batch (a replay, a refusal, a first event) sends the caller to the full path.
+ */
+async function insertIfAllowed(member: Member, wheelId: string, events: Timed[]): Promise<number> {
+  const rows = events.map(
+    (e) => sql`(${e.clientId}::uuid, ${e.type}, ${JSON.stringify(e.payload)}::jsonb, ${e.clientAt}::timestamptz, ${e.deviceAt}::timestamptz, ${num(e.payload, 'bolt')}::int, ${num(e.payload, 'pass')}::int)`,
+  );
+  const inserted = await getDb().execute(sql`
+    with ev (client_id, type, payload, client_at, device_at, bolt, pass) as (values ${sql.join(rows, sql`, `)}),
+    w as (
+      select w.id, w.job_id, w.snapshot, (w.snapshot->'spec'->>'boltCount')::int as bolt_count, jsonb_array_length(w.snapshot->'plan'->'passes') as passes
+      from ${jobWheels} w join ${jobs} j on j.id = w.job_id join ${wheelSpecs} s on s.id = w.spec_id
+      where w.id = ${wheelId} and w.shop_id = ${member.shopId} and j.state = 'in_progress' and w.submitted_at is null
+        and w.snapshot is not null and s.plausibility_flag is null
+        and (${member.role} = 'lead' or j.assignee_id = ${member.userId})
+    ),
+    ok as (
+      select ev.*, w.id as wheel_id, w.job_id, w.snapshot from ev cross join w
+      where (ev.bolt is null or ev.bolt <= w.bolt_count) and (ev.pass is null or ev.pass <= w.passes)
+    )
+    insert into ${wheelRunEvents} (shop_id, job_id, wheel_id, client_id, type, payload, by_id, client_at, device_at)
+    select ${member.shopId}, ok.job_id, ok.wheel_id, ok.client_id, ok.type,
+      case when ok.type = 'bolt_confirmed' then ok.payload || jsonb_build_object('target', ok.snapshot->'plan'->'passes'->(ok.pass - 1)->'target') else ok.payload end,
+      ${member.userId}, ok.client_at, ok.device_at
+    from ok where (select count(*) from ok) = ${events.length}
+    on conflict (client_id) do nothing
+    returning client_id`);
+  return inserted.length;
+}
+
+/** A bolt or pass the wheel's snapshot does not have, or null. */
+function planRefusal(e: ClientEvent, snapshot: WheelSnapshot): Omit<EventRefusal, 'index' | 'clientId'> | null {
+  const bolt = 'bolt' in e.payload ? e.payload.bolt : undefined;
+  const pass = 'pass' in e.payload ? e.payload.pass : undefined;
+  const boltCount = snapshot.spec.boltCount;
+  if (bolt !== undefined && bolt > boltCount) return { message: `Bolt ${bolt} is not on this ${boltCount}-bolt ring.`, fieldErrors: { 'payload.bolt': ['No such bolt.'] } };
+  if (pass !== undefined && pass > snapshot.plan.passes.length) return { message: `Pass ${pass} is not in this wheel's plan.`, fieldErrors: { 'payload.pass': ['No such pass.'] } };
+  return null;
+}
+
+const withTarget = (e: ClientEvent, snapshot: WheelSnapshot) =>
+  e.type === 'bolt_confirmed' ? { ...e.payload, target: snapshot.plan.passes[e.payload.pass - 1]!.target } : e.payload;
+
+/**
+ * The runner's save path. Each event is judged alone; those that may be stored are stored in one
+ * transaction, the others come back in `refused` (by their place in the batch) and are recorded
+ * in `refused_run_events` for the lead's review — a refusal never discards the rest of a batch.
+ * Stored times are clamped to the server's clock (the phone's own kept in `device_at`). The first
+ * event of an open or sent-back job starts it, and the first event of a wheel takes its snapshot,
+ * both inside the same transaction. The person is always the session's member, never the phone's say.
+ */
+export async function saveWheelBatch(member: Member, wheelId: string, raw: unknown[], startJob: StartJob, now = new Date()): Promise<SaveResult> {
+  const parsed = partitionEvents(raw);
+  const events: Timed[] = parsed.events.map((e) => ({ ...e, ...clampClientAt(e.clientAt, now) }) as Timed);
+  let fast = 0;
+  const simple = !parsed.refused.length && new Set(events.map((e) => e.clientId)).size === events.length && !events.some((e) => e.type === 'inspection_failed' || e.type === 'wrench_chosen');
+  if (simple && events.length) {
+    fast = await insertIfAllowed(member, wheelId, events);
+    if (fast === events.length) return { saved: fast, duplicates: 0, refused: [] };
+  }
+  const indexOf = new Map(raw.map((e, i) => [(e as { clientId?: unknown })?.clientId, i] as const).reverse());
+  return getDb().transaction(async (tx) => {
+    const ctx = await loadWheel(member.shopId, wheelId, tx, true);
+    assertMayRun(member, ctx);
+    const refused: (EventRefusal & { raw: unknown })[] = parsed.refused.map((r) => ({ ...r, raw: raw[r.index] }));
+    const refuse = (e: Timed, r: Omit<EventRefusal, 'index' | 'clientId'>) => refused.push({ ...r, index: indexOf.get(e.clientId) ?? -1, clientId: e.clientId, raw: raw[indexOf.get(e.clientId) ?? -1] ?? e });
+    let accepted: Timed[] = [];
+    let stored = 0;
+    const closed = closedMessage(ctx);
+    if (closed) {
+      for (const e of events) refuse(e, { message: closed, fieldErrors: {} });
+    } else if (events.length) {
+      if (ctx.job.state !== 'in_progress') await startJob(ctx.job.id, tx);
+      const snapshot = await ensureSnapshot(tx, member.shopId, ctx, now);
+      const wrenchNo = await wrenchRefusals(tx, member.shopId, events, snapshot);
+      accepted = events.filter((e) => {
+        const why = planRefusal(e, snapshot) ?? wrenchNo.get(e.clientId) ?? null;
+        if (why) refuse(e, why);
+        return !why;
+      });
+      stored = await insertAccepted(tx, member, ctx, accepted, snapshot, refuse);
+      const failed = accepted.find((e) => e.type === 'inspection_failed');
+      if (failed && failed.type === 'inspection_failed' && !ctx.wheel.flaggedReason) {
+        await tx.update(jobWheels).set({ flaggedReason: failed.payload.notes }).where(and(eq(jobWheels.shopId, member.shopId), eq(jobWheels.id, wheelId)));
+      }
+    }
+    if (refused.length) {
+      // clientId: only a real uuid is kept, so junk ids cannot collide with or fill the index.
+      await tx
+        .insert(refusedRunEvents)
+        .values(refused.map((r) => ({ shopId: member.shopId, jobId: ctx.job.id, wheelId, clientId: r.clientId && UUID.test(r.clientId) ? r.clientId : null, byId: member.userId, reason: r.message.replace(UNSTORABLE, '\uFFFD'), raw: storableRaw(r.raw) })))
+        .onConflictDoNothing();
+    }
+    // Accepted ids neither new now nor in the fast path's insert, nor refused as another wheel's: replays.
+    const elsewhere = refused.filter((r) => r.message === ID_ELSEWHERE).length;
+    return {
+      saved: stored + fast,
+      duplicates: Math.max(0, new Set(accepted.map((e) => e.clientId)).size - stored - fast - elsewhere),
+      refused: refused.map((r) => ({ index: r.index, clientId: r.clientId, message: r.message, fieldErrors: r.fieldErrors })).sort((a, b) => a.index - b.index),
+    };
+  });
+}
+
+const ID_ELSEWHERE = 'This event id was already used for another wheel.';
+
+/** Why nothing more can be recorded on this wheel now, or null. A flagged spec refuses the whole batch. */
+function closedMessage(ctx: Awaited<ReturnType<typeof loadWheel>>): string | null {
+  const flagged = flaggedSpecMessage(ctx.spec);
+  if (flagged) throw new DomainError('conflict', flagged);
+  if (ctx.job.state === 'awaiting_signoff' || ctx.job.state === 'signed_off') return 'The job card was submitted for sign-off; its record is closed.';
+  if (ctx.wheel.submittedAt) return 'This wheel was submitted; its record is closed.';
+  return null;
+}
+
+/** The wheel's snapshot; taken (with its start time) on the first event, once, inside the transaction. */
+async function ensureSnapshot(tx: Tx, shopId: string, ctx: Awaited<ReturnType<typeof loadWheel>>, now: Date): Promise<WheelSnapshot> {
+  if (ctx.wheel.snapshot) return ctx.wheel.snapshot;
+  const snapshot = takeSnapshot(ctx.spec, ctx.wheel, now);
+  // The job's row is held, so no other save of this wheel is between the read and this write.
+  await tx.update(jobWheels).set({ snapshot, startedAt: now }).where(and(eq(jobWheels.shopId, shopId), eq(jobWheels.id, ctx.wheel.id)));
+  return snapshot;
+}
+
+/** Inserts each accepted event once; an id another wheel already holds is refused, not claimed. */
+async function insertAccepted(
+  tx: Tx,
+  member: Member,
+  ctx: Awaited<ReturnType<typeof loadWheel>>,
+  accepted: Timed[],
+  snapshot: WheelSnapshot,
+  refuse: (e: Timed, r: Omit<EventRefusal, 'index' | 'clientId'>) => void,
+): Promise<number> {
+  if (!accepted.length) return 0;
+  const rows = await tx
+    .insert(wheelRunEvents)
+    .values(
+      accepted.map((e) => ({
+        shopId: member.shopId,
+        jobId: ctx.job.id,
+        wheelId: ctx.wheel.id,
+        clientId: e.clientId,
+        type: e.type,
+        payload: withTarget(e, snapshot) as Record<string, unknown>,
+        byId: member.userId,
+        clientAt: new Date(e.clientAt),
+        deviceAt: e.deviceAt ? new Date(e.deviceAt) : null,
+      })),
+    )
+    .onConflictDoNothing({ target: wheelRunEvents.clientId })
+    .returning({ clientId: wheelRunEvents.clientId });
+  if (rows.length < new Set(accepted.map((e) => e.clientId)).size) {
+    const fresh = new Set(rows.map((r) => r.clientId));
+    const mine = await tx
+      .select({ clientId: wheelRunEvents.clientId })
+      .from(wheelRunEvents)
+      .where(and(eq(wheelRunEvents.shopId, member.shopId), eq(wheelRunEvents.wheelId, ctx.wheel.id), inArray(wheelRunEvents.clientId, accepted.filter((e) => !fresh.has(e.clientId)).map((e) => e.clientId))));
+    const known = new Set(mine.map((r) => r.clientId));
+    for (const e of accepted) if (!fresh.has(e.clientId) && !known.has(e.clientId)) refuse(e, { message: ID_ELSEWHERE, fieldErrors: { clientId: ['Already used.'] } });
+  }
+  return rows.length;
+}
+
