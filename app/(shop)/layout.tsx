@@ -1,6 +1,8 @@
 import type { ReactNode } from 'react';
 import { ShopHeader } from '@/features/accounts/components/shop-header';
 import { getShopName } from '@/features/accounts/server/shop';
+import { SignoffNavLink } from '@/features/review/components/signoff-nav-link';
+import { QueryProvider } from '@/features/ui/query-provider';
 import { ShopTimeZoneProvider } from '@/features/ui/shop-time-zone';
 import { requireMember } from '@/server/auth/guard';
 import { can } from '@/server/auth/permissions';
@@ -14,7 +16,18 @@ export default async function ShopLayout({ children }: { children: ReactNode }) 
   const [shopName, settings] = await Promise.all([getShopName(member.shopId), getShopSettings(member.shopId)]);
   return (
     <ShopTimeZoneProvider timeZone={settings.timeZone}>
-      <ShopHeader member={member} shopName={shopName} mailbox={mailboxEnabled() && can(member.role, 'team.manage')} />
+      <ShopHeader
+        member={member}
+        shopName={shopName}
+        mailbox={mailboxEnabled() && can(member.role, 'team.manage')}
+        signoff={
+          can(member.role, 'jobs.signoff') ? (
+            <QueryProvider>
+              <SignoffNavLink />
+            </QueryProvider>
+          ) : null
+        }
+      />
       <main className="mx-auto w-full max-w-5xl p-4">{children}</main>
     </ShopTimeZoneProvider>
   );

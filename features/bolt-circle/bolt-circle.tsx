@@ -18,6 +18,8 @@ type Props = {
   onSelect?: (bolt: number) => void;
   /** Accessible name of the whole circle. */
   label: string;
+  /** Bolts to mark (a dashed ring and "out of order" in words), e.g. on a review of the order confirmed. */
+  marked?: readonly number[];
 };
 
 const R = 88;
@@ -27,7 +29,7 @@ const R = 88;
  * bolt says its state in words (screen readers), in shape (check, ring, number) and in colour.
  * Arrow keys move between bolts; Enter or Space selects one for correction or undo.
  */
-export function BoltCircle({ count, order, done, next = null, mode = 'pass', passLabel = 'this pass', selected = null, onSelect, label }: Props) {
+export function BoltCircle({ count, order, done, next = null, mode = 'pass', passLabel = 'this pass', selected = null, onSelect, label, marked }: Props) {
   const doneSet = useMemo(() => new Set(done), [done]);
   const step = useMemo(() => new Map((order ?? []).map((b, i) => [b, i + 1])), [order]);
   const [focus, setFocus] = useState<number>(next ?? 1);
@@ -83,7 +85,7 @@ export function BoltCircle({ count, order, done, next = null, mode = 'pass', pas
               refs.current[b] = el;
             }}
             role={interactive ? 'button' : 'img'}
-            aria-label={boltLabel(b, state, passLabel, n)}
+            aria-label={`${boltLabel(b, state, passLabel, n)}${marked?.includes(b) ? ', out of order' : ''}`}
             aria-pressed={interactive ? selected === b : undefined}
             tabIndex={interactive ? (b === focus ? 0 : -1) : undefined}
             onClick={interactive ? () => onSelect?.(b) : undefined}
@@ -94,6 +96,7 @@ export function BoltCircle({ count, order, done, next = null, mode = 'pass', pas
           >
             <circle className="focus" cx={x} cy={y} r={size + 5} fill="none" stroke={selected === b ? '#101317' : 'transparent'} strokeWidth={2.5} strokeDasharray={selected === b ? '3 2' : undefined} />
             {isNext ? <circle cx={x} cy={y} r={size + 3} fill="none" stroke="#0a4f8a" strokeWidth={3} /> : null}
+            {marked?.includes(b) ? <circle cx={x} cy={y} r={size + 4} fill="none" stroke="#b3261e" strokeWidth={3} strokeDasharray="4 2" data-marked /> : null}
             <circle cx={x} cy={y} r={size} fill={isDone ? '#1d6b36' : isNext ? '#0a4f8a' : '#ffffff'} stroke="#101317" strokeWidth={1.5} />
             {isDone ? (
               <path d={`M ${x - size / 2} ${y} l ${size / 3} ${size / 3} l ${size / 1.6} ${-size / 1.4}`} fill="none" stroke="#ffffff" strokeWidth={2} aria-hidden />

@@ -1,3 +1,4 @@
+import type { ReactNode } from 'react';
 import { NavLink } from '@/features/ui/nav-link';
 import { can, ROLE_LABELS } from '@/server/auth/permissions';
 import type { Member } from '@/server/auth/session';
@@ -5,8 +6,8 @@ import { signOut } from '../actions/sign-out';
 
 const linkClass = 'inline-flex min-h-touch items-center rounded-lg px-3 font-semibold hover:bg-work-dark';
 
-/** Top bar for every shop page; it shows only the places this member can use. */
-export function ShopHeader({ member, shopName, mailbox }: { member: Member; shopName: string; mailbox: boolean }) {
+/** Top bar for every shop page; it shows only the places this member can use. `signoff`: the lead's live sign-off link, made where features meet. */
+export function ShopHeader({ member, shopName, mailbox, signoff }: { member: Member; shopName: string; mailbox: boolean; signoff?: ReactNode }) {
   return (
     <header className="bg-work text-white">
       <div className="mx-auto flex max-w-5xl flex-wrap items-center justify-between gap-2 px-3 py-2">
@@ -15,6 +16,7 @@ export function ShopHeader({ member, shopName, mailbox }: { member: Member; shop
         </p>
         <nav aria-label="Main" className="flex flex-wrap items-center gap-1">
           <NavLink href="/board">Board</NavLink>
+          {signoff}
           {can(member.role, 'jobs.create') ? <NavLink href="/customers">Customers</NavLink> : null}
           <NavLink href="/specs">Specs</NavLink>
           {can(member.role, 'verifications.record') ? <NavLink href="/tool-crib">Tool crib</NavLink> : null}
