@@ -7,6 +7,7 @@ import type { Permission } from '@/server/auth/permissions';
 import type { Member } from '@/server/auth/session';
 import { createTestShop, PASSWORD } from './factories';
 import { createRecords, fourWheels, specBody, wrenchBody } from './records';
+import { awaitingSignoff } from './review-work';
 
 /**
  * Every server action of the app, found by reading the source tree (Vite's glob), not by a list
@@ -49,6 +50,13 @@ async function freshJob(w: World) {
 }
 
 const at = () => new Date().toISOString();
+
+/** A fresh job of shop A, run and submitted by its technician, waiting for a lead. */
+async function awaitingJob(w: World) {
+  const job = await freshJob(w);
+  await awaitingSignoff(w.a.shopId, job.id, w.a.technician.userId, { at: new Date() });
+  return job;
+}
 
 /**
  * How each action is called well against shop A's rows, and what its access rule is.
@@ -106,6 +114,15 @@ export const ACTION_CASES: Record<string, ActionCase> = {
   '/app/(runner)/jobs/[jobId]/wheels/[wheelId]/run/actions.ts#saveWheelEvents': {
     permission: 'jobs.run',
     input: async (w) => ({ wheelId: (await freshJob(w)).wheels[0]!.id, events: [{ type: 'bolt_confirmed', payload: { pass: 1, bolt: 1 }, clientId: randomUUID(), clientAt: at() }] }),
+    otherShop: 'not_found',
+  },
+  '/app/(shop)/jobs/[jobId]/review/actions.ts#approveReviewed': { permission: 'jobs.signoff', input: async (w) => ({ jobId: (await awaitingJob(w)).id }), otherShop: 'not_found' },
+  '/app/(shop)/jobs/[jobId]/review/actions.ts#sendBackReviewed': {
+    permission: 'jobs.signoff',
+    input: async (w) => {
+      const job = await awaitingJob(w);
+      return { jobId: job.id, wheels: [{ wheelId: job.wheels[0]!.id, note: 'Redo the passes at a steady pace.' }] };
+    },
     otherShop: 'not_found',
   },
 };
