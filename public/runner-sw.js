@@ -1,6 +1,8 @@
 // Ringpass runner service worker: lets a technician reload the runner while the shop Wi-Fi is
 // down. Runner pages: network first, the last good copy when offline. Build assets: cache first
 // (their names change with every build). Nothing else is touched.
+// The sign-in page deletes PAGES (features/runner/components/forget-runner-pages.tsx): a copy
+// rendered for one person is never shown to the next.
 const PAGES = 'ringpass-runner-pages-v1';
 const ASSETS = 'ringpass-runner-assets-v1';
 const RUNNER = /^\/jobs\/[^/]+\/wheels\/[^/]+\/run\/?$/;

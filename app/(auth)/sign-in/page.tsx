@@ -2,6 +2,7 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { redirect } from 'next/navigation';
 import { SignInForm } from '@/features/accounts/components/sign-in-form';
+import { ForgetRunnerPages } from '@/features/runner/components/forget-runner-pages';
 import { returnPath } from '@/server/auth/return-path';
 import { getCurrentMember } from '@/server/auth/session';
 
@@ -12,6 +13,7 @@ export default async function SignInPage({ searchParams }: PageProps<'/sign-in'>
   if (await getCurrentMember()) redirect(next ?? '/board');
   return (
     <>
+      <ForgetRunnerPages />
       <h1 className="text-2xl font-bold">Sign in</h1>
       {next ? <p className="font-semibold">Sign in to go back to where you were. Nothing waiting on this device is lost.</p> : null}
       <SignInForm next={next} />

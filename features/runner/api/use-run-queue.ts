@@ -1,6 +1,6 @@
 'use client';
 
-import { get, set } from 'idb-keyval';
+import { get, keys, set } from 'idb-keyval';
 import { useCallback, useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'react';
 import { unstable_isUnrecognizedActionError } from 'next/navigation';
 import type { ActionResult, FailureCode } from '@/server/action';
@@ -9,6 +9,36 @@ import type { ClientEvent, EventRefusal, RunEvent } from '../events';
 // `ready` stays false until this phone's own queue is read: before that "saved" would be a guess.
 // `signedOut`: the session ended; what waits is kept and goes once the person signs in again.
 type Status = { waiting: number; error: string | null; ready: boolean; signedOut: boolean };
+
+/** The person signed in on this phone; their outbox is theirs alone. */
+export type QueuePerson = { id: string; name: string };
+/** An event the server refused for good, kept on the phone with the reason until dismissed. */
+export type AttentionItem = { event: ClientEvent; reason: string };
+/** Another person's events waiting on this phone for this wheel: never sent under this person's name. */
+export type OthersWaiting = { ownerName: string; waiting: number };
+
+/**
+ * What the phone keeps per person and wheel. `generation`: the lead's latest send-back of the
+ * wheel (its time), so a phone drops its copy of events the send-back superseded.
+ */
+type Held = { owner: QueuePerson; pending: ClientEvent[]; saved: ClientEvent[]; attention: AttentionItem[]; generation: string | null };
+
+const PREFIX = 'ringpass:run:';
+/** The outbox key: person and wheel, so one person's waiting events are never sent in another's session. */
+export const outboxKey = (personId: string, wheelId: string) => `${PREFIX}${personId}:${wheelId}`;
+
+/** Other people's waiting events for this wheel, from the phone's stored outboxes (pure, for the screen and tests). */
+export function othersWaiting(entries: readonly [string, unknown][], person: QueuePerson, wheelId: string): OthersWaiting[] {
+  return entries.flatMap(([k, value]) => {
+    if (k === outboxKey(person.id, wheelId)) return [];
+    const legacy = k === `${PREFIX}${wheelId}`;
+    if (!legacy && !(k.startsWith(PREFIX) && k.endsWith(`:${wheelId}`))) return [];
+    const held = value as Partial<Held> | undefined;
+    const waiting = held?.pending?.length ?? 0;
+    // Stored before outboxes were kept per person: whose they are is unknown, so they are not sent.
+    return waiting ? [{ ownerName: held?.owner?.name ?? 'someone (from before an update)', waiting }] : [];
+  });
+}
 
 function subscribeOnline(change: () => void) {
   window.addEventListener('online', change);
@@ -19,7 +49,6 @@ function subscribeOnline(change: () => void) {
   };
 }
 
-const key = (wheelId: string) => `ringpass:run:${wheelId}`;
 
 /** The server action that stores a batch (passed down from the runner page). */
 export type SaveEvents = (prev: unknown, input: { wheelId: string; events: ClientEvent[] }) => Promise<ActionResult<{ saved: number; duplicates: number; refused?: EventRefusal[] }>>;
@@ -48,10 +77,14 @@ function reloadForNewBuild(): boolean {
  * once, kept in IndexedDB until the server has it, and sent in order when the network allows.
  * The server stores each id once, so sending again after a drop or a reload is always safe.
  */
-export function useRunQueue(wheelId: string, serverEvents: ClientEvent[], saveEvents: SaveEvents) {
+export function useRunQueue(wheelId: string, serverEvents: ClientEvent[], saveEvents: SaveEvents, person: QueuePerson, generation: string | null = null) {
   const [saved, setSaved] = useState<ClientEvent[]>(serverEvents);
   const [pending, setPending] = useState<ClientEvent[]>([]);
+  const [attention, setAttention] = useState<AttentionItem[]>([]);
+  const [others, setOthers] = useState<OthersWaiting[]>([]);
   const [status, setStatus] = useState<Status>({ waiting: 0, error: null, ready: false, signedOut: false });
+  const attentionRef = useRef<AttentionItem[]>([]);
+  const key = outboxKey(person.id, wheelId);
   const online = useSyncExternalStore(subscribeOnline, () => navigator.onLine, () => true);
   const flushRef = useRef<() => Promise<void>>(async () => {});
   const pendingRef = useRef<ClientEvent[]>([]);
@@ -63,7 +96,17 @@ export function useRunQueue(wheelId: string, serverEvents: ClientEvent[], saveEv
   const savedRef = useRef<ClientEvent[]>(serverEvents);
   // The device keeps both what waits and what the server already has, so a reload while offline
   // (the page then comes from the service worker's copy) still shows every confirmation.
-  const persist = useCallback(() => set(key(wheelId), { pending: pendingRef.current, saved: savedRef.current }), [wheelId]);
+  const persist = useCallback(
+    () => set(key, { owner: person, pending: pendingRef.current, saved: savedRef.current, attention: attentionRef.current, generation } satisfies Held),
+    [key, person, generation],
+  );
+
+  /** Sets events aside for good: out of the queue, into "Needs attention" with the reason. */
+  const setAside = useCallback((items: AttentionItem[]) => {
+    if (!items.length) return;
+    attentionRef.current = [...attentionRef.current, ...items];
+    setAttention(attentionRef.current);
+  }, []);
 
   const store = useCallback(
     async (next: ClientEvent[]) => {
@@ -100,7 +143,9 @@ export function useRunQueue(wheelId: string, serverEvents: ClientEvent[], saveEv
         attempt.current = 0;
         // The server judged each event alone: the ones it refused for good leave the queue (with
         // a message), everything else in the batch was stored.
-        const refused = new Set((result.data.refused ?? []).map((r) => batch[r.index]?.clientId));
+        const refusals = result.data.refused ?? [];
+        const refused = new Set(refusals.map((r) => batch[r.index]?.clientId));
+        setAside(refusals.flatMap((r) => (batch[r.index] ? [{ event: batch[r.index]!, reason: r.message }] : [])));
         addSaved(batch.filter((e) => !refused.has(e.clientId)));
         await store(pendingRef.current.filter((e) => !sent.has(e.clientId)));
         setStatus((s) => ({ ...s, error: refusalMessage(result.data.refused ?? []), signedOut: false }));
@@ -110,7 +155,8 @@ export function useRunQueue(wheelId: string, serverEvents: ClientEvent[], saveEv
         backOff();
       } else {
         // The server refused these for good (bad data, no permission): keep them out of the queue
-        // so the rest can go, and say so.
+        // so the rest can go, list them under "Needs attention", and say so.
+        setAside(batch.map((event) => ({ event, reason: result.message })));
         await store(pendingRef.current.filter((e) => !sent.has(e.clientId)));
         setStatus((s) => ({ ...s, error: result.message }));
       }
@@ -123,7 +169,7 @@ export function useRunQueue(wheelId: string, serverEvents: ClientEvent[], saveEv
       sending.current = false;
     }
     if (pendingRef.current.length && attempt.current === 0) void flushRef.current();
-  }, [wheelId, store, addSaved, saveEvents]);
+  }, [wheelId, store, addSaved, saveEvents, setAside]);
   useEffect(() => {
     flushRef.current = flush;
   }, [flush]);
@@ -131,19 +177,25 @@ export function useRunQueue(wheelId: string, serverEvents: ClientEvent[], saveEv
   // Load what this device still holds from before a reload (online or offline).
   useEffect(() => {
     let cancelled = false;
-    void get<{ pending: ClientEvent[]; saved: ClientEvent[] }>(key(wheelId)).then(async (held) => {
+    void (async () => {
+      const held = await get<Held>(key);
+      const all = await keys().then((ks) => Promise.all(ks.map(String).filter((k) => k.startsWith(PREFIX) && k.endsWith(wheelId)).map(async (k) => [k, await get(k)] as [string, unknown])));
       if (cancelled) return;
+      setOthers(othersWaiting(all, person, wheelId));
       loaded.current = true;
-      addSaved(held?.saved ?? []);
+      attentionRef.current = held?.attention ?? [];
+      setAttention(attentionRef.current);
+      // A send-back since this copy was kept: the events it superseded are not this phone's to show.
+      if ((held?.generation ?? null) === generation) addSaved(held?.saved ?? []);
       const known = new Set(savedRef.current.map((e) => e.clientId));
       await store((held?.pending ?? []).filter((e) => !known.has(e.clientId)));
       setStatus((s) => ({ ...s, ready: true }));
       void flush();
-    });
+    })();
     return () => {
       cancelled = true;
     };
-  }, [wheelId, store, flush, addSaved]);
+  }, [key, wheelId, person, generation, store, flush, addSaved]);
 
   // Another device on the same wheel: pull the server's events now and then, so both converge.
   useEffect(() => {
@@ -183,5 +235,11 @@ export function useRunQueue(wheelId: string, serverEvents: ClientEvent[], saveEv
     return [...saved, ...pending.filter((e) => !ids.has(e.clientId))];
   }, [saved, pending]);
 
-  return { events, record, status: { ...status, online } };
+  const dismiss = useCallback(async () => {
+    attentionRef.current = [];
+    setAttention([]);
+    await persist();
+  }, [persist]);
+
+  return { events, record, status: { ...status, online }, attention, others, dismiss };
 }

@@ -10,6 +10,8 @@ import { reduceRun, type RunnerPlan } from '../state';
 import type { CribWrench, WrenchRules } from '../wrench-gate';
 import { HandStartPanel } from './hand-start-panel';
 import { PhotoCapture, type Photo } from './photo-capture';
+import { NeedsAttention } from './needs-attention';
+import { ReworkNote } from './rework-note';
 import { StepPanel } from './step-panel';
 import { SummaryPanel } from './summary-panel';
 import { TorquePanel } from './torque-panel';
@@ -33,12 +35,17 @@ export type RunnerProps = {
   saveEvents: SaveEvents;
   /** Sign-in that comes back to this runner, for when the session ends mid-wheel. */
   signInHref: string;
+  /** A lead sent this wheel back: their note, and the steps to redo (none = the whole wheel). */
+  rework?: { note: string; steps: string[]; at: string } | null;
+  /** Who is signed in: the phone keeps each person's outbox apart and never sends one under another's name. */
+  person: { id: string; name: string };
 };
 
 /** The guided procedure for one wheel on a phone at the tire cart. */
 export function Runner(props: RunnerProps) {
   const { plan, wheel } = props;
-  const { events, record, status } = useRunQueue(wheel.id, props.events, props.saveEvents);
+  const person = useMemo(() => ({ id: props.person.id, name: props.person.name }), [props.person.id, props.person.name]);
+  const { events, record, status, attention, others, dismiss } = useRunQueue(wheel.id, props.events, props.saveEvents, person, props.rework?.at ?? null);
   const state = useMemo(() => reduceRun(plan, events), [plan, events]);
   const [photos, setPhotos] = useState<Photo[]>(props.photos);
   const photoKinds = photos.map((p) => p.kind);
@@ -92,6 +99,8 @@ export function Runner(props: RunnerProps) {
         ) : null}
       </header>
       <main className="flex flex-1 flex-col gap-4 p-3">
+        <NeedsAttention items={attention} others={others} onDismiss={() => void dismiss()} />
+        {props.rework ? <ReworkNote note={props.rework.note} steps={props.rework.steps.map((id) => plan.steps.find((s) => s.id === id)?.title ?? id)} /> : null}
         {state.flagged ? (
           <div role="alert" className="rounded-xl border-4 border-danger bg-danger-tint p-4 text-danger">
             <p className="text-xl font-black">Wheel stopped: inspection failed</p>

@@ -84,7 +84,9 @@ export function TorquePanel({
 
   const label = pass.kind === 'check' ? 'check pass' : `pass ${pass.index}`;
   const confirm = (bolt: number) => {
-    void record({ type: 'bolt_confirmed', payload: { pass: pass.index, bolt } });
+    // What was used, as shown at this moment: the wrench and its setting travel with the bolt.
+    const used = wrench && choice?.ok ? { wrenchId: wrench.id, setting: choice.setting } : {};
+    void record({ type: 'bolt_confirmed', payload: { pass: pass.index, bolt, ...used } });
     cue(`Bolt ${bolt} done`, false, vibrate);
     setSelected(null);
   };

@@ -2,22 +2,26 @@
 import { act, renderHook, waitFor } from '@testing-library/react';
 import { UnrecognizedActionError } from 'next/dist/client/components/unrecognized-action-error';
 import { beforeEach, describe, expect, it, vi } from 'vitest';
-import { useRunQueue, type SaveEvents } from '@/features/runner/api/use-run-queue';
+import { outboxKey, useRunQueue, type QueuePerson, type SaveEvents } from '@/features/runner/api/use-run-queue';
 
 // The device's IndexedDB, in memory.
 const idb = new Map<string, unknown>();
 vi.mock('idb-keyval', () => ({
   get: async (key: string) => idb.get(key),
   set: async (key: string, value: unknown) => void idb.set(key, structuredClone(value)),
+  keys: async () => [...idb.keys()],
 }));
 
 const WHEEL = '6d3a0f7e-1c1b-4c55-9f3e-2a7d1f0c9b11';
 const confirm = { type: 'bolt_confirmed', payload: { pass: 1, bolt: 1 } } as const;
 const saved = { ok: true as const, data: { saved: 1, duplicates: 0 } };
+const THEO: QueuePerson = { id: '0b6f9a52-56a4-4c6e-8a39-8d3c3f1e0a01', name: 'Theo Tech' };
+const LENA: QueuePerson = { id: '7c1e2d33-9f0a-4b1e-b2c4-5a6d7e8f9a02', name: 'Lena Lead' };
+const KEY = outboxKey(THEO.id, WHEEL);
 
-function setUp(save: SaveEvents) {
+function setUp(save: SaveEvents, person = THEO) {
   const action = vi.fn(save);
-  const hook = renderHook(() => useRunQueue(WHEEL, [], action));
+  const hook = renderHook(() => useRunQueue(WHEEL, [], action, person));
   return { action, hook };
 }
 
@@ -46,7 +50,7 @@ describe('the runner outbox', () => {
     expect(hook.result.current.status.signedOut).toBe(true);
     expect(hook.result.current.status.waiting).toBe(1);
     expect(action).toHaveBeenCalledTimes(1);
-    expect((idb.get(`ringpass:run:${WHEEL}`) as { pending: unknown[] }).pending).toHaveLength(1);
+    expect((idb.get(KEY) as { pending: unknown[] }).pending).toHaveLength(1);
   });
 
   it('a refusal for good (bad data) leaves the queue, so what follows can go, and says why', async () => {
@@ -60,7 +64,7 @@ describe('the runner outbox', () => {
   it('one event the server refuses for good is set aside alone: the rest of the queue is saved, nothing retries', async () => {
     const at = '2026-01-01T09:00:00.000Z';
     const queued = [1, 99, 2].map((bolt) => ({ type: 'bolt_confirmed' as const, payload: { pass: 1, bolt }, clientId: crypto.randomUUID(), clientAt: at }));
-    idb.set(`ringpass:run:${WHEEL}`, { pending: queued, saved: [] });
+    idb.set(KEY, { pending: queued, saved: [] });
     const { action, hook } = setUp(async () => ({
       ok: true,
       data: { saved: 2, duplicates: 0, refused: [{ index: 1, clientId: queued[1]!.clientId, message: 'Bolt 99 is not on this 24-bolt ring.', fieldErrors: { 'payload.bolt': ['No such bolt.'] } }] },
@@ -70,7 +74,7 @@ describe('the runner outbox', () => {
     expect(hook.result.current.events.map((e) => e.clientId)).toEqual([queued[0]!.clientId, queued[2]!.clientId]);
     await new Promise((r) => setTimeout(r, 50));
     expect(action).toHaveBeenCalledTimes(1);
-    expect(idb.get(`ringpass:run:${WHEEL}`)).toMatchObject({ pending: [], saved: [expect.objectContaining({ clientId: queued[0]!.clientId }), expect.objectContaining({ clientId: queued[2]!.clientId })] });
+    expect(idb.get(KEY)).toMatchObject({ pending: [], saved: [expect.objectContaining({ clientId: queued[0]!.clientId }), expect.objectContaining({ clientId: queued[2]!.clientId })] });
   });
 
   it('an action id retired by a deploy reloads the page once, keeping the queue for the new build', async () => {
@@ -82,12 +86,50 @@ describe('the runner outbox', () => {
     await waitFor(() => expect(hook.result.current.status.ready).toBe(true));
     await act(() => hook.result.current.record(confirm));
     await waitFor(() => expect(reload).toHaveBeenCalledTimes(1));
-    expect((idb.get(`ringpass:run:${WHEEL}`) as { pending: unknown[] }).pending).toHaveLength(1);
+    expect((idb.get(KEY) as { pending: unknown[] }).pending).toHaveLength(1);
     // Reloaded a moment ago and still refused: no reload loop, the queue waits and retries.
     await act(() => hook.result.current.record(confirm));
     await new Promise((r) => setTimeout(r, 50));
     expect(reload).toHaveBeenCalledTimes(1);
     expect(hook.result.current.status.waiting).toBe(2);
     vi.unstubAllGlobals();
+  });
+
+  it("a shared phone: Theo's waiting confirmations are never sent in Lena's session; they wait, labelled, until Theo signs in again", async () => {
+    const ended = setUp(async () => ({ ok: false, code: 'unauthenticated', message: 'Your session has ended. Sign in again.' }));
+    await waitFor(() => expect(ended.hook.result.current.status.ready).toBe(true));
+    await act(() => ended.hook.result.current.record(confirm));
+    await waitFor(() => expect(ended.hook.result.current.status.signedOut).toBe(true));
+    ended.hook.unmount();
+    const theosEvent = (idb.get(KEY) as { pending: { clientId: string }[] }).pending[0]!;
+
+    const lena = setUp(async () => saved, LENA);
+    await waitFor(() => expect(lena.hook.result.current.status.ready).toBe(true));
+    expect(lena.hook.result.current.others).toEqual([{ ownerName: 'Theo Tech', waiting: 1 }]);
+    expect(lena.hook.result.current.events).toEqual([]);
+    await act(() => lena.hook.result.current.record(confirm));
+    await waitFor(() => expect(lena.hook.result.current.status.waiting).toBe(0));
+    const sentInLenasSession = lena.action.mock.calls.flatMap(([, input]) => input.events.map((e) => e.clientId));
+    expect(sentInLenasSession).toHaveLength(1);
+    expect(sentInLenasSession).not.toContain(theosEvent.clientId);
+    lena.hook.unmount();
+
+    const theo = setUp(async () => saved);
+    await waitFor(() => expect(theo.hook.result.current.status.waiting).toBe(0));
+    expect(theo.action).toHaveBeenCalledWith(null, { wheelId: WHEEL, events: [expect.objectContaining({ clientId: theosEvent.clientId })] });
+  });
+
+  it('events refused for good stay on the phone under "Needs attention" with the reason, until dismissed', async () => {
+    const { hook } = setUp(async (_prev, input) => ({
+      ok: true,
+      data: { saved: 0, duplicates: 0, refused: [{ index: 0, clientId: input.events[0]!.clientId, message: 'This wheel was submitted; its record is closed.', fieldErrors: {} }] },
+    }));
+    await waitFor(() => expect(hook.result.current.status.ready).toBe(true));
+    await act(() => hook.result.current.record(confirm));
+    await waitFor(() => expect(hook.result.current.attention).toEqual([{ event: expect.objectContaining(confirm), reason: 'This wheel was submitted; its record is closed.' }]));
+    expect(idb.get(KEY)).toMatchObject({ owner: THEO, attention: [expect.objectContaining({ reason: 'This wheel was submitted; its record is closed.' })] });
+    await act(() => hook.result.current.dismiss());
+    expect(hook.result.current.attention).toEqual([]);
+    expect(idb.get(KEY)).toMatchObject({ attention: [] });
   });
 });

@@ -59,6 +59,8 @@ export default async function RunPage({ params }: PageProps<'/jobs/[jobId]/wheel
       photos={photos}
       saveEvents={saveWheelEvents}
       signInHref={signInThenBackTo(here)}
+      rework={wheel.rework && !wheel.submittedAt ? { note: wheel.rework.note, steps: wheel.rework.steps, at: wheel.rework.at } : null}
+      person={{ id: member.userId, name: member.name }}
     />
   );
 }
