@@ -4,7 +4,7 @@ import { createUploadthing, type FileRouter } from 'uploadthing/next';
 import { UploadThingError, UTApi } from 'uploadthing/server';
 import { z } from 'zod';
 import { getDb } from '@/db';
-import { wheelPhotos } from '@/db/schema';
+import { jobWheels, wheelPhotos } from '@/db/schema';
 import { cleanString } from '@/features/ui/bounded';
 import { requireMemberForRequest } from '@/server/auth/guard';
 import { DomainError } from '@/server/errors';
@@ -44,7 +44,13 @@ export const photoRouter = {
       const utapi = new UTApi();
       const { ufsUrl } = await utapi.generateSignedURL(file.key, { expiresIn: 60 });
       const res = await fetch(ufsUrl);
-      const verdict = res.ok && res.body ? await inspectPhotoStream(res.body) : { ok: false as const, message: 'The photo could not be read back.' };
+      // The wheel may have been submitted while the file travelled: its evidence is closed then too.
+      const [wheel] = await getDb().select({ submittedAt: jobWheels.submittedAt }).from(jobWheels).where(and(eq(jobWheels.shopId, metadata.shopId), eq(jobWheels.id, metadata.wheelId)));
+      const verdict = !wheel || wheel.submittedAt
+        ? { ok: false as const, message: 'This wheel was submitted; its evidence is closed.' }
+        : res.ok && res.body
+          ? await inspectPhotoStream(res.body)
+          : { ok: false as const, message: 'The photo could not be read back.' };
       if (!verdict.ok) {
         await utapi.deleteFiles(file.key);
         return { ok: false as const, message: verdict.message };

@@ -10,7 +10,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import * as photoRoute from '@/app/api/photos/[photoId]/route';
 import * as uploadRoute from '@/app/api/uploadthing/route';
 import { getDb } from '@/db';
-import { wheelPhotos } from '@/db/schema';
+import { jobWheels, wheelPhotos } from '@/db/schema';
 import { getJob } from '@/features/jobs/server/jobs';
 import { startUploadFake, type UploadFake } from '@/server/dev/upload-fake';
 import { apiRequest, cookieFor, createTestShop, params } from '@/tests/helpers/factories';
@@ -134,5 +134,20 @@ describe('photos are private: served only through the app, to its own shop', () 
   it('the upload store refuses more bytes than the size the app agreed to', async () => {
     const { put } = await upload(JPEG, { declaredSize: 1000 });
     expect(put?.status).toBe(413);
+  });
+});
+
+describe('evidence closes with the wheel', () => {
+  it('an upload for a submitted wheel is refused; once a send-back reopens the wheel it is taken again', async () => {
+    await getDb().update(jobWheels).set({ submittedAt: new Date() }).where(eq(jobWheels.id, wheelId));
+    const before = (await getDb().select({ id: wheelPhotos.id }).from(wheelPhotos).where(eq(wheelPhotos.wheelId, wheelId))).length;
+    const { ask } = await upload(JPEG);
+    expect(ask.status).toBe(400);
+    expect(await ask.text()).toMatch(/submitted; its evidence is closed/);
+    expect((await getDb().select({ id: wheelPhotos.id }).from(wheelPhotos).where(eq(wheelPhotos.wheelId, wheelId))).length).toBe(before);
+    await getDb().update(jobWheels).set({ submittedAt: null }).where(eq(jobWheels.id, wheelId));
+    const { put, body } = await upload(JPEG);
+    expect(put?.status, JSON.stringify(body)).toBe(200);
+    expect(body?.serverData).toMatchObject({ ok: true });
   });
 });
