@@ -4,6 +4,7 @@ import { getDb } from '@/db';
 import { jobEvents, jobs, jobWheels } from '@/db/schema';
 import type { Member } from '@/server/auth/session';
 import { DomainError } from '@/server/errors';
+import { sendTransitionNotices } from '@/server/mail/job-notices';
 import type { SendBackWheel } from '../schemas';
 import { isSelfReview, TRANSITION_RULES, transitionRefusal, type TransitionName } from '../transitions';
 import { getJob, type JobCard } from './jobs';
@@ -73,5 +74,7 @@ export async function transitionJob(
     return { ...job, state: rule.to };
   }
   await getDb().transaction(move);
+  // After the commit: leads hear of a job awaiting sign-off, the technician of a send-back.
+  await sendTransitionNotices({ shopId: actor.shopId, jobId, action: name, byId: actor.userId, wheels: reopened });
   return getJob(actor.shopId, jobId);
 }
