@@ -9,6 +9,7 @@ import { getJob, listAssignees } from '@/features/jobs/server/jobs';
 import { getWorkFacts } from '@/features/jobs/server/work-facts';
 import { allowedTransitions, isSelfReview } from '@/features/jobs/transitions';
 import { listJobPhotos } from '@/features/runner/server/photo-router';
+import { buttonClass } from '@/features/ui/button';
 import { PageHeader } from '@/features/ui/page';
 import { requireMember } from '@/server/auth/guard';
 import { can } from '@/server/auth/permissions';
@@ -28,7 +29,13 @@ export default async function JobPage({ params }: PageProps<'/jobs/[jobId]'>) {
       <Link href="/board" className="font-semibold text-work underline">
         ← Board
       </Link>
-      <PageHeader title={`Job #${job.number} · ${job.vehicle.label}`} />
+      <PageHeader title={`Job #${job.number} · ${job.vehicle.label}`}>
+        {can(member.role, 'jobs.signoff') && job.state !== 'open' ? (
+          <Link href={`/jobs/${job.id}/review`} className={buttonClass(job.state === 'awaiting_signoff' ? 'primary' : 'secondary')}>
+            {job.state === 'awaiting_signoff' ? 'Review for sign-off' : 'Review the record'}
+          </Link>
+        ) : null}
+      </PageHeader>
       <div className="grid gap-8 lg:grid-cols-[2fr_1fr]">
         <JobDetails job={job} photos={photos} canRun={can(member.role, 'jobs.run') && (member.role === 'lead' || job.assignee?.id === member.userId)} />
         <div className="flex flex-col gap-6">
