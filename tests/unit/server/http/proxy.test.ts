@@ -1,0 +1,40 @@
+import { NextRequest } from 'next/server';
+import { afterEach, describe, expect, it, vi } from 'vitest';
+
+// proxy.ts reads the validated env once per module load, so each case loads it afresh.
+async function proxyWith(appUrl: string) {
+  vi.resetModules();
+  vi.stubEnv('NODE_ENV', 'production');
+  vi.stubEnv('DATABASE_URL', 'postgres://nobody@127.0.0.1:1/none');
+  vi.stubEnv('SMTP_URL', 'smtp://127.0.0.1:2525');
+  vi.stubEnv('APP_URL', appUrl);
+  vi.stubEnv('UPLOADTHING_INGEST_URL', 'http://127.0.0.1:2531');
+  vi.stubEnv('UPLOADTHING_UFS_HOST', 'localhost:2531');
+  return (await import('@/proxy')).proxy;
+}
+
+afterEach(() => vi.unstubAllEnvs());
+
+describe('proxy: per-response security headers', () => {
+  it('gives the page and Next the same fresh nonce, and no HSTS over plain http', async () => {
+    const proxy = await proxyWith('http://127.0.0.1:3000');
+    const response = proxy(new NextRequest('http://127.0.0.1:3000/board'));
+    const csp = response.headers.get('content-security-policy') ?? '';
+    const nonce = /'nonce-([^']+)'/.exec(csp)?.[1];
+    expect(nonce).toBeTruthy();
+    // Next reads the nonce from the request's CSP header, which the proxy forwards.
+    expect(response.headers.get('x-middleware-request-content-security-policy')).toBe(csp);
+    expect(response.headers.get('x-middleware-request-x-nonce')).toBe(nonce);
+    expect(csp).toContain('http://127.0.0.1:2531');
+    expect(response.headers.get('strict-transport-security')).toBeNull();
+    const again = proxy(new NextRequest('http://127.0.0.1:3000/board')).headers.get('content-security-policy');
+    expect(again).not.toBe(csp);
+  });
+
+  it('sends HSTS when the app is served over https', async () => {
+    const proxy = await proxyWith('https://ringpass.example.com');
+    const response = proxy(new NextRequest('https://ringpass.example.com/board'));
+    expect(response.headers.get('strict-transport-security')).toBe('max-age=63072000');
+    expect(response.headers.get('content-security-policy')).toContain('upgrade-insecure-requests');
+  });
+});
