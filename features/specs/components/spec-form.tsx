@@ -6,6 +6,7 @@ import { Button } from '@/features/ui/button';
 import { CheckboxField } from '@/features/ui/checkbox';
 import { SelectField, TextField } from '@/features/ui/field';
 import { FormMessage } from '@/features/ui/form-message';
+import { ShopTime } from '@/features/ui/shop-time-zone';
 import { useFormAction } from '@/features/ui/use-form-action';
 import { createWheelSpec, updateWheelSpec } from '../actions/save-spec';
 import { engineErrors, specToInput } from '../engine-check';
@@ -149,6 +150,11 @@ function BeadSeatRating({ spec, initial, errors, confirmErrors }: { spec?: Spec;
           aria-invalid={confirmErrors?.length ? true : undefined}
           aria-describedby={confirmErrors?.length ? 'beadSeatRatingConfirmed-error' : undefined}
         />
+        {spec?.beadSeatRatingConfirmedAt ? (
+          <p className="text-sm text-ink-soft">
+            Confirmed by a lead on <ShopTime when={spec.beadSeatRatingConfirmedAt} />. Saving a changed limit or reference with the box ticked confirms it again in your name.
+          </p>
+        ) : null}
         {confirmErrors?.length ? (
           <p id="beadSeatRatingConfirmed-error" role="alert" className="text-sm font-semibold text-danger">
             {confirmErrors.join(' ')}
