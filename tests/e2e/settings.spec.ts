@@ -21,7 +21,7 @@ async function lowerTheFloorToZero(page: Page, specId: string) {
   await page.goto(`/specs/${specId}`);
   const preview = page.getByRole('region', { name: 'Plan preview' });
   // 10 ft-lb is 12.5 % of the wrench's 80: under the new shop's 20 % floor, so no wrench is offered.
-  await expect(preview.getByRole('row', { name: /Pass 3 \(100 %\)/ })).toContainText("No wrench: Grey click 5–80 ft-lb: 10 ft-lb is below the shop's floor of 20 % of its maximum (16 ft-lb)");
+  await expect(preview.getByRole('row', { name: /Pass 3 \(100 %\)/ })).toContainText("No wrench suits 10 ft-lb. Grey click 5–80 ft-lb: 10 ft-lb is below the shop's floor of 20 % of its maximum (16 ft-lb)");
 
   await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Settings' }).click();
   await expect(page.getByRole('heading', { name: 'Shop settings' })).toBeVisible();
