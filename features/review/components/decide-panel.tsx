@@ -30,7 +30,15 @@ export function DecidePanel({ jobId, refusal, selfReview, blocking, wheels, step
   const [reasons, setReasons] = useState<Record<string, string>>({});
   const [note, setNote] = useState('');
   const [back, setBack] = useState<Record<string, { note: string; steps: string[] } | undefined>>({});
-  if (refusal) return <p className="rounded-lg bg-paper-dim p-3">{refusal}</p>;
+  if (refusal) {
+    // After a decision the page refreshes into this: the outcome stays on screen above why.
+    return (
+      <div className="flex flex-col gap-3">
+        <FormMessage state={result} />
+        <p className="rounded-lg bg-paper-dim p-3">{refusal}</p>
+      </div>
+    );
+  }
   const errors = (name: string) => (result && !result.ok ? result.fieldErrors?.[name] : undefined);
   const run = (call: () => Promise<Result>) =>
     start(async () => {

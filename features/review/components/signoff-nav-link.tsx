@@ -11,9 +11,12 @@ export function SignoffNavLink() {
     <NavLink href="/signoff">
       Sign-off
       {count ? (
-        <span className="ml-1.5 inline-flex min-w-6 items-center justify-center rounded-full bg-white px-1.5 text-sm font-black text-work" aria-label={`, ${count} waiting`}>
-          {count}
-        </span>
+        <>
+          <span className="ml-1.5 inline-flex min-w-6 items-center justify-center rounded-full bg-white px-1.5 text-sm font-black text-work" aria-hidden>
+            {count}
+          </span>
+          <span className="sr-only">, {count} waiting</span>
+        </>
       ) : null}
     </NavLink>
   );

@@ -1,0 +1,132 @@
+import { expect, test, type Page } from '@playwright/test';
+import { waitForMail } from '../helpers/mailbox';
+import { E2E } from '../helpers/test-services';
+import { inviteAndJoin, signUp, uniqueEmail } from './helpers';
+
+/** A same-origin API call with the page's session, as the app itself would make it. */
+async function api<T>(page: Page, method: 'GET' | 'POST', path: string, body?: unknown): Promise<T> {
+  const origin = new URL(page.url()).origin;
+  const res = await page.request.fetch(path, { method, data: body, headers: { origin, 'content-type': 'application/json' } });
+  expect(res.ok(), `${method} ${path}: ${await res.text()}`).toBe(true);
+  return ((await res.json()) as { data: T }).data;
+}
+
+const clickBolts = async (page: Page) => {
+  const next = page.getByRole('button', { name: /^Clicked — bolt \d+$/ });
+  while (await next.count()) await next.click();
+  await page.getByRole('button', { name: 'Torque passes done' }).click();
+};
+
+async function runWheelFast(page: Page, jobId: string, wheelId: string) {
+  await page.goto(`/jobs/${jobId}/wheels/${wheelId}/run`);
+  const tickAndDone = async (heading: RegExp) => {
+    await expect(page.getByRole('heading', { name: heading })).toBeVisible();
+    for (const box of await page.locator('main input[type=checkbox]').all()) await box.check();
+    await page.getByRole('button', { name: 'Step done' }).click();
+  };
+  await tickAndDone(/Safety gate/);
+  await tickAndDone(/Inspect rim and ring/);
+  await tickAndDone(/Clean/);
+  await tickAndDone(/Mount the tire/);
+  await tickAndDone(/Index the ring/);
+  for (let i = 1; i <= 8; i++) await page.getByRole('button', { name: `Bolt ${i} started by hand` }).click();
+  await page.getByRole('button', { name: 'All bolts started — step done' }).click();
+  // As fast as a finger can tap: far quicker than a click wrench can be pulled to its click.
+  await clickBolts(page);
+
+  await expect(page.getByRole('heading', { name: /Seat the bead/ })).toBeVisible();
+  const jpeg = await page.evaluate(async () => {
+    const c = document.createElement('canvas');
+    c.width = 1200;
+    c.height = 800;
+    const g = c.getContext('2d')!;
+    g.fillStyle = '#333';
+    g.fillRect(0, 0, c.width, c.height);
+    const blob = await new Promise<Blob>((r) => c.toBlob((b) => r(b!), 'image/jpeg', 0.9));
+    return Array.from(new Uint8Array(await blob.arrayBuffer()));
+  });
+  const photo = { name: 'bead.jpg', mimeType: 'image/jpeg', buffer: Buffer.from(jpeg) };
+  await page.getByLabel('Take or choose a photo — Seated bead, outer face (required)').setInputFiles(photo);
+  await expect(page.getByRole('img', { name: 'Seated bead, outer face' })).toBeVisible({ timeout: 20_000 });
+  await page.getByLabel('Take or choose a photo — Seated bead, inner face (required)').setInputFiles(photo);
+  await expect(page.getByRole('img', { name: 'Seated bead, inner face' })).toBeVisible({ timeout: 20_000 });
+  for (const box of await page.locator('main input[type=checkbox]').all()) await box.check();
+  await page.getByLabel('Highest pressure used to seat the bead').fill('22');
+  await page.getByRole('button', { name: 'Step done' }).click();
+  await expect(page.getByRole('heading', { name: /Leak check/ })).toBeVisible();
+  for (const box of await page.locator('main input[type=checkbox]').all()) await box.check();
+  await page.getByLabel('Pressure set').fill('8');
+  await page.getByRole('button', { name: 'Step done' }).click();
+  await page.getByRole('button', { name: 'Submit the wheel' }).click();
+  await expect(page.getByRole('status').filter({ hasText: 'the job card went to sign-off' })).toBeVisible();
+}
+
+test('a wheel run too fast: the lead sees it first on the review, sends the wheel back, the technician redoes the passes, the lead signs off with a reason; both e-mails arrive', async ({ page, browser }) => {
+  test.setTimeout(240_000);
+  const leadEmail = uniqueEmail('lead');
+  await signUp(page, 'Quick Hands Rim Shop', 'Rae Lead', leadEmail);
+  const techEmail = uniqueEmail('tech');
+  const tech = await inviteAndJoin(page, browser, techEmail, 'Tam Tech', 'Technician');
+  const techId = (await api<{ id: string; name: string }[]>(page, 'GET', '/api/team/members')).find((m) => m.name === 'Tam Tech')!.id;
+
+  // A wrench verified near each working point (the shop's default: ±25 % of the setting), an 8-bolt spec, a one-wheel job for the technician.
+  const calibrationDueOn = new Date(Date.now() + 200 * 86_400_000).toISOString().slice(0, 10);
+  const wrench = await api<{ id: string }>(page, 'POST', '/api/wrenches', { label: 'Blue click 20–200 in-lb', kind: 'click', min: 20, max: 200, unit: 'lbf-in', graduation: 1, calibrationDueOn });
+  for (const referenceValue of [43, 101, 144]) await api(page, 'POST', `/api/wrenches/${wrench.id}/verifications`, { referenceValue, readingValue: referenceValue, unit: 'lbf-in' });
+  const spec = await api<{ id: string }>(page, 'POST', '/api/specs', { name: '8-bolt test ring', boltCount: 8, boltThread: 'M8×1.25', finalTorque: 12, torqueUnit: 'lbf-ft', passPercents: [30, 70, 100], patternKind: 'cross', checkPass: true, maxBeadSeatPressure: 30, runningPressure: 14, pressureUnit: 'psi' });
+  const job = await api<{ id: string; number: number; wheels: { id: string }[] }>(page, 'POST', '/api/jobs', {
+    customer: { name: 'Ada Offroad', phone: '', email: '' },
+    vehicle: { make: 'Boreal', model: 'Scout', description: '' },
+    wheels: [{ position: 'LF', specId: spec.id, tireSize: '26x9-14', directional: false, targetPressure: 8, pressureUnit: 'psi' }],
+    dismount: false,
+    reinstall: false,
+    assigneeId: techId,
+  });
+  const wheelId = job.wheels[0]!.id;
+
+  await runWheelFast(tech.page, job.id, wheelId);
+  const waiting = await waitForMail(E2E.sink.dir, leadEmail);
+  expect(waiting.subject).toBe(`Job ${job.number} is waiting for sign-off`);
+  expect(waiting.text).toContain(`/jobs/${job.id}/review`);
+
+  // The lead: the nav counts the job, the queue lists it, the review shows the anomaly first.
+  await page.goto('/board');
+  await page.getByRole('link', { name: 'Sign-off, 1 waiting' }).click();
+  await expect(page.getByRole('heading', { name: 'Sign-off' })).toBeVisible();
+  await page.getByRole('link', { name: `Job ${job.number} · Ada Offroad` }).click();
+  const first = page.getByRole('list', { name: 'Anomalies' }).getByRole('listitem').first();
+  await expect(first).toContainText('Blocks sign-off');
+  await expect(first).toContainText(/LF wheel: pass 1 of 4 \(30 %, 3\.6 ft-lb\) was confirmed at a median of [\d.]+ s per bolt, faster than the shop's 1\.5 s/);
+
+  const sendBack = page.getByRole('form', { name: 'Send back' });
+  await sendBack.getByLabel('Send back the LF wheel').check();
+  await sendBack.getByLabel('What to redo on the LF wheel').fill('Redo every pass: pull each bolt to the click.');
+  await sendBack.getByLabel('Torque passes').check();
+  await sendBack.getByRole('button', { name: 'Send back' }).click();
+  await expect(page.getByRole('status')).toHaveText('Sent back to the technician.');
+  const back = await waitForMail(E2E.sink.dir, techEmail);
+  expect(back.subject).toBe(`Job ${job.number} was sent back: LF`);
+  expect(back.text).toContain('LF wheel: Redo every pass: pull each bolt to the click. (redo: torque)');
+
+  // The technician: the note on top, only the passes to redo, then submit again.
+  const t = tech.page;
+  await t.goto(`/jobs/${job.id}/wheels/${wheelId}/run`);
+  await expect(t.getByRole('alert', { name: 'Sent back by the lead' })).toContainText('Redo every pass: pull each bolt to the click.');
+  await clickBolts(t);
+  await t.getByRole('button', { name: 'Submit the wheel' }).click();
+  await expect(t.getByRole('status').filter({ hasText: 'the job card went to sign-off' })).toBeVisible();
+
+  // Still too fast: the lead may accept it only with a reason, which the record keeps.
+  await page.goto(`/jobs/${job.id}/review`);
+  const approve = page.getByRole('form', { name: 'Sign off' });
+  await approve.getByRole('button', { name: 'Sign off' }).click();
+  await expect(page.getByRole('alert').filter({ hasText: 'Acknowledge every anomaly that blocks sign-off with a reason first.' })).toBeVisible();
+  for (const box of await approve.getByPlaceholder('Why this is acceptable (kept on the record)').all()) await box.fill('Watched the second run myself; every bolt clicked.');
+  await approve.getByRole('button', { name: 'Sign off' }).click();
+  await expect(page.getByRole('status')).toHaveText('Signed off.');
+  await expect(page.getByRole('region', { name: 'Acknowledged at sign-off' })).toContainText('Reason: Watched the second run myself; every bolt clicked. — Rae Lead');
+  await page.goto(`/jobs/${job.id}`);
+  await expect(page.getByText('Signed off').first()).toBeVisible();
+  await expect(page.getByText(/Acknowledged: LF wheel: pass 1 of 4/).first()).toBeVisible();
+  await tech.context.close();
+});
