@@ -4,7 +4,7 @@
  * demo wrench at the shop's floor (else a demo job could never be finished). Runs the engine, which
  * is pure (no I/O), so the seed may import it (see the exception in eslint.config.mjs).
  */
-import { checkPlausibility, chooseWrench, formatTorque, passPlan, type PressureUnit, type TorqueUnit, type Wrench } from '@/features/torque-plan';
+import { checkPlausibility, chooseWrench, formatTorque, passPlan, tighteningSequence, type Pattern, type PressureUnit, type Torque, type TorqueUnit, type Wrench } from '@/features/torque-plan';
 
 export type SeedSpec = {
   name: string;
@@ -53,4 +53,30 @@ export function assertDemoCompletable(specs: readonly SeedSpec[], wrenches: read
   if (problems.length) {
     throw new Error(`The demo seed failed its self-check (wrench floor ${floorPercent} %); nothing was seeded:\n- ${problems.join('\n- ')}`);
   }
+}
+
+/** A demo wheel's plan as the runner computes it: the sequence, and per pass the target, the wrench (by its place in the crib) and its setting. */
+export type DemoWheelPlan = {
+  sequence: number[];
+  check: number[];
+  passes: { index: number; kind: 'staged' | 'check'; fraction: number; target: Torque; wrench: number; setting: Torque }[];
+};
+
+/**
+ * The engine's plan for a demo spec with the demo crib at the shop's floor, so the demo's wheel
+ * histories (db/seed-demo-work.ts) use the wrenches and settings the runner would have shown.
+ */
+export function demoWheelPlan(
+  spec: SeedSpec & { boltCount: number; patternKind: 'cross' | 'skip' | 'sequential'; skipStep?: number | null },
+  wrenches: readonly SeedWrench[],
+  floorPercent: number,
+): DemoWheelPlan {
+  const pattern: Pattern = spec.patternKind === 'skip' ? { kind: 'skip', step: spec.skipStep ?? 1 } : { kind: spec.patternKind };
+  const crib: Wrench[] = wrenches.flatMap((w, i) => ((w.status ?? 'in_service') === 'in_service' ? [{ id: String(i), min: w.min, max: w.max, unit: w.unit, graduation: w.graduation, kind: w.kind }] : []));
+  const passes = passPlan({ value: spec.finalTorque, unit: spec.torqueUnit }, spec.passFractions, { checkPass: spec.checkPass }).map((p) => {
+    const choice = chooseWrench(p.target, crib, { minFractionOfMax: floorPercent / 100 });
+    if (!choice.ok) throw new Error(`"${spec.name}" pass ${p.index}: ${choice.reason}`);
+    return { ...p, wrench: Number(choice.wrenchId), setting: choice.setting };
+  });
+  return { sequence: tighteningSequence(spec.boltCount, pattern), check: tighteningSequence(spec.boltCount, { kind: 'sequential' }), passes };
 }

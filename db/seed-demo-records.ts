@@ -5,7 +5,8 @@
 import { eq } from 'drizzle-orm';
 import type { PostgresJsDatabase } from 'drizzle-orm/postgres-js';
 import * as schema from './schema';
-import { assertDemoCompletable, type SeedSpec, type SeedWrench } from './seed-check';
+import { assertDemoCompletable, demoWheelPlan, type SeedSpec, type SeedWrench } from './seed-check';
+import { seedDemoWork } from './seed-demo-work';
 
 type Db = PostgresJsDatabase<typeof schema>;
 type People = { lead: string; tech: string };
@@ -34,7 +35,8 @@ export const DEMO_WRENCHES = [
   { label: 'Small click 10–100 in-lb', kind: 'click', min: 10, max: 100, unit: 'lbf-in', graduation: 0.5, serial: 'SC-1107', calibrationDueOn: isoDate(250) },
 ] satisfies (SeedWrench & Omit<typeof schema.wrenches.$inferInsert, 'shopId'>)[];
 
-export async function seedDemoRecords(tx: Db, shopId: string, people: People) {
+/** `photoDir`: where the local upload fake keeps files; the demo's bead photos are written there. */
+export async function seedDemoRecords(tx: Db, shopId: string, people: People, options: { photoDir?: string } = {}) {
   // The shop's own floor (its settings row is made with the shop): the demo must work at it.
   const [settings] = await tx.select({ floor: schema.shopSettings.wrenchFloorPercent }).from(schema.shopSettings).where(eq(schema.shopSettings.shopId, shopId));
   assertDemoCompletable(DEMO_SPECS, DEMO_WRENCHES, settings?.floor ?? 20);
@@ -109,12 +111,28 @@ export async function seedDemoRecords(tx: Db, shopId: string, people: People) {
     )
     .returning({ id: schema.jobs.id });
   const positions = ['LF', 'RF', 'LR', 'RR'] as const;
-  await tx.insert(schema.jobWheels).values(
+  const wheels = await tx.insert(schema.jobWheels).values(
     // Each wheel is filled to its spec's running pressure, in the spec's unit.
     jobs.flatMap((j, i) => {
       const spec = DEMO_SPECS[plan[i]!.spec]!;
       return positions.map((position) => ({ shopId, jobId: j.id, position, specId: specs[plan[i]!.spec]!.id, tireSize: plan[i]!.tire, directional: i % 3 === 0, targetPressure: spec.runningPressure, pressureUnit: spec.pressureUnit }));
     }),
-  );
-  await tx.insert(schema.jobEvents).values(jobs.map((j, i) => ({ shopId, jobId: j.id, action: 'create', fromState: null, toState: plan[i]!.state, byId: people.lead, note: 'Demo record' })));
+  ).returning({ id: schema.jobWheels.id, jobId: schema.jobWheels.jobId, position: schema.jobWheels.position, targetPressure: schema.jobWheels.targetPressure, pressureUnit: schema.jobWheels.pressureUnit });
+  // Each job's history follows the same rules as a real run (see seed-demo-work.ts).
+  const floor = settings?.floor ?? 20;
+  const plans = DEMO_SPECS.map((spec, i) => ({ ...spec, id: specs[i]!.id, plan: demoWheelPlan(spec, DEMO_WRENCHES, floor) }));
+  await seedDemoWork(tx, {
+    shopId,
+    lead: people.lead,
+    wrenchIds: wrenches.map((w) => w.id),
+    photoDir: options.photoDir,
+    jobs: jobs.map((j, i) => ({
+      id: j.id,
+      state: plan[i]!.state,
+      assignee: plan[i]!.assignee,
+      spec: plans[plan[i]!.spec]!,
+      workDay: Math.min(plan[i]!.dueDays, 0) - 1,
+      wheels: positions.map((p) => wheels.find((w) => w.jobId === j.id && w.position === p)!),
+    })),
+  });
 }

@@ -17,7 +17,8 @@ export const DEMO_PEOPLE = [
   { name: 'Ines Pohlmann', email: 'apprentice@dustline.test', role: 'apprentice' },
 ] as const;
 
-export async function seedDemoShop(url: string): Promise<{ created: boolean }> {
+/** `photoDir`: the local upload fake's folder, where the demo's bead photos are written. */
+export async function seedDemoShop(url: string, options: { photoDir?: string } = {}): Promise<{ created: boolean }> {
   const sql = postgres(url, { max: 1, onnotice: () => {} });
   const db = drizzle(sql, { schema, casing: 'snake_case' });
   try {
@@ -34,7 +35,7 @@ export async function seedDemoShop(url: string): Promise<{ created: boolean }> {
         .values(DEMO_PEOPLE.map((p) => ({ ...p, shopId: shop!.id, passwordHash })))
         .returning({ id: schema.users.id, role: schema.users.role });
       const id = (role: string) => people.find((p) => p.role === role)!.id;
-      await seedDemoRecords(tx, shop!.id, { lead: id('lead'), tech: id('technician') });
+      await seedDemoRecords(tx, shop!.id, { lead: id('lead'), tech: id('technician') }, options);
     });
     return { created: true };
   } finally {

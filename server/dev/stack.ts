@@ -34,7 +34,7 @@ async function main(mode: 'start' | 'dev') {
   const databaseUrl = plan.localCluster ? clusterUrl('ringpass') : String(env.DATABASE_URL);
   env.DATABASE_URL = process.env.DATABASE_URL = databaseUrl;
   await migrateDatabase(databaseUrl);
-  const seeded = plan.seedDemoShop ? await seedDemoShop(databaseUrl) : undefined;
+  const seeded = plan.seedDemoShop ? await seedDemoShop(databaseUrl, { photoDir: path.join(ROOT, '.data', 'uploads') }) : undefined;
 
   let closeSink = async () => {};
   if (plan.mailSink) {
