@@ -37,7 +37,7 @@ const num = (payload: object, key: 'bolt' | 'pass') => (key in payload ? (payloa
 /**
  * The common case in one statement, without a transaction: insert the batch only if this member
  * may write to this wheel now (shop, in-progress job, assignee or lead, started and not submitted,
- * spec not flagged) and every bolt and pass is on the wheel's snapshot — all or nothing. Each
+ * spec not flagged, not sent back for named steps) and every bolt and pass is on the wheel's snapshot — all or nothing. Each
  * bolt confirmation gets its pass's target from the snapshot. Answers how many rows were new;
  * fewer than the batch (a replay, a refusal, a first event) sends the caller to the full path.
  */
@@ -52,6 +52,7 @@ async function insertIfAllowed(member: Member, wheelId: string, events: Timed[])
       from ${jobWheels} w join ${jobs} j on j.id = w.job_id join ${wheelSpecs} s on s.id = w.spec_id
       where w.id = ${wheelId} and w.shop_id = ${member.shopId} and j.state = 'in_progress' and w.submitted_at is null
         and w.snapshot is not null and s.plausibility_flag is null
+        and (w.rework is null or jsonb_array_length(w.rework->'steps') = 0)
         and (${member.role} = 'lead' or j.assignee_id = ${member.userId})
     ),
     ok as (
@@ -76,6 +77,20 @@ function planRefusal(e: ClientEvent, snapshot: WheelSnapshot): Omit<EventRefusal
   if (bolt !== undefined && bolt > boltCount) return { message: `Bolt ${bolt} is not on this ${boltCount}-bolt ring.`, fieldErrors: { 'payload.bolt': ['No such bolt.'] } };
   if (pass !== undefined && pass > snapshot.plan.passes.length) return { message: `Pass ${pass} is not in this wheel's plan.`, fieldErrors: { 'payload.pass': ['No such pass.'] } };
   return null;
+}
+
+/** The runner step an event belongs to (the jobs feature's send-back supersedes by the same mapping). */
+function stepOf(e: ClientEvent): string {
+  if (e.type === 'step_done' || e.type === 'step_skipped') return e.payload.step;
+  if (e.type === 'hand_started' || e.type === 'hand_unstarted') return 'hand_start';
+  if (e.type === 'inspection_failed') return 'inspect';
+  return 'torque';
+}
+
+/** A wheel sent back for named steps takes rework for exactly those steps; null when this event may be stored. */
+function reworkRefusal(e: ClientEvent, rework: { steps: string[] } | null): Omit<EventRefusal, 'index' | 'clientId'> | null {
+  if (!rework?.steps.length || rework.steps.includes(stepOf(e))) return null;
+  return { message: `This wheel was sent back to redo ${rework.steps.join(', ').replaceAll('_', ' ')} only; the rest of its record stands.`, fieldErrors: {} };
 }
 
 const withTarget = (e: ClientEvent, snapshot: WheelSnapshot) =>
@@ -114,7 +129,7 @@ export async function saveWheelBatch(member: Member, wheelId: string, raw: unkno
       const snapshot = await ensureSnapshot(tx, member.shopId, ctx, now);
       const wrenchNo = await wrenchRefusals(tx, member.shopId, events, snapshot);
       accepted = events.filter((e) => {
-        const why = planRefusal(e, snapshot) ?? wrenchNo.get(e.clientId) ?? null;
+        const why = planRefusal(e, snapshot) ?? reworkRefusal(e, ctx.wheel.rework) ?? wrenchNo.get(e.clientId) ?? null;
         if (why) refuse(e, why);
         return !why;
       });

@@ -1,6 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { and, eq, isNull } from 'drizzle-orm';
 import { describe, expect, it } from 'vitest';
+import { saveWheelEvents } from '@/app/(runner)/jobs/[jobId]/wheels/[wheelId]/run/actions';
 import * as jobTransitions from '@/app/api/jobs/[jobId]/transitions/route';
 import { getDb } from '@/db';
 import { jobWheels, shopSettings, users, wheelRunEvents } from '@/db/schema';
@@ -8,6 +9,7 @@ import { getJob, updateJob } from '@/features/jobs/server/jobs';
 import { transitionJob } from '@/features/jobs/server/transitions';
 import type { Member } from '@/server/auth/session';
 import { apiRequest, cookieFor, createTestShop, params } from '@/tests/helpers/factories';
+import { actAs } from '@/tests/helpers/next-request';
 import { createRecords } from '@/tests/helpers/records';
 import { workAndSubmitWheels } from '@/tests/helpers/wheel-work';
 
@@ -153,5 +155,12 @@ describe('send back per wheel', () => {
     // The job goes round again: restarted, reworked, resubmitted.
     await transitionJob(shop.technician, job.id, 'start', '');
     await expect(transitionJob(shop.technician, job.id, 'submit', '')).rejects.toMatchObject({ message: expect.stringMatching(/still open: LF, RF/) });
+    // The runner takes rework for exactly the steps named: RF's torque, not its other steps; LR stays closed.
+    await actAs(shop.technician.userId);
+    const at = new Date().toISOString();
+    const rework = await saveWheelEvents(null, { wheelId: rf!, events: [{ type: 'bolt_confirmed', payload: { pass: 1, bolt: 1 }, clientId: randomUUID(), clientAt: at }, { type: 'step_done', payload: { step: 'clean', checklist: [] }, clientId: randomUUID(), clientAt: at }] });
+    expect(rework).toMatchObject({ ok: true, data: { saved: 1, refused: [expect.objectContaining({ index: 1, message: 'This wheel was sent back to redo torque only; the rest of its record stands.' })] } });
+    const closed = await saveWheelEvents(null, { wheelId: lr!, events: [{ type: 'bolt_confirmed', payload: { pass: 1, bolt: 1 }, clientId: randomUUID(), clientAt: at }] });
+    expect(closed).toMatchObject({ ok: true, data: { saved: 0, refused: [expect.objectContaining({ message: 'This wheel was submitted; its record is closed.' })] } });
   });
 });
