@@ -17,7 +17,11 @@ const shopOf = (value: unknown) => (typeof value === 'string' && /^[0-9a-f-]{36}
 
 export type MailSink = { port: number; close: () => Promise<void> };
 
-export async function startMailSink(options: { port: number; dir: string }): Promise<MailSink> {
+/**
+ * `onUnowned` hears of mail tied to no shop (a sign-up link): no Mailbox shows it, so the start
+ * script prints it, and whoever is trying the demo can still finish signing up.
+ */
+export async function startMailSink(options: { port: number; dir: string; onUnowned?: (mail: { to: string[]; subject: string; text: string }) => void }): Promise<MailSink> {
   mkdirSync(options.dir, { recursive: true });
   const server = new SMTPServer({
     authOptional: true,
@@ -40,6 +44,7 @@ export async function startMailSink(options: { port: number; dir: string }): Pro
           // Name sorts by time so the Mailbox can list newest first without reading every file.
           const name = `${receivedAt.replace(/[:.]/g, '-')}-${id}.json`;
           writeFileSync(path.join(options.dir, name), JSON.stringify(record, null, 2));
+          if (!record.shopId) options.onUnowned?.(record);
           callback();
         })
         .catch((error: Error) => callback(error));

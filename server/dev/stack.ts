@@ -39,7 +39,14 @@ async function main(mode: 'start' | 'dev') {
   let closeSink = async () => {};
   if (plan.mailSink) {
     const dir = path.join(ROOT, '.data', 'mailbox');
-    const sink = await startMailSink({ port: SINK_PORT, dir });
+    const sink = await startMailSink({
+      port: SINK_PORT,
+      dir,
+      onUnowned: (mail) => {
+        const links = mail.text.match(/https?:\/\/\S+/g) ?? [];
+        console.log(`[mail] to ${mail.to.join(', ')}: ${mail.subject}${links.length ? `\n[mail]   ${links.join('\n[mail]   ')}` : ''}`);
+      },
+    });
     closeSink = sink.close;
     env.SMTP_URL = `smtp://127.0.0.1:${SINK_PORT}`;
     env.MAILBOX_DIR = dir;
