@@ -73,3 +73,31 @@ describe('GET /api/jobs/:jobId/review', () => {
     expect((await review(shop.technician.userId, newer.job.id)).status).toBe(403);
   });
 });
+
+describe('a wheel run through the runner save path', () => {
+  it('is judged against its snapshot, with the wrench and setting each bolt carried', async () => {
+    const { saveWheelEvents } = await import('@/app/(runner)/jobs/[jobId]/wheels/[wheelId]/run/actions');
+    const { recordVerification } = await import('@/features/tool-crib/server/wrenches');
+    const { actAs } = await import('@/tests/helpers/next-request');
+    const { randomUUID } = await import('node:crypto');
+    const shop = await createTestShop('Runner Review Shop');
+    const { job, wrench } = await createRecords(shop.lead, shop.technician.userId);
+    await recordVerification(shop.lead, wrench.id, { referenceValue: 43, readingValue: 43, unit: 'lbf-in' });
+    const wheelId = (await import('@/features/jobs/server/jobs').then((m) => m.getJob(shop.shopId, job.id))).wheels[0]!.id;
+    const start = Date.now() + 1000; // after the verification: a wrench is judged as it stood when chosen
+    const at = (i: number) => new Date(start + i * 300).toISOString();
+    const events = [
+      { type: 'wrench_chosen', payload: { pass: 1, wrenchId: wrench.id }, clientId: randomUUID(), clientAt: at(0) },
+      ...[1, 13, 7, 19].map((bolt, i) => ({ type: 'bolt_confirmed', payload: { pass: 1, bolt, wrenchId: wrench.id, setting: { value: 43, unit: 'lbf-in' } }, clientId: randomUUID(), clientAt: at(i + 1) })),
+    ];
+    await actAs(shop.technician.userId);
+    expect(await saveWheelEvents(null, { wheelId, events } as Parameters<typeof saveWheelEvents>[1])).toMatchObject({ ok: true, data: { saved: 5 } });
+    const res = await review(shop.lead.userId, job.id);
+    expect(res.status, await res.clone().text()).toBe(200);
+    const { data } = (await res.json()) as { data: { anomalies: { code: string; pass?: number }[]; wheels: { source: string; wrenchUses: Record<string, { label: string; setting: unknown; verification: string }[]> }[] } };
+    expect(data.wheels[0]!.source).toBe('snapshot');
+    expect(data.wheels[0]!.wrenchUses['1']).toEqual([expect.objectContaining({ label: 'Test click 20–200 in-lb', setting: { value: 43, unit: 'lbf-in' }, verification: 'verified at 43 in-lb' })]);
+    // 0.3 s a bolt: too fast at the shop's 1.5 s.
+    expect(data.anomalies.filter((a) => a.code === 'too_fast').map((a) => a.pass)).toEqual([1]);
+  });
+});
