@@ -72,7 +72,7 @@ describe('what was used', () => {
     expect(row!.payload).toEqual({ pass: 1, bolt: 1, wrenchId: records.wrench.id, setting: { value: 43, unit: 'lbf-in' }, target: { value: 3.6, unit: 'lbf-ft' } });
   });
 
-  it("wrench_chosen is refused for another shop's wrench, one out of service, or one without a verification the policy accepts; a verified wrench is stored", async () => {
+  it("wrench_chosen is refused for another shop's wrench, one without a verification the policy accepts, one overdue for calibration or out of service; a verified wrench is stored", async () => {
     const other = await createTestShop('Other');
     const theirs = await createRecords(other.lead, other.technician.userId);
     const choose = (wrenchId: string) => ev('wrench_chosen', { pass: 1, wrenchId });
@@ -84,6 +84,11 @@ describe('what was used', () => {
     // Verified at 40 in-lb, near pass 1's 43.2 in-lb setting (within the default ±25 %).
     await recordVerification(shop.technician, records.wrench.id, verificationSchema.parse({ referenceValue: 40, readingValue: 40.5, unit: 'lbf-in' }));
     expect(await post(shop.technician.userId, [ev('wrench_chosen', { pass: 1, wrenchId: records.wrench.id }, new Date().toISOString())])).toMatchObject({ ok: true, data: { saved: 1, refused: [] } });
+    await getDb().update(wrenches).set({ calibrationDueOn: '2020-01-01' }).where(eq(wrenches.id, records.wrench.id));
+    expect(await post(shop.technician.userId, [ev('wrench_chosen', { pass: 1, wrenchId: records.wrench.id }, new Date().toISOString())])).toMatchObject({
+      ok: true,
+      data: { saved: 0, refused: [expect.objectContaining({ message: expect.stringMatching(/overdue for calibration \(due 2020-01-01\)/) })] },
+    });
     await getDb().update(wrenches).set({ status: 'out_of_service', statusReason: 'Dropped' }).where(eq(wrenches.id, records.wrench.id));
     expect(await post(shop.technician.userId, [ev('wrench_chosen', { pass: 1, wrenchId: records.wrench.id }, new Date().toISOString())])).toMatchObject({
       ok: true,
