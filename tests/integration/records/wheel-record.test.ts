@@ -2,10 +2,12 @@ import { randomUUID } from 'node:crypto';
 import { and, eq } from 'drizzle-orm';
 import { beforeEach, describe, expect, it } from 'vitest';
 import { saveWheelEvents } from '@/app/(runner)/jobs/[jobId]/wheels/[wheelId]/run/actions';
+import RunPage from '@/app/(runner)/jobs/[jobId]/wheels/[wheelId]/run/page';
 import { GET as EVENTS } from '@/app/api/wheels/[wheelId]/events/route';
 import { getDb } from '@/db';
 import { jobEvents, jobWheels, refusedRunEvents, wheelRunEvents, wrenches } from '@/db/schema';
 import { getJob } from '@/features/jobs/server/jobs';
+import type { RunnerProps } from '@/features/runner/components/runner';
 import { specSchema } from '@/features/specs/schemas';
 import { updateSpec } from '@/features/specs/server/specs';
 import { verificationSchema } from '@/features/tool-crib/schemas';
@@ -57,6 +59,11 @@ describe('snapshot at start', () => {
     const { data } = (await res.json()) as { data: { state: { passes: { order: number[] }[] } } };
     expect(data.state.passes).toHaveLength(4);
     expect(data.state.passes[0]!.order).toHaveLength(24);
+    // The runner page shows the snapshot's targets and limits, not the edited spec's.
+    await actAs(shop.technician.userId);
+    const page = (await RunPage({ params: Promise.resolve({ jobId, wheelId }), searchParams: Promise.resolve({}) })) as { props: RunnerProps };
+    expect(page.props.targets).toEqual([{ value: 3.6, unit: 'lbf-ft' }, { value: 8.4, unit: 'lbf-ft' }, { value: 12, unit: 'lbf-ft' }, { value: 12, unit: 'lbf-ft' }]);
+    expect(page.props.plan.boltCount).toBe(24);
     // A wheel not yet started follows the edited spec.
     const fresh = (await getJob(shop.shopId, jobId)).wheels[1]!.id;
     await post(shop.technician.userId, [ev('step_done', { step: 'safety', checklist: [] })], fresh);

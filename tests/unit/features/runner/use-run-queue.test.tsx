@@ -132,4 +132,16 @@ describe('the runner outbox', () => {
     expect(hook.result.current.attention).toEqual([]);
     expect(idb.get(KEY)).toMatchObject({ attention: [] });
   });
+
+  it("after a lead's send-back the phone drops its copy of the superseded events, keeping what still waits", async () => {
+    const old = { type: 'bolt_confirmed' as const, payload: { pass: 1, bolt: 1 }, clientId: crypto.randomUUID(), clientAt: '2026-01-01T09:00:00.000Z' };
+    const waiting = { ...old, clientId: crypto.randomUUID(), clientAt: '2026-01-01T09:05:00.000Z' };
+    idb.set(KEY, { owner: THEO, pending: [waiting], saved: [old], attention: [], generation: null });
+    const action = vi.fn<SaveEvents>(async () => saved);
+    const hook = renderHook(() => useRunQueue(WHEEL, [], action, THEO, '2026-01-02T10:00:00.000Z'));
+    await waitFor(() => expect(action).toHaveBeenCalledTimes(1));
+    await waitFor(() => expect(hook.result.current.status.waiting).toBe(0));
+    expect(hook.result.current.events.map((e) => e.clientId)).toEqual([waiting.clientId]);
+    expect(idb.get(KEY)).toMatchObject({ generation: '2026-01-02T10:00:00.000Z' });
+  });
 });
