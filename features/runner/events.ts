@@ -4,7 +4,16 @@ import { cleanString, isoDateTime } from '@/features/ui/bounded';
 
 const step = z.enum(['safety', 'dismount', 'inspect', 'clean', 'mount', 'index', 'hand_start', 'torque', 'seat_bead', 'leak_check', 'reinstall', 'submit']);
 const bolt = z.number().int().min(1).max(64);
-const pass = z.number().int().min(1).max(10);
+/**
+ * The most check passes a wheel may have in all: the plan's one, then one more each time a bolt of
+ * the check pass before turned (see `reduceRun`). Past this the wheel goes to a lead.
+ */
+export const MAX_CHECK_PASSES = 10;
+// A plan has at most 8 staged passes and one check pass; added check passes follow it.
+const pass = z.number().int().min(1).max(8 + MAX_CHECK_PASSES);
+/** What a technician can report about one bolt when they stop the wheel. */
+export const BOLT_PROBLEMS = ['stripped', 'snapped', 'cross_threaded', 'spins', 'other'] as const;
+export type BoltProblem = (typeof BOLT_PROBLEMS)[number];
 const torque = z.object({ value: z.number().positive().max(100_000), unit: z.enum(TORQUE_UNITS) });
 
 /** Every kind of event the runner sends; the server validates each against this. */
@@ -20,8 +29,23 @@ export const runEventSchema = z.discriminatedUnion(
     // `wrenchId` and `setting`: the wrench and the setting the runner showed when the bolt was
     // confirmed (older phones sent neither; such events still count). The server adds `target`,
     // the pass's target from the wheel's snapshot, when it stores the event.
-    z.object({ type: z.literal('bolt_confirmed'), payload: z.object({ pass, bolt, wrenchId: z.uuid().optional(), setting: torque.optional() }) }),
+    // `turned` (check passes only): whether the bolt turned before the wrench clicked; any bolt
+    // that turned adds another check pass.
+    z.object({ type: z.literal('bolt_confirmed'), payload: z.object({ pass, bolt, wrenchId: z.uuid().optional(), setting: torque.optional(), turned: z.boolean().optional() }) }),
     z.object({ type: z.literal('bolt_undone'), payload: z.object({ pass, bolt }) }),
+    // A bolt that stops the wheel (during hand-start `pass` is absent): the wheel is flagged for a lead.
+    z.object({
+      type: z.literal('bolt_flagged'),
+      payload: z
+        .object({
+          bolt,
+          pass: pass.optional(),
+          problem: z.enum(BOLT_PROBLEMS, { error: 'Choose what is wrong with the bolt.' }),
+          note: cleanString('the note', 300).optional(),
+          photoId: z.uuid().optional(),
+        })
+        .refine((p) => p.problem !== 'other' || (p.note?.trim().length ?? 0) >= 3, { error: 'Say what is wrong with the bolt.', path: ['note'] }),
+    }),
   ],
   { error: 'Unknown runner event.' },
 );
@@ -34,6 +58,15 @@ export const clientEventSchema = z.intersection(
 export const eventBatchSchema = z.object({ events: z.array(clientEventSchema).min(1).max(200, { error: 'At most 200 events at once.' }) });
 
 export type RunEvent = z.infer<typeof runEventSchema>;
+
+const PROBLEM_WORDS: Record<BoltProblem, string> = { stripped: 'stripped thread', snapped: 'snapped head', cross_threaded: 'cross-threaded', spins: 'bolt spins', other: 'other problem' };
+
+/** The words a flagged bolt leaves on the wheel for the lead (the reducer and the save path agree on them). */
+export function boltFlagReason(payload: { bolt: number; pass?: number | undefined; problem: BoltProblem; note?: string | undefined }): string {
+  const where = payload.pass ? `pass ${payload.pass}` : 'hand-start';
+  const note = payload.note?.trim();
+  return `Bolt ${payload.bolt} (${where}): ${PROBLEM_WORDS[payload.problem]}${note ? ` — ${note}` : ''}`;
+}
 export type ClientEvent = z.infer<typeof clientEventSchema>;
 
 /** One event the server would not take, by its place in the batch the phone sent. */

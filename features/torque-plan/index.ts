@@ -15,7 +15,8 @@ export {
   type Torque,
   type TorqueUnit,
 } from './units';
-export { MAX_BOLTS, MIN_BOLTS, PUBLISHED_CROSS, spreadCross, tighteningSequence, type Pattern } from './sequence';
+export { handStartOrder, MAX_BOLTS, MIN_BOLTS, PUBLISHED_CROSS, spreadCross, tighteningSequence, type Pattern } from './sequence';
+export { PRESSURE_TOLERANCE, pressureOffTarget, type PressureOff } from './pressure-check';
 export { DEFAULT_FRACTIONS, passPlan, type PlannedPass } from './pass-plan';
 export {
   chooseWrench,

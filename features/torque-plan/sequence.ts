@@ -131,3 +131,12 @@ export function tighteningSequence(boltCount: number, pattern: Pattern, options:
       throw new TorquePlanError('The pattern must be cross, skip (with a step) or sequential.', 'pattern');
   }
 }
+
+/**
+ * The order to start the bolts by hand: the first bolt past the valve notch (`start`, default 1),
+ * then the one opposite, then the quarters — the cross pattern's spread (the published rows, else
+ * `spreadCross` for any N), so the ring is drawn down evenly. Every bolt appears exactly once.
+ */
+export function handStartOrder(boltCount: number, start = 1): number[] {
+  return tighteningSequence(boltCount, { kind: 'cross' }, { start });
+}
