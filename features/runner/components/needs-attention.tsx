@@ -3,6 +3,7 @@ import type { ClientEvent } from '../events';
 
 /** One line a technician recognises for an event: what they tapped. */
 function describe(e: ClientEvent): string {
+  // Kinds added later read as their name.
   switch (e.type) {
     case 'bolt_confirmed':
       return `Bolt ${e.payload.bolt}, pass ${e.payload.pass}`;
@@ -18,6 +19,8 @@ function describe(e: ClientEvent): string {
       return `Step: ${e.payload.step.replace('_', ' ')}`;
     case 'inspection_failed':
       return 'Inspection failed';
+    default:
+      return (e as { type: string }).type.replaceAll('_', ' ');
   }
 }
 
