@@ -90,8 +90,12 @@ test('a wheel run too fast: the lead sees it first on the review, sends the whee
   expect(waiting.text).toContain(`/jobs/${job.id}/review`);
 
   // The lead: the nav counts the job, the queue lists it, the review shows the anomaly first.
+  expect((await api<{ count: number }>(page, 'GET', '/api/signoff-queue')).count).toBe(1);
   await page.goto('/board');
-  await page.getByRole('link', { name: 'Sign-off, 1 waiting' }).click();
+  const nav = page.getByRole('navigation', { name: 'Main' });
+  await expect(nav.getByRole('link', { name: /^Sign-off/ })).toBeVisible();
+  await expect(nav.getByRole('link', { name: /^Sign-off/ })).toHaveAccessibleName(/^Sign-off ?\(1 waiting\)$/, { timeout: 10_000 });
+  await nav.getByRole('link', { name: /^Sign-off/ }).click();
   await expect(page.getByRole('heading', { name: 'Sign-off' })).toBeVisible();
   await page.getByRole('link', { name: `Job ${job.number} · Ada Offroad` }).click();
   const first = page.getByRole('list', { name: 'Anomalies' }).getByRole('listitem').first();
@@ -103,7 +107,7 @@ test('a wheel run too fast: the lead sees it first on the review, sends the whee
   await sendBack.getByLabel('What to redo on the LF wheel').fill('Redo every pass: pull each bolt to the click.');
   await sendBack.getByLabel('Torque passes').check();
   await sendBack.getByRole('button', { name: 'Send back' }).click();
-  await expect(page.getByRole('status')).toHaveText('Sent back to the technician.');
+  await expect(page.getByRole('status').filter({ hasText: 'Sent back by Rae Lead' })).toContainText('LF: Redo every pass: pull each bolt to the click.');
   const back = await waitForMail(E2E.sink.dir, techEmail);
   expect(back.subject).toBe(`Job ${job.number} was sent back: LF`);
   expect(back.text).toContain('LF wheel: Redo every pass: pull each bolt to the click. (redo: torque)');
@@ -123,7 +127,7 @@ test('a wheel run too fast: the lead sees it first on the review, sends the whee
   await expect(page.getByRole('alert').filter({ hasText: 'Acknowledge every anomaly that blocks sign-off with a reason first.' })).toBeVisible();
   for (const box of await approve.getByPlaceholder('Why this is acceptable (kept on the record)').all()) await box.fill('Watched the second run myself; every bolt clicked.');
   await approve.getByRole('button', { name: 'Sign off' }).click();
-  await expect(page.getByRole('status')).toHaveText('Signed off.');
+  await expect(page.getByRole('status').filter({ hasText: 'Signed off by Rae Lead' })).toContainText('Reason: Watched the second run myself; every bolt clicked.');
   await expect(page.getByRole('region', { name: 'Acknowledged at sign-off' })).toContainText('Reason: Watched the second run myself; every bolt clicked. — Rae Lead');
   await page.goto(`/jobs/${job.id}`);
   await expect(page.getByText('Signed off').first()).toBeVisible();

@@ -1,11 +1,11 @@
 'use client';
 
 import { NavLink } from '@/features/ui/nav-link';
-import { useSignoffQueue } from '../api/get-signoff-queue';
+import { useSignoffCount } from '../api/get-signoff-queue';
 
 /** "Sign-off" in the main nav with the number of job cards waiting, kept live by polling. */
 export function SignoffNavLink() {
-  const { data } = useSignoffQueue();
+  const { data } = useSignoffCount();
   const count = data?.count;
   return (
     <NavLink href="/signoff">
@@ -15,7 +15,7 @@ export function SignoffNavLink() {
           <span className="ml-1.5 inline-flex min-w-6 items-center justify-center rounded-full bg-white px-1.5 text-sm font-black text-work" aria-hidden>
             {count}
           </span>
-          <span className="sr-only">, {count} waiting</span>
+          <span className="sr-only"> ({count} waiting)</span>
         </>
       ) : null}
     </NavLink>

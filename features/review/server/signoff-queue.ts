@@ -21,8 +21,11 @@ export type SignoffQueue = { count: number; jobs: QueueEntry[] };
 /** A queue longer than this is a shop problem the board shows better; the count stays exact. */
 const QUEUE_LIMIT = 50;
 
-/** The shop's job cards awaiting sign-off, oldest first, each with its anomalies counted by severity. */
-export async function getSignoffQueue(shopId: string, sources: ReviewSources): Promise<SignoffQueue> {
+/**
+ * The shop's job cards awaiting sign-off, oldest first, each with its anomalies counted by severity.
+ * `countOnly`: just how many (the nav polls it), without computing every job's anomalies.
+ */
+export async function getSignoffQueue(shopId: string, sources: ReviewSources, { countOnly = false } = {}): Promise<SignoffQueue> {
   const db = getDb();
   const since = max(jobEvents.at);
   const rows = await db
@@ -46,6 +49,7 @@ export async function getSignoffQueue(shopId: string, sources: ReviewSources): P
     .where(and(eq(jobs.shopId, shopId), eq(jobs.state, 'awaiting_signoff')))
     .groupBy(jobs.id, customers.name, vehicles.id, users.name)
     .orderBy(asc(sql`coalesce(${since}, ${jobs.updatedAt})`), asc(jobs.number));
+  if (countOnly) return { count: rows.length, jobs: [] };
   const shown = rows.slice(0, QUEUE_LIMIT);
   const reviews = await Promise.all(shown.map((r) => getJobReview(shopId, r.id, sources)));
   return {

@@ -101,3 +101,13 @@ describe('a wheel run through the runner save path', () => {
     expect(data.anomalies.filter((a) => a.code === 'too_fast').map((a) => a.pass)).toEqual([1]);
   });
 });
+
+describe('GET /api/signoff-queue?only=count', () => {
+  it('answers the number alone for the nav, and refuses an unknown option', async () => {
+    const { shop } = await shopWithQueue();
+    const res = await QUEUE(apiRequest('/api/signoff-queue?only=count', { cookie: await cookieFor(shop.lead.userId) }), params({}));
+    expect(await res.json()).toEqual({ data: { count: 2, jobs: [] } });
+    const bad = await QUEUE(apiRequest('/api/signoff-queue?only=everything', { cookie: await cookieFor(shop.lead.userId) }), params({}));
+    expect(bad.status).toBe(400);
+  });
+});

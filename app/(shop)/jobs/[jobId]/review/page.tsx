@@ -10,6 +10,7 @@ import { blocking } from '@/features/review/anomalies';
 import { AcknowledgementList } from '@/features/review/components/acknowledgement-list';
 import { AnomalyList } from '@/features/review/components/anomaly-list';
 import { DecidePanel } from '@/features/review/components/decide-panel';
+import { LatestDecision } from '@/features/review/components/latest-decision';
 import { WheelReview } from '@/features/review/components/wheel-review';
 import { listAcknowledgements } from '@/features/review/server/decide';
 import { getJobReview } from '@/features/review/server/review-data';
@@ -52,6 +53,7 @@ export default async function ReviewPage({ params }: PageProps<'/jobs/[jobId]/re
           ))}
         </div>
         <aside className="flex flex-col gap-6">
+          <LatestDecision decision={job.events.findLast((e) => e.action === 'sign_off' || e.action === 'send_back') ?? null} />
           <DecidePanel
             jobId={review.job.id}
             refusal={refusal}
