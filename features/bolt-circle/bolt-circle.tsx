@@ -20,7 +20,15 @@ type Props = {
   label: string;
   /** Bolts to mark (a dashed ring and "out of order" in words), e.g. on a review of the order confirmed. */
   marked?: readonly number[];
+  /** Bolts with a problem flagged (stripped, snapped…): a red cross and "problem flagged" in words. */
+  flagged?: readonly number[];
 };
+
+/** Turn numbers drawn only for the next few bolts, so a turn is never read as a bolt number. */
+export const TURNS_SHOWN = 4;
+
+/** From this many bolts the circle's tap targets fall under 44 px on a 360 px phone: a list takes the taps. */
+export const LIST_FROM = 32;
 
 const R = 88;
 
@@ -29,14 +37,17 @@ const R = 88;
  * bolt says its state in words (screen readers), in shape (check, ring, number) and in colour.
  * Arrow keys move between bolts; Enter or Space selects one for correction or undo.
  */
-export function BoltCircle({ count, order, done, next = null, mode = 'pass', passLabel = 'this pass', selected = null, onSelect, label, marked }: Props) {
+export function BoltCircle({ count, order, done, next = null, mode = 'pass', passLabel = 'this pass', selected = null, onSelect, label, marked, flagged }: Props) {
   const doneSet = useMemo(() => new Set(done), [done]);
   const step = useMemo(() => new Map((order ?? []).map((b, i) => [b, i + 1])), [order]);
   const [focus, setFocus] = useState<number>(next ?? 1);
   const refs = useRef<(SVGGElement | null)[]>([]);
   const bolts = Array.from({ length: count }, (_, i) => i + 1);
   const size = count > 40 ? 7 : count > 24 ? 9 : 11;
-  const interactive = Boolean(onSelect);
+  // Big rings: bolts are drawn, not tapped; BoltList below the ring takes the taps.
+  const interactive = Boolean(onSelect) && count < LIST_FROM;
+  const nextTurn = next ? step.get(next) : undefined;
+  const turnShown = (n: number | undefined) => n !== undefined && nextTurn !== undefined && n >= nextTurn && n < nextTurn + TURNS_SHOWN;
 
   const stateOf = (b: number): BoltState =>
     mode === 'hand-start' ? (doneSet.has(b) ? 'started' : 'not-started') : doneSet.has(b) ? 'done' : b === next ? 'next' : 'pending';
@@ -77,6 +88,8 @@ export function BoltCircle({ count, order, done, next = null, mode = 'pass', pas
         const state = stateOf(b);
         const isDone = state === 'done' || state === 'started';
         const isNext = state === 'next';
+        // Hand-start: the suggested next bolt gets the highlight ring, its state stays in words.
+        const suggested = mode === 'hand-start' && b === next;
         const n = step.get(b);
         return (
           <g
@@ -85,7 +98,7 @@ export function BoltCircle({ count, order, done, next = null, mode = 'pass', pas
               refs.current[b] = el;
             }}
             role={interactive ? 'button' : 'img'}
-            aria-label={`${boltLabel(b, state, passLabel, n)}${marked?.includes(b) ? ', out of order' : ''}`}
+            aria-label={`${boltLabel(b, state, passLabel, n)}${marked?.includes(b) ? ', out of order' : ''}${suggested ? ', start this one next' : ''}${flagged?.includes(b) ? ', problem flagged' : ''}`}
             aria-pressed={interactive ? selected === b : undefined}
             tabIndex={interactive ? (b === focus ? 0 : -1) : undefined}
             onClick={interactive ? () => onSelect?.(b) : undefined}
@@ -95,15 +108,21 @@ export function BoltCircle({ count, order, done, next = null, mode = 'pass', pas
             data-state={state}
           >
             <circle className="focus" cx={x} cy={y} r={size + 5} fill="none" stroke={selected === b ? '#101317' : 'transparent'} strokeWidth={2.5} strokeDasharray={selected === b ? '3 2' : undefined} />
-            {isNext ? <circle cx={x} cy={y} r={size + 3} fill="none" stroke="#0a4f8a" strokeWidth={3} /> : null}
+            {isNext || suggested ? <circle cx={x} cy={y} r={size + 3} fill="none" stroke="#0a4f8a" strokeWidth={3} /> : null}
             {marked?.includes(b) ? <circle cx={x} cy={y} r={size + 4} fill="none" stroke="#b3261e" strokeWidth={3} strokeDasharray="4 2" data-marked /> : null}
             <circle cx={x} cy={y} r={size} fill={isDone ? '#1d6b36' : isNext ? '#0a4f8a' : '#ffffff'} stroke="#101317" strokeWidth={1.5} />
             {isDone ? (
               <path d={`M ${x - size / 2} ${y} l ${size / 3} ${size / 3} l ${size / 1.6} ${-size / 1.4}`} fill="none" stroke="#ffffff" strokeWidth={2} aria-hidden />
-            ) : n && mode !== 'hand-start' ? (
+            ) : n && mode !== 'hand-start' && (mode === 'preview' || turnShown(n)) ? (
               <text x={x} y={y} dy="0.35em" textAnchor="middle" fontSize={size * 0.95} fontWeight={700} fill={isNext ? '#ffffff' : '#101317'} aria-hidden>
                 {n}
               </text>
+            ) : null}
+            {flagged?.includes(b) ? (
+              <g data-flagged aria-hidden>
+                <circle cx={x} cy={y} r={size + 4} fill="none" stroke="#b3261e" strokeWidth={3.5} />
+                <path d={`M ${x - size} ${y - size} L ${x + size} ${y + size} M ${x + size} ${y - size} L ${x - size} ${y + size}`} stroke="#b3261e" strokeWidth={3} />
+              </g>
             ) : null}
             <text x={out.x} y={out.y} dy="0.35em" textAnchor="middle" fontSize={size * 0.8} fill="#3b424b" aria-hidden>
               {b}

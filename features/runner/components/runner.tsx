@@ -11,7 +11,10 @@ import type { CribWrench, WrenchRules } from '../wrench-gate';
 import { HandStartPanel } from './hand-start-panel';
 import { PhotoCapture, type Photo } from './photo-capture';
 import { NeedsAttention } from './needs-attention';
+import { ReinstallPanel } from './reinstall-panel';
 import { ReworkNote } from './rework-note';
+import { BoltCircle } from '@/features/bolt-circle/bolt-circle';
+import type { SpecWords } from './spec-words';
 import { StepPanel } from './step-panel';
 import { SummaryPanel } from './summary-panel';
 import { TorquePanel } from './torque-panel';
@@ -21,7 +24,16 @@ export type RunnerProps = {
   jobId: string;
   jobNumber: number;
   wheel: { id: string; position: WheelPosition; tireSize: string; directional: boolean; targetPressure: number; pressureUnit: PressureUnit };
-  spec: { name: string; maxBeadSeatPressure: number; pressureUnit: PressureUnit; lugTorque: string | null };
+  spec: {
+    name: string;
+    maxBeadSeatPressure: number;
+    pressureUnit: PressureUnit;
+    lugTorque: string | null;
+    /** The lug torque and lug count for re-install (the snapshot's), when the spec has them. */
+    lug?: { torque: Torque | null; count: number | null };
+    /** The spec's own words, shown at hand-start and with the first pass. */
+    words?: SpecWords;
+  };
   plan: RunnerPlan;
   targets: Torque[];
   wrenches: CribWrench[];
@@ -53,6 +65,7 @@ export function Runner(props: RunnerProps) {
   const wake = useWakeLock();
   const step = plan.steps.find((s) => s.id === state.current) ?? plan.steps.at(-1)!;
   const stepNo = plan.steps.indexOf(step) + 1;
+  const flaggedBolts = useMemo(() => state.flaggedBolts.map((f) => f.bolt), [state.flaggedBolts]);
 
   // The service worker keeps a copy of this page so it reloads without Wi-Fi.
   useEffect(() => {
@@ -103,9 +116,14 @@ export function Runner(props: RunnerProps) {
         {props.rework ? <ReworkNote note={props.rework.note} steps={props.rework.steps.map((id) => plan.steps.find((s) => s.id === id)?.title ?? id)} /> : null}
         {state.flagged ? (
           <div role="alert" className="rounded-xl border-4 border-danger bg-danger-tint p-4 text-danger">
-            <p className="text-xl font-black">Wheel stopped: inspection failed</p>
+            <p className="text-xl font-black">{flaggedBolts.length ? 'Wheel stopped: problem with a bolt' : 'Wheel stopped: inspection failed'}</p>
             <p>{state.flagged}</p>
             <p className="mt-2 font-semibold">A lead has been flagged; parts are needed before this wheel goes on.</p>
+            {flaggedBolts.length ? (
+              <div className="mt-3 bg-white">
+                <BoltCircle count={plan.boltCount} done={[]} mode="preview" flagged={flaggedBolts} label={`Bolt circle: bolt ${flaggedBolts.join(', ')} flagged`} />
+              </div>
+            ) : null}
           </div>
         ) : (
           <>
@@ -114,11 +132,13 @@ export function Runner(props: RunnerProps) {
               {step.title}
             </h1>
             {step.id === 'hand_start' ? (
-              <HandStartPanel boltCount={plan.boltCount} started={state.handStarted} cautions={step.cautions} record={record} />
+              <HandStartPanel boltCount={plan.boltCount} started={state.handStarted} next={state.nextHandStart} cautions={step.cautions} record={record} specWords={props.spec.words} flaggedBolts={flaggedBolts} />
             ) : step.id === 'torque' ? (
-              <TorquePanel state={state} targets={props.targets} wrenches={props.wrenches} verifications={props.verifications} rules={props.rules} cautions={step.cautions} boltCount={plan.boltCount} record={record} />
+              <TorquePanel state={state} targets={props.targets} wrenches={props.wrenches} verifications={props.verifications} rules={props.rules} cautions={step.cautions} boltCount={plan.boltCount} record={record} specWords={props.spec.words} flaggedBolts={flaggedBolts} />
             ) : step.id === 'submit' ? (
               <SummaryPanel wheelId={wheel.id} plan={plan} state={state} targets={props.targets} wrenches={props.wrenches} minFractionOfMax={props.rules.minFractionOfMax} photoKinds={photoKinds} />
+            ) : step.id === 'reinstall' ? (
+              <ReinstallPanel step={step} record={record} lug={props.spec.lug ?? { torque: null, count: null }} wrenches={props.wrenches} verifications={props.verifications} rules={props.rules} />
             ) : (
               <StepPanel
                 key={step.id}
@@ -126,14 +146,13 @@ export function Runner(props: RunnerProps) {
                 record={record}
                 limit={step.id === 'seat_bead' ? { value: props.spec.maxBeadSeatPressure, unit: props.spec.pressureUnit } : undefined}
                 readingUnit={wheel.pressureUnit}
+                target={step.id === 'leak_check' ? { value: wheel.targetPressure, unit: wheel.pressureUnit } : undefined}
                 blocked={step.id === 'seat_bead' && !(photoKinds.includes('bead_outer') && photoKinds.includes('bead_inner')) ? 'Add both bead photos first.' : undefined}
                 extra={
                   step.id === 'mount' && wheel.directional ? (
                     <p className="rounded-xl border-2 border-work bg-work-tint p-3 text-lg font-bold text-work-dark">{arrowDirection(wheel.position).instruction}</p>
                   ) : step.id === 'leak_check' ? (
                     <p className="text-lg">Target pressure: <strong>{wheel.targetPressure} {wheel.pressureUnit}</strong></p>
-                  ) : step.id === 'reinstall' && props.spec.lugTorque ? (
-                    <p className="text-lg">Lug-nut torque: <strong>{props.spec.lugTorque}</strong></p>
                   ) : step.id === 'seat_bead' ? (
                     <PhotoCapture wheelId={wheel.id} photos={photos} onAdded={(p) => setPhotos((all) => [...all, p])} />
                   ) : null

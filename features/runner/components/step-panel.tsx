@@ -1,7 +1,7 @@
 'use client';
 
 import { useState } from 'react';
-import { convertPressure, PRESSURE_UNITS, UNIT_LABELS, type PressureUnit } from '@/features/torque-plan';
+import { convertPressure, pressureOffTarget, PRESSURE_UNITS, UNIT_LABELS, type PressureUnit } from '@/features/torque-plan';
 import { UnitOptions } from '@/features/ui/unit-options';
 import type { RunEvent } from '../events';
 import type { Step } from '../steps';
@@ -20,6 +20,8 @@ export function StepPanel({
   limit,
   readingUnit,
   blocked,
+  target,
+  extraChecked = [],
 }: {
   step: Step;
   record: (e: RunEvent) => Promise<void>;
@@ -30,6 +32,10 @@ export function StepPanel({
   readingUnit: PressureUnit;
   /** Why "Step done" must wait (e.g. photos still missing). */
   blocked?: string;
+  /** The wheel's target pressure: a reading further off than the tolerance asks for a re-check. */
+  target?: { value: number; unit: PressureUnit };
+  /** Items recorded with the checklist that the step's own controls supply (e.g. a lug torque typed from the vehicle's manual). */
+  extraChecked?: string[];
 }) {
   const [ticked, setTicked] = useState<string[]>([]);
   const [value, setValue] = useState('');
@@ -40,7 +46,11 @@ export function StepPanel({
   const reading = value.trim() ? Number(value.replace(',', '.')) : null;
   const overLimit = reading !== null && limit ? convertPressure(reading, unit, limit.unit) > limit.value + 1e-9 : false;
   const readingOk = !step.measurement || (reading !== null && Number.isFinite(reading) && reading > 0 && !overLimit);
-  const ready = ticked.length === step.checklist.length && readingOk && !blocked;
+  const off = target && reading !== null && Number.isFinite(reading) && reading > 0 ? pressureOffTarget({ value: reading, unit }, target) : null;
+  const [rechecked, setRechecked] = useState(false);
+  // The limit in the unit being typed, so nobody converts in their head at the gauge.
+  const limitHere = limit ? `${Number(convertPressure(limit.value, limit.unit, unit).toFixed(unit === 'bar' ? 2 : 1))} ${UNIT_LABELS[unit]}` : null;
+  const ready = ticked.length === step.checklist.length && readingOk && !blocked && (!off || rechecked);
 
   return (
     <div className="flex flex-col gap-4">
@@ -75,20 +85,32 @@ export function StepPanel({
           </div>
           <p id={`${step.id}-reading-note`} className={overLimit ? 'font-bold text-danger' : 'text-sm text-ink-soft'} role={overLimit ? 'alert' : undefined}>
             {overLimit
-              ? `Above the tire's maximum bead-seating pressure (${limit!.value} ${UNIT_LABELS[limit!.unit]}). Stop, deflate and find the cause.`
+              ? `Above the tire's maximum bead-seating pressure (${limitHere}). Stop, let the air out and find out why.`
               : reading && Number.isFinite(reading)
                 ? PRESSURE_UNITS.filter((u) => u !== unit).map((u) => `${Number(convertPressure(reading, unit, u).toFixed(2))} ${UNIT_LABELS[u]}`).join(' · ')
                 : limit
-                  ? `At most ${limit.value} ${UNIT_LABELS[limit.unit]}.`
+                  ? `At most ${limitHere}.`
                   : ' '}
           </p>
+          {limit && reading && Number.isFinite(reading) && !overLimit ? <p className="text-sm text-ink-soft">At most {limitHere}.</p> : null}
+          {off ? (
+            <div role="alert" className="flex flex-col gap-2 rounded-xl border-2 border-caution bg-caution-tint p-3 text-caution-ink">
+              <p className="font-bold">
+                {target!.unit === 'psi' ? `${Math.abs(off.psi).toFixed(1)} psi` : `${Math.abs(off.kPa).toFixed(0)} kPa`} {off.psi > 0 ? 'over' : 'under'} the wheel&apos;s target ({target!.value} {UNIT_LABELS[target!.unit]}). Adjust, then check the pressure again with the gauge.
+              </p>
+              <label className="flex min-h-14 items-center gap-3 text-lg">
+                <input type="checkbox" className="size-8 shrink-0" checked={rechecked} onChange={(e) => setRechecked(e.target.checked)} />
+                Re-checked: this is the pressure now.
+              </label>
+            </div>
+          ) : null}
         </div>
       ) : null}
       {blocked ? <p className="font-semibold text-danger">{blocked}</p> : null}
       <button
         type="button"
         disabled={!ready}
-        onClick={() => void record({ type: 'step_done', payload: { step: step.id, checklist: ticked, ...(step.measurement && reading ? { measurement: { value: reading, unit } } : {}) } })}
+        onClick={() => void record({ type: 'step_done', payload: { step: step.id, checklist: [...ticked, ...extraChecked], ...(step.measurement && reading ? { measurement: { value: reading, unit } } : {}) } })}
         className={`${big} bg-work text-white disabled:bg-paper-line disabled:text-ink-soft`}
       >
         Step done

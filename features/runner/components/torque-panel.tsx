@@ -1,14 +1,19 @@
 'use client';
 
-import { useEffect, useMemo, useState } from 'react';
-import { BoltCircle } from '@/features/bolt-circle/bolt-circle';
+import { useEffect, useMemo, useRef, useState } from 'react';
+import { BoltCircle, LIST_FROM } from '@/features/bolt-circle/bolt-circle';
+import { BoltList } from '@/features/bolt-circle/bolt-list';
 import { formatTorque, UNIT_LABELS, type RecordedVerification, type Torque } from '@/features/torque-plan';
+import { tapCounts } from '../double-tap';
 import type { RunEvent } from '../events';
-import type { RunnerState } from '../state';
+import type { PassProgress, RunnerState } from '../state';
 import { useRunnerSettings } from '../settings-store';
 import { passWrench, type CribWrench, type WrenchRules } from '../wrench-gate';
+import { BoltProblemForm } from './bolt-problem';
 import { Caution } from './caution';
 import { RingLayout, ringButtonClass } from './ring-layout';
+import { SettingCard } from './setting-card';
+import { SpecWordsBox, type SpecWords } from './spec-words';
 import { VerifyInline } from './verify-inline';
 
 const big = 'min-h-16 w-full rounded-xl px-4 text-lg font-bold';
@@ -21,9 +26,24 @@ function cue(text: string, speak: boolean, vibrate: boolean) {
   }
 }
 
+/** What the big button says: a click wrench clicks; a beam, dial or digital wrench is read until it reaches the setting. */
+export function confirmWord(kind: CribWrench['kind'] | undefined): 'Clicked' | 'Reached' {
+  return kind === 'click' || kind === undefined ? 'Clicked' : 'Reached';
+}
+
+/** "Pass 2 of 3" or "Check pass" (then "Check pass 2" for each one a turned bolt added). */
+export function passName(pass: PassProgress, passes: readonly PassProgress[]): string {
+  if (pass.kind === 'check') {
+    const n = passes.filter((p) => p.kind === 'check' && p.index <= pass.index).length;
+    return n > 1 ? `Check pass ${n}` : 'Check pass';
+  }
+  return `Pass ${pass.index} of ${passes.filter((p) => p.kind === 'staged').length}`;
+}
+
 /**
- * One pass at a time: the target, the wrench and its setting in the wrench's own units, the
- * bolt circle, and one big "clicked" button that confirms the highlighted bolt.
+ * One pass at a time. A full-width card says which wrench to set to what, and must be
+ * acknowledged before the first bolt; then the ring, the setting in a line that stays in view,
+ * and one big button for the highlighted bolt (two on a check pass: it turned, or it did not).
  */
 export function TorquePanel({
   state,
@@ -34,6 +54,8 @@ export function TorquePanel({
   cautions,
   boltCount,
   record,
+  specWords,
+  flaggedBolts = [],
 }: {
   state: RunnerState;
   targets: Torque[];
@@ -43,21 +65,27 @@ export function TorquePanel({
   cautions: string[];
   boltCount: number;
   record: (e: RunEvent) => Promise<void>;
+  /** The spec's own words, shown with the first pass's setting. */
+  specWords?: SpecWords;
+  flaggedBolts?: readonly number[];
 }) {
   const { speak, vibrate } = useRunnerSettings();
   // Verifications recorded on this phone since the page loaded, judged like the server's.
   const [fresh, setFresh] = useState<RecordedVerification[]>([]);
   const [failed, setFailed] = useState<string[]>([]);
   const [selected, setSelected] = useState<number | null>(null);
+  // Settings acknowledged on this phone ("Wrench set"): pass, wrench and setting. Device-only:
+  // after a reload the card shows again, which costs one tap and misses nothing.
+  const [acked, setAcked] = useState<string[]>([]);
+  const [problem, setProblem] = useState(false);
+  const lastTap = useRef<number | null>(null);
   const index = state.currentPass;
-  const pass = index ? state.passes[index - 1]! : null;
-  const target = index ? targets[index - 1]! : null;
+  const pass = index ? (state.passes[index - 1] ?? null) : null;
+  // A check pass added because a bolt turned is at the final target, like the plan's last pass.
+  const target = index ? (targets[index - 1] ?? targets.at(-1) ?? null) : null;
   const allVerifications = useMemo(() => [...fresh, ...verifications], [fresh, verifications]);
-  const gate = target
-    ? passWrench({ target, wrenches, failed, chosenId: pass?.wrenchId, rules, verifications: allVerifications, now: new Date() })
-    : null;
+  const gate = target ? passWrench({ target, wrenches, failed, chosenId: pass?.wrenchId, rules, verifications: allVerifications, now: new Date() }) : null;
   const { best = null, suitable = [], wrench = null, choice = null, verification = null } = gate ?? {};
-  const wrenchId = wrench?.id ?? null;
 
   useEffect(() => {
     if (pass?.next && speak) cue(`Bolt ${pass.next}`, speak, false);
@@ -66,94 +94,100 @@ export function TorquePanel({
   if (!pass || !target) {
     return (
       <div className="flex flex-col gap-4">
-        <p className="border-ok bg-ok-tint text-ok rounded-xl border-2 p-4 text-lg font-bold">
-          Every pass is done, check pass included.
-        </p>
-        <button
-          type="button"
-          onClick={() =>
-            void record({ type: 'step_done', payload: { step: 'torque', checklist: [] } })
-          }
-          className={`${big} bg-work text-white`}
-        >
+        <p className="rounded-xl border-2 border-ok bg-ok-tint p-4 text-lg font-bold text-ok">Every pass is done, check pass included.</p>
+        <button type="button" onClick={() => void record({ type: 'step_done', payload: { step: 'torque', checklist: [] } })} className={`${big} bg-work text-white`}>
           Torque passes done
         </button>
       </div>
     );
   }
 
-  const label = pass.kind === 'check' ? 'check pass' : `pass ${pass.index}`;
-  const confirm = (bolt: number) => {
+  const name = passName(pass, state.passes);
+  const label = pass.kind === 'check' ? name.toLowerCase() : `pass ${pass.index}`;
+  const settingText = choice?.ok ? `${choice.setting.value} ${UNIT_LABELS[choice.setting.unit]}` : null;
+  const ackKey = wrench && choice?.ok ? `${pass.index}|${wrench.id}|${choice.setting.value}|${choice.setting.unit}` : null;
+  const word = confirmWord(wrench?.kind);
+  const big32 = boltCount >= LIST_FROM;
+
+  // `at`: the tap's own time stamp (the event's), so two taps are compared on one clock.
+  const confirm = (at: number, bolt: number, turned?: boolean) => {
+    const now = at;
+    if (!tapCounts(lastTap.current, now)) return;
+    lastTap.current = now;
     // What was used, as shown at this moment: the wrench and its setting travel with the bolt.
     const used = wrench && choice?.ok ? { wrenchId: wrench.id, setting: choice.setting } : {};
-    void record({ type: 'bolt_confirmed', payload: { pass: pass.index, bolt, ...used } });
+    void record({ type: 'bolt_confirmed', payload: { pass: pass.index, bolt, ...used, ...(turned === undefined ? {} : { turned }) } });
     cue(`Bolt ${bolt} done`, false, vibrate);
     setSelected(null);
   };
+  // The last bolt confirmed: in this pass, or the pass before when this one has none yet.
+  const previous = state.passes[pass.index - 2];
+  const last = pass.confirmed.length ? { pass: pass.index, bolt: pass.confirmed.at(-1)! } : previous?.confirmed.length ? { pass: previous.index, bolt: previous.confirmed.at(-1)! } : null;
 
-  return (
-    <div className="flex flex-col gap-4">
-      <Caution items={cautions} />
-      <section aria-label="This pass" className="border-ink rounded-xl border-2 p-3">
+  if (problem) {
+    return <BoltProblemForm bolt={selected ?? pass.next ?? 1} pass={pass.index} record={record} onCancel={() => setProblem(false)} />;
+  }
+
+  if (!wrench || !choice?.ok || !settingText) {
+    return (
+      <div className="flex flex-col gap-4">
         <p className="text-lg font-bold">
-          {pass.kind === 'check'
-            ? 'Check pass'
-            : `Pass ${pass.index} of ${state.passes.filter((p) => p.kind === 'staged').length}`}
-          : {formatTorque(target, 2)}
+          {name}: {formatTorque(target, 2)}
         </p>
-        {choice?.ok ? (
-          <p className="text-2xl font-black">
-            Set {wrench!.label} to {choice.setting.value} {UNIT_LABELS[choice.setting.unit]}
-          </p>
-        ) : (
-          <p role="alert" className="text-danger font-bold">
-            {best && !best.ok ? best.reason : 'No in-service wrench suits this pass.'}
-          </p>
-        )}
-        {choice?.ok
-          ? choice.warnings.map((w) => (
-              <p key={w} className="text-caution-ink mt-1 font-semibold">
-                ⚠ {w}
-              </p>
-            ))
-          : null}
-        {suitable.length > 1 ? (
-          <label className="mt-2 flex flex-col gap-1 font-semibold">
-            Wrench
-            <select
-              value={wrenchId ?? ''}
-              onChange={(e) =>
-                void record({
-                  type: 'wrench_chosen',
-                  payload: { pass: pass.index, wrenchId: e.target.value },
-                })
-              }
-              className="border-ink-soft min-h-14 rounded-xl border-2 px-2 text-lg"
-            >
-              {suitable.map((w) => (
-                <option key={w.id} value={w.id}>
-                  {w.label}
-                  {w.id === (best?.ok ? best.wrenchId : '') ? ' (suggested)' : ''}
-                </option>
-              ))}
-            </select>
-          </label>
-        ) : null}
-      </section>
-      {wrench && choice?.ok && verification && !verification.counts ? (
+        <p role="alert" className="font-bold text-danger">
+          {best && !best.ok ? best.reason : 'No in-service wrench suits this pass.'}
+        </p>
+      </div>
+    );
+  }
+
+  if (verification && !verification.counts) {
+    return (
+      <div className="flex flex-col gap-4">
+        <p className="text-lg font-bold">
+          {name}: {formatTorque(target, 2)} · {wrench.label} at {settingText}
+        </p>
         <VerifyInline
           wrench={wrench}
           setting={choice.setting}
           why={verification.reason}
-          onResult={(recorded) =>
-            recorded.withinTolerance
-              ? setFresh((v) => [recorded, ...v])
-              : setFailed((f) => [...f, wrench.id])
-          }
+          onResult={(recorded) => (recorded.withinTolerance ? setFresh((v) => [recorded, ...v]) : setFailed((f) => [...f, wrench.id]))}
         />
-      ) : wrench && choice?.ok ? (
-        <RingLayout
-          ring={
+      </div>
+    );
+  }
+
+  if (ackKey && !acked.includes(ackKey)) {
+    return (
+      <div className="flex flex-col gap-4">
+        <SettingCard passName={`${name}: ${formatTorque(target, 2)}`} wrench={wrench.label} setting={settingText} warnings={choice.warnings} onSet={() => setAcked((a) => [...a, ackKey])}>
+          {suitable.length > 1 ? (
+            <label className="flex flex-col gap-1 font-semibold">
+              Wrench
+              <select value={wrench.id} onChange={(e) => void record({ type: 'wrench_chosen', payload: { pass: pass.index, wrenchId: e.target.value } })} className="min-h-14 rounded-xl border-2 border-ink-soft bg-white px-2 text-lg">
+                {suitable.map((w) => (
+                  <option key={w.id} value={w.id}>
+                    {w.label}
+                    {w.id === (best?.ok ? best.wrenchId : '') ? ' (suggested)' : ''}
+                  </option>
+                ))}
+              </select>
+            </label>
+          ) : null}
+        </SettingCard>
+        {pass.index === 1 ? <SpecWordsBox words={specWords} /> : null}
+        <Caution items={cautions} />
+      </div>
+    );
+  }
+
+  const other = selected && selected !== pass.next ? selected : null;
+  const question = word === 'Clicked' ? 'did it turn before the wrench clicked?' : 'did it turn before the wrench reached the setting?';
+  return (
+    <div className="flex flex-col gap-3">
+      <RingLayout
+        ring={
+          <div className="mx-auto w-full max-w-[min(100%,calc(100dvh-21rem))] landscape:max-w-none">
             <BoltCircle
               count={boltCount}
               order={pass.order}
@@ -162,51 +196,84 @@ export function TorquePanel({
               passLabel={label}
               selected={selected}
               onSelect={setSelected}
+              flagged={flaggedBolts}
               label={`Bolt circle, ${label}: ${pass.confirmed.length} of ${boltCount} done`}
             />
-          }
-        >
-          <p aria-live="polite" className="text-center text-lg">
-            {pass.confirmed.length} of {boltCount} bolts · next: bolt {pass.next}
-          </p>
-          <p className="text-ink-soft text-center text-sm">
-            Number inside a bolt: its turn in this pass. Number outside: the bolt. Tap a bolt to
-            undo or correct it.
-          </p>
-          {selected && selected !== pass.next ? (
-            pass.confirmed.includes(selected) ? (
-              <button
-                type="button"
-                onClick={() => {
-                  void record({
-                    type: 'bolt_undone',
-                    payload: { pass: pass.index, bolt: selected },
-                  });
-                  setSelected(null);
-                }}
-                className={`${big} border-ink border-2`}
-              >
-                Undo bolt {selected}
+          </div>
+        }
+      >
+        <p aria-live="polite" className="text-center text-lg">
+          {pass.confirmed.length} of {boltCount} bolts · next: bolt {pass.next}
+        </p>
+        {big32 ? <BoltList count={boltCount} done={pass.confirmed} next={pass.next} selected={selected} flagged={flaggedBolts} onSelect={setSelected} /> : null}
+        <p className="text-center text-sm text-ink-soft">Number beside the ring: the bolt. Number inside a bolt: its turn, shown for the next few. Tap a bolt to undo or correct it.</p>
+        {other ? (
+          pass.confirmed.includes(other) ? (
+            <button
+              type="button"
+              onClick={() => {
+                void record({ type: 'bolt_undone', payload: { pass: pass.index, bolt: other } });
+                setSelected(null);
+              }}
+              className={`${big} border-2 border-ink`}
+            >
+              Undo bolt {other}
+            </button>
+          ) : pass.kind === 'check' ? (
+            <div className="grid grid-cols-2 gap-2">
+              <button type="button" onClick={(e) => confirm(e.timeStamp, other, true)} className={`${big} border-4 border-caution bg-caution-tint text-caution-ink`}>
+                Bolt {other}, out of sequence: turned
               </button>
-            ) : (
-              <button
-                type="button"
-                onClick={() => confirm(selected)}
-                className={`${big} border-caution bg-caution-tint text-caution-ink border-4`}
-              >
-                Bolt {selected} is out of sequence: confirm it anyway
+              <button type="button" onClick={(e) => confirm(e.timeStamp, other, false)} className={`${big} border-4 border-caution bg-caution-tint text-caution-ink`}>
+                Bolt {other}, out of sequence: didn&apos;t turn
               </button>
-            )
-          ) : null}
-          <button
-            type="button"
-            onClick={() => pass.next && confirm(pass.next)}
-            className={ringButtonClass}
-          >
-            Clicked — bolt {pass.next}
-          </button>
-        </RingLayout>
-      ) : null}
+            </div>
+          ) : (
+            <button type="button" onClick={(e) => confirm(e.timeStamp, other)} className={`${big} border-4 border-caution bg-caution-tint text-caution-ink`}>
+              Bolt {other} is out of sequence: confirm it anyway
+            </button>
+          )
+        ) : null}
+        {/* Sticky in portrait: the setting and the button stay in view however far the page scrolls. */}
+        <div className="z-10 flex flex-col gap-2 border-t-2 border-paper-line bg-paper pt-2 pb-1 portrait:sticky portrait:bottom-0">
+          <p aria-label="Current setting" className="rounded-lg bg-work-tint px-2 py-1 text-center text-lg font-black text-work-dark">
+            {name} · Set {wrench.label} to {settingText}
+          </p>
+          {pass.kind === 'check' && pass.next ? (
+            <>
+              <p className="text-center text-lg font-bold">
+                Bolt {pass.next}: {question}
+              </p>
+              <div className="grid grid-cols-2 gap-2">
+                <button type="button" onClick={(e) => confirm(e.timeStamp, pass.next!, true)} className={`${ringButtonClass} bg-caution! text-caution-ink!`}>
+                  Turned
+                </button>
+                <button type="button" onClick={(e) => confirm(e.timeStamp, pass.next!, false)} className={ringButtonClass}>
+                  Didn&apos;t turn
+                </button>
+              </div>
+            </>
+          ) : (
+            <button type="button" onClick={(e) => pass.next && confirm(e.timeStamp, pass.next)} className={ringButtonClass}>
+              {word} — bolt {pass.next}
+            </button>
+          )}
+          <div className="grid grid-cols-2 gap-2">
+            <button
+              type="button"
+              disabled={!last}
+              onClick={() => last && void record({ type: 'bolt_undone', payload: last })}
+              className="min-h-14 rounded-xl border-2 border-ink px-2 font-bold disabled:opacity-40"
+            >
+              Undo last bolt{last ? ` (${last.bolt})` : ''}
+            </button>
+            <button type="button" onClick={() => setProblem(true)} className="min-h-14 rounded-xl border-2 border-danger px-2 font-bold text-danger">
+              Problem with this bolt
+            </button>
+          </div>
+        </div>
+      </RingLayout>
+      <Caution items={cautions} />
     </div>
   );
 }

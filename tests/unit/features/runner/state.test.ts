@@ -25,7 +25,7 @@ describe('reduceRun', () => {
   it('walks the steps in order and follows each pass’s sequence', () => {
     const events = [ev({ type: 'step_done', payload: { step: 'safety', checklist: [] } }), confirm(1, 1), confirm(1, 5)];
     const s = reduceRun(plan, events);
-    expect(s.current).toBe('inspect');
+    expect(s.current).toBe('clean'); // cleaning and deburring come before the inspection
     expect(s.passes[0]).toMatchObject({ confirmed: [1, 5], next: 3, complete: false });
     expect(s.currentPass).toBe(1);
     expect(s.anomalies).toEqual([]);

@@ -49,7 +49,7 @@ export default async function RunPage({ params }: PageProps<'/jobs/[jobId]/wheel
       jobId={ctx.job.id}
       jobNumber={ctx.job.number}
       wheel={{ id: wheel.id, position: wheel.position, tireSize: wheel.tireSize, directional: wheel.directional, targetPressure: wheel.targetPressure, pressureUnit: wheel.pressureUnit }}
-      spec={{ name: snap.spec.name, maxBeadSeatPressure: snap.spec.maxBeadSeatPressure.value, pressureUnit: snap.spec.maxBeadSeatPressure.unit, lugTorque: snap.spec.lugTorque ? formatTorque(snap.spec.lugTorque, 1) : null }}
+      spec={{ name: snap.spec.name, maxBeadSeatPressure: snap.spec.maxBeadSeatPressure.value, pressureUnit: snap.spec.maxBeadSeatPressure.unit, lugTorque: snap.spec.lugTorque ? formatTorque(snap.spec.lugTorque, 1) : null, lug: { torque: snap.spec.lugTorque, count: snap.spec.lugCount }, words: { makerReference: snap.spec.makerReference, notes: ctx.spec.notes } }}
       plan={planFor(ctx)}
       targets={targets}
       wrenches={wrenches}

@@ -1,0 +1,25 @@
+import type { ReactNode } from 'react';
+
+/**
+ * The wrench setting nobody can miss: full width at the start of a pass and whenever the wrench
+ * or its setting changes, acknowledged with "Wrench set" before the first bolt of the pass.
+ */
+export function SettingCard({ passName, wrench, setting, warnings, onSet, children }: { passName: string; wrench: string; setting: string; warnings: string[]; onSet: () => void; children?: ReactNode }) {
+  return (
+    <section aria-label="Wrench setting" className="flex flex-col gap-3 rounded-2xl border-4 border-work bg-work-tint p-4">
+      <p className="text-lg font-bold text-work-dark">{passName}</p>
+      <p className="text-3xl leading-tight font-black">
+        Set {wrench} to {setting}
+      </p>
+      {warnings.map((w) => (
+        <p key={w} className="font-semibold text-caution-ink">
+          ⚠ {w}
+        </p>
+      ))}
+      {children}
+      <button type="button" onClick={onSet} className="min-h-24 w-full rounded-2xl bg-work px-4 text-2xl font-black text-white active:bg-work-dark">
+        Wrench set
+      </button>
+    </section>
+  );
+}
