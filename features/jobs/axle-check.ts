@@ -50,3 +50,22 @@ export function axleWarnings(wheels: WheelLike[]): string[] {
   }
   return warnings;
 }
+
+/**
+ * Warnings at intake that do not stop the save: an axle with only one of its wheels on the job
+ * card. Both tires of an axle are replaced together, since different rolling diameters strain the
+ * differential (common practice, no source); a one-wheel job may still be right (a puncture on a
+ * nearly new pair), so the person decides.
+ */
+export function intakeWarnings(wheels: readonly { position: string }[]): string[] {
+  const on = new Set(wheels.map((w) => w.position));
+  const warnings: string[] = [];
+  for (const [axle, left, right] of [['Front', 'LF', 'RF'], ['Rear', 'LR', 'RR']] as const) {
+    if (on.has(left) === on.has(right)) continue;
+    const [has, missing] = on.has(left) ? [left, right] : [right, left];
+    warnings.push(
+      `${axle} axle: only ${has} is on this job card, not ${missing}. Both tires of an axle are normally replaced together; different rolling diameters strain the differential.`,
+    );
+  }
+  return warnings;
+}

@@ -37,6 +37,13 @@ export function JobDetails({ job, canRun = false, photos = {} }: { job: JobCard;
           </>
         ) : null}
       </dl>
+      {job.warnings?.length ? (
+        <div role="status" className="rounded-lg border-l-8 border-caution bg-caution-tint p-3 text-caution-ink">
+          {job.warnings.map((w) => (
+            <p key={w}>{w}</p>
+          ))}
+        </div>
+      ) : null}
       <section aria-labelledby="wheels-heading">
         <h2 id="wheels-heading" className="mb-2 text-xl font-bold">Wheels</h2>
         <ul className="grid gap-3 sm:grid-cols-2">
@@ -69,7 +76,7 @@ export function JobDetails({ job, canRun = false, photos = {} }: { job: JobCard;
               ) : null}
               {w.flaggedReason ? (
                 <p role="alert" className="mt-1 rounded border-l-4 border-danger bg-danger-tint p-2 font-semibold text-danger">
-                  ■ Inspection failed, parts needed: {w.flaggedReason}
+                  ■ Stopped for a lead (a failed inspection or a bolt problem): {w.flaggedReason}
                 </p>
               ) : null}
               {canRun && !w.submittedAt && (job.state === 'open' || job.state === 'in_progress' || job.state === 'sent_back') ? (

@@ -10,7 +10,7 @@ import { zoneLabel } from '@/features/ui/shop-time';
 import { useShopTime } from '@/features/ui/shop-time-zone';
 import { useFormAction } from '@/features/ui/use-form-action';
 import { createJobCard } from '../actions/job-actions';
-import { axleWarnings } from '../axle-check';
+import { axleWarnings, intakeWarnings } from '../axle-check';
 import type { Customer, Vehicle } from '../server/customers';
 import { WheelRows, type SpecOption, type WheelDraft } from './wheel-rows';
 
@@ -38,6 +38,7 @@ export function JobForm({ customers, vehicles, specs, assignees, canAcceptVin, p
   const [vehicleId, setVehicleId] = useState('');
   const [wheels, setWheels] = useState<WheelDraft[]>([]);
   const warnings = useMemo(() => axleWarnings(wheels.filter((w) => w.tireSize.trim())), [wheels]);
+  const axleNotes = useMemo(() => intakeWarnings(wheels), [wheels]);
   const useExistingVehicle = customerMode === 'existing' && vehicleMode === 'existing' && ownVehicles.length > 0;
 
   function submit(e: React.FormEvent<HTMLFormElement>) {
@@ -112,6 +113,15 @@ export function JobForm({ customers, vehicles, specs, assignees, canAcceptVin, p
             <p key={w}>{w}</p>
           ))}
           <CheckboxField label="Save anyway (the vehicle maker allows it)" name="acceptAxleMismatch" />
+        </div>
+      ) : null}
+      {axleNotes.length ? (
+        <div role="status" className="flex flex-col gap-2 rounded-lg border-l-8 border-caution bg-caution-tint p-3 text-caution-ink">
+          <p className="font-bold">One wheel of an axle</p>
+          {axleNotes.map((w) => (
+            <p key={w}>{w}</p>
+          ))}
+          <p>The job card can still be saved; check with the customer.</p>
         </div>
       ) : null}
       <fieldset className="flex flex-col gap-3">

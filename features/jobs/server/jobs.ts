@@ -5,7 +5,7 @@ import { jobEvents, jobs, jobWheels, users, wheelSpecs } from '@/db/schema';
 import { can } from '@/server/auth/permissions';
 import type { Member } from '@/server/auth/session';
 import { DomainError, notFound } from '@/server/errors';
-import { axleWarnings, tireSizeErrors } from '../axle-check';
+import { axleWarnings, intakeWarnings, tireSizeErrors } from '../axle-check';
 import type { JobInput, JobStateName, WheelInput } from '../schemas';
 import { createCustomer, createVehicle, getCustomer, getVehicle, vehicleLabel, type Customer, type Vehicle } from './customers';
 
@@ -27,6 +27,8 @@ export type JobCard = {
   wheels: JobWheel[];
   /** `selfSignoff`: a lead signed off their own work under the single-lead setting; `note` is their reason. `wheels`: a send-back's wheels with their notes. */
   events: { action: string; fromState: JobStateName | null; toState: JobStateName; by: string; note: string; selfSignoff: boolean; wheels: { wheelId: string; note: string; steps: string[] }[] | null; at: string }[];
+  /** Intake warnings that do not stop the work (an axle with one wheel on the card); see `intakeWarnings`. */
+  warnings: string[];
 };
 
 const wheelColumns = {
@@ -165,6 +167,7 @@ export async function getJob(shopId: string, jobId: string): Promise<JobCard> {
     updatedAt: job.updatedAt.toISOString(),
     wheels: wheels.map(wheelDto).sort((a, b) => order.indexOf(a.position) - order.indexOf(b.position)),
     events: events.map((e) => ({ ...e, at: e.at.toISOString() })),
+    warnings: intakeWarnings(wheels),
   };
 }
 
