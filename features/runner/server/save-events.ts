@@ -1,11 +1,12 @@
 import 'server-only';
-import { and, eq, inArray, sql } from 'drizzle-orm';
+import { and, eq, inArray, isNull, sql } from 'drizzle-orm';
 import { getDb } from '@/db';
-import { jobs, jobWheels, refusedRunEvents, wheelRunEvents, wheelSpecs, type WheelSnapshot } from '@/db/schema';
+import { jobs, jobWheels, refusedRunEvents, wheelRunEvents, wheelSpecs, wrenches, type WheelSnapshot } from '@/db/schema';
 import type { Member } from '@/server/auth/session';
 import { DomainError } from '@/server/errors';
 import { clampClientAt } from '../clock-window';
-import { partitionEvents, type ClientEvent, type EventRefusal } from '../events';
+import { boltFlagReason, partitionEvents, type ClientEvent, type EventRefusal } from '../events';
+import { maxPassIndex, plannedPassOf } from '../state';
 import { takeSnapshot } from '../snapshot';
 import { assertMayRun, flaggedSpecMessage, loadWheel } from './run';
 import { wrenchRefusals } from './wrench-check';
@@ -58,25 +59,63 @@ async function insertIfAllowed(member: Member, wheelId: string, events: Timed[])
     ok as (
       select ev.*, w.id as wheel_id, w.job_id, w.snapshot from ev cross join w
       where (ev.bolt is null or ev.bolt <= w.bolt_count) and (ev.pass is null or ev.pass <= w.passes)
+    ),
+    ins as (
+      insert into ${wheelRunEvents} (shop_id, job_id, wheel_id, client_id, type, payload, by_id, client_at, device_at)
+      select ${member.shopId}, ok.job_id, ok.wheel_id, ok.client_id, ok.type,
+        case when ok.type = 'bolt_confirmed' then ok.payload || jsonb_build_object('target', ok.snapshot->'plan'->'passes'->(ok.pass - 1)->'target') else ok.payload end,
+        ${member.userId}, ok.client_at, ok.device_at
+      from ok where (select count(*) from ok) = ${events.length}
+      on conflict (client_id) do nothing
+      returning client_id, type, payload
+    ),
+    -- One wrench cycle per newly stored bolt confirmation (a replayed id inserts nothing, so counts nothing).
+    cycles as (
+      update ${wrenches} set cycles_since_calibration = coalesce(${wrenches}.cycles_since_calibration, 0) + c.n
+      from (select (payload->>'wrenchId')::uuid as wrench_id, count(*)::int as n from ins where type = 'bolt_confirmed' and payload ? 'wrenchId' group by 1) c
+      where ${wrenches}.id = c.wrench_id and ${wrenches}.shop_id = ${member.shopId}
     )
-    insert into ${wheelRunEvents} (shop_id, job_id, wheel_id, client_id, type, payload, by_id, client_at, device_at)
-    select ${member.shopId}, ok.job_id, ok.wheel_id, ok.client_id, ok.type,
-      case when ok.type = 'bolt_confirmed' then ok.payload || jsonb_build_object('target', ok.snapshot->'plan'->'passes'->(ok.pass - 1)->'target') else ok.payload end,
-      ${member.userId}, ok.client_at, ok.device_at
-    from ok where (select count(*) from ok) = ${events.length}
-    on conflict (client_id) do nothing
-    returning client_id`);
+    select client_id from ins`);
   return inserted.length;
 }
 
-/** A bolt or pass the wheel's snapshot does not have, or null. */
-function planRefusal(e: ClientEvent, snapshot: WheelSnapshot): Omit<EventRefusal, 'index' | 'clientId'> | null {
+/**
+ * A bolt or pass the wheel's snapshot does not have, or null. A check pass past the plan's (the
+ * runner adds one each time a bolt turned on a check pass) is taken only when the pass before it
+ * has a bolt confirmed as turned — stored on this wheel or earlier in the same batch (`turnedPasses`)
+ * — and only up to MAX_CHECK_PASSES check passes in all.
+ */
+function planRefusal(e: ClientEvent, snapshot: WheelSnapshot, turnedPasses: ReadonlySet<number>): Omit<EventRefusal, 'index' | 'clientId'> | null {
   const bolt = 'bolt' in e.payload ? e.payload.bolt : undefined;
   const pass = 'pass' in e.payload ? e.payload.pass : undefined;
   const boltCount = snapshot.spec.boltCount;
+  const planned = snapshot.plan.passes.length;
   if (bolt !== undefined && bolt > boltCount) return { message: `Bolt ${bolt} is not on this ${boltCount}-bolt ring.`, fieldErrors: { 'payload.bolt': ['No such bolt.'] } };
-  if (pass !== undefined && pass > snapshot.plan.passes.length) return { message: `Pass ${pass} is not in this wheel's plan.`, fieldErrors: { 'payload.pass': ['No such pass.'] } };
+  if (pass !== undefined && pass > maxPassIndex(snapshot.plan.passes)) return { message: `Pass ${pass} is not in this wheel's plan.`, fieldErrors: { 'payload.pass': ['No such pass.'] } };
+  if (pass !== undefined && pass > planned && !turnedPasses.has(pass - 1)) {
+    return { message: `Check pass ${pass} is only added after a bolt turned on pass ${pass - 1}; none did.`, fieldErrors: { 'payload.pass': ['This check pass is not due.'] } };
+  }
   return null;
+}
+
+/** The passes past the plan's check pass's predecessor on which a stored, current bolt confirmation says the bolt turned. */
+async function storedTurnedPasses(tx: Tx, shopId: string, wheelId: string, events: readonly ClientEvent[], planned: number): Promise<Set<number>> {
+  const wanted = [...new Set(events.flatMap((e) => ('pass' in e.payload && e.payload.pass !== undefined && e.payload.pass > planned ? [e.payload.pass - 1] : [])))];
+  if (!wanted.length) return new Set();
+  const rows = await tx
+    .selectDistinct({ pass: sql<number>`(${wheelRunEvents.payload}->>'pass')::int` })
+    .from(wheelRunEvents)
+    .where(
+      and(
+        eq(wheelRunEvents.shopId, shopId),
+        eq(wheelRunEvents.wheelId, wheelId),
+        eq(wheelRunEvents.type, 'bolt_confirmed'),
+        isNull(wheelRunEvents.supersededAt),
+        sql`${wheelRunEvents.payload}->'turned' = 'true'::jsonb`,
+        inArray(sql`(${wheelRunEvents.payload}->>'pass')::int`, wanted),
+      ),
+    );
+  return new Set(rows.map((r) => Number(r.pass)));
 }
 
 /** The runner step an event belongs to (the jobs feature's send-back supersedes by the same mapping). */
@@ -84,6 +123,7 @@ function stepOf(e: ClientEvent): string {
   if (e.type === 'step_done' || e.type === 'step_skipped') return e.payload.step;
   if (e.type === 'hand_started' || e.type === 'hand_unstarted') return 'hand_start';
   if (e.type === 'inspection_failed') return 'inspect';
+  if (e.type === 'bolt_flagged') return e.payload.pass ? 'torque' : 'hand_start';
   return 'torque';
 }
 
@@ -93,8 +133,9 @@ function reworkRefusal(e: ClientEvent, rework: { steps: string[] } | null): Omit
   return { message: `This wheel was sent back to redo ${rework.steps.join(', ').replaceAll('_', ' ')} only; the rest of its record stands.`, fieldErrors: {} };
 }
 
+// An added check pass has the plan's check pass's target.
 const withTarget = (e: ClientEvent, snapshot: WheelSnapshot) =>
-  e.type === 'bolt_confirmed' ? { ...e.payload, target: snapshot.plan.passes[e.payload.pass - 1]!.target } : e.payload;
+  e.type === 'bolt_confirmed' ? { ...e.payload, target: plannedPassOf(snapshot.plan.passes, e.payload.pass)!.target } : e.payload;
 
 /**
  * The runner's save path. Each event is judged alone; those that may be stored are stored in one
@@ -108,7 +149,7 @@ export async function saveWheelBatch(member: Member, wheelId: string, raw: unkno
   const parsed = partitionEvents(raw);
   const events: Timed[] = parsed.events.map((e) => ({ ...e, ...clampClientAt(e.clientAt, now) }) as Timed);
   let fast = 0;
-  const simple = !parsed.refused.length && new Set(events.map((e) => e.clientId)).size === events.length && !events.some((e) => e.type === 'inspection_failed' || e.type === 'wrench_chosen');
+  const simple = !parsed.refused.length && new Set(events.map((e) => e.clientId)).size === events.length && !events.some((e) => e.type === 'inspection_failed' || e.type === 'wrench_chosen' || e.type === 'bolt_flagged');
   if (simple && events.length) {
     fast = await insertIfAllowed(member, wheelId, events);
     if (fast === events.length) return { saved: fast, duplicates: 0, refused: [] };
@@ -128,15 +169,22 @@ export async function saveWheelBatch(member: Member, wheelId: string, raw: unkno
       if (ctx.job.state !== 'in_progress') await startJob(ctx.job.id, tx);
       const snapshot = await ensureSnapshot(tx, member.shopId, ctx, now);
       const wrenchNo = await wrenchRefusals(tx, member.shopId, events, snapshot);
+      const turnedPasses = await storedTurnedPasses(tx, member.shopId, wheelId, events, snapshot.plan.passes.length);
+      // In the batch's order, so a turned bolt opens the next check pass for the events after it.
       accepted = events.filter((e) => {
-        const why = planRefusal(e, snapshot) ?? reworkRefusal(e, ctx.wheel.rework) ?? wrenchNo.get(e.clientId) ?? null;
+        const why = planRefusal(e, snapshot, turnedPasses) ?? reworkRefusal(e, ctx.wheel.rework) ?? wrenchNo.get(e.clientId) ?? null;
         if (why) refuse(e, why);
+        else if (e.type === 'bolt_confirmed' && e.payload.turned) turnedPasses.add(e.payload.pass);
         return !why;
       });
-      stored = await insertAccepted(tx, member, ctx, accepted, snapshot, refuse);
-      const failed = accepted.find((e) => e.type === 'inspection_failed');
-      if (failed && failed.type === 'inspection_failed' && !ctx.wheel.flaggedReason) {
-        await tx.update(jobWheels).set({ flaggedReason: failed.payload.notes }).where(and(eq(jobWheels.shopId, member.shopId), eq(jobWheels.id, wheelId)));
+      const fresh = await insertAccepted(tx, member, ctx, accepted, snapshot, refuse);
+      stored = fresh.size;
+      await countWrenchCycles(tx, member.shopId, accepted.filter((e) => fresh.has(e.clientId)));
+      // A failed inspection or a flagged bolt stops the wheel for a lead (the first reason stays).
+      const stop = accepted.find((e) => e.type === 'inspection_failed' || e.type === 'bolt_flagged');
+      const reason = stop?.type === 'inspection_failed' ? stop.payload.notes : stop?.type === 'bolt_flagged' ? boltFlagReason(stop.payload) : null;
+      if (reason && !ctx.wheel.flaggedReason) {
+        await tx.update(jobWheels).set({ flaggedReason: reason }).where(and(eq(jobWheels.shopId, member.shopId), eq(jobWheels.id, wheelId)));
       }
     }
     if (refused.length) {
@@ -184,8 +232,8 @@ async function insertAccepted(
   accepted: Timed[],
   snapshot: WheelSnapshot,
   refuse: (e: Timed, r: Omit<EventRefusal, 'index' | 'clientId'>) => void,
-): Promise<number> {
-  if (!accepted.length) return 0;
+): Promise<Set<string>> {
+  if (!accepted.length) return new Set();
   const rows = await tx
     .insert(wheelRunEvents)
     .values(
@@ -212,6 +260,20 @@ async function insertAccepted(
     const known = new Set(mine.map((r) => r.clientId));
     for (const e of accepted) if (!fresh.has(e.clientId) && !known.has(e.clientId)) refuse(e, { message: ID_ELSEWHERE, fieldErrors: { clientId: ['Already used.'] } });
   }
-  return rows.length;
+  return new Set(rows.map((r) => r.clientId));
+}
+
+/**
+ * Adds one cycle to each wrench per newly stored bolt confirmation naming it, so the 5,000-cycle
+ * recalibration rule follows use without anyone typing a count. One statement for the batch.
+ */
+async function countWrenchCycles(tx: Tx, shopId: string, stored: readonly ClientEvent[]) {
+  const perWrench = new Map<string, number>();
+  for (const e of stored) if (e.type === 'bolt_confirmed' && e.payload.wrenchId) perWrench.set(e.payload.wrenchId, (perWrench.get(e.payload.wrenchId) ?? 0) + 1);
+  if (!perWrench.size) return;
+  const rows = [...perWrench].map(([id, n]) => sql`(${id}::uuid, ${n}::int)`);
+  await tx.execute(sql`update ${wrenches} set cycles_since_calibration = coalesce(${wrenches}.cycles_since_calibration, 0) + c.n
+    from (values ${sql.join(rows, sql`, `)}) as c (wrench_id, n)
+    where ${wrenches}.id = c.wrench_id and ${wrenches}.shop_id = ${shopId}`);
 }
 

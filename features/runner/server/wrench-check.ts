@@ -5,6 +5,7 @@ import { wrenches, wrenchVerifications, type WheelSnapshot } from '@/db/schema';
 import { shopDay } from '@/features/ui/shop-time';
 import { getShopSettings } from '@/server/shop/settings';
 import type { ClientEvent, EventRefusal } from '../events';
+import { maxPassIndex, plannedPassOf } from '../state';
 import { passWrench } from '../wrench-gate';
 
 type Db = Pick<ReturnType<typeof getDb>, 'select'>;
@@ -39,8 +40,10 @@ export async function wrenchRefusals(db: Db, shopId: string, events: readonly Cl
   const recorded = verifications.map((v) => ({ ...v, recordedAt: v.recordedAt.toISOString() }));
   for (const e of chosen) {
     const w = rows.find((r) => r.id === e.payload.wrenchId);
-    const pass = snapshot.plan.passes[e.payload.pass - 1];
-    if (!pass) continue; // the plan check names it
+    // An added check pass is judged at the plan's check pass's target.
+    const planned = plannedPassOf(snapshot.plan.passes, e.payload.pass);
+    if (!planned || e.payload.pass > maxPassIndex(snapshot.plan.passes)) continue; // the plan check names it
+    const pass = { ...planned, index: e.payload.pass };
     if (!w) {
       out.set(e.clientId, refusal("That wrench is not in this shop's tool crib."));
       continue;
