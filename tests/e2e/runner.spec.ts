@@ -3,6 +3,7 @@ import { readFileSync } from 'node:fs';
 import { serverActionId } from '../helpers/next-build';
 import { E2E } from '../helpers/test-services';
 import { expectNoSideScroll, PASSWORD, signUp, uniqueEmail } from './helpers';
+import { confirmBolts, startAllBolts } from './runner-helpers';
 
 /** A same-origin API call with the page's session, as the app itself would make it. */
 async function api<T>(page: Page, method: 'GET' | 'POST', path: string, body?: unknown): Promise<T> {
@@ -59,17 +60,17 @@ test('at 360×640 a wheel runs through its steps; offline, 10 bolts are confirme
     await page.getByRole('button', { name: 'Step done' }).click();
   };
   await tickAndDone(); // safety
-  await expect(page.getByRole('heading', { name: /Inspect rim and ring/ })).toBeVisible();
-  await tickAndDone(); // inspect
+  await expect(page.getByRole('heading', { name: /Clean and deburr/ })).toBeVisible();
   await page.getByRole('button', { name: 'Skip this step…' }).click(); // clean
   await page.getByLabel('Why skip this step?').fill('New wheel, clean from the box');
   await page.getByRole('button', { name: 'Skip the step' }).click();
+  await expect(page.getByRole('heading', { name: /Inspect rim, ring and bolts/ })).toBeVisible();
+  await tickAndDone(); // inspect
   await expect(page.getByText('Left side: standing outside the wheel, the arrow turns counterclockwise')).toBeVisible();
   await tickAndDone(); // mount
   await tickAndDone(); // index
   await expect(page.getByRole('heading', { name: /Start every bolt by hand/ })).toBeVisible();
-  for (let i = 1; i <= 8; i++) await page.getByRole('button', { name: `Bolt ${i} started by hand` }).click();
-  await page.getByRole('button', { name: 'All bolts started — step done' }).click();
+  await startAllBolts(page);
 
   await expect(page.getByText('Set Blue click 20–200 in-lb to 43 in-lb')).toBeVisible();
   await expect(page.getByRole('status').filter({ hasText: 'Saved' })).toBeVisible();
@@ -77,6 +78,7 @@ test('at 360×640 a wheel runs through its steps; offline, 10 bolts are confirme
   await page.waitForTimeout(500); // let the worker store the page it was sent
   await expectNoSideScroll(page);
   await testInfo.attach('a pass', { body: await page.screenshot(), contentType: 'image/png' });
+  await page.getByRole('button', { name: 'Wrench set' }).click();
   // The phone turned on its side: nothing scrolls sideways, and below the sticky header the ring and
   // the button are in view together.
   await page.setViewportSize({ width: 640, height: 360 });
@@ -94,10 +96,11 @@ test('at 360×640 a wheel runs through its steps; offline, 10 bolts are confirme
   await page.setViewportSize({ width: 360, height: 640 });
 
   await context.setOffline(true);
-  for (let i = 0; i < 10; i++) await page.getByRole('button', { name: /^Clicked — bolt \d+$/ }).click();
+  await confirmBolts(page, 10);
   await expect(page.getByRole('status').filter({ hasText: '10 waiting · offline' })).toBeVisible();
   await page.reload();
   await expect(page.getByText('Set Blue click 20–200 in-lb to 101 in-lb')).toBeVisible(); // pass 2, resumed
+  await page.getByRole('button', { name: 'Wrench set' }).click();
   await expect(page.getByText('2 of 8 bolts · next: bolt 3')).toBeVisible();
   await expect(page.getByRole('status').filter({ hasText: '10 waiting' })).toBeVisible();
 
@@ -108,7 +111,7 @@ test('at 360×640 a wheel runs through its steps; offline, 10 bolts are confirme
   expect(bolts).toEqual(['1:1', '1:5', '1:3', '1:7', '1:2', '1:6', '1:4', '1:8', '2:1', '2:5']);
 
   // Finish the wheel: the rest of pass 2, pass 3, the check pass.
-  while (await page.getByRole('button', { name: /^Clicked — bolt \d+$/ }).count()) await page.getByRole('button', { name: /^Clicked — bolt \d+$/ }).click();
+  await confirmBolts(page);
   await page.getByRole('button', { name: 'Torque passes done' }).click();
 
   // Seat the bead: cautions, the pressure limit, two photos through the local upload fake.
@@ -153,7 +156,7 @@ test('at 360×640 a wheel runs through its steps; offline, 10 bolts are confirme
 
   await expect(page.getByRole('heading', { name: /Submit the wheel/ })).toBeVisible();
   await expect(page.getByText('None: every bolt in sequence.')).toBeVisible();
-  await expect(page.getByText(/Clean: skipped \(New wheel, clean from the box\)/)).toBeVisible();
+  await expect(page.getByText(/Clean and deburr: skipped \(New wheel, clean from the box\)/)).toBeVisible();
   await expectNoSideScroll(page);
   await testInfo.attach('summary', { body: await page.screenshot({ fullPage: true }), contentType: 'image/png' });
   await page.getByRole('button', { name: 'Submit the wheel' }).click();
@@ -198,7 +201,7 @@ test('a confirmation queued before a deploy is delivered to the new build', asyn
   const { events } = (await (await page.request.get(`/api/wheels/${wheelId}/events`)).json()).data as { events: { type: string; payload: { step?: string } }[] };
   expect(events.map((e) => `${e.type}:${e.payload.step}`)).toEqual(['step_done:safety']);
   await page.reload();
-  await expect(page.getByRole('heading', { name: /Inspect rim and ring/ })).toBeVisible();
+  await expect(page.getByRole('heading', { name: /Clean and deburr/ })).toBeVisible();
 });
 
 test('a session that ends mid-wheel keeps the confirmation; signing in again comes back to the runner and sends it', async ({ page, context }) => {
@@ -219,7 +222,7 @@ test('a session that ends mid-wheel keeps the confirmation; signing in again com
   await page.getByRole('button', { name: 'Sign in' }).click();
   await expect(page).toHaveURL(new RegExp(`/jobs/${job.id}/wheels/${wheelId}/run$`));
   await expect(page.getByRole('status').filter({ hasText: 'Saved' })).toBeVisible();
-  await expect(page.getByRole('heading', { name: /Inspect rim and ring/ })).toBeVisible();
+  await expect(page.getByRole('heading', { name: /Clean and deburr/ })).toBeVisible();
   const { events } = (await (await page.request.get(`/api/wheels/${wheelId}/events`)).json()).data as { events: { type: string; payload: { step?: string } }[] };
   expect(events.map((e) => `${e.type}:${e.payload.step}`)).toEqual(['step_done:safety']);
 });
@@ -236,7 +239,7 @@ test('a save that fails in flight (Wi-Fi up, no route to the server) waits and g
   for (const box of await page.locator('main input[type=checkbox]').all()) await box.check();
   await page.getByRole('button', { name: 'Step done' }).click();
   await expect(page.getByRole('status').filter({ hasText: /^1 waiting$/ })).toBeVisible();
-  await expect(page.getByRole('heading', { name: /Inspect rim and ring/ })).toBeVisible(); // applied at once all the same
+  await expect(page.getByRole('heading', { name: /Clean and deburr/ })).toBeVisible(); // applied at once all the same
 
   await page.unroute(saves);
   await expect(page.getByRole('status').filter({ hasText: 'Saved' })).toBeVisible({ timeout: 15_000 });
@@ -248,14 +251,13 @@ test('a wrench not verified today is checked on the spot: out of tolerance takes
   const RED = { ...BLUE, label: 'Red click 10–150 in-lb', min: 10, max: 150 };
   const { job, wheelId } = await setUpWheel(page, { wrenches: [BLUE, RED], unverified: true });
   await page.goto(`/jobs/${job.id}/wheels/${wheelId}/run`);
-  // Safety gate, inspect, clean, mount, index: ticked and done, one screen after another.
+  // Safety gate, clean, inspect, mount, index: ticked and done, one screen after another.
   for (let n = 1; n <= 5; n++) {
     await expect(page.getByRole('heading', { name: new RegExp(`^Step ${n} of`) })).toBeVisible();
     for (const box of await page.locator('main input[type=checkbox]').all()) await box.check();
     await page.getByRole('button', { name: 'Step done' }).click();
   }
-  for (let i = 1; i <= 8; i++) await page.getByRole('button', { name: `Bolt ${i} started by hand` }).click();
-  await page.getByRole('button', { name: 'All bolts started — step done' }).click();
+  await startAllBolts(page);
 
   // 43 in-lb sits higher on the red wrench's scale, so the engine suggests it; it has no check today.
   const check = page.getByRole('region', { name: 'Verify the wrench' });
@@ -274,6 +276,8 @@ test('a wrench not verified today is checked on the spot: out of tolerance takes
   await check.getByLabel('Reading (in-lb)').fill('44');
   await check.getByRole('button', { name: 'Record verification' }).click();
   await expect(page.getByText('Set Blue click 20–200 in-lb to 43 in-lb')).toBeVisible();
+  await expect(page.getByRole('button', { name: 'Clicked — bolt 1' })).toHaveCount(0); // not before the wrench is set
+  await page.getByRole('button', { name: 'Wrench set' }).click();
   await expect(page.getByRole('button', { name: 'Clicked — bolt 1' })).toBeVisible();
 
   await page.goto('/tool-crib');

@@ -187,7 +187,7 @@ export function TorquePanel({
     <div className="flex flex-col gap-3">
       <RingLayout
         ring={
-          <div className="mx-auto w-full max-w-[min(100%,calc(100dvh-21rem))] landscape:max-w-none">
+          <div className="mx-auto w-full max-w-[min(100%,calc(100dvh-21rem))] landscape:max-w-none landscape:[&>svg]:max-h-[calc(100dvh-5rem)]">
             <BoltCircle
               count={boltCount}
               order={pass.order}
@@ -206,7 +206,7 @@ export function TorquePanel({
           {pass.confirmed.length} of {boltCount} bolts · next: bolt {pass.next}
         </p>
         {big32 ? <BoltList count={boltCount} done={pass.confirmed} next={pass.next} selected={selected} flagged={flaggedBolts} onSelect={setSelected} /> : null}
-        <p className="text-center text-sm text-ink-soft">Number beside the ring: the bolt. Number inside a bolt: its turn, shown for the next few. Tap a bolt to undo or correct it.</p>
+        <p className="text-center text-sm text-ink-soft landscape:hidden">Number beside the ring: the bolt. Number inside a bolt: its turn, shown for the next few. Tap a bolt to undo or correct it.</p>
         {other ? (
           pass.confirmed.includes(other) ? (
             <button
