@@ -93,7 +93,7 @@ function planRefusal(e: ClientEvent, snapshot: WheelSnapshot, turnedPasses: Read
   if (bolt !== undefined && bolt > boltCount) return { message: `Bolt ${bolt} is not on this ${boltCount}-bolt ring.`, fieldErrors: { 'payload.bolt': ['No such bolt.'] } };
   if (pass !== undefined && pass > maxPassIndex(snapshot.plan.passes)) return { message: `Pass ${pass} is not in this wheel's plan.`, fieldErrors: { 'payload.pass': ['No such pass.'] } };
   if (pass !== undefined && pass > planned && !turnedPasses.has(pass - 1)) {
-    return { message: `Check pass ${pass} is only added after a bolt turned on pass ${pass - 1}; none did.`, fieldErrors: { 'payload.pass': ['This check pass is not due.'] } };
+    return { message: `Pass ${pass} is not in this wheel's plan.`, fieldErrors: { 'payload.pass': [`A check pass is only added after a bolt turned on pass ${pass - 1}; none did.`] } };
   }
   return null;
 }

@@ -90,7 +90,7 @@ describe('wrench cycles from bolt confirmations', () => {
 describe('check passes past the plan (added when a bolt turned on the check pass before)', () => {
   it('pass 5 is refused while no bolt turned on the check pass, and taken once one did', async () => {
     const refused = await post([confirm(1, CHECK), confirm(2, CHECK + 1)]);
-    expect(refused).toMatchObject({ ok: true, data: { saved: 1, refused: [{ index: 1, message: 'Check pass 5 is only added after a bolt turned on pass 4; none did.' }] } });
+    expect(refused).toMatchObject({ ok: true, data: { saved: 1, refused: [{ index: 1, message: "Pass 5 is not in this wheel's plan.", fieldErrors: { 'payload.pass': ['A check pass is only added after a bolt turned on pass 4; none did.'] } }] } });
     // Stored earlier: a bolt of pass 4 turned, so pass 5 is due.
     await post([confirm(3, CHECK, { turned: true })]);
     expect(await post([confirm(1, CHECK + 1)])).toMatchObject({ ok: true, data: { saved: 1, refused: [] } });
@@ -103,7 +103,7 @@ describe('check passes past the plan (added when a bolt turned on the check pass
   });
 
   it('never past ten check passes in all: pass 14 of a 4-pass plan is refused as no such pass', async () => {
-    expect(await post([confirm(1, 14)])).toMatchObject({ ok: true, data: { saved: 0, refused: [{ index: 0, message: "Pass 14 is not in this wheel's plan." }] } });
+    expect(await post([confirm(1, 14)])).toMatchObject({ ok: true, data: { saved: 0, refused: [{ index: 0, message: "Pass 14 is not in this wheel's plan.", fieldErrors: { 'payload.pass': ['No such pass.'] } }] } });
   });
 });
 
