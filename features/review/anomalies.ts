@@ -53,9 +53,11 @@ export function boltList(bolts: readonly number[]): string {
   return `bolts ${bolts.slice(0, -1).join(', ')} and ${bolts.at(-1)}`;
 }
 
+/** "pass 2 of 4 (70 %, 14 ft-lb)", "the check pass (…)"; a check pass the runner added past the plan is "check pass 2 (…)". */
 export function passLabel(pass: Pick<PassRecord, 'index' | 'kind' | 'fraction' | 'target'>, passCount: number): string {
   const at = `${Math.round(pass.fraction * 100)} %, ${formatTorque(pass.target, 1)}`;
-  return pass.kind === 'check' ? `the check pass (${at})` : `pass ${pass.index} of ${passCount} (${at})`;
+  if (pass.kind === 'staged') return `pass ${pass.index} of ${passCount} (${at})`;
+  return pass.index > passCount ? `check pass ${pass.index - passCount + 1} (${at})` : `the check pass (${at})`;
 }
 
 const psi = (p: Pressure) => convertPressure(p.value, p.unit, 'psi');

@@ -52,8 +52,27 @@ export function liveEvents(events: readonly ReviewEvent[]): ReviewEvent[] {
     .filter((e) => !e.superseded && !seen.has(e.clientId) && seen.add(e.clientId));
 }
 
-export function wheelRecord(plan: ReviewPlan, events: readonly ReviewEvent[]): WheelRecord {
+/**
+ * The plan's passes, plus the check passes the runner added after a bolt turned on a check pass
+ * (their events name a pass past the plan): each repeats the last check pass, at the target the
+ * event carries when it does.
+ */
+function passesOf(plan: ReviewPlan, events: readonly ReviewEvent[]): ReviewPass[] {
+  const lastCheck = plan.passes.at(-1);
+  if (lastCheck?.kind !== 'check') return plan.passes;
+  const extra = events.filter((e) => e.type === 'bolt_confirmed' && (num(e.payload.pass) ?? 0) > plan.passes.length);
+  const highest = Math.min(plan.passes.length + 10, Math.max(plan.passes.length, ...extra.map((e) => num(e.payload.pass)!)));
+  const added: ReviewPass[] = [];
+  for (let index = plan.passes.length + 1; index <= highest; index++) {
+    const t = extra.find((e) => e.payload.pass === index)?.payload.target as Torque | undefined;
+    added.push({ ...lastCheck, index, target: t && num(t.value) !== null && isTorqueUnit(t.unit) ? { value: t.value, unit: t.unit } : lastCheck.target });
+  }
+  return [...plan.passes, ...added];
+}
+
+export function wheelRecord(basePlan: ReviewPlan, events: readonly ReviewEvent[]): WheelRecord {
   const ordered = liveEvents(events);
+  const plan = { ...basePlan, passes: passesOf(basePlan, ordered) };
   const confirmed = plan.passes.map(() => [] as BoltConfirmation[]);
   const chosen: (string | null)[] = plan.passes.map(() => null);
   const steps = new Map<string, Omit<StepRecord, 'seconds' | 'title' | 'id'>>();
@@ -94,8 +113,11 @@ export function wheelRecord(plan: ReviewPlan, events: readonly ReviewEvent[]): W
       case 'bolt_undone':
         if (plan.passes[p]) confirmed[p] = confirmed[p]!.filter((c) => c.bolt !== bolt);
         break;
-      case 'bolt_flagged':
-        if (bolt !== null) flaggedBolts.push({ pass: p >= 0 ? p + 1 : null, bolt, reason: str(e.payload.reason) ?? str(e.payload.notes) ?? '' });
+      case 'bolt_flagged': {
+        const what = [str(e.payload.problem)?.replaceAll('_', ' '), str(e.payload.note) ?? str(e.payload.reason)].filter(Boolean).join(': ');
+        if (bolt !== null) flaggedBolts.push({ pass: p >= 0 ? p + 1 : null, bolt, reason: what });
+        break;
+      }
         break;
       case 'inspection_failed':
         inspectionFailed = str(e.payload.notes) ?? 'no notes';

@@ -202,6 +202,22 @@ describe('anomalies a lead sees on review', () => {
     expect(found[1]!.message).toBe('LF wheel: bolt 2 was flagged during pass 3 of 4 (100 %, 20 ft-lb): stripped thread. Check the thread and the bolt before release.');
   });
 
+  it("names a flagged bolt's problem and note as the runner sends them", () => {
+    const drafts = [...cleanDrafts(), { type: 'bolt_flagged', payload: { pass: 2, bolt: 4, problem: 'cross_threaded', note: 'bound at two turns' } }];
+    expect(jobAnomalies(job(wheel({ events: history(drafts) }))).map((a) => a.message)).toEqual([
+      'LF wheel: bolt 4 was flagged during pass 2 of 4 (70 %, 14 ft-lb): cross threaded: bound at two turns. Check the thread and the bolt before release.',
+    ]);
+  });
+
+  it('judges a check pass the runner added after a bolt turned, under its own name', () => {
+    // Check pass 2 (pass 5, past the plan) at a median of 1 s: too fast, and named as the second check pass.
+    const extra = [1, 2, 3, 4].map((bolt) => ({ type: 'bolt_confirmed', payload: { pass: 5, bolt, target: { value: 20, unit: 'lbf-ft' } } }));
+    const events = [...history(cleanDrafts()), ...history([{ type: 'wrench_chosen', payload: { pass: 5, wrenchId: WRENCH } }, ...extra], 1).map((e) => ({ ...e, clientId: e.clientId.replace('8000-', '9000-'), clientAt: new Date(Date.parse(e.clientAt) + 3_600_000).toISOString(), receivedAt: '2026-03-10T16:59:00.000Z' }))];
+    const found = jobAnomalies(job(wheel({ events })));
+    expect(found.map((a) => `${a.code}:${a.pass}`)).toEqual(['too_fast:5']);
+    expect(found[0]!.message).toContain('check pass 2 (100 %, 20 ft-lb) was confirmed at a median of 1 s per bolt');
+  });
+
   it('notes bolts confirmed by someone other than the assignee', () => {
     const drafts = cleanDrafts().map((d) => (d.type === 'bolt_confirmed' && d.payload.pass === 3 ? { ...d, byId: LEAD } : d));
     const found = jobAnomalies(job(wheel({ events: history(drafts) })));
