@@ -118,6 +118,10 @@ async function storedTurnedPasses(tx: Tx, shopId: string, wheelId: string, event
   return new Set(rows.map((r) => Number(r.pass)));
 }
 
+/** A bolt that turned on the last check pass allowed: no pass follows, so the wheel goes to a lead. */
+const stillTurning = (e: ClientEvent, snapshot: WheelSnapshot) =>
+  e.type === 'bolt_confirmed' && e.payload.turned === true && snapshot.plan.passes.at(-1)?.kind === 'check' && e.payload.pass === maxPassIndex(snapshot.plan.passes);
+
 /** The runner step an event belongs to (the jobs feature's send-back supersedes by the same mapping). */
 function stepOf(e: ClientEvent): string {
   if (e.type === 'step_done' || e.type === 'step_skipped') return e.payload.step;
@@ -180,9 +184,9 @@ export async function saveWheelBatch(member: Member, wheelId: string, raw: unkno
       const fresh = await insertAccepted(tx, member, ctx, accepted, snapshot, refuse);
       stored = fresh.size;
       await countWrenchCycles(tx, member.shopId, accepted.filter((e) => fresh.has(e.clientId)));
-      // A failed inspection or a flagged bolt stops the wheel for a lead (the first reason stays).
-      const stop = accepted.find((e) => e.type === 'inspection_failed' || e.type === 'bolt_flagged');
-      const reason = stop?.type === 'inspection_failed' ? stop.payload.notes : stop?.type === 'bolt_flagged' ? boltFlagReason(stop.payload) : null;
+      // A failed inspection, a flagged bolt or a bolt still turning on the last check pass stops the wheel for a lead (the first reason stays).
+      const stop = accepted.find((e) => e.type === 'inspection_failed' || e.type === 'bolt_flagged' || stillTurning(e, snapshot));
+      const reason = stop?.type === 'inspection_failed' ? stop.payload.notes : stop?.type === 'bolt_flagged' ? boltFlagReason(stop.payload) : stop?.type === 'bolt_confirmed' ? `Bolt ${stop.payload.bolt} still turned on check pass ${stop.payload.pass}, the last one allowed.` : null;
       if (reason && !ctx.wheel.flaggedReason) {
         await tx.update(jobWheels).set({ flaggedReason: reason }).where(and(eq(jobWheels.shopId, member.shopId), eq(jobWheels.id, wheelId)));
       }

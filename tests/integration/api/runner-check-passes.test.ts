@@ -102,6 +102,13 @@ describe('check passes past the plan (added when a bolt turned on the check pass
     expect(added.map((p) => p.target)).toEqual([{ value: 12, unit: 'lbf-ft' }, { value: 12, unit: 'lbf-ft' }, { value: 12, unit: 'lbf-ft' }]);
   });
 
+  it('a bolt still turning on the tenth check pass (pass 13 of a 4-pass plan) stops the wheel for a lead', async () => {
+    const laps = Array.from({ length: 10 }, (_, k) => confirm(1, CHECK + k, { turned: true }));
+    expect(await post(laps)).toMatchObject({ ok: true, data: { saved: 10, refused: [] } });
+    const [w] = await getDb().select({ flaggedReason: jobWheels.flaggedReason }).from(jobWheels).where(eq(jobWheels.id, wheelId));
+    expect(w!.flaggedReason).toBe('Bolt 1 still turned on check pass 13, the last one allowed.');
+  });
+
   it('never past ten check passes in all: pass 14 of a 4-pass plan is refused as no such pass', async () => {
     expect(await post([confirm(1, 14)])).toMatchObject({ ok: true, data: { saved: 0, refused: [{ index: 0, message: "Pass 14 is not in this wheel's plan.", fieldErrors: { 'payload.pass': ['No such pass.'] } }] } });
   });
