@@ -1,6 +1,8 @@
 import { redirect } from 'next/navigation';
+import { homePathFor } from '@/server/auth/return-path';
 import { getCurrentMember } from '@/server/auth/session';
 
 export default async function Home() {
-  redirect((await getCurrentMember()) ? '/board' : '/sign-in');
+  const member = await getCurrentMember();
+  redirect(member ? homePathFor(member.role) : '/sign-in');
 }

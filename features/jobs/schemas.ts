@@ -6,6 +6,7 @@ import { checkbox, integerField, optional, positiveNumber, requiredText, text } 
 export const JOB_STATES = ['open', 'in_progress', 'awaiting_signoff', 'signed_off', 'sent_back'] as const;
 export type JobStateName = (typeof JOB_STATES)[number];
 export const POSITIONS = ['LF', 'RF', 'LR', 'RR', 'spare'] as const;
+export const POSITION_LABELS: Record<(typeof POSITIONS)[number], string> = { LF: 'Left front', RF: 'Right front', LR: 'Left rear', RR: 'Right rear', spare: 'Spare' };
 const pressureUnit = z.enum(PRESSURE_UNITS, { error: 'Choose psi, kPa or bar.' });
 const uuid = (what: string) => z.uuid({ error: `Unknown ${what}.` });
 

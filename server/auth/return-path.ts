@@ -1,3 +1,5 @@
+import type { Role } from '@/db/schema';
+
 /**
  * Where to go after signing in: only a path on this site ("/jobs/…"), never another host, so a
  * crafted sign-in link cannot send someone elsewhere. Anything else answers null.
@@ -67,3 +69,9 @@ export function returnPath(raw: unknown): string | null {
 
 /** The sign-in page, coming back to `path` afterwards. */
 export const signInThenBackTo = (path: string) => `/sign-in?next=${encodeURIComponent(path)}`;
+
+/**
+ * Where a member lands after signing in when no page asked for them: a technician's phone
+ * starts at their next wheel; leads (and apprentices) start at the board.
+ */
+export const homePathFor = (role: Role) => (role === 'technician' ? '/my-wheels' : '/board');

@@ -3,14 +3,15 @@ import Link from 'next/link';
 import { redirect } from 'next/navigation';
 import { SignInForm } from '@/features/accounts/components/sign-in-form';
 import { ForgetRunnerPages } from '@/features/runner/components/forget-runner-pages';
-import { returnPath } from '@/server/auth/return-path';
+import { homePathFor, returnPath } from '@/server/auth/return-path';
 import { getCurrentMember } from '@/server/auth/session';
 
 export const metadata: Metadata = { title: 'Sign in' };
 
 export default async function SignInPage({ searchParams }: PageProps<'/sign-in'>) {
   const next = returnPath((await searchParams).next) ?? undefined;
-  if (await getCurrentMember()) redirect(next ?? '/board');
+  const member = await getCurrentMember();
+  if (member) redirect(next ?? homePathFor(member.role));
   return (
     <>
       <ForgetRunnerPages />

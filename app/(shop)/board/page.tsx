@@ -1,7 +1,9 @@
 import type { Metadata } from 'next';
+import { HydrationBoundary } from '@tanstack/react-query';
 import Link from 'next/link';
 import { Suspense } from 'react';
 import { Board } from '@/features/jobs/components/board';
+import { prefetchBoard } from '@/features/jobs/server/board-prefetch';
 import { listAssignees } from '@/features/jobs/server/jobs';
 import { buttonClass } from '@/features/ui/button';
 import { EmptyState, PageHeader } from '@/features/ui/page';
@@ -11,7 +13,7 @@ import { can } from '@/server/auth/permissions';
 
 export const metadata: Metadata = { title: 'Board' };
 
-export default async function BoardPage() {
+export default async function BoardPage({ searchParams }: PageProps<'/board'>) {
   const member = await requireMember('board.view');
   if (!can(member.role, 'jobs.view')) {
     return (
@@ -24,6 +26,9 @@ export default async function BoardPage() {
     );
   }
   const canCreate = can(member.role, 'jobs.create');
+  const defaultAssignee = member.role === 'technician' ? 'me' : undefined;
+  // The first page is read here, so the first HTML holds the cards; the browser keeps it live.
+  const [people, firstPage] = await Promise.all([listAssignees(member.shopId), prefetchBoard(member, await searchParams, defaultAssignee)]);
   return (
     <>
       <PageHeader title="Board">
@@ -34,9 +39,11 @@ export default async function BoardPage() {
         ) : null}
       </PageHeader>
       <QueryProvider>
-        <Suspense fallback={<p>Loading job cards…</p>}>
-          <Board people={await listAssignees(member.shopId)} defaultAssignee={member.role === 'technician' ? 'me' : undefined} canCreate={canCreate} />
-        </Suspense>
+        <HydrationBoundary state={firstPage}>
+          <Suspense fallback={<p>Loading job cards…</p>}>
+            <Board people={people} defaultAssignee={defaultAssignee} canCreate={canCreate} />
+          </Suspense>
+        </HydrationBoundary>
       </QueryProvider>
     </>
   );

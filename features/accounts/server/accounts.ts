@@ -1,7 +1,7 @@
 import 'server-only';
 import { eq } from 'drizzle-orm';
 import { getDb } from '@/db';
-import { shops, shopSettings, users } from '@/db/schema';
+import { shops, shopSettings, users, type Role } from '@/db/schema';
 import { burnPasswordCheck, hashPassword, verifyPassword } from '@/server/auth/password';
 import { accountDelayMs, accountFailures, recordFailure, recordSuccess, reserveAttempt } from '@/server/auth/throttle';
 import { DomainError } from '@/server/errors';
@@ -45,7 +45,7 @@ const WRONG = 'Wrong e-mail or password.';
  * same message for an unknown address and a wrong password, and the same time spent, so sign-in
  * does not reveal accounts.
  */
-export async function authenticate(input: SignInInput, address: string): Promise<{ userId: string }> {
+export async function authenticate(input: SignInInput, address: string): Promise<{ userId: string; role: Role }> {
   const keys = { account: input.email, address };
   const wait = await reserveAttempt(keys);
   if (wait > 0) {
@@ -58,7 +58,7 @@ export async function authenticate(input: SignInInput, address: string): Promise
   const delay = accountDelayMs(await accountFailures(input.email));
   if (delay > 0) await new Promise((resolve) => setTimeout(resolve, delay));
   const [user] = await getDb()
-    .select({ id: users.id, passwordHash: users.passwordHash, removedAt: users.removedAt })
+    .select({ id: users.id, role: users.role, passwordHash: users.passwordHash, removedAt: users.removedAt })
     .from(users)
     .where(eq(users.email, input.email));
   const valid = user ? await verifyPassword(user.passwordHash, input.password) : (await burnPasswordCheck(input.password), false);
@@ -67,5 +67,5 @@ export async function authenticate(input: SignInInput, address: string): Promise
     throw new DomainError('unauthenticated', WRONG);
   }
   await recordSuccess(keys);
-  return { userId: user.id };
+  return { userId: user.id, role: user.role };
 }

@@ -94,7 +94,7 @@ export async function findUsableInvite(token: string) {
 }
 
 /** Uses the invite exactly once (a conditional update wins the race) and creates the account. */
-export async function acceptInvite(input: AcceptInviteInput): Promise<{ userId: string }> {
+export async function acceptInvite(input: AcceptInviteInput): Promise<{ userId: string; role: Role }> {
   const passwordHash = await hashPassword(input.password);
   return getDb().transaction(async (tx) => {
     const [invite] = await tx
@@ -109,6 +109,6 @@ export async function acceptInvite(input: AcceptInviteInput): Promise<{ userId: 
       .insert(users)
       .values({ shopId: invite.shopId, email: invite.email, name: input.name, role: invite.role, passwordHash })
       .returning({ id: users.id });
-    return { userId: user!.id };
+    return { userId: user!.id, role: invite.role };
   });
 }

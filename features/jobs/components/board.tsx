@@ -6,7 +6,7 @@ import { usePathname, useRouter, useSearchParams } from 'next/navigation';
 import { useCallback, useMemo } from 'react';
 import { EmptyState } from '@/features/ui/page';
 import { useShopTime } from '@/features/ui/shop-time-zone';
-import { useJobs, type BoardFilters as Filters } from '../api/get-jobs';
+import { boardFiltersFrom, useJobs, type BoardFilters as Filters } from '../api/get-jobs';
 import type { BoardRow } from '../server/board';
 import { BoardFilters } from './board-filters';
 import { StateBadge } from './state-badge';
@@ -56,11 +56,7 @@ export function Board({ people, defaultAssignee, canCreate }: { people: { id: st
   const router = useRouter();
   const pathname = usePathname();
   const search = useSearchParams();
-  const filters: Filters = useMemo(() => {
-    const get = (k: string) => search.get(k) ?? undefined;
-    return { state: get('state'), assignee: get('assignee') ?? defaultAssignee, due: get('due'), q: get('q'), sort: get('sort'), dir: get('dir'), page: get('page') };
-  }, [search, defaultAssignee]);
-  const apiFilters = useMemo(() => ({ ...filters, assignee: filters.assignee === 'all' ? undefined : filters.assignee }), [filters]);
+  const { shown: filters, api: apiFilters } = useMemo(() => boardFiltersFrom((k) => search.get(k), defaultAssignee), [search, defaultAssignee]);
   const { data, isPending, isError, error, isFetching, refetch } = useJobs(apiFilters);
 
   const update = useCallback(

@@ -2,12 +2,11 @@
 
 import { convertPressure, PRESSURE_UNITS, type PressureUnit } from '@/features/torque-plan';
 import { UnitOptions } from '@/features/ui/unit-options';
-import { POSITIONS } from '../schemas';
+import { POSITION_LABELS, POSITIONS } from '../schemas';
 
 export type WheelDraft = { position: (typeof POSITIONS)[number]; specId: string; tireSize: string; directional: boolean; targetPressure: string; pressureUnit: 'psi' | 'kPa' | 'bar' };
 export type SpecOption = { id: string; name: string; runningPressure: number; pressureUnit: 'psi' | 'kPa' | 'bar' };
 
-const POSITION_LABELS: Record<WheelDraft['position'], string> = { LF: 'Left front', RF: 'Right front', LR: 'Left rear', RR: 'Right rear', spare: 'Spare' };
 /** Decimals a gauge in each unit is read to (common practice, no source). */
 const GAUGE_DIGITS: Record<PressureUnit, number> = { psi: 1, kPa: 0, bar: 2 };
 

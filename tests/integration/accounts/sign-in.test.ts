@@ -84,10 +84,10 @@ describe('sign-up', () => {
 });
 
 describe('sign-in', () => {
-  it('signs in with the right password', async () => {
+  it('signs in with the right password; a technician lands on their wheels, a lead and an apprentice on the board', async () => {
     const shop = await createTestShop();
     resetNextRequest();
-    await expectRedirect(signIn(null, { email: shop.technician.email, password: PASSWORD }), '/board');
+    await expectRedirect(signIn(null, { email: shop.technician.email, password: PASSWORD }), '/my-wheels');
     expect((await validateSessionId(cookieValue(SESSION)))?.member).toMatchObject({ userId: shop.technician.userId, role: 'technician' });
   });
 

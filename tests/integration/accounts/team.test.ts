@@ -30,7 +30,8 @@ describe('invites', () => {
     expect(await getDb().$count(invites, eq(invites.tokenHash, token))).toBe(0); // only the hash is stored
 
     resetNextRequest();
-    await expect(acceptTeamInvite(null, { token, name: 'Nia Newhand', password: 'twelve chars at least' })).rejects.toMatchObject({ digest: expect.stringContaining('/board') });
+    // A new technician starts at their wheels, as after every sign-in.
+    await expect(acceptTeamInvite(null, { token, name: 'Nia Newhand', password: 'twelve chars at least' })).rejects.toMatchObject({ digest: expect.stringContaining('/my-wheels') });
     const [created] = await getDb().select().from(users).where(eq(users.email, 'new.tech@example.test'));
     expect(created).toMatchObject({ shopId: shop.shopId, role: 'technician', name: 'Nia Newhand' });
 

@@ -1,0 +1,5 @@
+import { RouteLoading } from '@/features/ui/route-loading';
+
+export default function AuthLoading() {
+  return <RouteLoading />;
+}
