@@ -13,7 +13,8 @@ export function RingLayout({ ring, children }: { ring: ReactNode; children: Reac
   return (
     <div className="flex flex-col gap-4 landscape:grid landscape:grid-cols-2 landscape:items-center">
       <div className="landscape:[&>svg]:max-h-[calc(100dvh-5rem)]">{ring}</div>
-      <div className="flex flex-col gap-4">{children}</div>
+      {/* Portrait: the controls join the outer column, so a sticky control can rise over the ring. */}
+      <div className="flex flex-col gap-4 portrait:contents">{children}</div>
     </div>
   );
 }

@@ -127,7 +127,7 @@ export function Runner(props: RunnerProps) {
           </div>
         ) : (
           <>
-            <h1 className="text-2xl font-black">
+            <h1 className="text-xl font-black sm:text-2xl">
               <span className="text-ink-soft">Step {stepNo} of {plan.steps.length} · </span>
               {step.title}
             </h1>

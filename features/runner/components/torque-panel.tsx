@@ -17,6 +17,8 @@ import { SpecWordsBox, type SpecWords } from './spec-words';
 import { VerifyInline } from './verify-inline';
 
 const big = 'min-h-16 w-full rounded-xl px-4 text-lg font-bold';
+// A little lower than elsewhere, so ring, setting and button share a 640 px screen.
+const panelButton = ringButtonClass.replace('min-h-24', 'min-h-20');
 
 function cue(text: string, speak: boolean, vibrate: boolean) {
   if (vibrate && 'vibrate' in navigator) navigator.vibrate(40);
@@ -187,7 +189,7 @@ export function TorquePanel({
     <div className="flex flex-col gap-3">
       <RingLayout
         ring={
-          <div className="mx-auto w-full max-w-[min(100%,calc(100dvh-21rem))] landscape:max-w-none landscape:[&>svg]:max-h-[calc(100dvh-5rem)]">
+          <div className="mx-auto w-full max-w-[min(100%,calc(100dvh-22rem))] landscape:max-w-none landscape:[&>svg]:max-h-[calc(100dvh-5rem)]">
             <BoltCircle
               count={boltCount}
               order={pass.order}
@@ -202,11 +204,7 @@ export function TorquePanel({
           </div>
         }
       >
-        <p aria-live="polite" className="text-center text-lg">
-          {pass.confirmed.length} of {boltCount} bolts · next: bolt {pass.next}
-        </p>
         {big32 ? <BoltList count={boltCount} done={pass.confirmed} next={pass.next} selected={selected} flagged={flaggedBolts} onSelect={setSelected} /> : null}
-        <p className="text-center text-sm text-ink-soft landscape:hidden">Number beside the ring: the bolt. Number inside a bolt: its turn, shown for the next few. Tap a bolt to undo or correct it.</p>
         {other ? (
           pass.confirmed.includes(other) ? (
             <button
@@ -239,22 +237,25 @@ export function TorquePanel({
           <p aria-label="Current setting" className="rounded-lg bg-work-tint px-2 py-1 text-center text-lg font-black text-work-dark">
             {name} · Set {wrench.label} to {settingText}
           </p>
+          <p aria-live="polite" className="text-center text-lg">
+            {pass.confirmed.length} of {boltCount} bolts · next: bolt {pass.next}
+          </p>
           {pass.kind === 'check' && pass.next ? (
             <>
               <p className="text-center text-lg font-bold">
                 Bolt {pass.next}: {question}
               </p>
               <div className="grid grid-cols-2 gap-2">
-                <button type="button" onClick={(e) => confirm(e.timeStamp, pass.next!, true)} className={`${ringButtonClass} bg-caution! text-caution-ink!`}>
+                <button type="button" onClick={(e) => confirm(e.timeStamp, pass.next!, true)} className={`${panelButton} bg-caution! text-caution-ink!`}>
                   Turned
                 </button>
-                <button type="button" onClick={(e) => confirm(e.timeStamp, pass.next!, false)} className={ringButtonClass}>
+                <button type="button" onClick={(e) => confirm(e.timeStamp, pass.next!, false)} className={panelButton}>
                   Didn&apos;t turn
                 </button>
               </div>
             </>
           ) : (
-            <button type="button" onClick={(e) => pass.next && confirm(e.timeStamp, pass.next)} className={ringButtonClass}>
+            <button type="button" onClick={(e) => pass.next && confirm(e.timeStamp, pass.next)} className={panelButton}>
               {word} — bolt {pass.next}
             </button>
           )}
@@ -263,16 +264,17 @@ export function TorquePanel({
               type="button"
               disabled={!last}
               onClick={() => last && void record({ type: 'bolt_undone', payload: last })}
-              className="min-h-14 rounded-xl border-2 border-ink px-2 font-bold disabled:opacity-40"
+              className="min-h-12 rounded-xl border-2 border-ink px-2 font-bold disabled:opacity-40"
             >
               Undo last bolt{last ? ` (${last.bolt})` : ''}
             </button>
-            <button type="button" onClick={() => setProblem(true)} className="min-h-14 rounded-xl border-2 border-danger px-2 font-bold text-danger">
+            <button type="button" onClick={() => setProblem(true)} className="min-h-12 rounded-xl border-2 border-danger px-2 font-bold text-danger">
               Problem with this bolt
             </button>
           </div>
         </div>
       </RingLayout>
+      <p className="text-center text-sm text-ink-soft">Number beside the ring: the bolt. Number inside a bolt: its turn, shown for the next few. Tap a bolt to undo or correct it.</p>
       <Caution items={cautions} />
     </div>
   );
