@@ -1,7 +1,7 @@
 import 'server-only';
 import { and, eq, inArray, isNull, sql } from 'drizzle-orm';
 import { getDb } from '@/db';
-import { jobs, jobWheels, refusedRunEvents, wheelRunEvents, wheelSpecs, wrenches, type WheelSnapshot } from '@/db/schema';
+import { jobs, jobWheels, refusedRunEvents, wheelPhotos, wheelRunEvents, wheelSpecs, wrenches, type WheelSnapshot } from '@/db/schema';
 import type { Member } from '@/server/auth/session';
 import { DomainError } from '@/server/errors';
 import { clampClientAt } from '../clock-window';
@@ -118,6 +118,25 @@ async function storedTurnedPasses(tx: Tx, shopId: string, wheelId: string, event
   return new Set(rows.map((r) => Number(r.pass)));
 }
 
+/** Which photo ids named by flagged bolts are photos of this wheel. */
+async function wheelPhotoIds(tx: Tx, shopId: string, wheelId: string, events: readonly ClientEvent[]): Promise<Set<string>> {
+  const ids = events.flatMap((e) => (e.type === 'bolt_flagged' && e.payload.photoId ? [e.payload.photoId] : []));
+  if (!ids.length) return new Set();
+  const rows = await tx.select({ id: wheelPhotos.id }).from(wheelPhotos).where(and(eq(wheelPhotos.shopId, shopId), eq(wheelPhotos.wheelId, wheelId), inArray(wheelPhotos.id, ids)));
+  return new Set(rows.map((r) => r.id));
+}
+
+/**
+ * A flagged bolt is never refused over its photo (the stop matters more), but a photo id that is
+ * not a photo of this wheel is not kept, so the record cannot point at another wheel's or shop's photo.
+ */
+function withoutForeignPhoto<E extends ClientEvent>(e: E, photos: ReadonlySet<string>): E {
+  if (e.type !== 'bolt_flagged' || !e.payload.photoId || photos.has(e.payload.photoId)) return e;
+  const payload = { ...e.payload };
+  delete payload.photoId;
+  return { ...e, payload };
+}
+
 /** A bolt that turned on the last check pass allowed: no pass follows, so the wheel goes to a lead. */
 const stillTurning = (e: ClientEvent, snapshot: WheelSnapshot) =>
   e.type === 'bolt_confirmed' && e.payload.turned === true && snapshot.plan.passes.at(-1)?.kind === 'check' && e.payload.pass === maxPassIndex(snapshot.plan.passes);
@@ -181,7 +200,8 @@ export async function saveWheelBatch(member: Member, wheelId: string, raw: unkno
         else if (e.type === 'bolt_confirmed' && e.payload.turned) turnedPasses.add(e.payload.pass);
         return !why;
       });
-      const fresh = await insertAccepted(tx, member, ctx, accepted, snapshot, refuse);
+      const photos = await wheelPhotoIds(tx, member.shopId, wheelId, accepted);
+      const fresh = await insertAccepted(tx, member, ctx, accepted.map((e) => withoutForeignPhoto(e, photos)), snapshot, refuse);
       stored = fresh.size;
       await countWrenchCycles(tx, member.shopId, accepted.filter((e) => fresh.has(e.clientId)));
       // A failed inspection, a flagged bolt or a bolt still turning on the last check pass stops the wheel for a lead (the first reason stays).

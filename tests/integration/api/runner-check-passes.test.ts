@@ -6,7 +6,7 @@ import { POST as CREATE_JOB } from '@/app/api/jobs/route';
 import { GET } from '@/app/api/wheels/[wheelId]/events/route';
 import { POST as SUBMIT } from '@/app/api/wheels/[wheelId]/submit/route';
 import { getDb } from '@/db';
-import { jobWheels, wheelRunEvents, wrenches } from '@/db/schema';
+import { jobWheels, wheelPhotos, wheelRunEvents, wrenches } from '@/db/schema';
 import { getJob } from '@/features/jobs/server/jobs';
 import { apiRequest, cookieFor, createTestShop, params } from '@/tests/helpers/factories';
 import { actAs } from '@/tests/helpers/next-request';
@@ -50,6 +50,20 @@ describe('a bolt that stops the wheel (bolt_flagged)', () => {
     expect(res.status).toBe(409);
     const body = (await res.json()) as { error: { fields: { submit: string[] } } };
     expect(body.error.fields.submit[0]).toBe('A bolt stopped the wheel: Bolt 13 (pass 1): stripped thread. A lead must look at this wheel.');
+  });
+
+  it("keeps a photo of this wheel with the flag, and drops an id that is not one (the flag itself still stops the wheel)", async () => {
+    const [photo] = await getDb()
+      .insert(wheelPhotos)
+      .values({ shopId: shop.shopId, jobId, wheelId, kind: 'other', note: 'bolt 5', fileKey: `k-${randomUUID()}`, url: 'https://files.test/x.jpg', bytes: 10, mime: 'image/jpeg', uploadedById: shop.technician.userId })
+      .returning({ id: wheelPhotos.id });
+    const mine = { type: 'bolt_flagged', payload: { bolt: 5, problem: 'snapped', photoId: photo!.id }, clientId: randomUUID(), clientAt: at() };
+    const foreign = { type: 'bolt_flagged', payload: { bolt: 6, problem: 'spins', photoId: randomUUID() }, clientId: randomUUID(), clientAt: at() };
+    expect(await post([mine, foreign])).toMatchObject({ ok: true, data: { saved: 2, refused: [] } });
+    const rows = await getDb().select({ clientId: wheelRunEvents.clientId, payload: wheelRunEvents.payload }).from(wheelRunEvents).where(eq(wheelRunEvents.wheelId, wheelId));
+    expect(rows.find((r) => r.clientId === mine.clientId)!.payload).toEqual(mine.payload);
+    expect(rows.find((r) => r.clientId === foreign.clientId)!.payload).toEqual({ bolt: 6, problem: 'spins' });
+    expect((await state()).flaggedBolts).toHaveLength(2);
   });
 
   it('"other" without a note is refused alone and flags nothing', async () => {
