@@ -19,8 +19,8 @@ export default defineConfig({
   reporter: [['list'], ['json', { outputFile: '.data/reports/e2e.json' }]],
   use: { baseURL, trace: 'retain-on-failure', launchOptions: chromium },
   projects: [
-    { name: 'desktop', use: { ...devices['Desktop Chrome'], launchOptions: chromium }, testIgnore: /(mobile|runner|runner-procedure)\.spec/ },
-    { name: 'phone', use: { ...devices['Pixel 5'], viewport: { width: 360, height: 640 }, launchOptions: chromium }, testMatch: /(mobile|runner|runner-procedure)\.spec/ },
+    { name: 'desktop', use: { ...devices['Desktop Chrome'], launchOptions: chromium }, testIgnore: /(mobile|my-wheels|runner|runner-procedure)\.spec/ },
+    { name: 'phone', use: { ...devices['Pixel 5'], viewport: { width: 360, height: 640 }, launchOptions: chromium }, testMatch: /(mobile|my-wheels|runner|runner-procedure)\.spec/ },
   ],
   webServer: {
     // Builds the app into .next-e2e and serves it against its own database and mail sink.

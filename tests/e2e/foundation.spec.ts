@@ -1,7 +1,7 @@
 import { expect, test } from '@playwright/test';
 import { invite, PASSWORD, signIn, signUp, uniqueEmail } from './helpers';
 
-test('a lead signs up, invites a technician by e-mail; the technician accepts, signs in and lands on the empty board', async ({ page, browser }) => {
+test('a lead signs up, invites a technician by e-mail; the technician accepts, signs in and lands on their (empty) wheels; the board is one tap away', async ({ page, browser }) => {
   const lead = uniqueEmail('lead');
   const tech = uniqueEmail('tech');
   await signUp(page, 'Sandwash Tire & Wheel', 'Petra Lug', lead);
@@ -23,15 +23,18 @@ test('a lead signs up, invites a technician by e-mail; the technician accepts, s
   await techPage.getByLabel('Your name').fill('Kai Bead');
   await techPage.getByLabel('Choose a password').fill(PASSWORD);
   await techPage.getByRole('button', { name: 'Join the shop' }).click();
-  await expect(techPage.getByRole('heading', { name: 'Board' })).toBeVisible();
+  await expect(techPage.getByRole('heading', { name: 'My wheels' })).toBeVisible();
   await expect(techPage.getByText('Signed in as Kai Bead (Technician)')).toBeVisible();
 
-  // Sign out ends the session; signing in again lands on the board, still empty.
+  // Sign out ends the session; signing in again lands on My wheels, still empty.
   await techPage.getByRole('button', { name: 'Sign out' }).click();
   await expect(techPage.getByRole('heading', { name: 'Sign in' })).toBeVisible();
   await techPage.goto('/board');
   await expect(techPage.getByRole('heading', { name: 'Sign in' })).toBeVisible();
   await signIn(techPage, tech);
+  await expect(techPage.getByRole('heading', { name: 'My wheels' })).toBeVisible();
+  await expect(techPage.getByText('No wheels waiting for you')).toBeVisible();
+  await techPage.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Board' }).click();
   await expect(techPage.getByRole('heading', { name: 'Board' })).toBeVisible();
   // A technician's board shows their own work by default; nothing is assigned yet.
   await expect(techPage.getByText('No job cards assigned to you yet')).toBeVisible();

@@ -49,7 +49,8 @@ export async function inviteAndJoin(page: Page, browser: Browser, email: string,
   await joined.getByLabel('Your name').fill(name);
   await joined.getByLabel('Choose a password').fill(PASSWORD);
   await joined.getByRole('button', { name: 'Join the shop' }).click();
-  await expect(joined.getByRole('heading', { name: 'Board' })).toBeVisible();
+  // A technician starts at their wheels; leads and apprentices at the board.
+  await expect(joined.getByRole('heading', { name: role === 'Technician' ? 'My wheels' : 'Board' })).toBeVisible();
   return { context, page: joined };
 }
 

@@ -9,17 +9,19 @@ const control = 'min-h-touch rounded-lg border-2 border-ink-soft bg-paper px-3 t
 
 // Tailwind's `sm` breakpoint: below it the filters fold behind one button so cards come first.
 const WIDE = '(min-width: 640px)';
+// Without matchMedia (a test DOM) the answer stays unknown and the CSS decides.
+const media = () => (typeof window.matchMedia === 'function' ? window.matchMedia(WIDE) : null);
 const subscribeWide = (onChange: () => void) => {
-  const query = window.matchMedia(WIDE);
-  query.addEventListener('change', onChange);
-  return () => query.removeEventListener('change', onChange);
+  const query = media();
+  query?.addEventListener('change', onChange);
+  return () => query?.removeEventListener('change', onChange);
 };
 
 /** Wide screen or not; the server does not know, so it renders CSS that decides until hydration. */
 function useWide(): boolean | null {
   return useSyncExternalStore(
     subscribeWide,
-    () => window.matchMedia(WIDE).matches,
+    () => media()?.matches ?? null,
     () => null,
   );
 }

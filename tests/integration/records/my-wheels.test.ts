@@ -14,7 +14,7 @@ describe('My wheels', () => {
     const shop = await createTestShop();
     const db = getDb();
     const { spec, customer, vehicle, job: noDue } = await createRecords(shop.lead, shop.technician.userId);
-    const newJob = (assigneeId: string | null) =>
+    const newJob = (assigneeId: string) =>
       createJob(shop.lead, { customerId: customer.id, vehicleId: vehicle.id, wheels: fourWheels(spec.id).slice(0, 2), dismount: true, reinstall: true, assigneeId, notes: '', acceptAxleMismatch: false });
     const later = await newJob(shop.technician.userId);
     const soon = await newJob(shop.technician.userId);
