@@ -116,6 +116,12 @@ describe('check passes past the plan (added when a bolt turned on the check pass
     expect(added.map((p) => p.target)).toEqual([{ value: 12, unit: 'lbf-ft' }, { value: 12, unit: 'lbf-ft' }, { value: 12, unit: 'lbf-ft' }]);
   });
 
+  it("a wrench chosen for an added check pass goes through the same gate as the check pass's (an unverified wrench is refused)", async () => {
+    await post([confirm(3, CHECK, { turned: true })]);
+    const chosen = { type: 'wrench_chosen', payload: { pass: CHECK + 1, wrenchId }, clientId: randomUUID(), clientAt: at() };
+    expect(await post([chosen])).toMatchObject({ ok: true, data: { saved: 0, refused: [{ index: 0, message: expect.stringMatching(/^Test click 20–200 in-lb may not be used for pass 5: /) }] } });
+  });
+
   it('a bolt still turning on the tenth check pass (pass 13 of a 4-pass plan) stops the wheel for a lead', async () => {
     const laps = Array.from({ length: 10 }, (_, k) => confirm(1, CHECK + k, { turned: true }));
     expect(await post(laps)).toMatchObject({ ok: true, data: { saved: 10, refused: [] } });
