@@ -1,7 +1,8 @@
 import 'server-only';
 import { axleWarnings } from '@/features/jobs/axle-check';
 import type { ReviewSources } from '@/features/review/server/review-data';
-import { REQUIRED_PHOTOS, stepsFor } from '@/features/runner/steps';
+import { REQUIRED_PHOTOS } from '@/features/runner/photo-kinds';
+import { stepsFor } from '@/features/runner/steps';
 
 /** Where the review meets the runner (its steps and required photos) and the jobs feature (its axle check). */
 export const reviewSources: ReviewSources = {

@@ -1,8 +1,9 @@
 import { z } from 'zod';
 import { PRESSURE_UNITS, TORQUE_UNITS } from '@/features/torque-plan';
 import { cleanString, isoDateTime } from '@/features/ui/bounded';
+import { STEP_IDS } from './steps';
 
-const step = z.enum(['safety', 'dismount', 'inspect', 'clean', 'mount', 'index', 'hand_start', 'torque', 'seat_bead', 'leak_check', 'reinstall', 'submit']);
+const step = z.enum(STEP_IDS);
 const bolt = z.number().int().min(1).max(64);
 /**
  * The most check passes a wheel may have in all: the plan's one, then one more each time a bolt of

@@ -1,5 +1,6 @@
 import { handStartOrder } from '@/features/torque-plan';
 import { boltFlagReason, MAX_CHECK_PASSES, type BoltProblem, type ClientEvent } from './events';
+import { missingPhotos, PHOTO_KIND_INFO } from './photo-kinds';
 import type { Step, StepId } from './steps';
 
 export type RunnerPass = { index: number; kind: 'staged' | 'check'; order: number[] };
@@ -209,8 +210,9 @@ export function submitBlockers(plan: RunnerPlan, state: RunnerState, photoKinds:
   for (const s of plan.steps) {
     if (s.id !== 'submit' && state.status[s.id] === 'todo') blockers.push(`Step not finished: ${s.title}.`);
   }
-  for (const kind of ['bead_outer', 'bead_inner']) {
-    if (!photoKinds.includes(kind)) blockers.push(kind === 'bead_outer' ? 'Photo missing: seated bead, outer face.' : 'Photo missing: seated bead, inner face.');
+  for (const kind of missingPhotos(photoKinds)) {
+    const label = PHOTO_KIND_INFO[kind].label;
+    blockers.push(`Photo missing: ${label.charAt(0).toLowerCase()}${label.slice(1)}.`);
   }
   return blockers;
 }

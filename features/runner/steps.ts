@@ -3,19 +3,9 @@
  * practice mode read the same list. Cautions are best practice (OSHA 29 CFR 1910.177 covers rim
  * wheels of large vehicles; bolted wheels without a lock ring may fall outside its letter).
  */
-export type StepId =
-  | 'safety'
-  | 'dismount'
-  | 'inspect'
-  | 'clean'
-  | 'mount'
-  | 'index'
-  | 'hand_start'
-  | 'torque'
-  | 'seat_bead'
-  | 'leak_check'
-  | 'reinstall'
-  | 'submit';
+/** Every step, in procedure order: the one list events, the runner and the review name steps from. */
+export const STEP_IDS = ['safety', 'dismount', 'clean', 'inspect', 'mount', 'index', 'hand_start', 'torque', 'seat_bead', 'leak_check', 'reinstall', 'submit'] as const;
+export type StepId = (typeof STEP_IDS)[number];
 
 export type Step = {
   id: StepId;
@@ -24,8 +14,6 @@ export type Step = {
   checklist: { id: string; text: string }[];
   /** A reading to record, in pressure units. */
   measurement?: { label: string; kind: 'pressure' };
-  /** Photos this step asks for. */
-  photos?: { kind: 'bead_outer' | 'bead_inner'; label: string }[];
   /** The step cannot be skipped (safety, the passes, the bead). */
   required?: boolean;
 };
@@ -138,10 +126,6 @@ const ALL: Step[] = [
       { id: 'ring-gap', text: 'Ring gap even all round.' },
     ],
     measurement: { label: 'Highest pressure used to seat the bead', kind: 'pressure' },
-    photos: [
-      { kind: 'bead_outer', label: 'Seated bead, outer face' },
-      { kind: 'bead_inner', label: 'Seated bead, inner face' },
-    ],
   },
   {
     id: 'leak_check',
@@ -170,5 +154,3 @@ const ALL: Step[] = [
 export function stepsFor(job: { dismount: boolean; reinstall: boolean }): Step[] {
   return ALL.filter((s) => (s.id !== 'dismount' || job.dismount) && (s.id !== 'reinstall' || job.reinstall));
 }
-
-export const REQUIRED_PHOTOS = ['bead_outer', 'bead_inner'] as const;

@@ -2,17 +2,16 @@
 
 import { useState } from 'react';
 import { downscale, oursOnly, UploadButton } from '../api/upload-photo';
+import { PHOTO_KIND_INFO, PHOTO_KINDS } from '../photo-kinds';
 import type { WheelPhoto } from '../server/photo-router';
 
 export type Photo = WheelPhoto;
-
-const LABELS: Record<Photo['kind'], string> = { bead_outer: 'Seated bead, outer face', bead_inner: 'Seated bead, inner face', other: 'Other photo' };
 
 /** Take or pick a photo, shrink it, upload it with a progress bar, show the thumbnail. */
 export function PhotoCapture({ wheelId, photos, onAdded }: { wheelId: string; photos: Photo[]; onAdded: (p: Photo) => void }) {
   return (
     <section aria-label="Photos" className="flex flex-col gap-3">
-      {(['bead_outer', 'bead_inner', 'other'] as const).map((kind) => (
+      {PHOTO_KINDS.map((kind) => (
         <PhotoSlot key={kind} wheelId={wheelId} kind={kind} photos={photos.filter((p) => p.kind === kind)} onAdded={onAdded} />
       ))}
     </section>
@@ -23,7 +22,7 @@ function PhotoSlot({ wheelId, kind, photos, onAdded }: { wheelId: string; kind: 
   const [progress, setProgress] = useState<number | null>(null);
   const [message, setMessage] = useState<string | null>(null);
   const [note, setNote] = useState('');
-  const title = `${LABELS[kind]}${kind !== 'other' ? ' (required)' : ''}`;
+  const title = `${PHOTO_KIND_INFO[kind].label}${PHOTO_KIND_INFO[kind].required ? ' (required)' : ''}`;
   const done = (text: string | null) => {
     setProgress(null);
     setMessage(text);
@@ -36,7 +35,7 @@ function PhotoSlot({ wheelId, kind, photos, onAdded }: { wheelId: string; kind: 
       <div className="flex flex-wrap gap-2">
         {photos.map((p) => (
           // eslint-disable-next-line @next/next/no-img-element -- evidence served by the upload service, shown as is
-          <img key={p.id} src={p.url} alt={`${LABELS[p.kind]}${p.note ? `: ${p.note}` : ''}`} className="size-24 rounded-lg border-2 border-ink object-cover" />
+          <img key={p.id} src={p.url} alt={`${PHOTO_KIND_INFO[p.kind].label}${p.note ? `: ${p.note}` : ''}`} className="size-24 rounded-lg border-2 border-ink object-cover" />
         ))}
       </div>
       <UploadButton
@@ -74,7 +73,7 @@ function PhotoSlot({ wheelId, kind, photos, onAdded }: { wheelId: string; kind: 
           allowedContent: 'JPEG, PNG or WebP photo, at most 10 MB; shrunk on this phone first.',
         }}
       />
-      {progress !== null ? <progress max={100} value={progress} aria-label={`Uploading ${LABELS[kind]}`} className="h-4 w-full" /> : null}
+      {progress !== null ? <progress max={100} value={progress} aria-label={`Uploading ${PHOTO_KIND_INFO[kind].label}`} className="h-4 w-full" /> : null}
       {message ? (
         <p role="alert" className="font-bold text-danger">
           {message}

@@ -5,6 +5,7 @@ import { useEffect, useMemo, useState } from 'react';
 import { arrowDirection, type PressureUnit, type RecordedVerification, type Torque, type WheelPosition } from '@/features/torque-plan';
 import { useRunQueue, type SaveEvents } from '../api/use-run-queue';
 import type { ClientEvent } from '../events';
+import { missingPhotos } from '../photo-kinds';
 import { useRunnerSettings } from '../settings-store';
 import { reduceRun, type RunnerPlan } from '../state';
 import type { CribWrench, WrenchRules } from '../wrench-gate';
@@ -147,7 +148,7 @@ export function Runner(props: RunnerProps) {
                 limit={step.id === 'seat_bead' ? { value: props.spec.maxBeadSeatPressure, unit: props.spec.pressureUnit } : undefined}
                 readingUnit={wheel.pressureUnit}
                 target={step.id === 'leak_check' ? { value: wheel.targetPressure, unit: wheel.pressureUnit } : undefined}
-                blocked={step.id === 'seat_bead' && !(photoKinds.includes('bead_outer') && photoKinds.includes('bead_inner')) ? 'Add both bead photos first.' : undefined}
+                blocked={step.id === 'seat_bead' && missingPhotos(photoKinds).length ? 'Add both bead photos first.' : undefined}
                 extra={
                   step.id === 'mount' && wheel.directional ? (
                     <p className="rounded-xl border-2 border-work bg-work-tint p-3 text-lg font-bold text-work-dark">{arrowDirection(wheel.position).instruction}</p>

@@ -4,6 +4,7 @@ import { useState } from 'react';
 import { chooseWrench, formatTorque, UNIT_LABELS, type Torque, type Wrench } from '@/features/torque-plan';
 import { useShopTime } from '@/features/ui/shop-time-zone';
 import { formatDuration } from '../duration';
+import { PHOTO_KIND_INFO, REQUIRED_PHOTOS } from '../photo-kinds';
 import { submitBlockers, type RunnerPlan, type RunnerState } from '../state';
 
 /** The wheel at a glance before it is submitted: passes, wrench and setting, anomalies, time per step. */
@@ -58,7 +59,7 @@ export function SummaryPanel({ wheelId, plan, state, targets, wrenches, minFract
         )}
       </section>
       <p>
-        Photos: {photoKinds.includes('bead_outer') ? 'outer bead ✓' : 'outer bead missing'} · {photoKinds.includes('bead_inner') ? 'inner bead ✓' : 'inner bead missing'}
+        Photos: {REQUIRED_PHOTOS.map((kind) => `${PHOTO_KIND_INFO[kind].short} ${photoKinds.includes(kind) ? '✓' : 'missing'}`).join(' · ')}
         {photoKinds.filter((k) => k === 'other').length ? ` · ${photoKinds.filter((k) => k === 'other').length} other` : ''}
       </p>
       <section aria-labelledby="times-h">

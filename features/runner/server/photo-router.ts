@@ -8,6 +8,7 @@ import { jobWheels, wheelPhotos } from '@/db/schema';
 import { cleanString } from '@/features/ui/bounded';
 import { requireMemberForRequest } from '@/server/auth/guard';
 import { DomainError } from '@/server/errors';
+import { PHOTO_KINDS, type PhotoKind } from '../photo-kinds';
 import { photoPath } from '../photo-path';
 import { inspectPhotoStream } from './photo-check';
 import { assertMayRun, loadWheel } from './run';
@@ -16,7 +17,7 @@ const f = createUploadthing();
 
 export const photoInput = z.object({
   wheelId: z.uuid(),
-  kind: z.enum(['bead_outer', 'bead_inner', 'other']),
+  kind: z.enum(PHOTO_KINDS),
   note: cleanString('the note', 300).default(''),
 });
 
@@ -66,7 +67,7 @@ export const photoRouter = {
 export type PhotoRouter = typeof photoRouter;
 
 /** `url` is the app's own photo route (session and shop checked), never the storage's address. */
-export type WheelPhoto = { id: string; kind: 'bead_outer' | 'bead_inner' | 'other'; note: string; url: string };
+export type WheelPhoto = { id: string; kind: PhotoKind; note: string; url: string };
 
 export async function listPhotos(shopId: string, wheelId: string): Promise<WheelPhoto[]> {
   const rows = await getDb()
