@@ -5,8 +5,8 @@ import type { JobCard } from '../server/jobs';
 import { STATE_LABELS } from '../transitions';
 import { StateBadge } from './state-badge';
 
-type Thumb = { id: string; kind: string; note: string; url: string };
-const PHOTO_LABELS: Record<string, string> = { bead_outer: 'Seated bead, outer face', bead_inner: 'Seated bead, inner face', other: 'Other photo' };
+/** `label` comes with the photo from the runner's photo list (features meet in the page). */
+type Thumb = { id: string; kind: string; note: string; url: string; label: string };
 
 export function JobDetails({ job, canRun = false, photos = {} }: { job: JobCard; canRun?: boolean; photos?: Record<string, Thumb[]> }) {
   return (
@@ -59,7 +59,7 @@ export function JobDetails({ job, canRun = false, photos = {} }: { job: JobCard;
                   {photos[w.id]!.map((p) => (
                     <a key={p.id} href={p.url} target="_blank" rel="noreferrer">
                       {/* eslint-disable-next-line @next/next/no-img-element -- evidence served by the upload service */}
-                      <img src={p.url} alt={`${PHOTO_LABELS[p.kind] ?? 'Photo'}${p.note ? `: ${p.note}` : ''}`} className="size-20 rounded-lg border-2 border-ink object-cover" />
+                      <img src={p.url} alt={`${p.label}${p.note ? `: ${p.note}` : ''}`} className="size-20 rounded-lg border-2 border-ink object-cover" />
                     </a>
                   ))}
                 </div>

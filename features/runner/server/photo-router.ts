@@ -8,7 +8,7 @@ import { jobWheels, wheelPhotos } from '@/db/schema';
 import { cleanString } from '@/features/ui/bounded';
 import { requireMemberForRequest } from '@/server/auth/guard';
 import { DomainError } from '@/server/errors';
-import { PHOTO_KINDS, type PhotoKind } from '../photo-kinds';
+import { PHOTO_KIND_INFO, PHOTO_KINDS, type PhotoKind } from '../photo-kinds';
 import { photoPath } from '../photo-path';
 import { inspectPhotoStream } from './photo-check';
 import { assertMayRun, loadWheel } from './run';
@@ -78,12 +78,13 @@ export async function listPhotos(shopId: string, wheelId: string): Promise<Wheel
 }
 
 /** Every wheel's photos of a job in one read, keyed by wheel id (for the job card's thumbnails). */
-export async function listJobPhotos(shopId: string, jobId: string): Promise<Record<string, WheelPhoto[]>> {
+/** A job's photos by wheel, each with its caption from the one photo list (the job card shows them). */
+export async function listJobPhotos(shopId: string, jobId: string): Promise<Record<string, (WheelPhoto & { label: string })[]>> {
   const rows = await getDb()
     .select({ wheelId: wheelPhotos.wheelId, id: wheelPhotos.id, kind: wheelPhotos.kind, note: wheelPhotos.note })
     .from(wheelPhotos)
     .where(and(eq(wheelPhotos.shopId, shopId), eq(wheelPhotos.jobId, jobId)));
-  const byWheel: Record<string, WheelPhoto[]> = {};
-  for (const { wheelId, ...photo } of rows) (byWheel[wheelId] ??= []).push({ ...photo, url: photoPath(photo.id) });
+  const byWheel: Record<string, (WheelPhoto & { label: string })[]> = {};
+  for (const { wheelId, ...photo } of rows) (byWheel[wheelId] ??= []).push({ ...photo, url: photoPath(photo.id), label: PHOTO_KIND_INFO[photo.kind].label });
   return byWheel;
 }
