@@ -1,6 +1,6 @@
 'use client';
 
-import { useState } from 'react';
+import { useState, type ReactNode } from 'react';
 import { BOLT_PROBLEMS, type BoltProblem, type RunEvent } from '../events';
 
 const WORDS: Record<BoltProblem, string> = {
@@ -17,7 +17,10 @@ const big = 'min-h-14 w-full rounded-xl px-4 text-lg font-bold';
  * "Problem with this bolt": what is wrong, an optional note, and the wheel stops, flagged for a
  * lead with the bolt marked on the circle. A damaged bolt or thread is never torqued past.
  */
-export function BoltProblemForm({ bolt, pass, record, onCancel }: { bolt: number; pass?: number; record: (e: RunEvent) => Promise<void>; onCancel: () => void }) {
+export type PhotoSlotFor = (onAdded: (photoId: string) => void) => ReactNode;
+
+export function BoltProblemForm({ bolt, pass, record, onCancel, photoSlot }: { bolt: number; pass?: number; record: (e: RunEvent) => Promise<void>; onCancel: () => void; /** An optional photo of the bolt (the runner hands an upload slot down). */ photoSlot?: PhotoSlotFor }) {
+  const [photoId, setPhotoId] = useState<string | null>(null);
   const [problem, setProblem] = useState<BoltProblem | null>(null);
   const [note, setNote] = useState('');
   const needsNote = problem === 'other' && note.trim().length < 3;
@@ -37,6 +40,7 @@ export function BoltProblemForm({ bolt, pass, record, onCancel }: { bolt: number
         Note {problem === 'other' ? '(say what is wrong)' : '(optional)'}
       </label>
       <input id="bolt-problem-note" value={note} maxLength={300} onChange={(e) => setNote(e.target.value)} className="min-h-14 rounded-xl border-2 border-ink-soft bg-white px-3 text-lg" />
+      {photoSlot ? photoSlot(setPhotoId) : null}
       <div className="grid grid-cols-2 gap-2">
         <button type="button" onClick={onCancel} className={`${big} border-2 border-ink bg-white`}>
           Cancel
@@ -44,7 +48,7 @@ export function BoltProblemForm({ bolt, pass, record, onCancel }: { bolt: number
         <button
           type="button"
           disabled={!problem || needsNote}
-          onClick={() => problem && void record({ type: 'bolt_flagged', payload: { bolt, ...(pass ? { pass } : {}), problem, ...(note.trim() ? { note: note.trim() } : {}) } })}
+          onClick={() => problem && void record({ type: 'bolt_flagged', payload: { bolt, ...(pass ? { pass } : {}), problem, ...(note.trim() ? { note: note.trim() } : {}), ...(photoId ? { photoId } : {}) } })}
           className={`${big} bg-danger text-white disabled:opacity-40`}
         >
           Stop the wheel and flag it

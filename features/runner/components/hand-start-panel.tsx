@@ -4,7 +4,7 @@ import { useState } from 'react';
 import { BoltCircle, LIST_FROM } from '@/features/bolt-circle/bolt-circle';
 import { BoltList } from '@/features/bolt-circle/bolt-list';
 import type { RunEvent } from '../events';
-import { BoltProblemForm } from './bolt-problem';
+import { BoltProblemForm, type PhotoSlotFor } from './bolt-problem';
 import { Caution } from './caution';
 import { RingLayout, ringButtonClass } from './ring-layout';
 import { SpecWordsBox, type SpecWords } from './spec-words';
@@ -22,6 +22,7 @@ export function HandStartPanel({
   record,
   specWords,
   flaggedBolts = [],
+  photoSlot,
 }: {
   boltCount: number;
   started: number[];
@@ -31,10 +32,11 @@ export function HandStartPanel({
   record: (e: RunEvent) => Promise<void>;
   specWords?: SpecWords;
   flaggedBolts?: readonly number[];
+  photoSlot?: PhotoSlotFor;
 }) {
   const [problem, setProblem] = useState(false);
   const toggle = (bolt: number) => void record({ type: started.includes(bolt) ? 'hand_unstarted' : 'hand_started', payload: { bolt } });
-  if (problem) return <BoltProblemForm bolt={next ?? started.at(-1) ?? 1} record={record} onCancel={() => setProblem(false)} />;
+  if (problem) return <BoltProblemForm bolt={next ?? started.at(-1) ?? 1} record={record} onCancel={() => setProblem(false)} photoSlot={photoSlot} />;
   return (
     <div className="flex flex-col gap-4">
       <SpecWordsBox words={specWords} />

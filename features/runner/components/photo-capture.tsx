@@ -18,7 +18,8 @@ export function PhotoCapture({ wheelId, photos, onAdded }: { wheelId: string; ph
   );
 }
 
-function PhotoSlot({ wheelId, kind, photos, onAdded }: { wheelId: string; kind: Photo['kind']; photos: Photo[]; onAdded: (p: Photo) => void }) {
+/** One photo slot; the bolt-problem form uses an 'other' slot for a photo of the damaged bolt. */
+export function PhotoSlot({ wheelId, kind, photos, onAdded }: { wheelId: string; kind: Photo['kind']; photos: Photo[]; onAdded: (p: Photo) => void }) {
   const [progress, setProgress] = useState<number | null>(null);
   const [message, setMessage] = useState<string | null>(null);
   const [note, setNote] = useState('');

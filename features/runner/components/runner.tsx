@@ -10,7 +10,7 @@ import { useRunnerSettings } from '../settings-store';
 import { reduceRun, type RunnerPlan } from '../state';
 import type { CribWrench, WrenchRules } from '../wrench-gate';
 import { HandStartPanel } from './hand-start-panel';
-import { PhotoCapture, type Photo } from './photo-capture';
+import { PhotoCapture, PhotoSlot, type Photo } from './photo-capture';
 import { NeedsAttention } from './needs-attention';
 import { ReinstallPanel } from './reinstall-panel';
 import { ReworkNote } from './rework-note';
@@ -66,6 +66,18 @@ export function Runner(props: RunnerProps) {
   const wake = useWakeLock();
   const step = plan.steps.find((s) => s.id === state.current) ?? plan.steps.at(-1)!;
   const stepNo = plan.steps.indexOf(step) + 1;
+  // A photo of a damaged bolt goes up as an 'other' photo of the wheel; the flag carries its id.
+  const boltPhoto = (onAdded: (photoId: string) => void) => (
+    <PhotoSlot
+      wheelId={wheel.id}
+      kind="other"
+      photos={[]}
+      onAdded={(p) => {
+        setPhotos((all) => [...all, p]);
+        onAdded(p.id);
+      }}
+    />
+  );
   const flaggedBolts = useMemo(() => state.flaggedBolts.map((f) => f.bolt), [state.flaggedBolts]);
 
   // The service worker keeps a copy of this page so it reloads without Wi-Fi.
@@ -133,9 +145,9 @@ export function Runner(props: RunnerProps) {
               {step.title}
             </h1>
             {step.id === 'hand_start' ? (
-              <HandStartPanel boltCount={plan.boltCount} started={state.handStarted} next={state.nextHandStart} cautions={step.cautions} record={record} specWords={props.spec.words} flaggedBolts={flaggedBolts} />
+              <HandStartPanel boltCount={plan.boltCount} started={state.handStarted} next={state.nextHandStart} cautions={step.cautions} record={record} specWords={props.spec.words} flaggedBolts={flaggedBolts} photoSlot={boltPhoto} />
             ) : step.id === 'torque' ? (
-              <TorquePanel state={state} targets={props.targets} wrenches={props.wrenches} verifications={props.verifications} rules={props.rules} cautions={step.cautions} boltCount={plan.boltCount} record={record} specWords={props.spec.words} flaggedBolts={flaggedBolts} />
+              <TorquePanel state={state} targets={props.targets} wrenches={props.wrenches} verifications={props.verifications} rules={props.rules} cautions={step.cautions} boltCount={plan.boltCount} record={record} specWords={props.spec.words} flaggedBolts={flaggedBolts} photoSlot={boltPhoto} />
             ) : step.id === 'submit' ? (
               <SummaryPanel wheelId={wheel.id} plan={plan} state={state} targets={props.targets} wrenches={props.wrenches} minFractionOfMax={props.rules.minFractionOfMax} photoKinds={photoKinds} />
             ) : step.id === 'reinstall' ? (

@@ -9,7 +9,7 @@ import type { RunEvent } from '../events';
 import type { PassProgress, RunnerState } from '../state';
 import { useRunnerSettings } from '../settings-store';
 import { passWrench, type CribWrench, type WrenchRules } from '../wrench-gate';
-import { BoltProblemForm } from './bolt-problem';
+import { BoltProblemForm, type PhotoSlotFor } from './bolt-problem';
 import { Caution } from './caution';
 import { RingLayout, ringButtonClass } from './ring-layout';
 import { SettingCard } from './setting-card';
@@ -58,6 +58,7 @@ export function TorquePanel({
   record,
   specWords,
   flaggedBolts = [],
+  photoSlot,
 }: {
   state: RunnerState;
   targets: Torque[];
@@ -70,6 +71,7 @@ export function TorquePanel({
   /** The spec's own words, shown with the first pass's setting. */
   specWords?: SpecWords;
   flaggedBolts?: readonly number[];
+  photoSlot?: PhotoSlotFor;
 }) {
   const { speak, vibrate } = useRunnerSettings();
   // Verifications recorded on this phone since the page loaded, judged like the server's.
@@ -127,7 +129,7 @@ export function TorquePanel({
   const last = pass.confirmed.length ? { pass: pass.index, bolt: pass.confirmed.at(-1)! } : previous?.confirmed.length ? { pass: previous.index, bolt: previous.confirmed.at(-1)! } : null;
 
   if (problem) {
-    return <BoltProblemForm bolt={selected ?? pass.next ?? 1} pass={pass.index} record={record} onCancel={() => setProblem(false)} />;
+    return <BoltProblemForm bolt={selected ?? pass.next ?? 1} pass={pass.index} record={record} onCancel={() => setProblem(false)} photoSlot={photoSlot} />;
   }
 
   if (!wrench || !choice?.ok || !settingText) {
