@@ -21,6 +21,8 @@ export const patternKindEnum = pgEnum('pattern_kind', ['cross', 'skip', 'sequent
 export const wrenchKindEnum = pgEnum('wrench_kind', ['click', 'beam', 'dial', 'digital']);
 export const wrenchStatusEnum = pgEnum('wrench_status', ['in_service', 'out_of_service']);
 export const jobStateEnum = pgEnum('job_state', ['open', 'in_progress', 'awaiting_signoff', 'signed_off', 'sent_back']);
+/** How the wheel maker wants the ring bolts' threads when torqued: the torque means nothing without it. */
+export const threadConditionEnum = pgEnum('thread_condition', ['dry', 'oiled', 'anti_seize', 'thread_locker']);
 export const wheelPositionEnum = pgEnum('wheel_position', ['LF', 'RF', 'LR', 'RR', 'spare']);
 
 const shopId = () =>
@@ -64,6 +66,10 @@ export const wheelSpecs = pgTable(
      * the rules existed); null when it passes. The runner will not start a wheel on a flagged spec.
      */
     plausibilityFlag: text(),
+    /** As the wheel maker specifies; null: the spec does not say (the runner tells the technician to check). */
+    threadCondition: threadConditionEnum(),
+    /** The maker's rule for reusing ring bolts ("replace every ring removal", "reuse if undamaged"…). */
+    boltReuse: text().notNull().default(''),
     createdAt: createdAt(),
     updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
@@ -261,6 +267,10 @@ export type WheelSnapshot = {
     lugTorque: TorqueValue | null;
     lugCount: number | null;
     makerReference: string;
+    /** Added after the first snapshots: absent on wheels started before. */
+    notes?: string;
+    threadCondition?: (typeof threadConditionEnum.enumValues)[number] | null;
+    boltReuse?: string;
   };
   plan: { sequence: number[]; passes: { index: number; kind: 'staged' | 'check'; fraction: number; target: TorqueValue; order: number[] }[] };
   /** The wheel's own running-pressure target (from the job card) at the start. */
