@@ -22,6 +22,9 @@ type SpecFields = Pick<
   | 'runningPressure'
   | 'pressureUnit'
   | 'makerReference'
+  | 'notes'
+  | 'threadCondition'
+  | 'boltReuse'
 >;
 type WheelFields = { targetPressure: number; pressureUnit: WheelSnapshot['targetPressure']['unit'] };
 
@@ -52,6 +55,9 @@ export function takeSnapshot(spec: SpecFields, wheel: WheelFields, now: Date): W
       lugTorque: spec.lugTorque && spec.lugTorqueUnit ? { value: spec.lugTorque, unit: spec.lugTorqueUnit } : null,
       lugCount: spec.lugCount,
       makerReference: spec.makerReference,
+      notes: spec.notes,
+      threadCondition: spec.threadCondition,
+      boltReuse: spec.boltReuse,
     },
     plan: {
       sequence,

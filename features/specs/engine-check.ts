@@ -85,6 +85,7 @@ export function specToInput(spec: Spec): SpecInput {
     lugTorque: spec.lugTorque ?? undefined,
     lugTorqueUnit: spec.lugTorqueUnit ?? undefined,
     lugCount: spec.lugCount ?? undefined,
+    threadCondition: spec.threadCondition ?? undefined,
     beadSeatRatingConfirmed: spec.beadSeatRatingConfirmedAt !== null,
   };
 }

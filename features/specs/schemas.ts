@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { PRESSURE_UNITS, TORQUE_UNITS } from '@/features/torque-plan';
+import { PRESSURE_UNITS, THREAD_CONDITIONS, TORQUE_UNITS } from '@/features/torque-plan';
 import { checkbox, integerField, optional, positiveNumber, requiredText, text } from '@/features/ui/form-data';
 
 export const PATTERN_VALUES = ['cross', 'skip', 'sequential'] as const;
@@ -41,6 +41,8 @@ export const specSchema = z
     /** Ticked by a lead who checked that rating; only a lead may tick it. */
     beadSeatRatingConfirmed: checkbox.default(false),
     notes: text('the notes', 2000).default(''),
+    threadCondition: optional(z.enum(THREAD_CONDITIONS, { error: 'Choose dry, oiled, anti-seize or thread locker, as the wheel maker says.' })),
+    boltReuse: text('the bolt reuse rule', 300).default(''),
   })
   .superRefine((s, ctx) => {
     if (s.patternKind === 'skip' && s.skipStep === undefined) {

@@ -51,3 +51,10 @@ export {
   type PlausibilityInput,
   type PlausibilityIssue,
 } from './plausibility';
+export {
+  THREAD_CONDITION_LABELS,
+  THREAD_CONDITION_UNSTATED,
+  THREAD_CONDITIONS,
+  threadConditionText,
+  type ThreadCondition,
+} from './thread-condition';

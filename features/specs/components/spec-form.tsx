@@ -1,7 +1,7 @@
 'use client';
 
 import { useState } from 'react';
-import { PRESSURE_UNITS, TORQUE_UNITS, UNIT_LABELS, type PressureUnit, type TorqueUnit } from '@/features/torque-plan';
+import { PRESSURE_UNITS, THREAD_CONDITION_LABELS, THREAD_CONDITIONS, TORQUE_UNITS, UNIT_LABELS, type PressureUnit, type TorqueUnit } from '@/features/torque-plan';
 import { Button } from '@/features/ui/button';
 import { CheckboxField } from '@/features/ui/checkbox';
 import { SelectField, TextField } from '@/features/ui/field';
@@ -17,6 +17,7 @@ import { FieldNote } from './field-note';
 import { SpecFlag } from './spec-flag';
 import { SpecPreview, type CribWrench } from './spec-preview';
 
+const threadConditionOptions = [{ value: '', label: 'Not stated by the maker' }, ...THREAD_CONDITIONS.map((c) => ({ value: c, label: THREAD_CONDITION_LABELS[c] }))];
 const torqueOptions = TORQUE_UNITS.map((u) => ({ value: u, label: UNIT_LABELS[u] }));
 const pressureOptions = PRESSURE_UNITS.map((u) => ({ value: u, label: UNIT_LABELS[u] }));
 const patternOptions = [
@@ -115,6 +116,15 @@ export function SpecForm({
         <fieldset className="flex flex-col gap-4">
           <legend className="mb-2 text-lg font-bold">Maker&apos;s spec and notes</legend>
           <TextField label="Wheel maker's spec (link or reference)" name="makerReference" defaultValue={initial('makerReference')} errors={fieldErrors('makerReference')} />
+          <SelectField
+            label="Thread condition when torqued"
+            name="threadCondition"
+            options={threadConditionOptions}
+            defaultValue={initial('threadCondition')}
+            errors={fieldErrors('threadCondition')}
+            hint="As the wheel maker states it: the same setting clamps harder on lubricated threads. The runner shows it at hand-start and the first pass."
+          />
+          <TextField label="Bolt reuse" name="boltReuse" placeholder="e.g. replace ring bolts at every tire change" defaultValue={initial('boltReuse')} errors={fieldErrors('boltReuse')} />
           <TextField label="Notes" name="notes" defaultValue={initial('notes')} errors={fieldErrors('notes')} />
         </fieldset>
         <Button disabled={pending}>{pending ? 'Saving…' : spec ? 'Save spec' : 'Create spec'}</Button>

@@ -32,6 +32,8 @@ const columns = {
   pressureUnit: wheelSpecs.pressureUnit,
   makerReference: wheelSpecs.makerReference,
   notes: wheelSpecs.notes,
+  threadCondition: wheelSpecs.threadCondition,
+  boltReuse: wheelSpecs.boltReuse,
   beadSeatRatingReference: wheelSpecs.beadSeatRatingReference,
   beadSeatRatingConfirmedById: wheelSpecs.beadSeatRatingConfirmedById,
   beadSeatRatingConfirmedAt: wheelSpecs.beadSeatRatingConfirmedAt,
@@ -98,6 +100,8 @@ function toRow(actor: Member, input: SpecInput, before?: Confirmation) {
     pressureUnit: input.pressureUnit,
     makerReference: input.makerReference,
     notes: input.notes,
+    threadCondition: input.threadCondition ?? null,
+    boltReuse: input.boltReuse,
   };
 }
 

@@ -19,6 +19,7 @@ describe('the wheel snapshot', () => {
   const spec = {
     id: 's1', name: 'Ring', boltCount: 8, boltThread: 'M8', finalTorque: 12, torqueUnit: 'lbf-ft' as const, passFractions: [0.3, 0.7, 1], patternKind: 'cross' as const, skipStep: null, checkPass: true,
     lugTorque: 90, lugTorqueUnit: 'lbf-ft' as const, lugCount: 4, maxBeadSeatPressure: 30, runningPressure: 14, pressureUnit: 'psi' as const, makerReference: 'Sheet 4',
+    notes: 'Ring is handed', threadCondition: 'anti_seize' as const, boltReuse: 'Replace at every tire change',
   };
   it('keeps every number with its unit, and gives the runner the same plan the spec would', () => {
     const snap = takeSnapshot(spec, { targetPressure: 12, pressureUnit: 'psi' }, now);
@@ -30,6 +31,8 @@ describe('the wheel snapshot', () => {
     ]);
     expect(snap.plan.passes[3]!.order).toEqual([1, 2, 3, 4, 5, 6, 7, 8]);
     expect(snap.spec.lugTorque).toEqual({ value: 90, unit: 'lbf-ft' });
+    // The torque means nothing without the thread condition: it is frozen with the numbers.
+    expect([snap.spec.threadCondition, snap.spec.boltReuse, snap.spec.notes]).toEqual(['anti_seize', 'Replace at every tire change', 'Ring is handed']);
     const plan = planFromSnapshot(snap, { dismount: false, reinstall: false });
     expect(plan.boltCount).toBe(8);
     expect(plan.passes[0]!.order).toEqual(snap.plan.sequence);

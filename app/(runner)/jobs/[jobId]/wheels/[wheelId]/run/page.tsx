@@ -6,7 +6,7 @@ import { listPhotos } from '@/features/runner/server/photo-router';
 import { RunnerBlocked } from '@/features/runner/components/runner-blocked';
 import { assertMayRun, flaggedSpecMessage, listEvents, loadWheel, planFor, snapshotOf } from '@/features/runner/server/run';
 import { recentPassingVerifications, wrenchesForEngine } from '@/features/tool-crib/server/wrenches';
-import { formatTorque } from '@/features/torque-plan';
+import { formatTorque, threadConditionText } from '@/features/torque-plan';
 import { requireMember } from '@/server/auth/guard';
 import { signInThenBackTo } from '@/server/auth/return-path';
 import { DomainError, orNotFound } from '@/server/errors';
@@ -49,7 +49,7 @@ export default async function RunPage({ params }: PageProps<'/jobs/[jobId]/wheel
       jobId={ctx.job.id}
       jobNumber={ctx.job.number}
       wheel={{ id: wheel.id, position: wheel.position, tireSize: wheel.tireSize, directional: wheel.directional, targetPressure: wheel.targetPressure, pressureUnit: wheel.pressureUnit }}
-      spec={{ name: snap.spec.name, maxBeadSeatPressure: snap.spec.maxBeadSeatPressure.value, pressureUnit: snap.spec.maxBeadSeatPressure.unit, lugTorque: snap.spec.lugTorque ? formatTorque(snap.spec.lugTorque, 1) : null, lug: { torque: snap.spec.lugTorque, count: snap.spec.lugCount }, words: { makerReference: snap.spec.makerReference, notes: ctx.spec.notes } }}
+      spec={{ name: snap.spec.name, maxBeadSeatPressure: snap.spec.maxBeadSeatPressure.value, pressureUnit: snap.spec.maxBeadSeatPressure.unit, lugTorque: snap.spec.lugTorque ? formatTorque(snap.spec.lugTorque, 1) : null, lug: { torque: snap.spec.lugTorque, count: snap.spec.lugCount }, words: { makerReference: snap.spec.makerReference, notes: snap.spec.notes ?? ctx.spec.notes, threadCondition: threadConditionText(snap.spec.threadCondition === undefined ? ctx.spec.threadCondition : snap.spec.threadCondition), boltReuse: snap.spec.boltReuse ?? ctx.spec.boltReuse } }}
       plan={planFor(ctx)}
       targets={targets}
       wrenches={wrenches}
