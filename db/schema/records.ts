@@ -338,6 +338,8 @@ export const wheelRunEvents = pgTable(
     clientAt: timestamp({ withTimezone: true }).notNull(),
     /** The phone's own time when it differed from `clientAt` (clamped), else null. */
     deviceAt: timestamp({ withTimezone: true }),
+    /** The phone that sent it (its own random id, made once per browser); null for events from before phones had one. */
+    deviceId: uuid(),
     receivedAt: createdAt(),
     /**
      * Set on every event of a wheel when a lead sends that wheel back: the event stays in the

@@ -1,0 +1,1 @@
+ALTER TABLE "wheel_run_events" ADD COLUMN "device_id" uuid;
