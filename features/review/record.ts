@@ -1,4 +1,5 @@
 import { isPressureUnit, isTorqueUnit, type Pressure, type Torque } from '@/features/torque-plan';
+import { deviceLabel } from '@/features/ui/device-label';
 import type { ReviewEvent, ReviewPass, ReviewPlan } from './types';
 
 export type BoltConfirmation = {
@@ -6,6 +7,9 @@ export type BoltConfirmation = {
   at: string;
   receivedAt: string;
   byId: string;
+  /** The phone that confirmed it and its short name ("Phone 3F9A"); null for events from before phones kept an id. */
+  deviceId: string | null;
+  device: string | null;
   /** The wrench the event names, else the one chosen for the pass when the bolt was confirmed. */
   wrenchId: string | null;
   /** The setting shown on the phone, when the event carries it. */
@@ -102,6 +106,8 @@ export function wheelRecord(basePlan: ReviewPlan, events: readonly ReviewEvent[]
           at: e.clientAt,
           receivedAt: e.receivedAt,
           byId: e.byId,
+          deviceId: e.deviceId ?? null,
+          device: deviceLabel(e.deviceId),
           wrenchId: str(e.payload.wrenchId) ?? chosen[p]!,
           setting: settingOf(e.payload),
           outOfOrder: cp !== p || bolt !== expected,

@@ -19,6 +19,8 @@ export type ReviewEvent = {
   /** ISO instant the server stored it. */
   receivedAt: string;
   byId: string;
+  /** The phone that sent it (its own id); absent or null for events from before phones kept one. */
+  deviceId?: string | null;
   superseded: boolean;
 };
 

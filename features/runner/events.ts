@@ -53,7 +53,8 @@ export const runEventSchema = z.discriminatedUnion(
 
 export const clientEventSchema = z.intersection(
   runEventSchema,
-  z.object({ clientId: z.uuid({ error: 'Each event needs its own id.' }), clientAt: isoDateTime('the time it happened') }),
+  // `deviceId`: the phone's own id (optional: events queued before phones kept one still save).
+  z.object({ clientId: z.uuid({ error: 'Each event needs its own id.' }), clientAt: isoDateTime('the time it happened'), deviceId: z.uuid({ error: 'The phone id is not valid.' }).optional() }),
 );
 
 export const eventBatchSchema = z.object({ events: z.array(clientEventSchema).min(1).max(200, { error: 'At most 200 events at once.' }) });

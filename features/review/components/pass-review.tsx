@@ -9,7 +9,7 @@ import type { WrenchUse } from '../anomalies';
 /**
  * One pass: the bolts in the order they were confirmed on the bolt circle beside the planned
  * sequence (out-of-order bolts marked on both, and in words), the wrench and setting with its
- * verification, and each bolt's time and person.
+ * verification, and each bolt's time, person and phone.
  */
 export function PassReview({ pass, passCount, boltCount, uses, people }: { pass: PassRecord; passCount: number; boltCount: number; uses: WrenchUse[]; people: Record<string, string> }) {
   const label = passLabel(pass, passCount);
@@ -54,6 +54,7 @@ export function PassReview({ pass, passCount, boltCount, uses, people }: { pass:
               <th scope="col">When</th>
               <th scope="col">Gap</th>
               <th scope="col">By</th>
+              <th scope="col">Phone</th>
             </tr>
           </thead>
           <tbody>
@@ -67,6 +68,7 @@ export function PassReview({ pass, passCount, boltCount, uses, people }: { pass:
                 </td>
                 <td>{c.seconds === null ? '—' : formatSeconds(c.seconds)}</td>
                 <td>{people[c.byId] ?? 'unknown'}</td>
+                <td>{c.device ?? 'not recorded'}</td>
               </tr>
             ))}
           </tbody>

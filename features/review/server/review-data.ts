@@ -78,7 +78,7 @@ export async function getJobReview(shopId: string, jobId: string, sources: Revie
       .innerJoin(wheelSpecs, eq(wheelSpecs.id, jobWheels.specId))
       .where(and(eq(jobWheels.shopId, shopId), eq(jobWheels.jobId, jobId))),
     db
-      .select({ wheelId: wheelRunEvents.wheelId, clientId: wheelRunEvents.clientId, type: wheelRunEvents.type, payload: wheelRunEvents.payload, byId: wheelRunEvents.byId, clientAt: wheelRunEvents.clientAt, receivedAt: wheelRunEvents.receivedAt, supersededAt: wheelRunEvents.supersededAt })
+      .select({ wheelId: wheelRunEvents.wheelId, clientId: wheelRunEvents.clientId, type: wheelRunEvents.type, payload: wheelRunEvents.payload, byId: wheelRunEvents.byId, deviceId: wheelRunEvents.deviceId, clientAt: wheelRunEvents.clientAt, receivedAt: wheelRunEvents.receivedAt, supersededAt: wheelRunEvents.supersededAt })
       .from(wheelRunEvents)
       .where(and(eq(wheelRunEvents.shopId, shopId), eq(wheelRunEvents.jobId, jobId)))
       .orderBy(asc(wheelRunEvents.clientAt)),
@@ -102,6 +102,7 @@ export async function getJobReview(shopId: string, jobId: string, sources: Revie
     type: e.type,
     payload: e.payload,
     byId: e.byId,
+    deviceId: e.deviceId,
     clientAt: e.clientAt.toISOString(),
     receivedAt: e.receivedAt.toISOString(),
     superseded: e.supersededAt !== null,

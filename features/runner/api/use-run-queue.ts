@@ -5,6 +5,7 @@ import { useCallback, useEffect, useMemo, useRef, useState, useSyncExternalStore
 import { unstable_isUnrecognizedActionError } from 'next/navigation';
 import type { ActionResult, FailureCode } from '@/server/action';
 import type { ClientEvent, EventRefusal, RunEvent } from '../events';
+import { deviceId } from './device-id';
 
 // `ready` stays false until this phone's own queue is read: before that "saved" would be a guess.
 // `signedOut`: the session ended; what waits is kept and goes once the person signs in again.
@@ -223,7 +224,8 @@ export function useRunQueue(wheelId: string, serverEvents: ClientEvent[], saveEv
 
   const record = useCallback(
     async (event: RunEvent) => {
-      const full = { ...event, clientId: crypto.randomUUID(), clientAt: new Date().toISOString() } as ClientEvent;
+      // `deviceId`: which phone confirmed it, for the lead's review (a shared phone and a second phone both show).
+      const full = { ...event, clientId: crypto.randomUUID(), clientAt: new Date().toISOString(), deviceId: deviceId() } as ClientEvent;
       await store([...pendingRef.current, full]);
       void flush();
     },

@@ -63,12 +63,13 @@ export function assertMayRun(member: Member, ctx: Pick<RunContext, 'job'>) {
 
 export async function listEvents(shopId: string, wheelId: string): Promise<ClientEvent[]> {
   const rows = await getDb()
-    .select({ clientId: wheelRunEvents.clientId, clientAt: wheelRunEvents.clientAt, type: wheelRunEvents.type, payload: wheelRunEvents.payload })
+    .select({ clientId: wheelRunEvents.clientId, clientAt: wheelRunEvents.clientAt, type: wheelRunEvents.type, payload: wheelRunEvents.payload, deviceId: wheelRunEvents.deviceId })
     .from(wheelRunEvents)
     // Events a send-back superseded stay in the history but no longer count.
     .where(and(eq(wheelRunEvents.shopId, shopId), eq(wheelRunEvents.wheelId, wheelId), isNull(wheelRunEvents.supersededAt)))
     .orderBy(asc(wheelRunEvents.clientAt), asc(wheelRunEvents.clientId));
-  return rows.map((r) => ({ ...r, clientAt: r.clientAt.toISOString() }) as ClientEvent);
+  // An event from before phones kept an id has none (not null), as the event schema reads it.
+  return rows.map(({ deviceId, ...r }) => ({ ...r, clientAt: r.clientAt.toISOString(), ...(deviceId ? { deviceId } : {}) }) as ClientEvent);
 }
 
 /** Closes the wheel's record when nothing blocks it; answers whether every wheel of the job is in. */

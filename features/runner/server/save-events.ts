@@ -44,10 +44,10 @@ const num = (payload: object, key: 'bolt' | 'pass') => (key in payload ? (payloa
  */
 async function insertIfAllowed(member: Member, wheelId: string, events: Timed[]): Promise<number> {
   const rows = events.map(
-    (e) => sql`(${e.clientId}::uuid, ${e.type}, ${JSON.stringify(e.payload)}::jsonb, ${e.clientAt}::timestamptz, ${e.deviceAt}::timestamptz, ${num(e.payload, 'bolt')}::int, ${num(e.payload, 'pass')}::int)`,
+    (e) => sql`(${e.clientId}::uuid, ${e.type}, ${JSON.stringify(e.payload)}::jsonb, ${e.clientAt}::timestamptz, ${e.deviceAt}::timestamptz, ${e.deviceId ?? null}::uuid, ${num(e.payload, 'bolt')}::int, ${num(e.payload, 'pass')}::int)`,
   );
   const inserted = await getDb().execute(sql`
-    with ev (client_id, type, payload, client_at, device_at, bolt, pass) as (values ${sql.join(rows, sql`, `)}),
+    with ev (client_id, type, payload, client_at, device_at, device_id, bolt, pass) as (values ${sql.join(rows, sql`, `)}),
     w as (
       select w.id, w.job_id, w.snapshot, (w.snapshot->'spec'->>'boltCount')::int as bolt_count, jsonb_array_length(w.snapshot->'plan'->'passes') as passes
       from ${jobWheels} w join ${jobs} j on j.id = w.job_id join ${wheelSpecs} s on s.id = w.spec_id
@@ -61,10 +61,10 @@ async function insertIfAllowed(member: Member, wheelId: string, events: Timed[])
       where (ev.bolt is null or ev.bolt <= w.bolt_count) and (ev.pass is null or ev.pass <= w.passes)
     ),
     ins as (
-      insert into ${wheelRunEvents} (shop_id, job_id, wheel_id, client_id, type, payload, by_id, client_at, device_at)
+      insert into ${wheelRunEvents} (shop_id, job_id, wheel_id, client_id, type, payload, by_id, client_at, device_at, device_id)
       select ${member.shopId}, ok.job_id, ok.wheel_id, ok.client_id, ok.type,
         case when ok.type = 'bolt_confirmed' then ok.payload || jsonb_build_object('target', ok.snapshot->'plan'->'passes'->(ok.pass - 1)->'target') else ok.payload end,
-        ${member.userId}, ok.client_at, ok.device_at
+        ${member.userId}, ok.client_at, ok.device_at, ok.device_id
       from ok where (select count(*) from ok) = ${events.length}
       on conflict (client_id) do nothing
       returning client_id, type, payload
@@ -271,6 +271,7 @@ async function insertAccepted(
         byId: member.userId,
         clientAt: new Date(e.clientAt),
         deviceAt: e.deviceAt ? new Date(e.deviceAt) : null,
+        deviceId: e.deviceId ?? null,
       })),
     )
     .onConflictDoNothing({ target: wheelRunEvents.clientId })

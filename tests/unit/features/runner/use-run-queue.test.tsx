@@ -144,4 +144,19 @@ describe('the runner outbox', () => {
     expect(hook.result.current.events.map((e) => e.clientId)).toEqual([waiting.clientId]);
     expect(idb.get(KEY)).toMatchObject({ generation: '2026-01-02T10:00:00.000Z' });
   });
+
+  it('every event it makes names this phone: the same id each time, kept in the browser for the next session', async () => {
+    localStorage.clear();
+    const { action, hook } = setUp(async () => saved);
+    await waitFor(() => expect(hook.result.current.status.ready).toBe(true));
+    await act(() => hook.result.current.record(confirm));
+    await act(() => hook.result.current.record({ type: 'bolt_confirmed', payload: { pass: 1, bolt: 2 } }));
+    await waitFor(() => expect(hook.result.current.status.waiting).toBe(0));
+    const sent = action.mock.calls.flatMap(([, input]) => input.events);
+    const phone = localStorage.getItem('ringpass:device');
+    expect(phone).toMatch(/^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/);
+    expect(sent.map((e) => e.deviceId)).toEqual([phone, phone]);
+    // Beside the event's own id and time, not inside what the technician confirmed.
+    expect(sent[0]!.payload).toEqual({ pass: 1, bolt: 1 });
+  });
 });
