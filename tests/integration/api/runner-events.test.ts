@@ -44,6 +44,33 @@ describe('the runner save action (saveWheelEvents)', () => {
     expect(await res.json()).toMatchObject({ data: { state: { passes: [expect.objectContaining({ confirmed: [1, 13] }), expect.anything(), expect.anything(), expect.anything()] } } });
   });
 
+  it("keeps each event's phone on both save paths, returns it to the phone, and still saves an event with none", async () => {
+    const phoneA = randomUUID();
+    const phoneB = randomUUID();
+    // The wheel's first event takes its snapshot, so it goes through the transaction path.
+    const first = { ...confirm(1), deviceId: phoneA };
+    // Once the snapshot exists, plain confirmations are stored in one statement (the fast path).
+    const fast = [{ ...confirm(13), deviceId: phoneB }, confirm(7)];
+    expect(await post(shop.technician.userId, [first])).toMatchObject({ ok: true, data: { saved: 1, refused: [] } });
+    expect(await post(shop.technician.userId, fast)).toMatchObject({ ok: true, data: { saved: 2, refused: [] } });
+    const rows = await getDb().select({ clientId: wheelRunEvents.clientId, deviceId: wheelRunEvents.deviceId }).from(wheelRunEvents).where(eq(wheelRunEvents.wheelId, wheelId));
+    expect(Object.fromEntries(rows.map((r) => [r.clientId, r.deviceId]))).toEqual({ [first.clientId]: phoneA, [fast[0]!.clientId]: phoneB, [fast[1]!.clientId]: null });
+    const res = await GET(apiRequest(`/api/wheels/${wheelId}/events`, { cookie: await cookieFor(shop.technician.userId) }), params({ wheelId }));
+    const { data } = (await res.json()) as { data: { events: { clientId: string; deviceId?: string }[] } };
+    expect(data.events.map((e) => [e.clientId, e.deviceId])).toEqual([
+      [first.clientId, phoneA],
+      [fast[0]!.clientId, phoneB],
+      [fast[1]!.clientId, undefined],
+    ]);
+  });
+
+  it('a phone id that is not an id is refused with its field, and the event is not stored', async () => {
+    const bad = { ...confirm(1), deviceId: 'phone-1' };
+    const result = await post(shop.technician.userId, [bad, confirm(13)]);
+    expect(result).toMatchObject({ ok: true, data: { saved: 1, refused: [{ index: 0, clientId: bad.clientId, message: 'The phone id is not valid.', fieldErrors: { deviceId: ['The phone id is not valid.'] } }] } });
+    expect((await stored()).map((r) => r.clientId)).not.toContain(bad.clientId);
+  });
+
   it('a batch mixing a replay with new events stores only the new ones and says so', async () => {
     const a = confirm(1);
     await post(shop.technician.userId, [a]);
