@@ -20,7 +20,7 @@ const event = (bolt: number, second: number, deviceId?: string | null): ReviewEv
 
 describe("the review's per-bolt table", () => {
   it("names each bolt's time, person and phone, and says when an older event has no phone", () => {
-    const plan = { boltCount: 2, steps: [], passes: [{ index: 1, kind: 'check' as const, fraction: 1, target: { value: 100, unit: 'ft-lb' as const }, order: [1, 2] }] };
+    const plan = { boltCount: 2, steps: [], passes: [{ index: 1, kind: 'check' as const, fraction: 1, target: { value: 100, unit: 'lbf-ft' as const }, order: [1, 2] }] };
     const record = wheelRecord(plan, [event(1, 0, '3f9a0c1e-2b4d-4e6f-8a9b-0c1d2e3f4a5b'), event(2, 4)]);
     render(
       <ShopTimeZoneProvider timeZone="UTC">
