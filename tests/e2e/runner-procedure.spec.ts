@@ -119,7 +119,7 @@ test('a bolt flagged as stripped stops the wheel, is marked on the circle, and t
   await page.getByRole('button', { name: 'Problem with this bolt' }).click();
   await expect(page.getByText('Problem with bolt 3')).toBeVisible();
   await page.getByRole('radio', { name: 'Stripped thread' }).check();
-  await page.getByLabel(/^Note/).fill('Thread pulled out of the rim');
+  await page.getByLabel('Note (optional)').fill('Thread pulled out of the rim');
   await page.getByRole('button', { name: 'Stop the wheel and flag it' }).click();
 
   await expect(page.getByRole('alert').filter({ hasText: 'Wheel stopped: problem with a bolt' })).toContainText('Bolt 3 (pass 1): stripped thread — Thread pulled out of the rim');

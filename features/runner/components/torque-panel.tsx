@@ -189,6 +189,15 @@ export function TorquePanel({
   const question = word === 'Clicked' ? 'did it turn before the wrench clicked?' : 'did it turn before the wrench reached the setting?';
   return (
     <div className="flex flex-col gap-3">
+      {/* Above the ring, so the sticky panel is the last thing on the page and never scrolls away;
+          folded, since the card before the pass showed it in full and the ring needs the room. */}
+      {cautions.length ? (
+        <details className="rounded-xl border-l-8 border-caution bg-caution-tint px-3 text-caution-ink">
+          <summary className="flex min-h-touch cursor-pointer items-center font-black">⚠ Cautions for the passes</summary>
+          <Caution items={cautions} />
+        </details>
+      ) : null}
+      <p className="text-center text-sm text-ink-soft">Number beside the ring: the bolt. Number inside a bolt: its turn, shown for the next few. Tap a bolt to undo or correct it.</p>
       <RingLayout
         ring={
           <div className="mx-auto w-full max-w-[min(100%,calc(100dvh-22rem))] landscape:max-w-none landscape:[&>svg]:max-h-[calc(100dvh-5rem)]">
@@ -276,8 +285,6 @@ export function TorquePanel({
           </div>
         </div>
       </RingLayout>
-      <p className="text-center text-sm text-ink-soft">Number beside the ring: the bolt. Number inside a bolt: its turn, shown for the next few. Tap a bolt to undo or correct it.</p>
-      <Caution items={cautions} />
     </div>
   );
 }
