@@ -1,12 +1,17 @@
-import type { ReactNode } from 'react';
+'use client';
+
+import { useEffect, useRef, type ReactNode } from 'react';
 
 /**
  * The wrench setting nobody can miss: full width at the start of a pass and whenever the wrench
  * or its setting changes, acknowledged with "Wrench set" before the first bolt of the pass.
  */
 export function SettingCard({ passName, wrench, setting, warnings, onSet, children }: { passName: string; wrench: string; setting: string; warnings: string[]; onSet: () => void; children?: ReactNode }) {
+  const ref = useRef<HTMLElement>(null);
+  // A new pass may start far down the page (the last bolt's button): bring the card into view.
+  useEffect(() => ref.current?.scrollIntoView?.({ block: 'start' }), [passName, wrench, setting]);
   return (
-    <section aria-label="Wrench setting" className="flex flex-col gap-3 rounded-2xl border-4 border-work bg-work-tint p-4">
+    <section ref={ref} aria-label="Wrench setting" className="scroll-mt-32 flex flex-col gap-3 rounded-2xl border-4 border-work bg-work-tint p-4">
       <p className="text-lg font-bold text-work-dark">{passName}</p>
       <p className="text-3xl leading-tight font-black">
         Set {wrench} to {setting}

@@ -164,7 +164,11 @@ export function TorquePanel({
   if (ackKey && !acked.includes(ackKey)) {
     return (
       <div className="flex flex-col gap-4">
-        <SettingCard passName={`${name}: ${formatTorque(target, 2)}`} wrench={wrench.label} setting={settingText} warnings={choice.warnings} onSet={() => setAcked((a) => [...a, ackKey])}>
+        <SettingCard passName={`${name}: ${formatTorque(target, 2)}`} wrench={wrench.label} setting={settingText} warnings={choice.warnings} onSet={() => {
+            setAcked((a) => [...a, ackKey]);
+            // Bring the ring up under the header: ring, setting and button on one screen.
+            setTimeout(() => document.getElementById('pass-ring')?.scrollIntoView?.({ block: 'start' }), 0);
+          }}>
           {suitable.length > 1 ? (
             <label className="flex flex-col gap-1 font-semibold">
               Wrench
@@ -193,14 +197,17 @@ export function TorquePanel({
           folded, since the card before the pass showed it in full and the ring needs the room. */}
       {cautions.length ? (
         <details className="rounded-xl border-l-8 border-caution bg-caution-tint px-3 text-caution-ink">
-          <summary className="flex min-h-touch cursor-pointer items-center font-black">⚠ Cautions for the passes</summary>
+          <summary className="flex min-h-touch cursor-pointer items-center font-black">⚠ Cautions, and reading the ring</summary>
           <Caution items={cautions} />
+          <p className="py-2 text-sm">Number beside the ring: the bolt. Number inside a bolt: its turn, shown for the next few. Tap a bolt to undo or correct it.</p>
         </details>
       ) : null}
-      <p className="text-center text-sm text-ink-soft">Number beside the ring: the bolt. Number inside a bolt: its turn, shown for the next few. Tap a bolt to undo or correct it.</p>
+      <p aria-live="polite" className="text-center text-lg">
+        {pass.confirmed.length} of {boltCount} bolts · next: bolt {pass.next}
+      </p>
       <RingLayout
         ring={
-          <div className="mx-auto w-full max-w-[min(100%,calc(100dvh-22rem))] landscape:max-w-none landscape:[&>svg]:max-h-[calc(100dvh-5rem)]">
+          <div id="pass-ring" className="mx-auto w-full max-w-[min(100%,calc(100dvh-22rem))] scroll-mt-32 landscape:max-w-none landscape:[&>svg]:max-h-[calc(100dvh-5rem)]">
             <BoltCircle
               count={boltCount}
               order={pass.order}
@@ -248,9 +255,7 @@ export function TorquePanel({
           <p aria-label="Current setting" className="rounded-lg bg-work-tint px-2 py-1 text-center text-lg font-black text-work-dark">
             {name} · Set {wrench.label} to {settingText}
           </p>
-          <p aria-live="polite" className="text-center text-lg">
-            {pass.confirmed.length} of {boltCount} bolts · next: bolt {pass.next}
-          </p>
+
           {pass.kind === 'check' && pass.next ? (
             <>
               <p className="text-center text-lg font-bold">
