@@ -9,7 +9,10 @@ import { useEffect, useRef, type ReactNode } from 'react';
 export function SettingCard({ passName, wrench, setting, warnings, onSet, children }: { passName: string; wrench: string; setting: string; warnings: string[]; onSet: () => void; children?: ReactNode }) {
   const ref = useRef<HTMLElement>(null);
   // A new pass may start far down the page (the last bolt's button): bring the card into view.
-  useEffect(() => ref.current?.scrollIntoView?.({ block: 'start' }), [passName, wrench, setting]);
+  // A block body: newer browsers return a promise from scrollIntoView, which React would call as a cleanup.
+  useEffect(() => {
+    ref.current?.scrollIntoView?.({ block: 'start' });
+  }, [passName, wrench, setting]);
   return (
     <section ref={ref} aria-label="Wrench setting" className="scroll-mt-32 flex flex-col gap-3 rounded-2xl border-4 border-work bg-work-tint p-4">
       <p className="text-lg font-bold text-work-dark">{passName}</p>

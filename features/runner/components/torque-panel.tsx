@@ -167,7 +167,9 @@ export function TorquePanel({
         <SettingCard passName={`${name}: ${formatTorque(target, 2)}`} wrench={wrench.label} setting={settingText} warnings={choice.warnings} onSet={() => {
             setAcked((a) => [...a, ackKey]);
             // Bring the ring up under the header: ring, setting and button on one screen.
-            setTimeout(() => document.getElementById('pass-ring')?.scrollIntoView?.({ block: 'start' }), 0);
+            setTimeout(() => {
+              document.getElementById('pass-ring')?.scrollIntoView?.({ block: 'start' });
+            }, 0);
           }}>
           {suitable.length > 1 ? (
             <label className="flex flex-col gap-1 font-semibold">
