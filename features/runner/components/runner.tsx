@@ -131,7 +131,7 @@ export function Runner(props: RunnerProps) {
           <div role="alert" className="rounded-xl border-4 border-danger bg-danger-tint p-4 text-danger">
             <p className="text-xl font-black">{flaggedBolts.length ? 'Wheel stopped: problem with a bolt' : 'Wheel stopped: inspection failed'}</p>
             <p>{state.flagged}</p>
-            <p className="mt-2 font-semibold">A lead has been flagged; parts are needed before this wheel goes on.</p>
+            <p className="mt-2 font-semibold">Leave the wheel as it is: it is flagged for a lead, and nothing goes back on the vehicle until a lead has looked at it and the parts are right.</p>
             {flaggedBolts.length ? (
               <div className="mt-3 bg-white">
                 <BoltCircle count={plan.boltCount} done={[]} mode="preview" flagged={flaggedBolts} label={`Bolt circle: bolt ${flaggedBolts.join(', ')} flagged`} />
