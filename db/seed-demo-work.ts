@@ -35,15 +35,15 @@ const dayStart = (offsetDays: number) => {
 };
 
 // The runner's checklist item ids per step (features/runner/steps.ts), ticked as a technician would.
-const CHECKLISTS: Record<string, string[]> = {
+export const CHECKLISTS: Record<string, string[]> = {
   safety: ['off-vehicle', 'deflated', 'core-out'],
   dismount: ['bolts-out', 'inner-bead', 'tire-off'],
-  inspect: ['no-cracks', 'no-bends', 'faces-clean', 'threads-ok'],
-  clean: ['holes-blown', 'ring-clean'],
-  mount: ['lubed', 'fitted', 'direction'],
+  clean: ['faces-deburred', 'ring-clean', 'holes-blown'],
+  inspect: ['no-cracks', 'no-bends', 'threads-ok', 'bolts-ok'],
+  mount: ['lubed', 'fitted', 'outer-centred', 'direction'],
   index: ['notch'],
-  seat_bead: ['restrained', 'clip-chuck', 'seated'],
-  leak_check: ['soapy', 'core-in'],
+  seat_bead: ['strap', 'restrained', 'clip-chuck', 'seated', 'strap-off', 'ring-gap'],
+  leak_check: ['core-in', 'inflated', 'soapy'],
   reinstall: ['star', 'lug-torque'],
 };
 
@@ -87,7 +87,7 @@ function wheelEvents(job: DemoJob, wheel: DemoJob['wheels'][number], by: string,
     events.push({ type, payload, at: t, by });
   };
   const done = (step: string, extra: Record<string, unknown> = {}) => add('step_done', { step, checklist: CHECKLISTS[step] ?? [], ...extra }, 90 * SECOND);
-  for (const step of ['safety', 'dismount', 'inspect', 'clean', 'mount', 'index']) done(step);
+  for (const step of ['safety', 'dismount', 'clean', 'inspect', 'mount', 'index']) done(step);
   for (const bolt of spec.plan.sequence) add('hand_started', { bolt }, 4 * SECOND);
   done('hand_start');
   for (const pass of spec.plan.passes) {
