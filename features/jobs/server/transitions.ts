@@ -27,7 +27,7 @@ export async function transitionJob(
   jobId: string,
   name: TransitionName,
   note: string,
-  options: { wheels?: SendBackWheel[]; tx?: Tx } = {},
+  options: { wheels?: SendBackWheel[]; tx?: Tx; reviewed?: boolean } = {},
 ): Promise<JobCard> {
   const job = await getJob(actor.shopId, jobId);
   const facts = TRANSITION_RULES[name].who === 'review' ? await getWorkFacts(actor.shopId, jobId) : {};
@@ -38,6 +38,11 @@ export async function transitionJob(
   if (rule.noteRequired && !reason) throw noteError('Say what needs fixing, so the technician knows.');
   const selfReview = isSelfReview(actor, job, name, facts);
   if (selfReview && !reason) throw noteError('You worked on this job card: write why you are signing it off yourself; the reason is kept on the record.');
+  // A sign-off is the product's promise: it lands only through the review, which computes the
+  // anomalies again and stores the lead's reason for each that blocks (features/review).
+  if (name === 'sign_off' && !options.reviewed) {
+    throw new DomainError('conflict', "Sign off from the job's review, where its anomalies are checked and each one that blocks gets your reason.");
+  }
   const reopened = name === 'send_back' ? sendBackWheels(job, reason, options.wheels) : null;
 
   const move = async (tx: Tx) => {

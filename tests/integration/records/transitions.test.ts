@@ -2,11 +2,13 @@ import { randomUUID } from 'node:crypto';
 import { and, eq, isNull } from 'drizzle-orm';
 import { describe, expect, it } from 'vitest';
 import { saveWheelEvents } from '@/app/(runner)/jobs/[jobId]/wheels/[wheelId]/run/actions';
+import { reviewSources } from '@/app/_review/sources';
 import * as jobTransitions from '@/app/api/jobs/[jobId]/transitions/route';
 import { getDb } from '@/db';
-import { jobWheels, shopSettings, users, wheelRunEvents } from '@/db/schema';
+import { jobWheels, shopSettings, users, wheelPhotos, wheelRunEvents } from '@/db/schema';
 import { getJob, updateJob } from '@/features/jobs/server/jobs';
 import { transitionJob } from '@/features/jobs/server/transitions';
+import { getJobReview } from '@/features/review/server/review-data';
 import type { Member } from '@/server/auth/session';
 import { apiRequest, cookieFor, createTestShop, params } from '@/tests/helpers/factories';
 import { actAs } from '@/tests/helpers/next-request';
@@ -23,8 +25,18 @@ async function secondLead(shop: Shop): Promise<Member> {
   return { userId: row!.id, shopId: shop.shopId, role: 'lead', email: row!.email, name: 'Lou Second', sessionId: 'test' };
 }
 
-const move = async (userId: string, jobId: string, body: unknown) =>
-  jobTransitions.POST(apiRequest(`/api/jobs/${jobId}/transitions`, { method: 'POST', cookie: await cookieFor(userId), body }), params({ jobId }));
+// These tests are about who may sign off; a sign-off also answers for each anomaly that blocks.
+async function withAcknowledgements(shopId: string, jobId: string, body: { action: string }) {
+  if (body.action !== 'sign_off') return body;
+  const review = await getJobReview(shopId, jobId, reviewSources);
+  return { ...body, acknowledgements: review.anomalies.filter((a) => a.severity === 'blocks').map((a) => ({ key: a.key, reason: 'Looked at it with the technician.' })) };
+}
+
+const move = async (userId: string, jobId: string, body: { action: string; note?: string; wheels?: unknown }) => {
+  const [user] = await getDb().select({ shopId: users.shopId }).from(users).where(eq(users.id, userId));
+  const sent = await withAcknowledgements(user!.shopId, jobId, body);
+  return jobTransitions.POST(apiRequest(`/api/jobs/${jobId}/transitions`, { method: 'POST', cookie: await cookieFor(userId), body: sent }), params({ jobId }));
+};
 
 describe('submit needs the wheel work', () => {
   it('a job card with no wheels cannot be submitted, so never signed off', async () => {
@@ -92,7 +104,7 @@ describe('sign-off by a lead who did none of the work', () => {
     expect(await noReason.json()).toMatchObject({ error: { fields: { note: [expect.stringMatching(/write why/)] } } });
     const ok = await move(shop.lead.userId, job.id, { action: 'sign_off', note: 'Only lead on shift; re-checked every ring myself.' });
     expect(ok.status).toBe(200);
-    expect((await getJob(shop.shopId, job.id)).events.at(-1)).toMatchObject({ action: 'sign_off', selfSignoff: true, note: 'Only lead on shift; re-checked every ring myself.' });
+    expect((await getJob(shop.shopId, job.id)).events.at(-1)).toMatchObject({ action: 'sign_off', selfSignoff: true, note: expect.stringMatching(/^Only lead on shift; re-checked every ring myself\./) });
   });
 
   it('the single-lead setting does nothing once the shop has a second lead', async () => {
@@ -162,5 +174,35 @@ describe('send back per wheel', () => {
     expect(rework).toMatchObject({ ok: true, data: { saved: 1, refused: [expect.objectContaining({ index: 1, message: 'This wheel was sent back to redo torque only; the rest of its record stands.' })] } });
     const closed = await saveWheelEvents(null, { wheelId: lr!, events: [{ type: 'bolt_confirmed', payload: { pass: 1, bolt: 1 }, clientId: randomUUID(), clientAt: at }] });
     expect(closed).toMatchObject({ ok: true, data: { saved: 0, refused: [expect.objectContaining({ message: 'This wheel was submitted; its record is closed.' })] } });
+  });
+});
+
+describe('a sign-off answers for the anomalies on every path', () => {
+  it('the transitions API refuses a sign-off that leaves a blocking anomaly without a reason, and changes nothing', async () => {
+    const shop = await createTestShop();
+    const other = await secondLead(shop);
+    const { job } = await createRecords(shop.lead, shop.technician.userId);
+    await transitionJob(shop.technician, job.id, 'start', '');
+    const [first] = await workAndSubmitWheels(shop.shopId, job.id, shop.technician.userId);
+    await transitionJob(shop.technician, job.id, 'submit', '');
+    // A bead photo gone from the record: the review blocks on it.
+    await getDb().delete(wheelPhotos).where(eq(wheelPhotos.wheelId, first!));
+    const review = await getJobReview(shop.shopId, job.id, reviewSources);
+    expect(review.anomalies.some((a) => a.severity === 'blocks')).toBe(true);
+    const bare = await jobTransitions.POST(apiRequest(`/api/jobs/${job.id}/transitions`, { method: 'POST', cookie: await cookieFor(other.userId), body: { action: 'sign_off' } }), params({ jobId: job.id }));
+    expect(bare.status).toBe(400);
+    expect((await getJob(shop.shopId, job.id)).state).toBe('awaiting_signoff');
+    expect((await move(other.userId, job.id, { action: 'sign_off' })).status).toBe(200);
+  });
+
+  it('the job card path (a plain transition) never signs off: only the review does', async () => {
+    const shop = await createTestShop();
+    const other = await secondLead(shop);
+    const { job } = await createRecords(shop.lead, shop.technician.userId);
+    await transitionJob(shop.technician, job.id, 'start', '');
+    await workAndSubmitWheels(shop.shopId, job.id, shop.technician.userId);
+    await transitionJob(shop.technician, job.id, 'submit', '');
+    await expect(transitionJob(other, job.id, 'sign_off', 'Looks fine')).rejects.toMatchObject({ code: 'conflict', message: expect.stringMatching(/review/) });
+    expect((await getJob(shop.shopId, job.id)).state).toBe('awaiting_signoff');
   });
 });

@@ -39,7 +39,7 @@ export default async function JobPage({ params }: PageProps<'/jobs/[jobId]'>) {
       <div className="grid gap-8 lg:grid-cols-[2fr_1fr]">
         <JobDetails job={job} photos={photos} canRun={can(member.role, 'jobs.run') && (member.role === 'lead' || job.assignee?.id === member.userId)} />
         <div className="flex flex-col gap-6">
-          <TransitionForm jobId={job.id} allowed={allowedTransitions(member, job, facts)} selfReview={isSelfReview(member, job, 'sign_off', facts)} />
+          <TransitionForm jobId={job.id} allowed={allowedTransitions(member, job, facts).filter((t) => t !== 'sign_off') /* signed off from the review */} selfReview={isSelfReview(member, job, 'sign_off', facts)} />
           {editable ? <JobEditForm job={job} assignees={await listAssignees(member.shopId)} /> : null}
         </div>
       </div>

@@ -25,7 +25,7 @@ export const approveReviewed = memberAction({ permission: 'jobs.signoff', schema
     const message = 'You worked on this job card: write why you are signing it off yourself; the reason is kept on the record.';
     throw new DomainError('invalid', message, { note: [message] });
   }
-  const result = await signOffReviewed(member, input, reviewSources, (tx, note) => transitionJob(member, input.jobId, 'sign_off', note, { tx }));
+  const result = await signOffReviewed(member, input, reviewSources, (tx, note) => transitionJob(member, input.jobId, 'sign_off', note, { tx, reviewed: true }));
   refresh(input.jobId);
   return { ...result, message: 'Signed off.' };
 });
