@@ -35,3 +35,13 @@ export async function createRecords(lead: Member, technicianId: string) {
   const job = await createJob(lead, { customerId: customer.id, vehicleId: vehicle.id, wheels: fourWheels(spec.id), dismount: true, reinstall: true, assigneeId: technicianId, notes: '', acceptAxleMismatch: false });
   return { spec, wrench, customer, vehicle, job };
 }
+
+/**
+ * A passing verification of a wrench at a given moment (40 in-lb by default: near pass 1 of the
+ * test spec, 43.2 in-lb, within the default ±25 %), for tests whose events are dated in the past.
+ */
+export async function verifiedAt(member: Member, wrenchId: string, at: Date, referenceValue = 40) {
+  const { getDb } = await import('@/db');
+  const { wrenchVerifications } = await import('@/db/schema');
+  await getDb().insert(wrenchVerifications).values({ shopId: member.shopId, wrenchId, referenceValue, readingValue: referenceValue, unit: 'lbf-in', deviationPct: 0, tolerancePct: 4, withinTolerance: true, recordedById: member.userId, recordedAt: at });
+}

@@ -59,6 +59,12 @@ async function insertIfAllowed(member: Member, wheelId: string, events: Timed[])
     ok as (
       select ev.*, w.id as wheel_id, w.job_id, w.snapshot from ev cross join w
       where (ev.bolt is null or ev.bolt <= w.bolt_count) and (ev.pass is null or ev.pass <= w.passes)
+        -- A bolt naming a wrench takes this path only when that wrench was chosen, and so judged, for
+        -- its pass; otherwise the full path judges the wrench on the bolt itself.
+        and (ev.type <> 'bolt_confirmed' or ev.payload->>'wrenchId' is null or exists (
+          select 1 from ${wheelRunEvents} c
+          where c.wheel_id = w.id and c.type = 'wrench_chosen' and c.superseded_at is null
+            and (c.payload->>'pass')::int = ev.pass and c.payload->>'wrenchId' = ev.payload->>'wrenchId'))
     ),
     ins as (
       insert into ${wheelRunEvents} (shop_id, job_id, wheel_id, client_id, type, payload, by_id, client_at, device_at, device_id)

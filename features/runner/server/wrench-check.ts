@@ -13,17 +13,29 @@ type Why = Omit<EventRefusal, 'index' | 'clientId'>;
 
 const refusal = (message: string): Why => ({ message, fieldErrors: { 'payload.wrenchId': [message] } });
 
+/** A use of a wrench on a pass: a `wrench_chosen`, or a bolt confirmation that names its wrench. */
+type WrenchUse = { clientId: string; clientAt: string; pass: number; wrenchId: string };
+
+function usesOf(events: readonly ClientEvent[]): WrenchUse[] {
+  return events.flatMap((e) => {
+    if (e.type === 'wrench_chosen') return [{ clientId: e.clientId, clientAt: e.clientAt, pass: e.payload.pass, wrenchId: e.payload.wrenchId }];
+    if (e.type === 'bolt_confirmed' && e.payload.wrenchId) return [{ clientId: e.clientId, clientAt: e.clientAt, pass: e.payload.pass, wrenchId: e.payload.wrenchId }];
+    return [];
+  });
+}
+
 /**
- * Why each `wrench_chosen` of a batch may not be stored, by event id: a wrench that is not this
+ * Why each `wrench_chosen` of a batch — and each bolt confirmation naming a wrench, since the
+ * phone's default wrench is used without a choice — may not be stored, by event id: a wrench that is not this
  * shop's, is out of service or overdue for calibration, does not suit the pass, or has no
  * verification the shop's policy accepts at that pass's setting at the time it was chosen. The
  * same engine rules as the phone's wrench gate (`passWrench`), judged again here.
  */
 export async function wrenchRefusals(db: Db, shopId: string, events: readonly ClientEvent[], snapshot: WheelSnapshot): Promise<Map<string, Why>> {
-  const chosen = events.filter((e): e is Extract<ClientEvent, { type: 'wrench_chosen' }> => e.type === 'wrench_chosen');
+  const chosen = usesOf(events);
   const out = new Map<string, Why>();
   if (!chosen.length) return out;
-  const ids = [...new Set(chosen.map((e) => e.payload.wrenchId))];
+  const ids = [...new Set(chosen.map((e) => e.wrenchId))];
   const settings = await getShopSettings(shopId);
   const days = settings.verification.recency === 'same_day' ? 1 : settings.verification.days;
   const earliest = Math.min(...chosen.map((e) => Date.parse(e.clientAt)));
@@ -39,11 +51,11 @@ export async function wrenchRefusals(db: Db, shopId: string, events: readonly Cl
   ]);
   const recorded = verifications.map((v) => ({ ...v, recordedAt: v.recordedAt.toISOString() }));
   for (const e of chosen) {
-    const w = rows.find((r) => r.id === e.payload.wrenchId);
+    const w = rows.find((r) => r.id === e.wrenchId);
     // An added check pass is judged at the plan's check pass's target.
-    const planned = plannedPassOf(snapshot.plan.passes, e.payload.pass);
-    if (!planned || e.payload.pass > maxPassIndex(snapshot.plan.passes)) continue; // the plan check names it
-    const pass = { ...planned, index: e.payload.pass };
+    const planned = plannedPassOf(snapshot.plan.passes, e.pass);
+    if (!planned || e.pass > maxPassIndex(snapshot.plan.passes)) continue; // the plan check names it
+    const pass = { ...planned, index: e.pass };
     if (!w) {
       out.set(e.clientId, refusal("That wrench is not in this shop's tool crib."));
       continue;

@@ -10,7 +10,7 @@ import { jobWheels, wheelPhotos, wheelRunEvents, wrenches } from '@/db/schema';
 import { getJob } from '@/features/jobs/server/jobs';
 import { apiRequest, cookieFor, createTestShop, params } from '@/tests/helpers/factories';
 import { actAs } from '@/tests/helpers/next-request';
-import { createRecords, fourWheels } from '@/tests/helpers/records';
+import { createRecords, fourWheels, verifiedAt } from '@/tests/helpers/records';
 
 type Shop = Awaited<ReturnType<typeof createTestShop>>;
 let shop: Shop, wheelId: string, jobId: string, wrenchId: string, specId: string, records: Awaited<ReturnType<typeof createRecords>>;
@@ -77,6 +77,7 @@ describe('a bolt that stops the wheel (bolt_flagged)', () => {
 describe('wrench cycles from bolt confirmations', () => {
   it('each stored confirmation adds one cycle to its wrench, exactly once however often the batch is replayed', async () => {
     expect(await cycles()).toBeNull();
+    await verifiedAt(shop.technician, wrenchId, new Date(base - 1000));
     const batch = [1, 13, 7].map((b) => confirm(b, 1, { wrenchId }));
     await post(batch); // the first event: the full path (snapshot)
     expect(await cycles()).toBe(3);

@@ -14,7 +14,7 @@ import { verificationSchema } from '@/features/tool-crib/schemas';
 import { recordVerification } from '@/features/tool-crib/server/wrenches';
 import { apiRequest, cookieFor, createTestShop, params } from '@/tests/helpers/factories';
 import { actAs } from '@/tests/helpers/next-request';
-import { createRecords, specBody } from '@/tests/helpers/records';
+import { createRecords, specBody, verifiedAt } from '@/tests/helpers/records';
 
 type Shop = Awaited<ReturnType<typeof createTestShop>>;
 let shop: Shop, records: Awaited<ReturnType<typeof createRecords>>, wheelId: string, jobId: string;
@@ -74,6 +74,7 @@ describe('snapshot at start', () => {
 
 describe('what was used', () => {
   it('a bolt confirmation keeps the wrench and setting the phone showed, and the pass target from the snapshot', async () => {
+    await verifiedAt(shop.technician, records.wrench.id, new Date(Date.now() - 31 * 60_000));
     await post(shop.technician.userId, [ev('bolt_confirmed', { pass: 1, bolt: 1, wrenchId: records.wrench.id, setting: { value: 43, unit: 'lbf-in' }, target: { value: 999, unit: 'Nm' } })]);
     const [row] = await rows();
     expect(row!.payload).toEqual({ pass: 1, bolt: 1, wrenchId: records.wrench.id, setting: { value: 43, unit: 'lbf-in' }, target: { value: 3.6, unit: 'lbf-ft' } });
@@ -156,5 +157,19 @@ describe('who did it', () => {
     await post(shop.lead.userId, [e]);
     const [row] = await rows();
     expect(row!.byId).toBe(shop.lead.userId);
+  });
+});
+
+describe("the wrench a bolt names is judged even when the phone never sent a choice (its default wrench)", () => {
+  it('a bolt confirmed with an out-of-service or unverified wrench is refused and recorded; with a verified one it is stored', async () => {
+    const bolt = (n: number) => ev('bolt_confirmed', { pass: 1, bolt: n, wrenchId: records.wrench.id, setting: { value: 43, unit: 'lbf-in' } }, new Date().toISOString());
+    expect(await post(shop.technician.userId, [bolt(1)])).toMatchObject({ ok: true, data: { saved: 0, refused: [expect.objectContaining({ message: expect.stringMatching(/No passing verification today/) })] } });
+    await verifiedAt(shop.technician, records.wrench.id, new Date(Date.now() - 60_000));
+    expect(await post(shop.technician.userId, [bolt(1)])).toMatchObject({ ok: true, data: { saved: 1, refused: [] } });
+    await getDb().update(wrenches).set({ status: 'out_of_service', statusReason: 'Dropped' }).where(eq(wrenches.id, records.wrench.id));
+    // The wheel has started, so this would take the one-statement path if the path did not check.
+    expect(await post(shop.technician.userId, [bolt(2)])).toMatchObject({ ok: true, data: { saved: 0, refused: [expect.objectContaining({ message: expect.stringMatching(/out of service \(Dropped\)/) })] } });
+    expect((await rows()).filter((r) => r.type === 'bolt_confirmed').map((r) => r.payload.bolt)).toEqual([1]);
+    expect((await refusedRows()).length).toBe(2);
   });
 });
