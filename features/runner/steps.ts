@@ -49,7 +49,7 @@ const ALL: Step[] = [
   {
     id: 'clean',
     title: 'Clean and deburr',
-    cautions: ['Wire wheel or file on the sealing faces until they are bare and smooth; wear eye protection. A burr left here leaks or cuts the bead.'],
+    cautions: ['Take the burrs off the sealing faces with a fine file or a wire wheel: the burr only, never cut into the sealing face itself. Eye protection on. A burr left here leaks or cuts the bead.'],
     checklist: [
       { id: 'faces-deburred', text: 'Rim sealing faces cleaned and deburred.' },
       { id: 'ring-clean', text: 'Ring cleaned and deburred on both faces.' },
@@ -111,7 +111,8 @@ const ALL: Step[] = [
     required: true,
     cautions: [
       'The tread strap squeezes the tire so the air pushes the inner bead out to its seat. It helps the bead seat; it is not a restraint.',
-      'Inflate inside a cage or restraining device where the rules call for one (OSHA 1910.177(d) for the rim wheels it covers).',
+      'Inflate inside a cage or restraining device where the rules call for one (OSHA 1910.177(d) for the rim wheels it covers). Never lean on it or rest a hand on it while air goes in.',
+      'Outside a restraint, put in only enough air to seat the bead (OSHA 1910.177(f)), then carry on.',
       'Clip-on chuck, an in-line gauge, and you stand clear of the trajectory: never over the wheel, never in line with the ring.',
       "Never go past the tire's maximum bead-seating pressure. If the bead has not seated by then, stop, let the air out and find out why.",
       'Take the strap off as soon as the bead has seated, before you finish inflating.',

@@ -49,7 +49,9 @@ export function StepPanel({
   const off = target && reading !== null && Number.isFinite(reading) && reading > 0 ? pressureOffTarget({ value: reading, unit }, target) : null;
   const [rechecked, setRechecked] = useState(false);
   // The limit in the unit being typed, so nobody converts in their head at the gauge.
-  const limitHere = limit ? `${Number(convertPressure(limit.value, limit.unit, unit).toFixed(unit === 'bar' ? 2 : 1))} ${UNIT_LABELS[unit]}` : null;
+  // Rounded down, never up: a maximum shown must never be above the real one.
+  const places = unit === 'bar' ? 100 : 10;
+  const limitHere = limit ? `${Math.floor(convertPressure(limit.value, limit.unit, unit) * places + 1e-9) / places} ${UNIT_LABELS[unit]}` : null;
   const ready = ticked.length === step.checklist.length && readingOk && !blocked && (!off || rechecked);
 
   return (
