@@ -149,7 +149,7 @@ export function Runner(props: RunnerProps) {
             ) : step.id === 'torque' ? (
               <TorquePanel state={state} targets={props.targets} wrenches={props.wrenches} verifications={props.verifications} rules={props.rules} cautions={step.cautions} boltCount={plan.boltCount} record={record} specWords={props.spec.words} flaggedBolts={flaggedBolts} photoSlot={boltPhoto} />
             ) : step.id === 'submit' ? (
-              <SummaryPanel wheelId={wheel.id} plan={plan} state={state} targets={props.targets} wrenches={props.wrenches} minFractionOfMax={props.rules.minFractionOfMax} photoKinds={photoKinds} />
+              <SummaryPanel wheelId={wheel.id} plan={plan} state={state} targets={props.targets} wrenches={props.wrenches} minFractionOfMax={props.rules.minFractionOfMax} photoKinds={photoKinds} waiting={status.waiting} />
             ) : step.id === 'reinstall' ? (
               <ReinstallPanel step={step} record={record} lug={props.spec.lug ?? { torque: null, count: null }} wrenches={props.wrenches} verifications={props.verifications} rules={props.rules} />
             ) : (

@@ -8,10 +8,11 @@ import { PHOTO_KIND_INFO, REQUIRED_PHOTOS } from '../photo-kinds';
 import { submitBlockers, type RunnerPlan, type RunnerState } from '../state';
 
 /** The wheel at a glance before it is submitted: passes, wrench and setting, anomalies, time per step. */
-export function SummaryPanel({ wheelId, plan, state, targets, wrenches, minFractionOfMax, photoKinds }: { wheelId: string; plan: RunnerPlan; state: RunnerState; targets: Torque[]; wrenches: (Wrench & { label: string })[]; minFractionOfMax: number; photoKinds: string[] }) {
+export function SummaryPanel({ wheelId, plan, state, targets, wrenches, minFractionOfMax, photoKinds, waiting = 0 }: { wheelId: string; plan: RunnerPlan; state: RunnerState; targets: Torque[]; wrenches: (Wrench & { label: string })[]; minFractionOfMax: number; photoKinds: string[]; waiting?: number }) {
   const [result, setResult] = useState<{ ok: boolean; text: string } | null>(null);
   const clock = useShopTime();
-  const blockers = submitBlockers(plan, state, photoKinds);
+  // The server judges the wheel on what it has stored: submit only once this phone has sent everything.
+  const blockers = [...submitBlockers(plan, state, photoKinds), ...(waiting ? [`${waiting} confirmation${waiting === 1 ? '' : 's'} still waiting on this phone to be saved.`] : [])];
   const times = plan.steps
     .filter((s) => state.doneAt[s.id])
     .map((s, i, done) => {
