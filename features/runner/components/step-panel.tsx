@@ -126,6 +126,24 @@ export function StepPanel({
           </button>
         )
       ) : null}
+      {step.id === 'seat_bead' ? (
+        // Not seated by the limit: stop, let the air out, find out why — and say so on the record
+        // instead of typing a lower number to get past the step.
+        failing ? (
+          <ReasonForm
+            label={`The bead did not seat by ${limitHere ?? 'the limit'}. Air let out? What did you find?`}
+            onCancel={() => setFailing(false)}
+            value={reason}
+            setValue={setReason}
+            submit="Stop this wheel and flag it"
+            onSubmit={() => void record({ type: 'inspection_failed', payload: { notes: `Bead did not seat by the limit${limitHere ? ` (${limitHere})` : ''}${reading !== null && Number.isFinite(reading) ? `; gauge read ${reading} ${UNIT_LABELS[unit]}` : ''}: ${reason}` } })}
+          />
+        ) : (
+          <button type="button" onClick={() => setFailing(true)} className={`${big} border-2 border-danger text-danger`}>
+            Bead won&apos;t seat at the limit…
+          </button>
+        )
+      ) : null}
       {!step.required ? (
         skipping ? (
           <ReasonForm label="Why skip this step?" onCancel={() => setSkipping(false)} value={reason} setValue={setReason} submit="Skip the step" onSubmit={() => void record({ type: 'step_skipped', payload: { step: step.id, reason } })} />

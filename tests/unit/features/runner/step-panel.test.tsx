@@ -39,4 +39,15 @@ describe('readings', () => {
     // 30 psi × 6.894 757 kPa/psi = 206.8 kPa (NIST SP 811, App. B).
     expect(screen.getByText('At most 206.8 kPa.')).toBeInTheDocument();
   });
+
+  it('a bead that will not seat by the limit is stopped and flagged with the truth, not typed lower to get past', () => {
+    const record = vi.fn(async () => {});
+    render(<StepPanel step={step('seat_bead')} record={record} readingUnit="psi" limit={{ value: 30, unit: 'psi' }} />);
+    fireEvent.change(screen.getByLabelText(/pressure/i, { selector: 'input' }), { target: { value: '30' } });
+    fireEvent.click(screen.getByRole('button', { name: /Bead won.t seat at the limit/ }));
+    fireEvent.change(screen.getByLabelText(/did not seat by 30 psi/), { target: { value: 'Let the air out; bead lube dried, tire cold' } });
+    fireEvent.click(screen.getByRole('button', { name: 'Stop this wheel and flag it' }));
+    expect(record).toHaveBeenCalledWith({ type: 'inspection_failed', payload: { notes: 'Bead did not seat by the limit (30 psi); gauge read 30 psi: Let the air out; bead lube dried, tire cold' } });
+  });
 });
+
