@@ -46,6 +46,7 @@ export {
   RUNNING_PSI_RANGE,
   SEAT_TO_RUNNING_RATIO,
   torqueLimitIn,
+  wheelTargetError,
   type Plausibility,
   type PlausibilityField,
   type PlausibilityInput,

@@ -158,3 +158,18 @@ function checkFractions(fractions: readonly number[], refuse: Report) {
   }
   if (fractions[fractions.length - 1] !== 1) refuse('fractions', 'The last pass must be at 100 % (the final torque).');
 }
+
+/**
+ * A wheel's target (running) pressure on a job card against its spec's bead-seating limit: the
+ * same rule as a spec's running pressure — it must be below the limit — judged in the wheel's own
+ * unit, the message naming both units. Null when it may be stored.
+ */
+export function wheelTargetError(target: { value: number; unit: PressureUnit }, limit: { value: number; unit: PressureUnit }): string | null {
+  if (!isPressureUnit(target.unit)) return 'Choose psi, kPa or bar.';
+  if (!positive(target.value)) return 'The target pressure must be a number greater than zero.';
+  const limitHere = convertPressure(limit.value, limit.unit, target.unit);
+  if (target.value >= limitHere - 1e-9) {
+    return `The target pressure (${pressureBoth(target.value, target.unit)}) must be below the spec's bead-seating limit (${show(limitHere, target.unit)}): check the unit and the tire maker's figure.`;
+  }
+  return null;
+}

@@ -4,6 +4,7 @@ import { getDb } from '@/db';
 import { jobEvents, jobs, jobWheels, users, wheelSpecs } from '@/db/schema';
 import { can } from '@/server/auth/permissions';
 import type { Member } from '@/server/auth/session';
+import { wheelTargetError } from '@/features/torque-plan';
 import { DomainError, notFound } from '@/server/errors';
 import { axleWarnings, intakeWarnings, tireSizeErrors } from '../axle-check';
 import type { JobInput, JobStateName, WheelInput } from '../schemas';
@@ -69,13 +70,31 @@ async function assertAssignee(actor: Member, assigneeId: string | null | undefin
   }
 }
 
-async function assertSpecs(shopId: string, specIds: string[]) {
-  const found = await getDb().select({ id: wheelSpecs.id }).from(wheelSpecs).where(and(eq(wheelSpecs.shopId, shopId), inArray(wheelSpecs.id, specIds)));
+type TargetedWheel = { specId: string; targetPressure: number; pressureUnit: WheelInput['pressureUnit'] };
+
+/**
+ * Each wheel's spec is this shop's, and its target pressure is below that spec's bead-seating
+ * limit (the engine's rule; a unit slip such as 2.4 psi meant as bar is caught the other way by
+ * the limit being far above it, so only the dangerous side is refused). `field` names the form field.
+ */
+async function assertSpecs(shopId: string, wheels: TargetedWheel[], field: (index: number, name: string) => string = (i, name) => `wheels.${i}.${name}`) {
+  const specIds = wheels.map((w) => w.specId);
+  const found = await getDb()
+    .select({ id: wheelSpecs.id, limit: wheelSpecs.maxBeadSeatPressure, unit: wheelSpecs.pressureUnit })
+    .from(wheelSpecs)
+    .where(and(eq(wheelSpecs.shopId, shopId), inArray(wheelSpecs.id, specIds)));
   const missing = specIds.findIndex((id) => !found.some((f) => f.id === id));
   if (missing >= 0) {
     const message = 'Pick a wheel spec of this shop.';
-    throw new DomainError('invalid', message, { [`wheels.${missing}.specId`]: [message] });
+    throw new DomainError('invalid', message, { [field(missing, 'specId')]: [message] });
   }
+  const errors: Record<string, string[]> = {};
+  wheels.forEach((w, i) => {
+    const spec = found.find((f) => f.id === w.specId)!;
+    const error = wheelTargetError({ value: w.targetPressure, unit: w.pressureUnit }, { value: spec.limit, unit: spec.unit });
+    if (error) errors[field(i, 'targetPressure')] = [error];
+  });
+  if (Object.keys(errors).length) throw new DomainError('invalid', Object.values(errors)[0]![0]!, errors);
 }
 
 /** Tire sizes the engine reads, and the axle check: warnings stop the save until accepted. */
@@ -90,7 +109,7 @@ function assertTires(wheels: WheelInput[], accepted: boolean) {
 
 export async function createJob(actor: Member, input: JobInput): Promise<{ id: string; number: number }> {
   await assertAssignee(actor, input.assigneeId);
-  await assertSpecs(actor.shopId, input.wheels.map((w) => w.specId));
+  await assertSpecs(actor.shopId, input.wheels);
   assertTires(input.wheels, input.acceptAxleMismatch);
   return getDb().transaction(async (tx) => {
     const customer = input.customerId ? await getCustomer(actor.shopId, input.customerId, tx) : await createCustomer(actor, input.customer!, tx);
@@ -227,7 +246,7 @@ export async function addWheel(actor: Member, jobId: string, wheel: WheelInput, 
   if (job.wheels.some((w) => w.position === wheel.position)) {
     throw new DomainError('conflict', `The job already has a ${wheel.position} wheel.`, { position: [`The job already has a ${wheel.position} wheel.`] });
   }
-  await assertSpecs(actor.shopId, [wheel.specId]);
+  await assertSpecs(actor.shopId, [wheel], (_, name) => name);
   assertTires([...job.wheels, wheel], acceptAxleMismatch);
   const [row] = await whileWheelsEditable(actor, jobId, (tx) => tx.insert(jobWheels).values({ ...wheel, shopId: actor.shopId, jobId }).returning({ id: jobWheels.id }));
   return (await getJob(actor.shopId, jobId)).wheels.find((w) => w.id === row!.id)!;
@@ -249,7 +268,7 @@ export async function updateWheel(actor: Member, wheelId: string, wheel: WheelIn
   if (job.wheels.some((w) => w.id !== wheelId && w.position === wheel.position)) {
     throw new DomainError('conflict', `The job already has a ${wheel.position} wheel.`, { position: [`The job already has a ${wheel.position} wheel.`] });
   }
-  await assertSpecs(actor.shopId, [wheel.specId]);
+  await assertSpecs(actor.shopId, [wheel], (_, name) => name);
   assertTires([...job.wheels.filter((w) => w.id !== wheelId), wheel], acceptAxleMismatch);
   await whileWheelsEditable(actor, current.jobId, (tx) => tx.update(jobWheels).set(wheel).where(and(eq(jobWheels.shopId, actor.shopId), eq(jobWheels.id, wheelId))));
   return getWheel(actor.shopId, wheelId);

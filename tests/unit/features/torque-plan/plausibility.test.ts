@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { checkPlausibility, pressureLimitIn, torqueLimitIn, type PlausibilityInput, type PressureUnit, type TorqueUnit } from '@/features/torque-plan';
+import { checkPlausibility, pressureLimitIn, torqueLimitIn, wheelTargetError, type PlausibilityInput, type PressureUnit, type TorqueUnit } from '@/features/torque-plan';
 
 // A plausible spec: 30 psi bead-seating limit, 14 psi running, 12 ft-lb ring bolts, 30/70/100 %.
 const base: PlausibilityInput = {
@@ -141,5 +141,18 @@ describe('pass fractions', () => {
     ['no passes', [], /at least one pass/],
   ])('%s is refused', (_, fractions, message) => {
     expect(check({ fractions }).errors).toEqual([{ field: 'fractions', message: expect.stringMatching(message) }]);
+  });
+});
+
+describe("a wheel's target pressure on a job card", () => {
+  // 1 bar = 100 kPa; 1 psi = 6.894 757 kPa (NIST SP 811 App. B): 2.4 bar = 34.8 psi.
+  it('must be below its spec’s bead-seating limit, judged in the wheel’s own unit, naming both units', () => {
+    expect(wheelTargetError({ value: 14, unit: 'psi' }, { value: 2.4, unit: 'bar' })).toBeNull();
+    expect(wheelTargetError({ value: 34.8, unit: 'psi' }, { value: 2.4, unit: 'bar' })).toBeNull();
+    expect(wheelTargetError({ value: 35, unit: 'psi' }, { value: 2.4, unit: 'bar' })).toMatch(/^The target pressure \(35 psi is 241\.3 kPa\) must be below the spec's bead-seating limit \(34\.8 psi\)/);
+    expect(wheelTargetError({ value: 2.4, unit: 'bar' }, { value: 2.4, unit: 'bar' })).toMatch(/must be below/);
+  });
+  it('refuses zero, negative and non-finite targets', () => {
+    for (const value of [0, -1, Number.NaN, Number.POSITIVE_INFINITY]) expect(wheelTargetError({ value, unit: 'psi' }, { value: 30, unit: 'psi' })).toMatch(/greater than zero/);
   });
 });
