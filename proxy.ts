@@ -1,6 +1,11 @@
 import { NextResponse, type NextRequest } from 'next/server';
 import { env } from '@/server/env.mjs';
-import { contentSecurityPolicy, HSTS, newNonce, uploadOrigins } from '@/server/http/security-headers';
+import {
+  contentSecurityPolicy,
+  HSTS,
+  newNonce,
+  uploadOrigins,
+} from '@/server/http/security-headers';
 
 /**
  * Security headers that need the request: a fresh CSP nonce per page (Next reads it from the
@@ -12,7 +17,12 @@ export function proxy(request: NextRequest) {
   const config = env();
   const nonce = newNonce();
   const https = new URL(config.APP_URL).protocol === 'https:';
-  const csp = contentSecurityPolicy({ nonce, dev: config.NODE_ENV === 'development', https, uploads: uploadOrigins(config) });
+  const csp = contentSecurityPolicy({
+    nonce,
+    dev: config.NODE_ENV === 'development',
+    https,
+    uploads: uploadOrigins(config),
+  });
 
   const requestHeaders = new Headers(request.headers);
   requestHeaders.set('x-nonce', nonce);

@@ -13,7 +13,15 @@
  */
 import { execFileSync, spawnSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
-import { existsSync, mkdirSync, readdirSync, readFileSync, realpathSync, rmSync, writeFileSync } from 'node:fs';
+import {
+  existsSync,
+  mkdirSync,
+  readdirSync,
+  readFileSync,
+  realpathSync,
+  rmSync,
+  writeFileSync,
+} from 'node:fs';
 import net from 'node:net';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -56,7 +64,8 @@ export function clusterPort(options: ClusterOptions = {}): number {
 function rememberPort(root: string, port: number) {
   const file = portFile(root);
   mkdirSync(path.dirname(file), { recursive: true });
-  if (!existsSync(file) || readFileSync(file, 'utf8').trim() !== String(port)) writeFileSync(file, `${port}\n`);
+  if (!existsSync(file) || readFileSync(file, 'utf8').trim() !== String(port))
+    writeFileSync(file, `${port}\n`);
 }
 
 export function clusterUrl(database: string, options: ClusterOptions = {}) {
@@ -99,12 +108,15 @@ export function ensureBinaries(): string {
 
 function run(cmd: string, args: string[], extraEnv: Record<string, string> = {}) {
   const result = spawnSync(cmd, args, { stdio: 'inherit', env: { ...process.env, ...extraEnv } });
-  if (result.status !== 0) throw new Error(`${cmd} ${args.join(' ')} failed (exit ${result.status})`);
+  if (result.status !== 0)
+    throw new Error(`${cmd} ${args.join(' ')} failed (exit ${result.status})`);
 }
 
 /** initdb refuses to run as root, so as root the cluster belongs to the `postgres` user. */
 function asServiceUser(cmd: string, args: string[]) {
-  return isRoot ? { cmd: 'runuser', args: ['-u', SERVICE_USER, '--', cmd, ...args] } : { cmd, args };
+  return isRoot
+    ? { cmd: 'runuser', args: ['-u', SERVICE_USER, '--', cmd, ...args] }
+    : { cmd, args };
 }
 
 function runAsService(cmd: string, args: string[], options: { quiet?: boolean } = {}) {
@@ -120,7 +132,14 @@ function ensureServiceUser() {
   if (!isRoot) return;
   if (spawnSync('id', ['-u', SERVICE_USER]).status === 0) return;
   log(`creating system user ${SERVICE_USER}`);
-  run('useradd', ['--system', '--home-dir', '/var/lib/postgresql', '--shell', '/bin/sh', SERVICE_USER]);
+  run('useradd', [
+    '--system',
+    '--home-dir',
+    '/var/lib/postgresql',
+    '--shell',
+    '/bin/sh',
+    SERVICE_USER,
+  ]);
 }
 
 /**
@@ -132,8 +151,10 @@ export function clusterDataDir(root: string = PROJECT_ROOT): string {
   if (!isRoot) return inProject;
   mkdirSync(path.dirname(inProject), { recursive: true });
   const reachable =
-    spawnSync('runuser', ['-u', SERVICE_USER, '--', 'test', '-w', path.dirname(inProject)]).status === 0 ||
-    spawnSync('runuser', ['-u', SERVICE_USER, '--', 'test', '-x', path.dirname(inProject)]).status === 0;
+    spawnSync('runuser', ['-u', SERVICE_USER, '--', 'test', '-w', path.dirname(inProject)])
+      .status === 0 ||
+    spawnSync('runuser', ['-u', SERVICE_USER, '--', 'test', '-x', path.dirname(inProject)])
+      .status === 0;
   if (reachable) return inProject;
   const hash = createHash('sha256').update(root).digest('hex').slice(0, 12);
   return path.join('/tmp', `ringpass-pg-${hash}`);
@@ -148,22 +169,40 @@ function portIsOpen(port: number): Promise<boolean> {
   return new Promise((resolve) => {
     const socket = net.connect({ host: '127.0.0.1', port });
     socket.setTimeout(2000);
-    socket.once('connect', () => { socket.destroy(); resolve(true); });
-    socket.once('timeout', () => { socket.destroy(); resolve(true); });
+    socket.once('connect', () => {
+      socket.destroy();
+      resolve(true);
+    });
+    socket.once('timeout', () => {
+      socket.destroy();
+      resolve(true);
+    });
     socket.once('error', () => resolve(false));
   });
 }
 
 /** Who answers on the port: nobody, this checkout's cluster, or something else (with what it said). */
-export async function probePort(port: number, dir: string): Promise<{ kind: 'free' } | { kind: 'ours' } | { kind: 'foreign'; detail: string }> {
+export async function probePort(
+  port: number,
+  dir: string,
+): Promise<{ kind: 'free' } | { kind: 'ours' } | { kind: 'foreign'; detail: string }> {
   if (!(await portIsOpen(port))) return { kind: 'free' };
-  const sql = postgres(`postgres://postgres@127.0.0.1:${port}/postgres`, { max: 1, connect_timeout: 3, onnotice: () => {} });
+  const sql = postgres(`postgres://postgres@127.0.0.1:${port}/postgres`, {
+    max: 1,
+    connect_timeout: 3,
+    onnotice: () => {},
+  });
   try {
     const [row] = await sql<{ data_directory: string }[]>`show data_directory`;
     const theirs = row?.data_directory ?? '';
-    return samePath(theirs, dir) ? { kind: 'ours' } : { kind: 'foreign', detail: `a PostgreSQL cluster in ${theirs}` };
+    return samePath(theirs, dir)
+      ? { kind: 'ours' }
+      : { kind: 'foreign', detail: `a PostgreSQL cluster in ${theirs}` };
   } catch (error) {
-    return { kind: 'foreign', detail: `a server that would not show its data directory (${error instanceof Error ? error.message : String(error)})` };
+    return {
+      kind: 'foreign',
+      detail: `a server that would not show its data directory (${error instanceof Error ? error.message : String(error)})`,
+    };
   } finally {
     await sql.end({ timeout: 1 }).catch(() => {});
   }
@@ -197,7 +236,11 @@ async function waitUntilOurs(port: number, dir: string, seconds: number) {
 }
 
 /** The first port from `first` on where nobody answers, or where our own cluster already does. */
-async function choosePort(first: number, fixed: boolean, dir: string): Promise<{ port: number; ours: boolean }> {
+async function choosePort(
+  first: number,
+  fixed: boolean,
+  dir: string,
+): Promise<{ port: number; ours: boolean }> {
   for (let port = first; port < first + PORT_TRIES && port <= 65535; port++) {
     const found = await probePort(port, dir);
     if (found.kind === 'free') return { port, ours: false };
@@ -210,7 +253,9 @@ async function choosePort(first: number, fixed: boolean, dir: string): Promise<{
     }
     log(`127.0.0.1:${port} is taken by ${found.detail}; trying ${port + 1}`);
   }
-  throw new Error(`No free port for this checkout's cluster from ${first} to ${first + PORT_TRIES - 1}; set RINGPASS_PG_PORT.`);
+  throw new Error(
+    `No free port for this checkout's cluster from ${first} to ${first + PORT_TRIES - 1}; set RINGPASS_PG_PORT.`,
+  );
 }
 
 /**
@@ -218,7 +263,9 @@ async function choosePort(first: number, fixed: boolean, dir: string): Promise<{
  * next free one; never uses a server that another checkout (or anything else) runs. Safe to call
  * any number of times. `started` says whether this call started it (so a test run can stop it).
  */
-export async function startCluster(options: ClusterOptions = {}): Promise<{ port: number; started: boolean }> {
+export async function startCluster(
+  options: ClusterOptions = {},
+): Promise<{ port: number; started: boolean }> {
   const root = options.root ?? PROJECT_ROOT;
   const fixed = fixedPort(options);
   const dir = clusterDataDir(root);
@@ -226,10 +273,14 @@ export async function startCluster(options: ClusterOptions = {}): Promise<{ port
   const running = runningServer(dir);
   if (running) {
     if (fixed !== undefined && fixed !== running.port) {
-      throw new Error(`This checkout's cluster already runs on port ${running.port}, not ${fixed} (RINGPASS_PG_PORT): stop it first (npm run db:stop).`);
+      throw new Error(
+        `This checkout's cluster already runs on port ${running.port}, not ${fixed} (RINGPASS_PG_PORT): stop it first (npm run db:stop).`,
+      );
     }
     if (!(await waitUntilOurs(running.port, dir, 15))) {
-      throw new Error(`PostgreSQL (pid ${running.pid}) owns ${dir} but does not answer on port ${running.port}.`);
+      throw new Error(
+        `PostgreSQL (pid ${running.pid}) owns ${dir} but does not answer on port ${running.port}.`,
+      );
     }
     if (fixed === undefined) rememberPort(root, running.port);
     return { port: running.port, started: false };
@@ -248,9 +299,11 @@ export async function startCluster(options: ClusterOptions = {}): Promise<{ port
 
   if (!existsSync(path.join(dir, 'PG_VERSION'))) {
     log(`creating a cluster in ${dir}`);
-    const init = runAsService(path.join(bin, 'initdb'), [
-      '-D', dir, '-U', 'postgres', '--auth=trust', '-E', 'UTF8', '--locale=C.UTF-8',
-    ], { quiet: true });
+    const init = runAsService(
+      path.join(bin, 'initdb'),
+      ['-D', dir, '-U', 'postgres', '--auth=trust', '-E', 'UTF8', '--locale=C.UTF-8'],
+      { quiet: true },
+    );
     if (init.status !== 0) throw new Error(`initdb failed:\n${init.stderr}`);
   }
 
@@ -261,11 +314,22 @@ export async function startCluster(options: ClusterOptions = {}): Promise<{ port
   }
 
   log(`starting PostgreSQL on 127.0.0.1:${port}`);
-  const start = runAsService(path.join(bin, 'pg_ctl'), [
-    '-D', dir, '-l', path.join(dir, 'server.log'), '-w', '-t', '60',
-    '-o', `-p ${port} -k ${dir} -c listen_addresses=127.0.0.1`,
-    'start',
-  ], { quiet: true });
+  const start = runAsService(
+    path.join(bin, 'pg_ctl'),
+    [
+      '-D',
+      dir,
+      '-l',
+      path.join(dir, 'server.log'),
+      '-w',
+      '-t',
+      '60',
+      '-o',
+      `-p ${port} -k ${dir} -c listen_addresses=127.0.0.1`,
+      'start',
+    ],
+    { quiet: true },
+  );
   if (start.status !== 0 || !(await waitUntilOurs(port, dir, 30))) {
     const tail = existsSync(path.join(dir, 'server.log'))
       ? readFileSync(path.join(dir, 'server.log'), 'utf8').split('\n').slice(-15).join('\n')

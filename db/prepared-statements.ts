@@ -16,13 +16,16 @@ export function withPreparedStatements<C extends Client>(client: C): C {
   return new Proxy(client, {
     get(target, prop, receiver) {
       if (prop === 'unsafe') {
-        return (query: string, params?: unknown[], options?: object) => target.unsafe(query, params as never, { ...options, prepare: true });
+        return (query: string, params?: unknown[], options?: object) =>
+          target.unsafe(query, params as never, { ...options, prepare: true });
       }
       if (prop === 'begin' || prop === 'savepoint') {
         const original = Reflect.get(target, prop, receiver) as (...args: unknown[]) => unknown;
         return (...args: unknown[]) => {
           const callback = args.pop() as Callback;
-          return original.call(target, ...args, (tx: Client) => callback(withPreparedStatements(tx)));
+          return original.call(target, ...args, (tx: Client) =>
+            callback(withPreparedStatements(tx)),
+          );
         };
       }
       return Reflect.get(target, prop, receiver);

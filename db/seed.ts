@@ -18,7 +18,10 @@ export const DEMO_PEOPLE = [
 ] as const;
 
 /** `photoDir`: the local upload fake's folder, where the demo's bead photos are written. */
-export async function seedDemoShop(url: string, options: { photoDir?: string } = {}): Promise<{ created: boolean }> {
+export async function seedDemoShop(
+  url: string,
+  options: { photoDir?: string } = {},
+): Promise<{ created: boolean }> {
   const sql = postgres(url, { max: 1, onnotice: () => {} });
   const db = drizzle(sql, { schema, casing: 'snake_case' });
   try {
@@ -29,7 +32,10 @@ export async function seedDemoShop(url: string, options: { photoDir?: string } =
     if (lead) return { created: false };
     const passwordHash = await hashPassword(DEMO_PASSWORD);
     await db.transaction(async (tx) => {
-      const [shop] = await tx.insert(schema.shops).values({ name: DEMO_SHOP }).returning({ id: schema.shops.id });
+      const [shop] = await tx
+        .insert(schema.shops)
+        .values({ name: DEMO_SHOP })
+        .returning({ id: schema.shops.id });
       const people = await tx
         .insert(schema.users)
         .values(DEMO_PEOPLE.map((p) => ({ ...p, shopId: shop!.id, passwordHash })))

@@ -15,14 +15,25 @@ self.addEventListener('activate', (event) => event.waitUntil(self.clients.claim(
 self.addEventListener('message', (event) => {
   const { type, page, assets } = event.data ?? {};
   if (type !== 'cache-runner' || typeof page !== 'string' || !RUNNER.test(page)) return;
-  const sameOrigin = (Array.isArray(assets) ? assets : []).filter((a) => typeof a === 'string' && new URL(a, self.location.origin).origin === self.location.origin);
+  const sameOrigin = (Array.isArray(assets) ? assets : []).filter(
+    (a) =>
+      typeof a === 'string' && new URL(a, self.location.origin).origin === self.location.origin,
+  );
   event.waitUntil(
     Promise.all([
       caches.open(PAGES).then(async (cache) => {
         const response = await fetch(page, { credentials: 'same-origin' });
         if (response.ok && !response.redirected) await cache.put(page, response);
       }),
-      caches.open(ASSETS).then((cache) => cache.addAll(sameOrigin.filter((a) => new URL(a, self.location.origin).pathname.startsWith('/_next/static/')))),
+      caches
+        .open(ASSETS)
+        .then((cache) =>
+          cache.addAll(
+            sameOrigin.filter((a) =>
+              new URL(a, self.location.origin).pathname.startsWith('/_next/static/'),
+            ),
+          ),
+        ),
     ]).catch(() => {}),
   );
 });
@@ -43,12 +54,18 @@ self.addEventListener('fetch', (event) => {
           }
           return response;
         })
-        .catch(async () => (await caches.match(url.pathname, { cacheName: PAGES })) ?? Response.error()),
+        .catch(
+          async () => (await caches.match(url.pathname, { cacheName: PAGES })) ?? Response.error(),
+        ),
     );
     return;
   }
 
-  if (url.pathname.startsWith('/_next/static/') || url.pathname.startsWith('/__nextjs_font/') || url.pathname === '/icon.svg') {
+  if (
+    url.pathname.startsWith('/_next/static/') ||
+    url.pathname.startsWith('/__nextjs_font/') ||
+    url.pathname === '/icon.svg'
+  ) {
     event.respondWith(
       caches.open(ASSETS).then(async (cache) => {
         const hit = await cache.match(request);

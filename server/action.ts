@@ -8,7 +8,13 @@ import { DomainError, type DomainErrorCode } from '@/server/errors';
 export type FieldErrors = Record<string, string[] | undefined>;
 export type ActionResult<T> =
   | { ok: true; data: T; message?: string }
-  | { ok: false; code: FailureCode; message: string; fieldErrors?: FieldErrors; values?: Record<string, string> };
+  | {
+      ok: false;
+      code: FailureCode;
+      message: string;
+      fieldErrors?: FieldErrors;
+      values?: Record<string, string>;
+    };
 
 /** Why an action failed, for callers that decide what to do next (retry, drop, sign in again). */
 export type FailureCode = DomainErrorCode | 'internal';
@@ -36,16 +42,28 @@ function echo(raw: Record<string, unknown>): Record<string, string> {
 function failure(error: unknown, raw: Record<string, unknown>): ActionResult<never> {
   unstable_rethrow(error); // redirect(), notFound() and friends must reach Next.
   if (error instanceof DomainError) {
-    return { ok: false, code: error.code, message: error.message, fieldErrors: error.fields, values: echo(raw) };
+    return {
+      ok: false,
+      code: error.code,
+      message: error.message,
+      fieldErrors: error.fields,
+      values: echo(raw),
+    };
   }
   console.error('[action] unexpected failure', error);
-  return { ok: false, code: 'internal', message: 'Something went wrong on our side. Nothing was saved; try again.', values: echo(raw) };
+  return {
+    ok: false,
+    code: 'internal',
+    message: 'Something went wrong on our side. Nothing was saved; try again.',
+    values: echo(raw),
+  };
 }
 
 /** Messages keyed by the full path of the field ("email", "wheels.0.tireSize"). */
 export function fieldErrorsOf(error: z.ZodError): Record<string, string[]> {
   const fields: Record<string, string[]> = {};
-  for (const issue of error.issues) (fields[issue.path.join('.') || 'form'] ??= []).push(issue.message);
+  for (const issue of error.issues)
+    (fields[issue.path.join('.') || 'form'] ??= []).push(issue.message);
   return fields;
 }
 
@@ -54,7 +72,10 @@ async function parseAndRun<S extends z.ZodType, T>(
   payload: FormData | unknown,
   run: (input: z.output<S>) => Promise<T>,
 ): Promise<ActionResult<T>> {
-  const raw = payload instanceof FormData ? formToObject(payload) : ((payload ?? {}) as Record<string, unknown>);
+  const raw =
+    payload instanceof FormData
+      ? formToObject(payload)
+      : ((payload ?? {}) as Record<string, unknown>);
   const parsed = schema.safeParse(raw);
   if (!parsed.success) {
     return {
@@ -83,7 +104,12 @@ export function memberAction<S extends z.ZodType, T>(
 ) {
   return async (_prev: unknown, payload: FormData | z.input<S>): Promise<ActionResult<T>> => {
     const member = await getCurrentMember();
-    if (!member) return { ok: false, code: 'unauthenticated', message: 'Your session has ended. Sign in again.' };
+    if (!member)
+      return {
+        ok: false,
+        code: 'unauthenticated',
+        message: 'Your session has ended. Sign in again.',
+      };
     if (!can(member.role, options.permission)) {
       return { ok: false, code: 'forbidden', message: 'Your role does not allow this.' };
     }
@@ -92,7 +118,10 @@ export function memberAction<S extends z.ZodType, T>(
 }
 
 /** For the few actions used signed out (sign-up, sign-in, accepting an invite). */
-export function publicAction<S extends z.ZodType, T>(schema: S, run: (input: z.output<S>) => Promise<T>) {
+export function publicAction<S extends z.ZodType, T>(
+  schema: S,
+  run: (input: z.output<S>) => Promise<T>,
+) {
   return async (_prev: unknown, payload: FormData | z.input<S>): Promise<ActionResult<T>> =>
     parseAndRun(schema, payload, run);
 }

@@ -4,22 +4,22 @@
 // cannot carry `import 'server-only'`. Nothing in the browser bundle imports it.)
 import { z } from 'zod';
 
-const bool = z
-  .enum(['true', 'false', '1', '0'])
-  .transform((v) => v === 'true' || v === '1');
+const bool = z.enum(['true', 'false', '1', '0']).transform((v) => v === 'true' || v === '1');
 
 /** Where this server listens (HOST and PORT, as `npm start` passes them): the default APP_URL. */
 function listeningUrl() {
   const host = process.env.HOST?.trim() || '127.0.0.1';
-  const shown = ['0.0.0.0', '::', '[::]'].includes(host) ? '127.0.0.1' : host.includes(':') && !host.startsWith('[') ? `[${host}]` : host;
+  const shown = ['0.0.0.0', '::', '[::]'].includes(host)
+    ? '127.0.0.1'
+    : host.includes(':') && !host.startsWith('[')
+      ? `[${host}]`
+      : host;
   return `http://${shown}:${process.env.PORT?.trim() || '3000'}`;
 }
 
 const schema = z.object({
   NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
-  DATABASE_URL: z
-    .string()
-    .regex(/^postgres(ql)?:\/\//, 'must be a postgres:// connection URL'),
+  DATABASE_URL: z.string().regex(/^postgres(ql)?:\/\//, 'must be a postgres:// connection URL'),
   APP_URL: z.url().default(() => listeningUrl()),
   SMTP_URL: z.string().regex(/^smtps?:\/\//, 'must be an smtp:// or smtps:// URL'),
   MAIL_FROM: z.string().min(3).default('Ringpass <no-reply@ringpass.test>'),
@@ -31,8 +31,18 @@ const schema = z.object({
   UPLOADTHING_INGEST_URL: z.url().optional(),
   UPLOADTHING_UFS_HOST: z.string().min(1).optional(),
   COOKIE_SECURE: bool.optional(),
-  SESSION_ABSOLUTE_HOURS: z.coerce.number().int().min(1).max(24 * 90).default(24 * 14),
-  INVITE_TTL_HOURS: z.coerce.number().int().min(1).max(24 * 30).default(72),
+  SESSION_ABSOLUTE_HOURS: z.coerce
+    .number()
+    .int()
+    .min(1)
+    .max(24 * 90)
+    .default(24 * 14),
+  INVITE_TTL_HOURS: z.coerce
+    .number()
+    .int()
+    .min(1)
+    .max(24 * 30)
+    .default(72),
   // How many reverse proxies in front of the app append to X-Forwarded-For. 0: the socket's
   // address is the client's (a client-sent X-Forwarded-For is ignored).
   TRUST_PROXY_HOPS: z.coerce.number().int().min(0).max(10).default(0),
@@ -44,7 +54,9 @@ const schema = z.object({
 function parseEnv() {
   const parsed = schema.safeParse(process.env);
   if (!parsed.success) {
-    const lines = parsed.error.issues.map((i) => `  - ${i.path.join('.') || '(env)'}: ${i.message}`);
+    const lines = parsed.error.issues.map(
+      (i) => `  - ${i.path.join('.') || '(env)'}: ${i.message}`,
+    );
     throw new Error(`Ringpass configuration is invalid:\n${lines.join('\n')}`);
   }
   return parsed.data;

@@ -2,12 +2,7 @@ import 'server-only';
 import { notFound as nextNotFound } from 'next/navigation';
 
 export type DomainErrorCode =
-  | 'invalid'
-  | 'unauthenticated'
-  | 'forbidden'
-  | 'not_found'
-  | 'conflict'
-  | 'rate_limited';
+  'invalid' | 'unauthenticated' | 'forbidden' | 'not_found' | 'conflict' | 'rate_limited';
 
 /**
  * An expected failure with a message fit to show the user. Actions and route handlers turn it
@@ -24,7 +19,8 @@ export class DomainError extends Error {
   }
 }
 
-export const notFound = (what = 'That record') => new DomainError('not_found', `${what} was not found.`);
+export const notFound = (what = 'That record') =>
+  new DomainError('not_found', `${what} was not found.`);
 
 /** For pages: a not-found DomainError becomes Next's 404 page; anything else is rethrown. */
 export async function orNotFound<T>(promise: Promise<T>): Promise<T> {

@@ -13,7 +13,10 @@ import { getShopSettings } from '@/server/shop/settings';
 // does not re-run on every navigation and is not an authorisation boundary.
 export default async function ShopLayout({ children }: { children: ReactNode }) {
   const member = await requireMember();
-  const [shopName, settings] = await Promise.all([getShopName(member.shopId), getShopSettings(member.shopId)]);
+  const [shopName, settings] = await Promise.all([
+    getShopName(member.shopId),
+    getShopSettings(member.shopId),
+  ]);
   return (
     <ShopTimeZoneProvider timeZone={settings.timeZone}>
       <ShopHeader

@@ -6,7 +6,8 @@ import { stepsFor } from '@/features/runner/steps';
 
 /** Where the review meets the runner (its steps and required photos) and the jobs feature (its axle check). */
 export const reviewSources: ReviewSources = {
-  stepsFor: (job) => stepsFor(job).map((s) => ({ id: s.id, title: s.title, required: Boolean(s.required) })),
+  stepsFor: (job) =>
+    stepsFor(job).map((s) => ({ id: s.id, title: s.title, required: Boolean(s.required) })),
   requiredPhotos: REQUIRED_PHOTOS,
   axleWarnings,
 };

@@ -1,5 +1,15 @@
 import { sql } from 'drizzle-orm';
-import { index, integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
+import {
+  index,
+  integer,
+  jsonb,
+  pgEnum,
+  pgTable,
+  text,
+  timestamp,
+  uniqueIndex,
+  uuid,
+} from 'drizzle-orm/pg-core';
 import { shops } from './shops';
 
 export const roleEnum = pgEnum('role', ['lead', 'technician', 'apprentice']);
@@ -93,7 +103,9 @@ export const signUpRequests = pgTable(
 export const signInThrottle = pgTable('sign_in_throttle', {
   key: text().primaryKey(),
   failures: integer().notNull().default(0),
-  windowStartedAt: timestamp({ withTimezone: true }).notNull().default(sql`now()`),
+  windowStartedAt: timestamp({ withTimezone: true })
+    .notNull()
+    .default(sql`now()`),
 });
 
 export type User = typeof users.$inferSelect;

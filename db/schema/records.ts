@@ -20,9 +20,20 @@ export const pressureUnitEnum = pgEnum('pressure_unit', ['psi', 'kPa', 'bar']);
 export const patternKindEnum = pgEnum('pattern_kind', ['cross', 'skip', 'sequential']);
 export const wrenchKindEnum = pgEnum('wrench_kind', ['click', 'beam', 'dial', 'digital']);
 export const wrenchStatusEnum = pgEnum('wrench_status', ['in_service', 'out_of_service']);
-export const jobStateEnum = pgEnum('job_state', ['open', 'in_progress', 'awaiting_signoff', 'signed_off', 'sent_back']);
+export const jobStateEnum = pgEnum('job_state', [
+  'open',
+  'in_progress',
+  'awaiting_signoff',
+  'signed_off',
+  'sent_back',
+]);
 /** How the wheel maker wants the ring bolts' threads when torqued: the torque means nothing without it. */
-export const threadConditionEnum = pgEnum('thread_condition', ['dry', 'oiled', 'anti_seize', 'thread_locker']);
+export const threadConditionEnum = pgEnum('thread_condition', [
+  'dry',
+  'oiled',
+  'anti_seize',
+  'thread_locker',
+]);
 export const wheelPositionEnum = pgEnum('wheel_position', ['LF', 'RF', 'LR', 'RR', 'spare']);
 
 const shopId = () =>
@@ -239,7 +250,10 @@ export const jobWheels = pgTable(
      */
     rework: jsonb().$type<WheelRework>(),
   },
-  (t) => [uniqueIndex('job_wheels_position_key').on(t.jobId, t.position), index('job_wheels_shop_idx').on(t.shopId)],
+  (t) => [
+    uniqueIndex('job_wheels_position_key').on(t.jobId, t.position),
+    index('job_wheels_shop_idx').on(t.shopId),
+  ],
 );
 
 type TorqueValue = { value: number; unit: (typeof torqueUnitEnum.enumValues)[number] };
@@ -272,7 +286,16 @@ export type WheelSnapshot = {
     threadCondition?: (typeof threadConditionEnum.enumValues)[number] | null;
     boltReuse?: string;
   };
-  plan: { sequence: number[]; passes: { index: number; kind: 'staged' | 'check'; fraction: number; target: TorqueValue; order: number[] }[] };
+  plan: {
+    sequence: number[];
+    passes: {
+      index: number;
+      kind: 'staged' | 'check';
+      fraction: number;
+      target: TorqueValue;
+      order: number[];
+    }[];
+  };
   /** The wheel's own running-pressure target (from the job card) at the start. */
   targetPressure: PressureValue;
 };
@@ -347,7 +370,10 @@ export const wheelRunEvents = pgTable(
      */
     supersededAt: timestamp({ withTimezone: true }),
   },
-  (t) => [uniqueIndex('wheel_run_events_client_key').on(t.clientId), index('wheel_run_events_wheel_idx').on(t.wheelId, t.clientAt)],
+  (t) => [
+    uniqueIndex('wheel_run_events_client_key').on(t.clientId),
+    index('wheel_run_events_wheel_idx').on(t.wheelId, t.clientAt),
+  ],
 );
 
 export const photoKindEnum = pgEnum('photo_kind', ['bead_outer', 'bead_inner', 'other']);
@@ -375,7 +401,10 @@ export const wheelPhotos = pgTable(
       .references(() => users.id),
     createdAt: createdAt(),
   },
-  (t) => [uniqueIndex('wheel_photos_file_key').on(t.fileKey), index('wheel_photos_wheel_idx').on(t.wheelId)],
+  (t) => [
+    uniqueIndex('wheel_photos_file_key').on(t.fileKey),
+    index('wheel_photos_wheel_idx').on(t.wheelId),
+  ],
 );
 
 /**
@@ -403,5 +432,8 @@ export const refusedRunEvents = pgTable(
     raw: jsonb().$type<unknown>().notNull(),
     at: createdAt(),
   },
-  (t) => [uniqueIndex('refused_run_events_client_key').on(t.wheelId, t.clientId), index('refused_run_events_job_idx').on(t.shopId, t.jobId, t.at)],
+  (t) => [
+    uniqueIndex('refused_run_events_client_key').on(t.wheelId, t.clientId),
+    index('refused_run_events_job_idx').on(t.shopId, t.jobId, t.at),
+  ],
 );

@@ -1,4 +1,13 @@
-import { boolean, doublePrecision, integer, pgEnum, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import {
+  boolean,
+  doublePrecision,
+  integer,
+  pgEnum,
+  pgTable,
+  text,
+  timestamp,
+  uuid,
+} from 'drizzle-orm/pg-core';
 import { users } from './auth';
 import { pressureUnitEnum, torqueUnitEnum } from './records';
 import { shops } from './shops';

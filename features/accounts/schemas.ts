@@ -39,17 +39,22 @@ export const signUpSchema = z.object({
 
 export const signInSchema = z.object({
   email: emailField,
-  password: z.string({ error: 'Enter your password.' }).min(1, { error: 'Enter your password.' }).max(128),
+  password: z
+    .string({ error: 'Enter your password.' })
+    .min(1, { error: 'Enter your password.' })
+    .max(128),
   /** Where the person was before their session ended (checked again before use). */
-  next: z.string().max(300).refine((s) => !hasControlCharacters(s), noControl).optional(),
+  next: z
+    .string()
+    .max(300)
+    .refine((s) => !hasControlCharacters(s), noControl)
+    .optional(),
 });
 
 export type SignUpInput = z.infer<typeof signUpSchema>;
 
 export const confirmSignUpSchema = z.object({ token: z.string().min(20).max(200) });
 export type SignInInput = z.infer<typeof signInSchema>;
-
-
 
 export const roleField = z.enum(['lead', 'technician', 'apprentice'], {
   error: 'Choose a role: lead, technician or apprentice.',
@@ -62,7 +67,11 @@ export const changeRoleSchema = z.object({ memberId: memberIdField, role: roleFi
 export const removeMemberSchema = z.object({ memberId: memberIdField });
 export const revokeInviteSchema = z.object({ inviteId: z.uuid({ error: 'Unknown invite.' }) });
 export const acceptInviteSchema = z.object({
-  token: z.string().min(20).max(200).refine((s) => !hasControlCharacters(s), noControl),
+  token: z
+    .string()
+    .min(20)
+    .max(200)
+    .refine((s) => !hasControlCharacters(s), noControl),
   name: personName,
   password: newPasswordField,
 });

@@ -37,7 +37,19 @@ const R = 88;
  * bolt says its state in words (screen readers), in shape (check, ring, number) and in colour.
  * Arrow keys move between bolts; Enter or Space selects one for correction or undo.
  */
-export function BoltCircle({ count, order, done, next = null, mode = 'pass', passLabel = 'this pass', selected = null, onSelect, label, marked, flagged }: Props) {
+export function BoltCircle({
+  count,
+  order,
+  done,
+  next = null,
+  mode = 'pass',
+  passLabel = 'this pass',
+  selected = null,
+  onSelect,
+  label,
+  marked,
+  flagged,
+}: Props) {
   const doneSet = useMemo(() => new Set(done), [done]);
   const step = useMemo(() => new Map((order ?? []).map((b, i) => [b, i + 1])), [order]);
   const [focus, setFocus] = useState<number>(next ?? 1);
@@ -47,13 +59,27 @@ export function BoltCircle({ count, order, done, next = null, mode = 'pass', pas
   // Big rings: bolts are drawn, not tapped; BoltList below the ring takes the taps.
   const interactive = Boolean(onSelect) && count < LIST_FROM;
   const nextTurn = next ? step.get(next) : undefined;
-  const turnShown = (n: number | undefined) => n !== undefined && nextTurn !== undefined && n >= nextTurn && n < nextTurn + TURNS_SHOWN;
+  const turnShown = (n: number | undefined) =>
+    n !== undefined && nextTurn !== undefined && n >= nextTurn && n < nextTurn + TURNS_SHOWN;
 
   const stateOf = (b: number): BoltState =>
-    mode === 'hand-start' ? (doneSet.has(b) ? 'started' : 'not-started') : doneSet.has(b) ? 'done' : b === next ? 'next' : 'pending';
+    mode === 'hand-start'
+      ? doneSet.has(b)
+        ? 'started'
+        : 'not-started'
+      : doneSet.has(b)
+        ? 'done'
+        : b === next
+          ? 'next'
+          : 'pending';
 
   function move(e: KeyboardEvent<SVGGElement>, b: number) {
-    const keys: Record<string, number> = { ArrowRight: 1, ArrowDown: 1, ArrowLeft: -1, ArrowUp: -1 };
+    const keys: Record<string, number> = {
+      ArrowRight: 1,
+      ArrowDown: 1,
+      ArrowLeft: -1,
+      ArrowUp: -1,
+    };
     if (e.key in keys) {
       e.preventDefault();
       const to = ((b - 1 + keys[e.key]! + count) % count) + 1;
@@ -71,13 +97,23 @@ export function BoltCircle({ count, order, done, next = null, mode = 'pass', pas
   }
 
   return (
-    <svg viewBox="-110 -110 220 220" role="group" aria-label={label} className="mx-auto block aspect-square w-full max-w-md touch-manipulation select-none">
+    <svg
+      viewBox="-110 -110 220 220"
+      role="group"
+      aria-label={label}
+      className="mx-auto block aspect-square w-full max-w-md touch-manipulation select-none"
+    >
       <circle r={R} fill="none" stroke="#3b424b" strokeWidth={3} />
       <circle r={R - 22} fill="#f2f4f6" stroke="#c9ced4" strokeWidth={2} />
       {/* The valve notch: a gap in the ring and a stem below it. */}
       <g aria-hidden>
         <rect x={-6} y={-R - 8} width={12} height={16} fill="#ffffff" />
-        <path d={`M -6 ${-R - 8} L 0 ${-R + 4} L 6 ${-R - 8} Z`} fill="#ffb300" stroke="#101317" strokeWidth={1.5} />
+        <path
+          d={`M -6 ${-R - 8} L 0 ${-R + 4} L 6 ${-R - 8} Z`}
+          fill="#ffb300"
+          stroke="#101317"
+          strokeWidth={1.5}
+        />
         <text y={-R + 22} textAnchor="middle" fontSize={9} fontWeight={700} fill="#101317">
           VALVE
         </text>
@@ -104,27 +140,87 @@ export function BoltCircle({ count, order, done, next = null, mode = 'pass', pas
             onClick={interactive ? () => onSelect?.(b) : undefined}
             onKeyDown={interactive ? (e) => move(e, b) : undefined}
             onFocus={() => setFocus(b)}
-            className={interactive ? 'cursor-pointer outline-none [&:focus-visible>.focus]:stroke-[#0a4f8a]' : undefined}
+            className={
+              interactive
+                ? 'cursor-pointer outline-none [&:focus-visible>.focus]:stroke-[#0a4f8a]'
+                : undefined
+            }
             data-state={state}
           >
-            <circle className="focus" cx={x} cy={y} r={size + 5} fill="none" stroke={selected === b ? '#101317' : 'transparent'} strokeWidth={2.5} strokeDasharray={selected === b ? '3 2' : undefined} />
-            {isNext || suggested ? <circle cx={x} cy={y} r={size + 3} fill="none" stroke="#0a4f8a" strokeWidth={3} /> : null}
-            {marked?.includes(b) ? <circle cx={x} cy={y} r={size + 4} fill="none" stroke="#b3261e" strokeWidth={3} strokeDasharray="4 2" data-marked /> : null}
-            <circle cx={x} cy={y} r={size} fill={isDone ? '#1d6b36' : isNext ? '#0a4f8a' : '#ffffff'} stroke="#101317" strokeWidth={1.5} />
+            <circle
+              className="focus"
+              cx={x}
+              cy={y}
+              r={size + 5}
+              fill="none"
+              stroke={selected === b ? '#101317' : 'transparent'}
+              strokeWidth={2.5}
+              strokeDasharray={selected === b ? '3 2' : undefined}
+            />
+            {isNext || suggested ? (
+              <circle cx={x} cy={y} r={size + 3} fill="none" stroke="#0a4f8a" strokeWidth={3} />
+            ) : null}
+            {marked?.includes(b) ? (
+              <circle
+                cx={x}
+                cy={y}
+                r={size + 4}
+                fill="none"
+                stroke="#b3261e"
+                strokeWidth={3}
+                strokeDasharray="4 2"
+                data-marked
+              />
+            ) : null}
+            <circle
+              cx={x}
+              cy={y}
+              r={size}
+              fill={isDone ? '#1d6b36' : isNext ? '#0a4f8a' : '#ffffff'}
+              stroke="#101317"
+              strokeWidth={1.5}
+            />
             {isDone ? (
-              <path d={`M ${x - size / 2} ${y} l ${size / 3} ${size / 3} l ${size / 1.6} ${-size / 1.4}`} fill="none" stroke="#ffffff" strokeWidth={2} aria-hidden />
+              <path
+                d={`M ${x - size / 2} ${y} l ${size / 3} ${size / 3} l ${size / 1.6} ${-size / 1.4}`}
+                fill="none"
+                stroke="#ffffff"
+                strokeWidth={2}
+                aria-hidden
+              />
             ) : n && mode !== 'hand-start' && (mode === 'preview' || turnShown(n)) ? (
-              <text x={x} y={y} dy="0.35em" textAnchor="middle" fontSize={size * 0.95} fontWeight={700} fill={isNext ? '#ffffff' : '#101317'} aria-hidden>
+              <text
+                x={x}
+                y={y}
+                dy="0.35em"
+                textAnchor="middle"
+                fontSize={size * 0.95}
+                fontWeight={700}
+                fill={isNext ? '#ffffff' : '#101317'}
+                aria-hidden
+              >
                 {n}
               </text>
             ) : null}
             {flagged?.includes(b) ? (
               <g data-flagged aria-hidden>
                 <circle cx={x} cy={y} r={size + 4} fill="none" stroke="#b3261e" strokeWidth={3.5} />
-                <path d={`M ${x - size} ${y - size} L ${x + size} ${y + size} M ${x + size} ${y - size} L ${x - size} ${y + size}`} stroke="#b3261e" strokeWidth={3} />
+                <path
+                  d={`M ${x - size} ${y - size} L ${x + size} ${y + size} M ${x + size} ${y - size} L ${x - size} ${y + size}`}
+                  stroke="#b3261e"
+                  strokeWidth={3}
+                />
               </g>
             ) : null}
-            <text x={out.x} y={out.y} dy="0.35em" textAnchor="middle" fontSize={size * 0.8} fill="#3b424b" aria-hidden>
+            <text
+              x={out.x}
+              y={out.y}
+              dy="0.35em"
+              textAnchor="middle"
+              fontSize={size * 0.8}
+              fill="#3b424b"
+              aria-hidden
+            >
               {b}
             </text>
           </g>

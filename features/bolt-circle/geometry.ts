@@ -10,7 +10,12 @@ export function boltPosition(i: number, n: number, radius: number) {
 export type BoltState = 'done' | 'next' | 'pending' | 'started' | 'not-started';
 
 /** Words for a screen reader, e.g. "bolt 7, pass 2, done" or "bolt 3, next, 5th in order". */
-export function boltLabel(bolt: number, state: BoltState, passLabel: string, step?: number): string {
+export function boltLabel(
+  bolt: number,
+  state: BoltState,
+  passLabel: string,
+  step?: number,
+): string {
   const ordinal = step ? `, ${ordinalOf(step)} in order` : '';
   switch (state) {
     case 'done':

@@ -28,7 +28,10 @@ export function axleWarnings(wheels: WheelLike[]): string[] {
   if (Object.keys(tireSizeErrors(wheels)).length) return [];
   const size = (p: string) => wheels.find((w) => w.position === p)?.tireSize;
   const warnings: string[] = [];
-  for (const [axle, left, right] of [['Front', 'LF', 'RF'], ['Rear', 'LR', 'RR']] as const) {
+  for (const [axle, left, right] of [
+    ['Front', 'LF', 'RF'],
+    ['Rear', 'LR', 'RR'],
+  ] as const) {
     const a = size(left);
     const b = size(right);
     if (!a || !b) continue;
@@ -60,7 +63,10 @@ export function axleWarnings(wheels: WheelLike[]): string[] {
 export function intakeWarnings(wheels: readonly { position: string }[]): string[] {
   const on = new Set(wheels.map((w) => w.position));
   const warnings: string[] = [];
-  for (const [axle, left, right] of [['Front', 'LF', 'RF'], ['Rear', 'LR', 'RR']] as const) {
+  for (const [axle, left, right] of [
+    ['Front', 'LF', 'RF'],
+    ['Rear', 'LR', 'RR'],
+  ] as const) {
     if (on.has(left) === on.has(right)) continue;
     const [has, missing] = on.has(left) ? [left, right] : [right, left];
     warnings.push(

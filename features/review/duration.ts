@@ -5,5 +5,7 @@ export function formatSeconds(seconds: number): string {
   if (s < 60) return `${s} s`;
   const minutes = Math.floor(s / 60);
   if (minutes < 60) return s % 60 ? `${minutes} min ${s % 60} s` : `${minutes} min`;
-  return minutes % 60 ? `${Math.floor(minutes / 60)} h ${minutes % 60} min` : `${Math.floor(minutes / 60)} h`;
+  return minutes % 60
+    ? `${Math.floor(minutes / 60)} h ${minutes % 60} min`
+    : `${Math.floor(minutes / 60)} h`;
 }

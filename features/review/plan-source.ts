@@ -1,10 +1,30 @@
-import { passPlan, tighteningSequence, type Pattern, type Pressure, type Torque } from '@/features/torque-plan';
+import {
+  passPlan,
+  tighteningSequence,
+  type Pattern,
+  type Pressure,
+  type Torque,
+} from '@/features/torque-plan';
 import type { ReviewPlan, ReviewStep } from './types';
 
 /** The spec as stored on the wheel's snapshot (taken when its run started). */
 type Snapshot = {
-  spec: { name: string; boltCount: number; maxBeadSeatPressure: Pressure; runningPressure: Pressure; finalTorque: Torque };
-  plan: { passes: { index: number; kind: 'staged' | 'check'; fraction: number; target: Torque; order: number[] }[] };
+  spec: {
+    name: string;
+    boltCount: number;
+    maxBeadSeatPressure: Pressure;
+    runningPressure: Pressure;
+    finalTorque: Torque;
+  };
+  plan: {
+    passes: {
+      index: number;
+      kind: 'staged' | 'check';
+      fraction: number;
+      target: Torque;
+      order: number[];
+    }[];
+  };
   targetPressure: Pressure;
 };
 
@@ -37,7 +57,12 @@ export type WheelBasis = {
  * through the engine (the same sequence and passes the runner computes: start at bolt 1, the
  * check pass clockwise).
  */
-export function wheelBasis(input: { snapshot: Snapshot | null; spec: LiveSpec; targetPressure: Pressure; steps: ReviewStep[] }): WheelBasis {
+export function wheelBasis(input: {
+  snapshot: Snapshot | null;
+  spec: LiveSpec;
+  targetPressure: Pressure;
+  steps: ReviewStep[];
+}): WheelBasis {
   const { snapshot, spec, steps } = input;
   if (snapshot) {
     return {
@@ -49,11 +74,16 @@ export function wheelBasis(input: { snapshot: Snapshot | null; spec: LiveSpec; t
       source: 'snapshot',
     };
   }
-  const pattern: Pattern = spec.patternKind === 'skip' ? { kind: 'skip', step: spec.skipStep ?? 1 } : { kind: spec.patternKind };
+  const pattern: Pattern =
+    spec.patternKind === 'skip'
+      ? { kind: 'skip', step: spec.skipStep ?? 1 }
+      : { kind: spec.patternKind };
   const staged = tighteningSequence(spec.boltCount, pattern);
   const check = tighteningSequence(spec.boltCount, { kind: 'sequential' });
   const finalTorque = { value: spec.finalTorque, unit: spec.torqueUnit };
-  const passes = passPlan(finalTorque, spec.passFractions, { checkPass: spec.checkPass }).map((p) => ({ ...p, order: p.kind === 'check' ? check : staged }));
+  const passes = passPlan(finalTorque, spec.passFractions, { checkPass: spec.checkPass }).map(
+    (p) => ({ ...p, order: p.kind === 'check' ? check : staged }),
+  );
   return {
     plan: { boltCount: spec.boltCount, passes, steps },
     specName: spec.name,

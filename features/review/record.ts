@@ -22,7 +22,15 @@ export type BoltConfirmation = {
 };
 
 export type PassRecord = ReviewPass & { confirmed: BoltConfirmation[]; complete: boolean };
-export type StepRecord = { id: string; title: string; status: 'done' | 'skipped' | 'todo'; reason: string | null; at: string | null; byId: string | null; seconds: number | null };
+export type StepRecord = {
+  id: string;
+  title: string;
+  status: 'done' | 'skipped' | 'todo';
+  reason: string | null;
+  at: string | null;
+  byId: string | null;
+  seconds: number | null;
+};
 export type FlaggedBolt = { pass: number | null; bolt: number; reason: string };
 
 /** What the wheel's live (not superseded) events amount to, in the order they happened. */
@@ -45,7 +53,9 @@ function settingOf(payload: Record<string, unknown>): Torque | null {
     const { value, unit } = s as Record<string, unknown>;
     return num(value) !== null && isTorqueUnit(unit) ? { value: value as number, unit } : null;
   }
-  return num(s) !== null && isTorqueUnit(payload.settingUnit ?? payload.unit) ? { value: s as number, unit: (payload.settingUnit ?? payload.unit) as Torque['unit'] } : null;
+  return num(s) !== null && isTorqueUnit(payload.settingUnit ?? payload.unit)
+    ? { value: s as number, unit: (payload.settingUnit ?? payload.unit) as Torque['unit'] }
+    : null;
 }
 
 /** Device order, ties by id, each event once, rework's superseded events left out: every arrival order gives the same. */
@@ -64,12 +74,24 @@ export function liveEvents(events: readonly ReviewEvent[]): ReviewEvent[] {
 function passesOf(plan: ReviewPlan, events: readonly ReviewEvent[]): ReviewPass[] {
   const lastCheck = plan.passes.at(-1);
   if (lastCheck?.kind !== 'check') return plan.passes;
-  const extra = events.filter((e) => e.type === 'bolt_confirmed' && (num(e.payload.pass) ?? 0) > plan.passes.length);
-  const highest = Math.min(plan.passes.length + 10, Math.max(plan.passes.length, ...extra.map((e) => num(e.payload.pass)!)));
+  const extra = events.filter(
+    (e) => e.type === 'bolt_confirmed' && (num(e.payload.pass) ?? 0) > plan.passes.length,
+  );
+  const highest = Math.min(
+    plan.passes.length + 10,
+    Math.max(plan.passes.length, ...extra.map((e) => num(e.payload.pass)!)),
+  );
   const added: ReviewPass[] = [];
   for (let index = plan.passes.length + 1; index <= highest; index++) {
     const t = extra.find((e) => e.payload.pass === index)?.payload.target as Torque | undefined;
-    added.push({ ...lastCheck, index, target: t && num(t.value) !== null && isTorqueUnit(t.unit) ? { value: t.value, unit: t.unit } : lastCheck.target });
+    added.push({
+      ...lastCheck,
+      index,
+      target:
+        t && num(t.value) !== null && isTorqueUnit(t.unit)
+          ? { value: t.value, unit: t.unit }
+          : lastCheck.target,
+    });
   }
   return [...plan.passes, ...added];
 }
@@ -119,24 +141,38 @@ export function wheelRecord(basePlan: ReviewPlan, events: readonly ReviewEvent[]
       case 'bolt_undone':
         if (plan.passes[p]) confirmed[p] = confirmed[p]!.filter((c) => c.bolt !== bolt);
         break;
-      case 'bolt_flagged': {
-        const what = [str(e.payload.problem)?.replaceAll('_', ' '), str(e.payload.note) ?? str(e.payload.reason)].filter(Boolean).join(': ');
-        if (bolt !== null) flaggedBolts.push({ pass: p >= 0 ? p + 1 : null, bolt, reason: what });
-        break;
-      }
+      case 'bolt_flagged':
+        {
+          const what = [
+            str(e.payload.problem)?.replaceAll('_', ' '),
+            str(e.payload.note) ?? str(e.payload.reason),
+          ]
+            .filter(Boolean)
+            .join(': ');
+          if (bolt !== null) flaggedBolts.push({ pass: p >= 0 ? p + 1 : null, bolt, reason: what });
+          break;
+        }
         break;
       case 'inspection_failed':
         inspectionFailed = str(e.payload.notes) ?? 'no notes';
         break;
       case 'step_done':
-        if (step && steps.get(step)?.status !== 'done') steps.set(step, { status: 'done', reason: null, at: e.clientAt, byId: e.byId });
+        if (step && steps.get(step)?.status !== 'done')
+          steps.set(step, { status: 'done', reason: null, at: e.clientAt, byId: e.byId });
         if (step) {
           const m = e.payload.measurement as Record<string, unknown> | undefined;
-          if (m && num(m.value) !== null && isPressureUnit(m.unit)) measurements[step] = { value: m.value as number, unit: m.unit, at: e.clientAt };
+          if (m && num(m.value) !== null && isPressureUnit(m.unit))
+            measurements[step] = { value: m.value as number, unit: m.unit, at: e.clientAt };
         }
         break;
       case 'step_skipped':
-        if (step && !steps.has(step)) steps.set(step, { status: 'skipped', reason: str(e.payload.reason) ?? '', at: e.clientAt, byId: e.byId });
+        if (step && !steps.has(step))
+          steps.set(step, {
+            status: 'skipped',
+            reason: str(e.payload.reason) ?? '',
+            at: e.clientAt,
+            byId: e.byId,
+          });
         break;
     }
   }
@@ -145,13 +181,31 @@ export function wheelRecord(basePlan: ReviewPlan, events: readonly ReviewEvent[]
   let since = ordered[0]?.clientAt ?? null;
   const stepRecords: StepRecord[] = plan.steps.map((s) => {
     const r = steps.get(s.id);
-    if (!r?.at) return { id: s.id, title: s.title, status: 'todo', reason: null, at: null, byId: null, seconds: null };
-    const record = { id: s.id, title: s.title, ...r, seconds: since ? Math.max(0, seconds(since, r.at)) : null };
+    if (!r?.at)
+      return {
+        id: s.id,
+        title: s.title,
+        status: 'todo',
+        reason: null,
+        at: null,
+        byId: null,
+        seconds: null,
+      };
+    const record = {
+      id: s.id,
+      title: s.title,
+      ...r,
+      seconds: since ? Math.max(0, seconds(since, r.at)) : null,
+    };
     since = r.at;
     return record;
   });
   return {
-    passes: plan.passes.map((pass, i) => ({ ...pass, confirmed: confirmed[i]!, complete: confirmed[i]!.length === plan.boltCount })),
+    passes: plan.passes.map((pass, i) => ({
+      ...pass,
+      confirmed: confirmed[i]!,
+      complete: confirmed[i]!.length === plan.boltCount,
+    })),
     steps: stepRecords,
     measurements,
     inspectionFailed,

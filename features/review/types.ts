@@ -1,7 +1,19 @@
-import type { Pressure, RecordedVerification, Torque, VerificationPolicy, Wrench } from '@/features/torque-plan';
+import type {
+  Pressure,
+  RecordedVerification,
+  Torque,
+  VerificationPolicy,
+  Wrench,
+} from '@/features/torque-plan';
 
 /** One pass of the wheel's plan, as the technician was given it. */
-export type ReviewPass = { index: number; kind: 'staged' | 'check'; fraction: number; target: Torque; order: number[] };
+export type ReviewPass = {
+  index: number;
+  kind: 'staged' | 'check';
+  fraction: number;
+  target: Torque;
+  order: number[];
+};
 
 /** The steps the wheel's runner showed (id, title, whether it could be skipped). */
 export type ReviewStep = { id: string; title: string; required: boolean };
@@ -34,7 +46,12 @@ export type ReviewWrench = Wrench & {
 };
 
 /** An event the server would not store, as reported from the phone or recorded by the server. */
-export type RefusedEvent = { clientId: string | null; type: string | null; message: string; at: string };
+export type RefusedEvent = {
+  clientId: string | null;
+  type: string | null;
+  message: string;
+  at: string;
+};
 
 /** The shop's rules the review reads (from its settings). */
 export type ReviewSettings = {

@@ -6,10 +6,16 @@
 export const CLOCK_WINDOW = { backMs: 24 * 60 * 60 * 1000, aheadMs: 5 * 60 * 1000 } as const;
 
 /** The time to store for an event, and the phone's own time when it had to be clamped (else null). */
-export function clampClientAt(clientAt: string, now: Date): { clientAt: string; deviceAt: string | null } {
+export function clampClientAt(
+  clientAt: string,
+  now: Date,
+): { clientAt: string; deviceAt: string | null } {
   const t = Date.parse(clientAt);
   const low = now.getTime() - CLOCK_WINDOW.backMs;
   const high = now.getTime() + CLOCK_WINDOW.aheadMs;
   if (t >= low && t <= high) return { clientAt: new Date(t).toISOString(), deviceAt: null };
-  return { clientAt: new Date(Math.min(high, Math.max(low, t))).toISOString(), deviceAt: new Date(t).toISOString() };
+  return {
+    clientAt: new Date(Math.min(high, Math.max(low, t))).toISOString(),
+    deviceAt: new Date(t).toISOString(),
+  };
 }

@@ -4,5 +4,7 @@ export function formatDuration(ms: number): string {
   if (seconds < 60) return `${seconds} s`;
   const minutes = Math.floor(seconds / 60);
   if (minutes < 60) return seconds % 60 ? `${minutes} min ${seconds % 60} s` : `${minutes} min`;
-  return minutes % 60 ? `${Math.floor(minutes / 60)} h ${minutes % 60} min` : `${Math.floor(minutes / 60)} h`;
+  return minutes % 60
+    ? `${Math.floor(minutes / 60)} h ${minutes % 60} min`
+    : `${Math.floor(minutes / 60)} h`;
 }

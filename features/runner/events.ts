@@ -11,7 +11,11 @@ const bolt = z.number().int().min(1).max(64);
  */
 export const MAX_CHECK_PASSES = 10;
 // A plan has at most 8 staged passes and one check pass; added check passes follow it.
-const pass = z.number().int().min(1).max(8 + MAX_CHECK_PASSES);
+const pass = z
+  .number()
+  .int()
+  .min(1)
+  .max(8 + MAX_CHECK_PASSES);
 /** What a technician can report about one bolt when they stop the wheel. */
 export const BOLT_PROBLEMS = ['stripped', 'snapped', 'cross_threaded', 'spins', 'other'] as const;
 export type BoltProblem = (typeof BOLT_PROBLEMS)[number];
@@ -21,9 +25,29 @@ const torque = z.object({ value: z.number().positive().max(100_000), unit: z.enu
 export const runEventSchema = z.discriminatedUnion(
   'type',
   [
-    z.object({ type: z.literal('step_done'), payload: z.object({ step, checklist: z.array(cleanString('a checklist item', 40)).max(20).default([]), measurement: z.object({ value: z.number().positive().max(10_000), unit: z.enum(PRESSURE_UNITS) }).optional() }) }),
-    z.object({ type: z.literal('step_skipped'), payload: z.object({ step, reason: cleanString('the reason', 300).min(3, { error: 'Say why the step is skipped.' }) }) }),
-    z.object({ type: z.literal('inspection_failed'), payload: z.object({ notes: cleanString('the notes', 500).min(3, { error: 'Say what failed.' }) }) }),
+    z.object({
+      type: z.literal('step_done'),
+      payload: z.object({
+        step,
+        checklist: z.array(cleanString('a checklist item', 40)).max(20).default([]),
+        measurement: z
+          .object({ value: z.number().positive().max(10_000), unit: z.enum(PRESSURE_UNITS) })
+          .optional(),
+      }),
+    }),
+    z.object({
+      type: z.literal('step_skipped'),
+      payload: z.object({
+        step,
+        reason: cleanString('the reason', 300).min(3, { error: 'Say why the step is skipped.' }),
+      }),
+    }),
+    z.object({
+      type: z.literal('inspection_failed'),
+      payload: z.object({
+        notes: cleanString('the notes', 500).min(3, { error: 'Say what failed.' }),
+      }),
+    }),
     z.object({ type: z.literal('hand_started'), payload: z.object({ bolt }) }),
     z.object({ type: z.literal('hand_unstarted'), payload: z.object({ bolt }) }),
     z.object({ type: z.literal('wrench_chosen'), payload: z.object({ pass, wrenchId: z.uuid() }) }),
@@ -32,7 +56,16 @@ export const runEventSchema = z.discriminatedUnion(
     // the pass's target from the wheel's snapshot, when it stores the event.
     // `turned` (check passes only): whether the bolt turned before the wrench clicked; any bolt
     // that turned adds another check pass.
-    z.object({ type: z.literal('bolt_confirmed'), payload: z.object({ pass, bolt, wrenchId: z.uuid().optional(), setting: torque.optional(), turned: z.boolean().optional() }) }),
+    z.object({
+      type: z.literal('bolt_confirmed'),
+      payload: z.object({
+        pass,
+        bolt,
+        wrenchId: z.uuid().optional(),
+        setting: torque.optional(),
+        turned: z.boolean().optional(),
+      }),
+    }),
     z.object({ type: z.literal('bolt_undone'), payload: z.object({ pass, bolt }) }),
     // A bolt that stops the wheel (during hand-start `pass` is absent): the wheel is flagged for a lead.
     z.object({
@@ -45,7 +78,10 @@ export const runEventSchema = z.discriminatedUnion(
           note: cleanString('the note', 300).optional(),
           photoId: z.uuid().optional(),
         })
-        .refine((p) => p.problem !== 'other' || (p.note?.trim().length ?? 0) >= 3, { error: 'Say what is wrong with the bolt.', path: ['note'] }),
+        .refine((p) => p.problem !== 'other' || (p.note?.trim().length ?? 0) >= 3, {
+          error: 'Say what is wrong with the bolt.',
+          path: ['note'],
+        }),
     }),
   ],
   { error: 'Unknown runner event.' },
@@ -54,17 +90,34 @@ export const runEventSchema = z.discriminatedUnion(
 export const clientEventSchema = z.intersection(
   runEventSchema,
   // `deviceId`: the phone's own id (optional: events queued before phones kept one still save).
-  z.object({ clientId: z.uuid({ error: 'Each event needs its own id.' }), clientAt: isoDateTime('the time it happened'), deviceId: z.uuid({ error: 'The phone id is not valid.' }).optional() }),
+  z.object({
+    clientId: z.uuid({ error: 'Each event needs its own id.' }),
+    clientAt: isoDateTime('the time it happened'),
+    deviceId: z.uuid({ error: 'The phone id is not valid.' }).optional(),
+  }),
 );
 
-export const eventBatchSchema = z.object({ events: z.array(clientEventSchema).min(1).max(200, { error: 'At most 200 events at once.' }) });
+export const eventBatchSchema = z.object({
+  events: z.array(clientEventSchema).min(1).max(200, { error: 'At most 200 events at once.' }),
+});
 
 export type RunEvent = z.infer<typeof runEventSchema>;
 
-const PROBLEM_WORDS: Record<BoltProblem, string> = { stripped: 'stripped thread', snapped: 'snapped head', cross_threaded: 'cross-threaded', spins: 'bolt spins', other: 'other problem' };
+const PROBLEM_WORDS: Record<BoltProblem, string> = {
+  stripped: 'stripped thread',
+  snapped: 'snapped head',
+  cross_threaded: 'cross-threaded',
+  spins: 'bolt spins',
+  other: 'other problem',
+};
 
 /** The words a flagged bolt leaves on the wheel for the lead (the reducer and the save path agree on them). */
-export function boltFlagReason(payload: { bolt: number; pass?: number | undefined; problem: BoltProblem; note?: string | undefined }): string {
+export function boltFlagReason(payload: {
+  bolt: number;
+  pass?: number | undefined;
+  problem: BoltProblem;
+  note?: string | undefined;
+}): string {
   const where = payload.pass ? `pass ${payload.pass}` : 'hand-start';
   const note = payload.note?.trim();
   return `Bolt ${payload.bolt} (${where}): ${PROBLEM_WORDS[payload.problem]}${note ? ` — ${note}` : ''}`;
@@ -72,11 +125,19 @@ export function boltFlagReason(payload: { bolt: number; pass?: number | undefine
 export type ClientEvent = z.infer<typeof clientEventSchema>;
 
 /** One event the server would not take, by its place in the batch the phone sent. */
-export type EventRefusal = { index: number; clientId: string | null; message: string; fieldErrors: Record<string, string[]> };
+export type EventRefusal = {
+  index: number;
+  clientId: string | null;
+  message: string;
+  fieldErrors: Record<string, string[]>;
+};
 
 /** What the phone sends: the events are judged one by one, so one bad event cannot hold up the rest. */
 export const looseEventBatchSchema = z.object({
-  events: z.array(z.unknown(), { error: 'Send the events as a list.' }).min(1, { error: 'Send at least one event.' }).max(200, { error: 'At most 200 events at once.' }),
+  events: z
+    .array(z.unknown(), { error: 'Send the events as a list.' })
+    .min(1, { error: 'Send at least one event.' })
+    .max(200, { error: 'At most 200 events at once.' }),
 });
 
 const idOf = (raw: unknown) => {
@@ -85,15 +146,24 @@ const idOf = (raw: unknown) => {
 };
 
 /** Splits a batch into the events that pass the schema and a refusal (with its field errors) for each that does not. */
-export function partitionEvents(raw: unknown[]): { events: ClientEvent[]; refused: EventRefusal[] } {
+export function partitionEvents(raw: unknown[]): {
+  events: ClientEvent[];
+  refused: EventRefusal[];
+} {
   const events: ClientEvent[] = [];
   const refused: EventRefusal[] = [];
   raw.forEach((item, index) => {
     const parsed = clientEventSchema.safeParse(item);
     if (parsed.success) return void events.push(parsed.data);
     const fieldErrors: Record<string, string[]> = {};
-    for (const issue of parsed.error.issues) (fieldErrors[issue.path.join('.') || 'event'] ??= []).push(issue.message);
-    refused.push({ index, clientId: idOf(item), message: parsed.error.issues[0]?.message ?? 'This event is not valid.', fieldErrors });
+    for (const issue of parsed.error.issues)
+      (fieldErrors[issue.path.join('.') || 'event'] ??= []).push(issue.message);
+    refused.push({
+      index,
+      clientId: idOf(item),
+      message: parsed.error.issues[0]?.message ?? 'This event is not valid.',
+      fieldErrors,
+    });
   });
   return { events, refused };
 }

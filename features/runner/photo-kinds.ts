@@ -24,4 +24,5 @@ export const PHOTO_KIND_INFO: Record<PhotoKind, PhotoKindInfo> = {
 export const REQUIRED_PHOTOS = PHOTO_KINDS.filter((kind) => PHOTO_KIND_INFO[kind].required);
 
 /** The required photos not yet taken, in list order. */
-export const missingPhotos = (taken: readonly string[]) => REQUIRED_PHOTOS.filter((kind) => !taken.includes(kind));
+export const missingPhotos = (taken: readonly string[]) =>
+  REQUIRED_PHOTOS.filter((kind) => !taken.includes(kind));

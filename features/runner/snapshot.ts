@@ -26,7 +26,10 @@ type SpecFields = Pick<
   | 'threadCondition'
   | 'boltReuse'
 >;
-type WheelFields = { targetPressure: number; pressureUnit: WheelSnapshot['targetPressure']['unit'] };
+type WheelFields = {
+  targetPressure: number;
+  pressureUnit: WheelSnapshot['targetPressure']['unit'];
+};
 
 /**
  * What the technician is told to do, frozen when the wheel's run starts: the spec's numbers with
@@ -34,10 +37,15 @@ type WheelFields = { targetPressure: number; pressureUnit: WheelSnapshot['target
  * it on the wheel with the first event.
  */
 export function takeSnapshot(spec: SpecFields, wheel: WheelFields, now: Date): WheelSnapshot {
-  const pattern: Pattern = spec.patternKind === 'skip' ? { kind: 'skip', step: spec.skipStep ?? 1 } : { kind: spec.patternKind };
+  const pattern: Pattern =
+    spec.patternKind === 'skip'
+      ? { kind: 'skip', step: spec.skipStep ?? 1 }
+      : { kind: spec.patternKind };
   const sequence = tighteningSequence(spec.boltCount, pattern);
   const check = tighteningSequence(spec.boltCount, { kind: 'sequential' });
-  const passes = passPlan({ value: spec.finalTorque, unit: spec.torqueUnit }, spec.passFractions, { checkPass: spec.checkPass });
+  const passes = passPlan({ value: spec.finalTorque, unit: spec.torqueUnit }, spec.passFractions, {
+    checkPass: spec.checkPass,
+  });
   return {
     version: 1,
     takenAt: now.toISOString(),
@@ -46,13 +54,19 @@ export function takeSnapshot(spec: SpecFields, wheel: WheelFields, now: Date): W
       name: spec.name,
       boltCount: spec.boltCount,
       boltThread: spec.boltThread,
-      pattern: { kind: spec.patternKind, step: spec.patternKind === 'skip' ? (spec.skipStep ?? 1) : null },
+      pattern: {
+        kind: spec.patternKind,
+        step: spec.patternKind === 'skip' ? (spec.skipStep ?? 1) : null,
+      },
       passFractions: [...spec.passFractions],
       checkPass: spec.checkPass,
       finalTorque: { value: spec.finalTorque, unit: spec.torqueUnit },
       maxBeadSeatPressure: { value: spec.maxBeadSeatPressure, unit: spec.pressureUnit },
       runningPressure: { value: spec.runningPressure, unit: spec.pressureUnit },
-      lugTorque: spec.lugTorque && spec.lugTorqueUnit ? { value: spec.lugTorque, unit: spec.lugTorqueUnit } : null,
+      lugTorque:
+        spec.lugTorque && spec.lugTorqueUnit
+          ? { value: spec.lugTorque, unit: spec.lugTorqueUnit }
+          : null,
       lugCount: spec.lugCount,
       makerReference: spec.makerReference,
       notes: spec.notes,
@@ -61,14 +75,23 @@ export function takeSnapshot(spec: SpecFields, wheel: WheelFields, now: Date): W
     },
     plan: {
       sequence,
-      passes: passes.map((p) => ({ index: p.index, kind: p.kind, fraction: p.fraction, target: p.target, order: p.kind === 'check' ? check : sequence })),
+      passes: passes.map((p) => ({
+        index: p.index,
+        kind: p.kind,
+        fraction: p.fraction,
+        target: p.target,
+        order: p.kind === 'check' ? check : sequence,
+      })),
     },
     targetPressure: { value: wheel.targetPressure, unit: wheel.pressureUnit },
   };
 }
 
 /** The runner's plan from a snapshot: the steps follow the job (dismount, reinstall), the rest the snapshot. */
-export function planFromSnapshot(snapshot: WheelSnapshot, job: { dismount: boolean; reinstall: boolean }): RunnerPlan {
+export function planFromSnapshot(
+  snapshot: WheelSnapshot,
+  job: { dismount: boolean; reinstall: boolean },
+): RunnerPlan {
   return {
     steps: stepsFor(job),
     boltCount: snapshot.spec.boltCount,

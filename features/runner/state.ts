@@ -11,7 +11,14 @@ export type RunnerPlan = { steps: Step[]; boltCount: number; passes: RunnerPass[
  * (its index is past the plan's; its target is the plan's check pass's, see `plannedPassOf`).
  * `turned`: the bolts of a check pass confirmed as having turned before the wrench clicked.
  */
-export type PassProgress = RunnerPass & { confirmed: number[]; next: number | null; complete: boolean; wrenchId: string | null; added: boolean; turned: number[] };
+export type PassProgress = RunnerPass & {
+  confirmed: number[];
+  next: number | null;
+  complete: boolean;
+  wrenchId: string | null;
+  added: boolean;
+  turned: number[];
+};
 export type Anomaly = { at: string; pass: number; bolt: number; expected: number | null };
 /** A bolt that stopped the wheel; `pass` is null when it was flagged during hand-start. */
 export type FlaggedBolt = { bolt: number; pass: number | null; problem: BoltProblem; note: string };
@@ -50,7 +57,9 @@ export function plannedPassOf<P>(planPasses: readonly P[], index: number): P | u
 
 /** The highest pass index a wheel's events may name: the plan's, plus the check passes that may be added. */
 export function maxPassIndex(planPasses: readonly { kind: 'staged' | 'check' }[]): number {
-  return planPasses.at(-1)?.kind === 'check' ? planPasses.length + MAX_CHECK_PASSES - 1 : planPasses.length;
+  return planPasses.at(-1)?.kind === 'check'
+    ? planPasses.length + MAX_CHECK_PASSES - 1
+    : planPasses.length;
 }
 
 function safeHandStartOrder(boltCount: number): number[] {
@@ -62,8 +71,12 @@ function safeHandStartOrder(boltCount: number): number[] {
 }
 
 /** Events in the order they happened on the devices; ties broken by id so every device agrees. */
-export function orderEvents<E extends Pick<ClientEvent, 'clientAt' | 'clientId'>>(events: readonly E[]): E[] {
-  return [...events].sort((a, b) => a.clientAt.localeCompare(b.clientAt) || a.clientId.localeCompare(b.clientId));
+export function orderEvents<E extends Pick<ClientEvent, 'clientAt' | 'clientId'>>(
+  events: readonly E[],
+): E[] {
+  return [...events].sort(
+    (a, b) => a.clientAt.localeCompare(b.clientAt) || a.clientId.localeCompare(b.clientId),
+  );
 }
 
 /**
@@ -80,7 +93,8 @@ export function reduceRun(plan: RunnerPlan, events: readonly ClientEvent[]): Run
   // Room for every pass the wheel may have: the plan's, then added check passes.
   const planCount = plan.passes.length;
   const passCount = maxPassIndex(plan.passes);
-  const passAt = (p: number): RunnerPass => plan.passes[p] ?? { index: p + 1, kind: 'check', order: plan.passes[planCount - 1]!.order };
+  const passAt = (p: number): RunnerPass =>
+    plan.passes[p] ?? { index: p + 1, kind: 'check', order: plan.passes[planCount - 1]!.order };
   const confirmed = Array.from({ length: passCount }, () => new Set<number>());
   const turned = Array.from({ length: passCount }, () => new Set<number>());
   const orderDone = Array.from({ length: passCount }, () => [] as number[]);
@@ -137,7 +151,12 @@ export function reduceRun(plan: RunnerPlan, events: readonly ClientEvent[]): Run
         break;
       case 'bolt_flagged':
         if (e.payload.bolt > plan.boltCount) break;
-        flaggedBolts.push({ bolt: e.payload.bolt, pass: e.payload.pass ?? null, problem: e.payload.problem, note: e.payload.note ?? '' });
+        flaggedBolts.push({
+          bolt: e.payload.bolt,
+          pass: e.payload.pass ?? null,
+          problem: e.payload.problem,
+          note: e.payload.note ?? '',
+        });
         flagged = boltFlagReason(e.payload);
         break;
       case 'hand_started':
@@ -152,10 +171,17 @@ export function reduceRun(plan: RunnerPlan, events: readonly ClientEvent[]): Run
       case 'bolt_confirmed': {
         const p = e.payload.pass - 1;
         // An added check pass not yet due (no bolt turned on the one before) is ignored.
-        if (p >= activeCount() || e.payload.bolt > plan.boltCount || confirmed[p]!.has(e.payload.bolt)) break;
+        if (
+          p >= activeCount() ||
+          e.payload.bolt > plan.boltCount ||
+          confirmed[p]!.has(e.payload.bolt)
+        )
+          break;
         const expectedPass = currentPassIndex();
-        const expected = p === expectedPass ? nextOf(p) : expectedPass >= 0 ? nextOf(expectedPass) : null;
-        if (p !== expectedPass || e.payload.bolt !== expected) anomalies.push({ at: e.clientAt, pass: p + 1, bolt: e.payload.bolt, expected });
+        const expected =
+          p === expectedPass ? nextOf(p) : expectedPass >= 0 ? nextOf(expectedPass) : null;
+        if (p !== expectedPass || e.payload.bolt !== expected)
+          anomalies.push({ at: e.clientAt, pass: p + 1, bolt: e.payload.bolt, expected });
         confirmed[p]!.add(e.payload.bolt);
         orderDone[p]!.push(e.payload.bolt);
         if (e.payload.turned && passAt(p).kind === 'check') turned[p]!.add(e.payload.bolt);
@@ -164,7 +190,8 @@ export function reduceRun(plan: RunnerPlan, events: readonly ClientEvent[]): Run
       case 'bolt_undone': {
         const p = e.payload.pass - 1;
         turned[p]?.delete(e.payload.bolt);
-        if (confirmed[p]?.delete(e.payload.bolt)) orderDone[p] = orderDone[p]!.filter((b) => b !== e.payload.bolt);
+        if (confirmed[p]?.delete(e.payload.bolt))
+          orderDone[p] = orderDone[p]!.filter((b) => b !== e.payload.bolt);
         break;
       }
     }
@@ -181,8 +208,12 @@ export function reduceRun(plan: RunnerPlan, events: readonly ClientEvent[]): Run
     turned: [...turned[p]!].sort((a, b) => a - b),
   }));
   const cp = currentPassIndex();
-  const checkPassLimitReached = passCount > planCount && count === passCount && turned[passCount - 1]!.size > 0;
-  const current = flagged ? null : ((plan.steps.find((s) => s.id !== 'submit' && status[s.id] === 'todo')?.id ?? null) as StepId | null);
+  const checkPassLimitReached =
+    passCount > planCount && count === passCount && turned[passCount - 1]!.size > 0;
+  const current = flagged
+    ? null
+    : ((plan.steps.find((s) => s.id !== 'submit' && status[s.id] === 'todo')?.id ??
+        null) as StepId | null);
   const nextHandStart = safeHandStartOrder(plan.boltCount).find((b) => !started.has(b)) ?? null;
   return {
     status,
@@ -203,12 +234,25 @@ export function reduceRun(plan: RunnerPlan, events: readonly ClientEvent[]): Run
 }
 
 /** What still stands between this wheel and submit; empty when it may be submitted. */
-export function submitBlockers(plan: RunnerPlan, state: RunnerState, photoKinds: readonly string[]): string[] {
+export function submitBlockers(
+  plan: RunnerPlan,
+  state: RunnerState,
+  photoKinds: readonly string[],
+): string[] {
   const blockers: string[] = [];
-  if (state.flagged) blockers.push(state.flaggedBolts.length ? `A bolt stopped the wheel: ${state.flagged}. A lead must look at this wheel.` : `The inspection failed: ${state.flagged}. A lead must look at this wheel.`);
-  if (state.checkPassLimitReached) blockers.push(`A bolt still turned on check pass ${state.passes.length}, the last one allowed. A lead must look at this wheel.`);
+  if (state.flagged)
+    blockers.push(
+      state.flaggedBolts.length
+        ? `A bolt stopped the wheel: ${state.flagged}. A lead must look at this wheel.`
+        : `The inspection failed: ${state.flagged}. A lead must look at this wheel.`,
+    );
+  if (state.checkPassLimitReached)
+    blockers.push(
+      `A bolt still turned on check pass ${state.passes.length}, the last one allowed. A lead must look at this wheel.`,
+    );
   for (const s of plan.steps) {
-    if (s.id !== 'submit' && state.status[s.id] === 'todo') blockers.push(`Step not finished: ${s.title}.`);
+    if (s.id !== 'submit' && state.status[s.id] === 'todo')
+      blockers.push(`Step not finished: ${s.title}.`);
   }
   for (const kind of missingPhotos(photoKinds)) {
     const label = PHOTO_KIND_INFO[kind].label;

@@ -4,7 +4,20 @@
  * wheels of large vehicles; bolted wheels without a lock ring may fall outside its letter).
  */
 /** Every step, in procedure order: the one list events, the runner and the review name steps from. */
-export const STEP_IDS = ['safety', 'dismount', 'clean', 'inspect', 'mount', 'index', 'hand_start', 'torque', 'seat_bead', 'leak_check', 'reinstall', 'submit'] as const;
+export const STEP_IDS = [
+  'safety',
+  'dismount',
+  'clean',
+  'inspect',
+  'mount',
+  'index',
+  'hand_start',
+  'torque',
+  'seat_bead',
+  'leak_check',
+  'reinstall',
+  'submit',
+] as const;
 export type StepId = (typeof STEP_IDS)[number];
 
 export type Step = {
@@ -18,14 +31,18 @@ export type Step = {
   required?: boolean;
 };
 
-export const MAKER_FIRST = "The wheel and tire maker's specs, local codes and licensed practice come first.";
+export const MAKER_FIRST =
+  "The wheel and tire maker's specs, local codes and licensed practice come first.";
 
 const ALL: Step[] = [
   {
     id: 'safety',
     title: 'Safety gate',
     required: true,
-    cautions: ['Deflate completely with the valve core out before any ring bolt is loosened (OSHA 1910.177(f)).', 'No heat or welding on wheel parts.'],
+    cautions: [
+      'Deflate completely with the valve core out before any ring bolt is loosened (OSHA 1910.177(f)).',
+      'No heat or welding on wheel parts.',
+    ],
     checklist: [
       { id: 'off-vehicle', text: 'The wheel is off the vehicle.' },
       { id: 'deflated', text: 'The tire is fully deflated.' },
@@ -38,7 +55,7 @@ const ALL: Step[] = [
     cautions: [
       'Ring bolts come out only with the tire flat and the valve core out.',
       'Lubricate the bead edge before you work it off: a dry bead tears and fights you.',
-      'Breaking the bead with a jack and a bar against a fixed point: keep your hands and face out of the bar\'s path. When the bead lets go, the bar jumps.',
+      "Breaking the bead with a jack and a bar against a fixed point: keep your hands and face out of the bar's path. When the bead lets go, the bar jumps.",
     ],
     checklist: [
       { id: 'bolts-out', text: 'All ring bolts out, ring lifted off.' },
@@ -49,7 +66,9 @@ const ALL: Step[] = [
   {
     id: 'clean',
     title: 'Clean and deburr',
-    cautions: ['Take the burrs off the sealing faces with a fine file or a wire wheel: the burr only, never cut into the sealing face itself. Eye protection on. A burr left here leaks or cuts the bead.'],
+    cautions: [
+      'Take the burrs off the sealing faces with a fine file or a wire wheel: the burr only, never cut into the sealing face itself. Eye protection on. A burr left here leaks or cuts the bead.',
+    ],
     checklist: [
       { id: 'faces-deburred', text: 'Rim sealing faces cleaned and deburred.' },
       { id: 'ring-clean', text: 'Ring cleaned and deburred on both faces.' },
@@ -68,13 +87,18 @@ const ALL: Step[] = [
       { id: 'no-cracks', text: 'No cracks in the rim or the ring.' },
       { id: 'no-bends', text: 'No bends in the ring or the bead seat.' },
       { id: 'threads-ok', text: 'No damaged threads in the rim.' },
-      { id: 'bolts-ok', text: "Ring bolts checked: stretched, galled or damaged heads replaced per the maker." },
+      {
+        id: 'bolts-ok',
+        text: 'Ring bolts checked: stretched, galled or damaged heads replaced per the maker.',
+      },
     ],
   },
   {
     id: 'mount',
     title: 'Mount the tire',
-    cautions: ['The outer bead must sit centred on the lock seat all the way round before the ring goes on. A bead pinched under the ring will not seal and can let go.'],
+    cautions: [
+      'The outer bead must sit centred on the lock seat all the way round before the ring goes on. A bead pinched under the ring will not seal and can let go.',
+    ],
     checklist: [
       { id: 'lubed', text: 'Bead lubricated.' },
       { id: 'fitted', text: 'Tire fitted on the wheel.' },
@@ -94,7 +118,7 @@ const ALL: Step[] = [
     required: true,
     cautions: [
       'Start each bolt a few threads by hand, across the ring as suggested. If one binds, back it out and start it again: never drive a cross-threaded bolt with a tool.',
-      "Lubricate the bolts only as the wheel maker says. Dry, oiled or anti-seize changes what the wrench setting puts into the bolt.",
+      'Lubricate the bolts only as the wheel maker says. Dry, oiled or anti-seize changes what the wrench setting puts into the bolt.',
     ],
     checklist: [],
   },
@@ -102,7 +126,9 @@ const ALL: Step[] = [
     id: 'torque',
     title: 'Torque passes',
     required: true,
-    cautions: ['Follow the sequence on the bolt circle, one pass at a time, at the setting shown. No air goes in until every bolt has been checked at final torque.'],
+    cautions: [
+      'Follow the sequence on the bolt circle, one pass at a time, at the setting shown. No air goes in until every bolt has been checked at final torque.',
+    ],
     checklist: [],
   },
   {
@@ -121,7 +147,10 @@ const ALL: Step[] = [
     checklist: [
       { id: 'strap', text: 'Strap on the tread to help the bead seat.' },
       { id: 'restrained', text: 'Cage or restraining device used where the rules call for one.' },
-      { id: 'clip-chuck', text: 'Clip-on chuck and in-line gauge; standing clear of the trajectory.' },
+      {
+        id: 'clip-chuck',
+        text: 'Clip-on chuck and in-line gauge; standing clear of the trajectory.',
+      },
       { id: 'seated', text: 'Inner bead seated.' },
       { id: 'strap-off', text: 'Strap off before finishing inflation.' },
       { id: 'ring-gap', text: 'Ring gap even all round.' },
@@ -142,7 +171,9 @@ const ALL: Step[] = [
   {
     id: 'reinstall',
     title: 'Re-install on the vehicle',
-    cautions: ["Lug nuts run down in a star pattern, then torqued to the vehicle maker's lug torque with a checked wrench. Re-torque after the first miles as the maker says."],
+    cautions: [
+      "Lug nuts run down in a star pattern, then torqued to the vehicle maker's lug torque with a checked wrench. Re-torque after the first miles as the maker says.",
+    ],
     checklist: [
       { id: 'star', text: 'Lug nuts run down in a star pattern.' },
       { id: 'lug-torque', text: 'Lug nuts torqued to spec.' },
@@ -153,5 +184,7 @@ const ALL: Step[] = [
 
 /** The steps of this wheel's job: dismount and re-install only when the job includes them. */
 export function stepsFor(job: { dismount: boolean; reinstall: boolean }): Step[] {
-  return ALL.filter((s) => (s.id !== 'dismount' || job.dismount) && (s.id !== 'reinstall' || job.reinstall));
+  return ALL.filter(
+    (s) => (s.id !== 'dismount' || job.dismount) && (s.id !== 'reinstall' || job.reinstall),
+  );
 }

@@ -50,10 +50,20 @@ export function passWrench(input: {
   const usable = input.wrenches.filter((w) => !input.failed?.includes(w.id));
   const best = chooseWrench(target, usable, floor);
   const suitable = usable.filter((w) => chooseWrench(target, [w], floor).ok);
-  const wrenchId = input.chosenId && suitable.some((w) => w.id === input.chosenId) ? input.chosenId : best.ok ? best.wrenchId : null;
+  const wrenchId =
+    input.chosenId && suitable.some((w) => w.id === input.chosenId)
+      ? input.chosenId
+      : best.ok
+        ? best.wrenchId
+        : null;
   const wrench = usable.find((w) => w.id === wrenchId) ?? null;
   const choice = wrench ? chooseWrench(target, [wrench], floor) : null;
   const verification =
-    wrench && choice?.ok ? verificationFor(wrench.id, choice.setting, input.verifications, rules.verification, { timeZone: rules.timeZone, now: input.now }) : null;
+    wrench && choice?.ok
+      ? verificationFor(wrench.id, choice.setting, input.verifications, rules.verification, {
+          timeZone: rules.timeZone,
+          now: input.now,
+        })
+      : null;
   return { best, suitable, wrench, choice, verification };
 }

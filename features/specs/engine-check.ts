@@ -1,9 +1,19 @@
-import { checkPlausibility, passPlan, tighteningSequence, TorquePlanError, type Pattern, type Plausibility, type PlausibilityInput } from '@/features/torque-plan';
+import {
+  checkPlausibility,
+  passPlan,
+  tighteningSequence,
+  TorquePlanError,
+  type Pattern,
+  type Plausibility,
+  type PlausibilityInput,
+} from '@/features/torque-plan';
 import type { SpecInput } from './schemas';
 import type { Spec } from './server/specs';
 
 export function specPattern(s: Pick<SpecInput, 'patternKind' | 'skipStep'>): Pattern {
-  return s.patternKind === 'skip' ? { kind: 'skip', step: s.skipStep ?? 0 } : { kind: s.patternKind };
+  return s.patternKind === 'skip'
+    ? { kind: 'skip', step: s.skipStep ?? 0 }
+    : { kind: s.patternKind };
 }
 
 // Engine field names → the spec form's.
@@ -22,7 +32,11 @@ const FIELD: [RegExp, string][] = [
 export function engineErrors(s: SpecInput): Record<string, string[]> | null {
   try {
     tighteningSequence(s.boltCount, specPattern(s));
-    passPlan({ value: s.finalTorque, unit: s.torqueUnit }, s.passPercents.map((p) => p / 100), { checkPass: s.checkPass });
+    passPlan(
+      { value: s.finalTorque, unit: s.torqueUnit },
+      s.passPercents.map((p) => p / 100),
+      { checkPass: s.checkPass },
+    );
     return null;
   } catch (error) {
     if (!(error instanceof TorquePlanError)) throw error;
@@ -34,8 +48,21 @@ export function engineErrors(s: SpecInput): Record<string, string[]> | null {
 /** The plausibility module's field names → the spec form's. */
 const formField = (field: string) => (field === 'fractions' ? 'passPercents' : field);
 
-type Numbers = Pick<SpecInput, 'maxBeadSeatPressure' | 'runningPressure' | 'pressureUnit' | 'finalTorque' | 'torqueUnit' | 'passPercents'> &
-  Partial<Pick<SpecInput, 'lugTorque' | 'lugTorqueUnit' | 'beadSeatRatingReference' | 'beadSeatRatingConfirmed'>>;
+type Numbers = Pick<
+  SpecInput,
+  | 'maxBeadSeatPressure'
+  | 'runningPressure'
+  | 'pressureUnit'
+  | 'finalTorque'
+  | 'torqueUnit'
+  | 'passPercents'
+> &
+  Partial<
+    Pick<
+      SpecInput,
+      'lugTorque' | 'lugTorqueUnit' | 'beadSeatRatingReference' | 'beadSeatRatingConfirmed'
+    >
+  >;
 
 export function plausibilityInput(s: Numbers): PlausibilityInput {
   return {
@@ -45,13 +72,20 @@ export function plausibilityInput(s: Numbers): PlausibilityInput {
     finalTorque: s.finalTorque,
     torqueUnit: s.torqueUnit,
     fractions: s.passPercents.map((p) => p / 100),
-    lugTorque: s.lugTorque === undefined ? null : { value: s.lugTorque, unit: s.lugTorqueUnit ?? 'lbf-ft' },
-    beadSeatRating: { reference: s.beadSeatRatingReference ?? '', confirmed: s.beadSeatRatingConfirmed ?? false },
+    lugTorque:
+      s.lugTorque === undefined ? null : { value: s.lugTorque, unit: s.lugTorqueUnit ?? 'lbf-ft' },
+    beadSeatRating: {
+      reference: s.beadSeatRatingReference ?? '',
+      confirmed: s.beadSeatRatingConfirmed ?? false,
+    },
   };
 }
 
 /** The spec's plausibility, keyed by the form's field names: errors refuse the save, warnings are shown. */
-export function specPlausibility(s: Numbers): { errors: Record<string, string[]>; warnings: Record<string, string[]> } {
+export function specPlausibility(s: Numbers): {
+  errors: Record<string, string[]>;
+  warnings: Record<string, string[]>;
+} {
   const byField = (issues: Plausibility['errors']) => {
     const out: Record<string, string[]> = {};
     for (const { field, message } of issues) (out[formField(field)] ??= []).push(message);
@@ -71,7 +105,8 @@ export function specErrors(s: SpecInput): Record<string, string[]> | null {
 
 /** The engine speaks in fractions; the form in percent. */
 function inPercent(message: string): string {
-  if (/must not go down/.test(message)) return 'Each pass must be at least the one before (a repeated pass is fine).';
+  if (/must not go down/.test(message))
+    return 'Each pass must be at least the one before (a repeated pass is fine).';
   if (/last pass/.test(message)) return 'The last pass must be 100 (the final torque).';
   if (/above 0 and at most 1/.test(message)) return 'Each pass must be above 0 and at most 100.';
   return message;

@@ -3,7 +3,12 @@ import { specPlausibility } from './engine-check';
 
 type Issues = { errors: Record<string, string[]>; warnings: Record<string, string[]> };
 
-const NUMBER_FIELDS = ['maxBeadSeatPressure', 'runningPressure', 'finalTorque', 'lugTorque'] as const;
+const NUMBER_FIELDS = [
+  'maxBeadSeatPressure',
+  'runningPressure',
+  'finalTorque',
+  'lugTorque',
+] as const;
 
 /** A typed number as the spec means it; blank is "not typed yet" (undefined), anything else a number (maybe NaN). */
 function typed(raw: unknown): number | undefined {
@@ -13,7 +18,10 @@ function typed(raw: unknown): number | undefined {
 
 function typedPercents(raw: unknown): number[] | undefined {
   if (typeof raw !== 'string' || raw.trim() === '') return undefined;
-  return raw.split(/[,;\s]+/).filter(Boolean).map((p) => Number(p.replace('%', '')));
+  return raw
+    .split(/[,;\s]+/)
+    .filter(Boolean)
+    .map((p) => Number(p.replace('%', '')));
 }
 
 /**
@@ -22,13 +30,18 @@ function typedPercents(raw: unknown): number[] | undefined {
  * field not typed yet is dropped, so nothing is shown at an empty field.
  */
 export function liveCheck(form: Record<string, unknown>): Issues {
-  const n = Object.fromEntries(NUMBER_FIELDS.map((f) => [f, typed(form[f])])) as Record<(typeof NUMBER_FIELDS)[number], number | undefined>;
+  const n = Object.fromEntries(NUMBER_FIELDS.map((f) => [f, typed(form[f])])) as Record<
+    (typeof NUMBER_FIELDS)[number],
+    number | undefined
+  >;
   const percents = typedPercents(form.passPercents);
   const pressureUnit = isPressureUnit(form.pressureUnit) ? form.pressureUnit : 'psi';
   const torqueUnit = isTorqueUnit(form.torqueUnit) ? form.torqueUnit : 'lbf-ft';
   const lugTorqueUnit = isTorqueUnit(form.lugTorqueUnit) ? form.lugTorqueUnit : 'lbf-ft';
   // Stand-ins that raise nothing by themselves: the seat limit twice the running pressure.
-  const seat = n.maxBeadSeatPressure ?? (n.runningPressure !== undefined && n.runningPressure > 0 ? n.runningPressure * 2 : 2);
+  const seat =
+    n.maxBeadSeatPressure ??
+    (n.runningPressure !== undefined && n.runningPressure > 0 ? n.runningPressure * 2 : 2);
   const run = n.runningPressure ?? (seat > 0 ? seat / 2 : 1);
   const all = specPlausibility({
     maxBeadSeatPressure: seat,
@@ -39,14 +52,17 @@ export function liveCheck(form: Record<string, unknown>): Issues {
     passPercents: percents ?? [100],
     lugTorque: n.lugTorque,
     lugTorqueUnit,
-    beadSeatRatingReference: typeof form.beadSeatRatingReference === 'string' ? form.beadSeatRatingReference : '',
-    beadSeatRatingConfirmed: form.beadSeatRatingConfirmed === 'on' || form.beadSeatRatingConfirmed === true,
+    beadSeatRatingReference:
+      typeof form.beadSeatRatingReference === 'string' ? form.beadSeatRatingReference : '',
+    beadSeatRatingConfirmed:
+      form.beadSeatRatingConfirmed === 'on' || form.beadSeatRatingConfirmed === true,
   });
   const missing = new Set<string>([
     ...NUMBER_FIELDS.filter((f) => n[f] === undefined),
     ...(percents === undefined ? ['passPercents'] : []),
     ...(n.maxBeadSeatPressure === undefined ? ['beadSeatRatingConfirmed'] : []),
   ]);
-  const typedOnly = (issues: Record<string, string[]>) => Object.fromEntries(Object.entries(issues).filter(([field]) => !missing.has(field)));
+  const typedOnly = (issues: Record<string, string[]>) =>
+    Object.fromEntries(Object.entries(issues).filter(([field]) => !missing.has(field)));
   return { errors: typedOnly(all.errors), warnings: typedOnly(all.warnings) };
 }

@@ -1,6 +1,13 @@
 import { z } from 'zod';
 import { PRESSURE_UNITS, THREAD_CONDITIONS, TORQUE_UNITS } from '@/features/torque-plan';
-import { checkbox, integerField, optional, positiveNumber, requiredText, text } from '@/features/ui/form-data';
+import {
+  checkbox,
+  integerField,
+  optional,
+  positiveNumber,
+  requiredText,
+  text,
+} from '@/features/ui/form-data';
 
 export const PATTERN_VALUES = ['cross', 'skip', 'sequential'] as const;
 
@@ -9,11 +16,22 @@ const pressureUnit = z.enum(PRESSURE_UNITS, { error: 'Choose psi, kPa or bar.' }
 
 /** "30, 70, 100" (a form) or [30, 70, 100] (JSON): the passes as percent of the final torque. */
 const passPercents = z.preprocess(
-  (v) => (typeof v === 'string' ? v.split(/[,;\s]+/).filter(Boolean).map((p) => Number(p.replace('%', ''))) : v),
+  (v) =>
+    typeof v === 'string'
+      ? v
+          .split(/[,;\s]+/)
+          .filter(Boolean)
+          .map((p) => Number(p.replace('%', '')))
+      : v,
   z
-    .array(z.number({ error: 'Write the passes as percentages, like 30, 70, 100.' }).refine(Number.isFinite, { error: 'Write the passes as percentages, like 30, 70, 100.' }), {
-      error: 'Write the passes as percentages, like 30, 70, 100.',
-    })
+    .array(
+      z
+        .number({ error: 'Write the passes as percentages, like 30, 70, 100.' })
+        .refine(Number.isFinite, { error: 'Write the passes as percentages, like 30, 70, 100.' }),
+      {
+        error: 'Write the passes as percentages, like 30, 70, 100.',
+      },
+    )
     .min(1, { error: 'Give at least one pass, ending at 100.' })
     .max(8, { error: 'At most 8 passes.' }),
 );
@@ -31,7 +49,14 @@ export const specSchema = z
     checkPass: checkbox,
     lugTorque: optional(positiveNumber('the lug-nut torque')),
     lugTorqueUnit: optional(torqueUnit),
-    lugCount: optional(integerField('the lug count').pipe(z.number().min(3, { error: 'A wheel has at least 3 lug nuts.' }).max(12, { error: 'At most 12 lug nuts.' }))),
+    lugCount: optional(
+      integerField('the lug count').pipe(
+        z
+          .number()
+          .min(3, { error: 'A wheel has at least 3 lug nuts.' })
+          .max(12, { error: 'At most 12 lug nuts.' }),
+      ),
+    ),
     maxBeadSeatPressure: positiveNumber("the tire's maximum bead-seating pressure"),
     runningPressure: positiveNumber('the running pressure'),
     pressureUnit,
@@ -41,15 +66,27 @@ export const specSchema = z
     /** Ticked by a lead who checked that rating; only a lead may tick it. */
     beadSeatRatingConfirmed: checkbox.default(false),
     notes: text('the notes', 2000).default(''),
-    threadCondition: optional(z.enum(THREAD_CONDITIONS, { error: 'Choose dry, oiled, anti-seize or thread locker, as the wheel maker says.' })),
+    threadCondition: optional(
+      z.enum(THREAD_CONDITIONS, {
+        error: 'Choose dry, oiled, anti-seize or thread locker, as the wheel maker says.',
+      }),
+    ),
     boltReuse: text('the bolt reuse rule', 300).default(''),
   })
   .superRefine((s, ctx) => {
     if (s.patternKind === 'skip' && s.skipStep === undefined) {
-      ctx.addIssue({ code: 'custom', path: ['skipStep'], message: 'A skip pattern needs its step (tighten every k-th bolt).' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['skipStep'],
+        message: 'A skip pattern needs its step (tighten every k-th bolt).',
+      });
     }
     if (s.lugTorque !== undefined && !s.lugTorqueUnit) {
-      ctx.addIssue({ code: 'custom', path: ['lugTorqueUnit'], message: 'Choose the unit of the lug-nut torque.' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['lugTorqueUnit'],
+        message: 'Choose the unit of the lug-nut torque.',
+      });
     }
   });
 

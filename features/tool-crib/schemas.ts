@@ -1,7 +1,14 @@
 import { z } from 'zod';
 import { TORQUE_UNITS } from '@/features/torque-plan';
 import { isoDate as boundedIsoDate } from '@/features/ui/bounded';
-import { integerField, optional, positiveNumber, numberField, requiredText, text } from '@/features/ui/form-data';
+import {
+  integerField,
+  optional,
+  positiveNumber,
+  numberField,
+  requiredText,
+  text,
+} from '@/features/ui/form-data';
 
 export const WRENCH_KINDS = ['click', 'beam', 'dial', 'digital'] as const;
 const torqueUnit = z.enum(TORQUE_UNITS, { error: 'Choose ft-lb, in-lb or N·m.' });
@@ -10,7 +17,9 @@ const isoDate = boundedIsoDate('the calibration due date');
 export const wrenchSchema = z.object({
   label: requiredText('a label (what is written on the wrench or its case)', 60),
   kind: z.enum(WRENCH_KINDS, { error: 'Choose click, beam, dial or digital.' }),
-  min: numberField('the lowest mark').pipe(z.number().min(0, { error: 'The lowest mark cannot be negative.' })),
+  min: numberField('the lowest mark').pipe(
+    z.number().min(0, { error: 'The lowest mark cannot be negative.' }),
+  ),
   max: positiveNumber('the highest mark'),
   unit: torqueUnit,
   graduation: positiveNumber('the graduation (smallest step of the scale)'),
@@ -26,7 +35,9 @@ export const verificationSchema = z.object({
 });
 
 export const clearSchema = z.object({
-  reason: requiredText('why the wrench may go back into service', 300).min(5, { error: 'Say why in a few words (at least 5 characters).' }),
+  reason: requiredText('why the wrench may go back into service', 300).min(5, {
+    error: 'Say why in a few words (at least 5 characters).',
+  }),
 });
 
 export const wrenchIdField = z.uuid({ error: 'Unknown wrench.' });

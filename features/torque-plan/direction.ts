@@ -4,7 +4,11 @@ export type WheelPosition = 'LF' | 'RF' | 'LR' | 'RR' | 'spare';
 export const WHEEL_POSITIONS: readonly WheelPosition[] = ['LF', 'RF', 'LR', 'RR', 'spare'];
 
 export type ArrowDirection =
-  | { side: 'left' | 'right'; seenFromOutside: 'clockwise' | 'counterclockwise'; instruction: string }
+  | {
+      side: 'left' | 'right';
+      seenFromOutside: 'clockwise' | 'counterclockwise';
+      instruction: string;
+    }
   | { side: null; seenFromOutside: null; instruction: string };
 
 /**
@@ -19,18 +23,28 @@ export function arrowDirection(position: WheelPosition): ArrowDirection {
       return {
         side: 'left',
         seenFromOutside: 'counterclockwise',
-        instruction: 'Left side: standing outside the wheel, the arrow turns counterclockwise (top of the tire toward the front).',
+        instruction:
+          'Left side: standing outside the wheel, the arrow turns counterclockwise (top of the tire toward the front).',
       };
     case 'RF':
     case 'RR':
       return {
         side: 'right',
         seenFromOutside: 'clockwise',
-        instruction: 'Right side: standing outside the wheel, the arrow turns clockwise (top of the tire toward the front).',
+        instruction:
+          'Right side: standing outside the wheel, the arrow turns clockwise (top of the tire toward the front).',
       };
     case 'spare':
-      return { side: null, seenFromOutside: null, instruction: 'Spare: its side is not known. Check the arrow again when it goes on the vehicle.' };
+      return {
+        side: null,
+        seenFromOutside: null,
+        instruction:
+          'Spare: its side is not known. Check the arrow again when it goes on the vehicle.',
+      };
     default:
-      throw new TorquePlanError(`Unknown wheel position "${String(position)}". Use LF, RF, LR, RR or spare.`, 'position');
+      throw new TorquePlanError(
+        `Unknown wheel position "${String(position)}". Use LF, RF, LR, RR or spare.`,
+        'position',
+      );
   }
 }

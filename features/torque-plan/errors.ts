@@ -9,7 +9,11 @@ export class TorquePlanError extends Error {
   }
 }
 
-export function assertFiniteNumber(value: unknown, field: string, label = field): asserts value is number {
+export function assertFiniteNumber(
+  value: unknown,
+  field: string,
+  label = field,
+): asserts value is number {
   if (typeof value !== 'number' || !Number.isFinite(value)) {
     throw new TorquePlanError(`${label} must be a number.`, field);
   }

@@ -15,7 +15,15 @@ export {
   type Torque,
   type TorqueUnit,
 } from './units';
-export { handStartOrder, MAX_BOLTS, MIN_BOLTS, PUBLISHED_CROSS, spreadCross, tighteningSequence, type Pattern } from './sequence';
+export {
+  handStartOrder,
+  MAX_BOLTS,
+  MIN_BOLTS,
+  PUBLISHED_CROSS,
+  spreadCross,
+  tighteningSequence,
+  type Pattern,
+} from './sequence';
 export { PRESSURE_TOLERANCE, pressureOffTarget, type PressureOff } from './pressure-check';
 export { DEFAULT_FRACTIONS, passPlan, type PlannedPass } from './pass-plan';
 export {
@@ -26,8 +34,19 @@ export {
   type Wrench,
   type WrenchChoice,
 } from './wrench';
-export { axleMismatch, circumferenceAllowancePct, tireDiameter, type TireConstruction, type TireSize } from './tire';
-export { arrowDirection, WHEEL_POSITIONS, type ArrowDirection, type WheelPosition } from './direction';
+export {
+  axleMismatch,
+  circumferenceAllowancePct,
+  tireDiameter,
+  type TireConstruction,
+  type TireSize,
+} from './tire';
+export {
+  arrowDirection,
+  WHEEL_POSITIONS,
+  type ArrowDirection,
+  type WheelPosition,
+} from './direction';
 export { planTorque, type TorquePlan, type TorquePlanInput } from './plan';
 export {
   isNearEnough,

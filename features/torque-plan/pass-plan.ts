@@ -1,7 +1,12 @@
 import { clean, TorquePlanError } from './errors';
 import { assertTorque, type Torque } from './units';
 
-export type PlannedPass = { index: number; kind: 'staged' | 'check'; fraction: number; target: Torque };
+export type PlannedPass = {
+  index: number;
+  kind: 'staged' | 'check';
+  fraction: number;
+  target: Torque;
+};
 
 /**
  * Default rounds: about 30 %, 70 %, 100 % of the final spec. ASME PCC-1 (from memory) recommends
@@ -15,15 +20,24 @@ export function assertFractions(fractions: unknown): asserts fractions is number
   }
   fractions.forEach((f, i) => {
     if (typeof f !== 'number' || !Number.isFinite(f) || f <= 0 || f > 1) {
-      throw new TorquePlanError(`Pass ${i + 1}'s fraction must be above 0 and at most 1; got ${String(f)}.`, `fractions.${i}`);
+      throw new TorquePlanError(
+        `Pass ${i + 1}'s fraction must be above 0 and at most 1; got ${String(f)}.`,
+        `fractions.${i}`,
+      );
     }
     // A repeated fraction is allowed: many repeat the first pass as a second lap at the same target.
     if (i > 0 && f < (fractions[i - 1] as number)) {
-      throw new TorquePlanError('Pass fractions must not go down from one pass to the next (a repeated pass is allowed).', `fractions.${i}`);
+      throw new TorquePlanError(
+        'Pass fractions must not go down from one pass to the next (a repeated pass is allowed).',
+        `fractions.${i}`,
+      );
     }
   });
   if (fractions[fractions.length - 1] !== 1) {
-    throw new TorquePlanError('The last pass must be at 1 (100 % of the final spec).', `fractions.${fractions.length - 1}`);
+    throw new TorquePlanError(
+      'The last pass must be at 1 (100 % of the final spec).',
+      `fractions.${fractions.length - 1}`,
+    );
   }
 }
 

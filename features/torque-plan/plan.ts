@@ -29,11 +29,19 @@ export type TorquePlan = {
  */
 export function planTorque(input: TorquePlanInput): TorquePlan {
   const sequence = tighteningSequence(input.boltCount, input.pattern, { start: input.start });
-  const checkOrder = tighteningSequence(input.boltCount, { kind: 'sequential' }, { start: input.start });
-  const passes = passPlan(input.final, input.fractions, { checkPass: input.checkPass }).map((pass) => ({
-    ...pass,
-    order: pass.kind === 'check' ? checkOrder : sequence,
-    wrench: chooseWrench(pass.target, input.wrenches, { minFractionOfMax: input.minFractionOfMax }),
-  }));
+  const checkOrder = tighteningSequence(
+    input.boltCount,
+    { kind: 'sequential' },
+    { start: input.start },
+  );
+  const passes = passPlan(input.final, input.fractions, { checkPass: input.checkPass }).map(
+    (pass) => ({
+      ...pass,
+      order: pass.kind === 'check' ? checkOrder : sequence,
+      wrench: chooseWrench(pass.target, input.wrenches, {
+        minFractionOfMax: input.minFractionOfMax,
+      }),
+    }),
+  );
   return { boltCount: input.boltCount, pattern: input.pattern, sequence, passes };
 }

@@ -17,8 +17,13 @@ export type PressureOff = { psi: number; kPa: number };
  */
 export function pressureOffTarget(measured: Pressure, target: Pressure): PressureOff | null {
   const inPsi = target.unit === 'psi';
-  const diff = clean(convertPressure(measured.value, measured.unit, inPsi ? 'psi' : 'kPa') - convertPressure(target.value, target.unit, inPsi ? 'psi' : 'kPa'));
+  const diff = clean(
+    convertPressure(measured.value, measured.unit, inPsi ? 'psi' : 'kPa') -
+      convertPressure(target.value, target.unit, inPsi ? 'psi' : 'kPa'),
+  );
   const limit = inPsi ? PRESSURE_TOLERANCE.psi : PRESSURE_TOLERANCE.kPa;
   if (Math.abs(diff) <= limit + 1e-9) return null;
-  return inPsi ? { psi: diff, kPa: clean(convertPressure(diff, 'psi', 'kPa')) } : { psi: clean(convertPressure(diff, 'kPa', 'psi')), kPa: diff };
+  return inPsi
+    ? { psi: diff, kPa: clean(convertPressure(diff, 'psi', 'kPa')) }
+    : { psi: clean(convertPressure(diff, 'kPa', 'psi')), kPa: diff };
 }

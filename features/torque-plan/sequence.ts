@@ -30,7 +30,10 @@ function assertInteger(value: unknown, field: string, label: string): asserts va
 export function assertBoltCount(n: unknown): asserts n is number {
   assertInteger(n, 'boltCount', 'The bolt count');
   if (n < MIN_BOLTS || n > MAX_BOLTS) {
-    throw new TorquePlanError(`The bolt count must be from ${MIN_BOLTS} to ${MAX_BOLTS}; got ${n}.`, 'boltCount');
+    throw new TorquePlanError(
+      `The bolt count must be from ${MIN_BOLTS} to ${MAX_BOLTS}; got ${n}.`,
+      'boltCount',
+    );
   }
 }
 
@@ -105,12 +108,19 @@ function crossOrder(n: number): number[] {
  * first bolt past the valve notch. The sequence begins at `start` (default 1): a cross pattern is
  * turned round the circle so that its first bolt is `start`.
  */
-export function tighteningSequence(boltCount: number, pattern: Pattern, options: { start?: number } = {}): number[] {
+export function tighteningSequence(
+  boltCount: number,
+  pattern: Pattern,
+  options: { start?: number } = {},
+): number[] {
   assertBoltCount(boltCount);
   const start = options.start ?? 1;
   assertInteger(start, 'start', 'The starting bolt');
   if (start < 1 || start > boltCount) {
-    throw new TorquePlanError(`The starting bolt must be from 1 to ${boltCount}; got ${start}.`, 'start');
+    throw new TorquePlanError(
+      `The starting bolt must be from 1 to ${boltCount}; got ${start}.`,
+      'start',
+    );
   }
   switch (pattern?.kind) {
     case 'cross':
@@ -128,7 +138,10 @@ export function tighteningSequence(boltCount: number, pattern: Pattern, options:
     case 'sequential':
       return Array.from({ length: boltCount }, (_, i) => wrap(start, i, boltCount));
     default:
-      throw new TorquePlanError('The pattern must be cross, skip (with a step) or sequential.', 'pattern');
+      throw new TorquePlanError(
+        'The pattern must be cross, skip (with a step) or sequential.',
+        'pattern',
+      );
   }
 }
 

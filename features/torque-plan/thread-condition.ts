@@ -15,7 +15,8 @@ export const THREAD_CONDITION_LABELS: Record<ThreadCondition, string> = {
 };
 
 /** What the runner says when the spec is silent: the technician must not guess. */
-export const THREAD_CONDITION_UNSTATED = "Not stated in this spec: check the wheel maker's instructions before lubricating any bolt.";
+export const THREAD_CONDITION_UNSTATED =
+  "Not stated in this spec: check the wheel maker's instructions before lubricating any bolt.";
 
 export function threadConditionText(condition: ThreadCondition | null | undefined): string {
   return condition ? THREAD_CONDITION_LABELS[condition] : THREAD_CONDITION_UNSTATED;

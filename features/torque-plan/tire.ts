@@ -12,11 +12,18 @@ export type TireSize = {
 const ACCEPTED =
   'Use the size as printed on the sidewall: a flotation size such as 30x10-14, 35x12.50R17LT, 30x10-14 6PR or AT25x8-12, or a metric size such as 265/70R17, 315/70R17 121Q or LT285/70R17.';
 
-const CONSTRUCTION: Record<string, TireConstruction> = { R: 'radial', ZR: 'radial', '-': 'bias', D: 'bias', B: 'belted' };
+const CONSTRUCTION: Record<string, TireConstruction> = {
+  R: 'radial',
+  ZR: 'radial',
+  '-': 'bias',
+  D: 'bias',
+  B: 'belted',
+};
 
 // 30x10-14, 30x10R14, 30x10.00-14, 30 x 10.00 R 14: overall diameter × section width, rim.
 // A service-type prefix (LT, AT) may come first; see `sizeCore` for the markings after it.
-const FLOTATION = /^(?:LT|AT)?\s*(\d{2}(?:\.\d{1,2})?)\s*[xX]\s*(\d{1,2}(?:\.\d{1,2})?)\s*(R|-|D|B)\s*(\d{1,2}(?:\.\d)?)$/i;
+const FLOTATION =
+  /^(?:LT|AT)?\s*(\d{2}(?:\.\d{1,2})?)\s*[xX]\s*(\d{1,2}(?:\.\d{1,2})?)\s*(R|-|D|B)\s*(\d{1,2}(?:\.\d)?)$/i;
 
 /**
  * The sidewall's markings that do not change the diameter, taken off the end so the size itself
@@ -41,16 +48,28 @@ const METRIC = /^(P|LT|ST|T)?\s*(\d{3})\s*\/\s*(\d{2,3})\s*(ZR|R|-|D|B)\s*(\d{2}
  * (265/70R17 → 31.61 in; 25.4 mm per inch exactly, NIST SP 811 App. B).
  */
 export function tireDiameter(size: string): TireSize {
-  if (typeof size !== 'string') throw new TorquePlanError(`A tire size must be text. ${ACCEPTED}`, 'size');
-  if (size.length > 60) throw new TorquePlanError(`A tire size is at most 60 characters. ${ACCEPTED}`, 'size');
+  if (typeof size !== 'string')
+    throw new TorquePlanError(`A tire size must be text. ${ACCEPTED}`, 'size');
+  if (size.length > 60)
+    throw new TorquePlanError(`A tire size is at most 60 characters. ${ACCEPTED}`, 'size');
   const s = sizeCore(size);
   const f = FLOTATION.exec(s);
   if (f) {
     const [, diameter, width, construction, rim] = f;
     const inches = Number(diameter);
     const rimInches = Number(rim);
-    if (rimInches >= inches) throw new TorquePlanError(`"${s}": the rim cannot be as large as the tire. ${ACCEPTED}`, 'size');
-    return { inches, kind: 'flotation', construction: CONSTRUCTION[construction!.toUpperCase()]!, rimInches, widthInches: Number(width) };
+    if (rimInches >= inches)
+      throw new TorquePlanError(
+        `"${s}": the rim cannot be as large as the tire. ${ACCEPTED}`,
+        'size',
+      );
+    return {
+      inches,
+      kind: 'flotation',
+      construction: CONSTRUCTION[construction!.toUpperCase()]!,
+      rimInches,
+      widthInches: Number(width),
+    };
   }
   const m = METRIC.exec(s);
   if (m) {
@@ -77,10 +96,19 @@ export function tireDiameter(size: string): TireSize {
 export function axleMismatch(
   sizes: readonly string[],
   thresholdPct: number,
-): { mismatched: boolean; spreadPct: number; circumferenceSpreadInches: number; constructionDiffers: boolean } {
-  if (!Array.isArray(sizes) || sizes.length < 2) throw new TorquePlanError('Compare at least two tire sizes.', 'sizes');
+): {
+  mismatched: boolean;
+  spreadPct: number;
+  circumferenceSpreadInches: number;
+  constructionDiffers: boolean;
+} {
+  if (!Array.isArray(sizes) || sizes.length < 2)
+    throw new TorquePlanError('Compare at least two tire sizes.', 'sizes');
   if (typeof thresholdPct !== 'number' || !Number.isFinite(thresholdPct) || thresholdPct < 0) {
-    throw new TorquePlanError('The threshold must be a percentage of zero or more.', 'thresholdPct');
+    throw new TorquePlanError(
+      'The threshold must be a percentage of zero or more.',
+      'thresholdPct',
+    );
   }
   const tires = sizes.map((s) => tireDiameter(s));
   const diameters = tires.map((t) => t.inches);

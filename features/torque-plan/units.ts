@@ -1,5 +1,8 @@
 import configureMeasurements from 'convert-units';
-import pressure, { type PressureSystems, type PressureUnits } from 'convert-units/definitions/pressure';
+import pressure, {
+  type PressureSystems,
+  type PressureUnits,
+} from 'convert-units/definitions/pressure';
 import torque, { type TorqueSystems, type TorqueUnits } from 'convert-units/definitions/torque';
 import { assertFiniteNumber, TorquePlanError } from './errors';
 
@@ -38,7 +41,10 @@ export function isPressureUnit(unit: unknown): unit is PressureUnit {
 
 export function assertTorqueUnit(unit: unknown, field = 'unit'): asserts unit is TorqueUnit {
   if (!isTorqueUnit(unit)) {
-    throw new TorquePlanError(`Unknown torque unit "${String(unit)}". Use one of: ${TORQUE_UNITS.join(', ')}.`, field);
+    throw new TorquePlanError(
+      `Unknown torque unit "${String(unit)}". Use one of: ${TORQUE_UNITS.join(', ')}.`,
+      field,
+    );
   }
 }
 
@@ -51,9 +57,15 @@ export function convertTorque(value: number, from: TorqueUnit, to: TorqueUnit): 
 
 export function convertPressure(value: number, from: PressureUnit, to: PressureUnit): number {
   assertFiniteNumber(value, 'value', 'The pressure');
-  for (const [field, unit] of [['from', from], ['to', to]] as const) {
+  for (const [field, unit] of [
+    ['from', from],
+    ['to', to],
+  ] as const) {
     if (!isPressureUnit(unit)) {
-      throw new TorquePlanError(`Unknown pressure unit "${String(unit)}". Use one of: ${PRESSURE_UNITS.join(', ')}.`, field);
+      throw new TorquePlanError(
+        `Unknown pressure unit "${String(unit)}". Use one of: ${PRESSURE_UNITS.join(', ')}.`,
+        field,
+      );
     }
   }
   return from === to ? value : convert(value).from(from).to(to);
@@ -62,9 +74,11 @@ export function convertPressure(value: number, from: PressureUnit, to: PressureU
 /** A positive torque with a known unit, or a TorquePlanError naming the field. */
 export function assertTorque(t: unknown, field = 'torque'): asserts t is Torque {
   const candidate = t as Partial<Torque> | null;
-  if (!candidate || typeof candidate !== 'object') throw new TorquePlanError('A torque needs a value and a unit.', field);
+  if (!candidate || typeof candidate !== 'object')
+    throw new TorquePlanError('A torque needs a value and a unit.', field);
   assertFiniteNumber(candidate.value, `${field}.value`, 'The torque');
-  if (candidate.value <= 0) throw new TorquePlanError('The torque must be greater than zero.', `${field}.value`);
+  if (candidate.value <= 0)
+    throw new TorquePlanError('The torque must be greater than zero.', `${field}.value`);
   assertTorqueUnit(candidate.unit, `${field}.unit`);
 }
 

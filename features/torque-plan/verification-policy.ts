@@ -22,10 +22,15 @@ export type RecordedVerification = {
   withinTolerance?: boolean;
 };
 
-export type VerificationVerdict = { counts: true; verification: RecordedVerification } | { counts: false; reason: string };
+export type VerificationVerdict =
+  { counts: true; verification: RecordedVerification } | { counts: false; reason: string };
 
 /** Recent enough: on the shop's calendar, counted in whole shop days, not 24-hour spans. */
-export function isRecentEnough(recordedAt: string, policy: VerificationPolicy, clock: ShopClock): boolean {
+export function isRecentEnough(
+  recordedAt: string,
+  policy: VerificationPolicy,
+  clock: ShopClock,
+): boolean {
   const today = shopDay(clock.now, clock.timeZone);
   const verifiedOn = shopDay(recordedAt, clock.timeZone);
   // A verification "after now" (the phone's clock a little behind the server's) is the freshest there is.
@@ -35,17 +40,27 @@ export function isRecentEnough(recordedAt: string, policy: VerificationPolicy, c
 }
 
 /** Near enough: the reference, in the setting's unit, within ±nearPercent % of the setting (inclusive). */
-export function isNearEnough(v: Pick<RecordedVerification, 'referenceValue' | 'unit'>, setting: Torque, nearPercent: number): boolean {
+export function isNearEnough(
+  v: Pick<RecordedVerification, 'referenceValue' | 'unit'>,
+  setting: Torque,
+  nearPercent: number,
+): boolean {
   if (nearPercent <= 0) return true;
   const reference = convertTorque(v.referenceValue, v.unit, setting.unit);
   return clean(Math.abs(reference - setting.value)) <= clean((setting.value * nearPercent) / 100);
 }
 
 /** The band of references that count for a setting, for the message and the on-the-spot form. */
-export function nearBand(setting: Torque, nearPercent: number): { low: Torque; high: Torque } | null {
+export function nearBand(
+  setting: Torque,
+  nearPercent: number,
+): { low: Torque; high: Torque } | null {
   if (nearPercent <= 0) return null;
   const off = (setting.value * nearPercent) / 100;
-  return { low: { value: clean(setting.value - off), unit: setting.unit }, high: { value: clean(setting.value + off), unit: setting.unit } };
+  return {
+    low: { value: clean(setting.value - off), unit: setting.unit },
+    high: { value: clean(setting.value + off), unit: setting.unit },
+  };
 }
 
 function recencyText(policy: VerificationPolicy): string {
@@ -64,12 +79,20 @@ export function verificationFor(
   policy: VerificationPolicy,
   clock: ShopClock,
 ): VerificationVerdict {
-  const recent = verifications.filter((v) => v.wrenchId === wrenchId && v.withinTolerance !== false && isRecentEnough(v.recordedAt, policy, clock));
+  const recent = verifications.filter(
+    (v) =>
+      v.wrenchId === wrenchId &&
+      v.withinTolerance !== false &&
+      isRecentEnough(v.recordedAt, policy, clock),
+  );
   const near = recent.find((v) => isNearEnough(v, setting, policy.nearPercent));
   if (near) return { counts: true, verification: near };
-  if (!recent.length) return { counts: false, reason: `No passing verification ${recencyText(policy)}.` };
+  if (!recent.length)
+    return { counts: false, reason: `No passing verification ${recencyText(policy)}.` };
   const band = nearBand(setting, policy.nearPercent)!;
-  const points = [...new Set(recent.map((v) => formatTorque({ value: v.referenceValue, unit: v.unit }, 2)))].join(', ');
+  const points = [
+    ...new Set(recent.map((v) => formatTorque({ value: v.referenceValue, unit: v.unit }, 2))),
+  ].join(', ');
   return {
     counts: false,
     reason: `Verified ${recencyText(policy)} at ${points}, but a check counts for this pass only within ±${policy.nearPercent} % of the ${formatTorque(setting, 2)} setting (${formatTorque(band.low, 2)} to ${formatTorque(band.high, 2)}).`,

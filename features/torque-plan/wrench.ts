@@ -1,5 +1,12 @@
 import { assertFiniteNumber, clean, TorquePlanError } from './errors';
-import { assertTorque, assertTorqueUnit, convertTorque, formatTorque, type Torque, type TorqueUnit } from './units';
+import {
+  assertTorque,
+  assertTorqueUnit,
+  convertTorque,
+  formatTorque,
+  type Torque,
+  type TorqueUnit,
+} from './units';
 
 export type Wrench = {
   id: string;
@@ -13,26 +20,43 @@ export type Wrench = {
 };
 
 export type WrenchChoice =
-  | { ok: true; wrenchId: string; setting: Torque; fractionOfMax: number; roundingErrorPct: number; warnings: string[] }
+  | {
+      ok: true;
+      wrenchId: string;
+      setting: Torque;
+      fractionOfMax: number;
+      roundingErrorPct: number;
+      warnings: string[];
+    }
   | { ok: false; reason: string };
 
 const WRENCH_KINDS = ['click', 'beam', 'dial', 'digital'] as const;
 
 export function assertWrench(w: unknown, field = 'wrench'): asserts w is Wrench {
   const c = w as Partial<Wrench> | null;
-  if (!c || typeof c !== 'object') throw new TorquePlanError('A wrench needs an id, a range, a unit and a graduation.', field);
-  if (typeof c.id !== 'string' || !c.id) throw new TorquePlanError('A wrench needs an id.', `${field}.id`);
+  if (!c || typeof c !== 'object')
+    throw new TorquePlanError('A wrench needs an id, a range, a unit and a graduation.', field);
+  if (typeof c.id !== 'string' || !c.id)
+    throw new TorquePlanError('A wrench needs an id.', `${field}.id`);
   assertFiniteNumber(c.min, `${field}.min`, "The wrench's minimum");
   assertFiniteNumber(c.max, `${field}.max`, "The wrench's maximum");
   assertFiniteNumber(c.graduation, `${field}.graduation`, "The wrench's graduation");
-  if (c.min < 0) throw new TorquePlanError("The wrench's minimum cannot be negative.", `${field}.min`);
-  if (c.max <= c.min) throw new TorquePlanError("The wrench's maximum must be above its minimum.", `${field}.max`);
+  if (c.min < 0)
+    throw new TorquePlanError("The wrench's minimum cannot be negative.", `${field}.min`);
+  if (c.max <= c.min)
+    throw new TorquePlanError("The wrench's maximum must be above its minimum.", `${field}.max`);
   if (c.graduation <= 0 || c.graduation > c.max - c.min) {
-    throw new TorquePlanError("The wrench's graduation must be above zero and fit inside its range.", `${field}.graduation`);
+    throw new TorquePlanError(
+      "The wrench's graduation must be above zero and fit inside its range.",
+      `${field}.graduation`,
+    );
   }
   assertTorqueUnit(c.unit, `${field}.unit`);
   if (!WRENCH_KINDS.includes(c.kind as Wrench['kind'])) {
-    throw new TorquePlanError(`The wrench kind must be one of: ${WRENCH_KINDS.join(', ')}.`, `${field}.kind`);
+    throw new TorquePlanError(
+      `The wrench kind must be one of: ${WRENCH_KINDS.join(', ')}.`,
+      `${field}.kind`,
+    );
   }
 }
 
@@ -59,8 +83,10 @@ function whyNot(target: Torque, w: Wrench, floor: number): string {
   const t = clean(convertTorque(target.value, target.unit, w.unit));
   const shown = formatTorque({ value: t, unit: w.unit }, 2);
   const name = w.label ?? w.id;
-  if (t > w.max + EPS) return `${name}: ${shown} is above its maximum ${formatTorque({ value: w.max, unit: w.unit })}`;
-  if (t < w.min - EPS) return `${name}: ${shown} is below its lowest mark ${formatTorque({ value: w.min, unit: w.unit })}`;
+  if (t > w.max + EPS)
+    return `${name}: ${shown} is above its maximum ${formatTorque({ value: w.max, unit: w.unit })}`;
+  if (t < w.min - EPS)
+    return `${name}: ${shown} is below its lowest mark ${formatTorque({ value: w.min, unit: w.unit })}`;
   return `${name}: ${shown} is below the shop's floor of ${Number((floor * 100).toFixed(1))} % of its maximum (${formatTorque({ value: floor * w.max, unit: w.unit })})`;
 }
 
@@ -74,21 +100,35 @@ function whyNot(target: Torque, w: Wrench, floor: number): string {
  * at 20 % of the maximum (2003 edition; the 2017 edition from the lowest marked value; secondary
  * sources), and a shop may choose 0, where only the wrench's lowest mark limits it.
  */
-export function chooseWrench(target: Torque, wrenches: readonly Wrench[], options: { minFractionOfMax: number }): WrenchChoice {
+export function chooseWrench(
+  target: Torque,
+  wrenches: readonly Wrench[],
+  options: { minFractionOfMax: number },
+): WrenchChoice {
   assertTorque(target, 'target');
   const floor = options?.minFractionOfMax;
   assertFiniteNumber(floor, 'minFractionOfMax', "The shop's floor");
-  if (floor < 0 || floor >= 1) throw new TorquePlanError("The shop's floor must be from 0 to below 1 (a fraction of maximum).", 'minFractionOfMax');
+  if (floor < 0 || floor >= 1)
+    throw new TorquePlanError(
+      "The shop's floor must be from 0 to below 1 (a fraction of maximum).",
+      'minFractionOfMax',
+    );
   if (!Array.isArray(wrenches)) throw new TorquePlanError('Wrenches must be a list.', 'wrenches');
   wrenches.forEach((w, i) => assertWrench(w, `wrenches.${i}`));
   if (wrenches.length === 0) {
-    return { ok: false, reason: `No torque wrench is available for ${formatTorque(target, 2)}: the tool crib is empty.` };
+    return {
+      ok: false,
+      reason: `No torque wrench is available for ${formatTorque(target, 2)}: the tool crib is empty.`,
+    };
   }
 
   const suitable = wrenches
     .map((w) => ({ w, t: convertTorque(target.value, target.unit, w.unit) }))
     .filter(({ w, t }) => t >= w.min - EPS && t <= w.max + EPS && t >= floor * w.max - EPS)
-    .sort((a, b) => b.t / b.w.max - a.t / a.w.max || a.w.graduation / a.w.max - b.w.graduation / b.w.max);
+    .sort(
+      (a, b) =>
+        b.t / b.w.max - a.t / a.w.max || a.w.graduation / a.w.max - b.w.graduation / b.w.max,
+    );
 
   const best = suitable[0];
   if (!best) {
@@ -108,7 +148,9 @@ export function chooseWrench(target: Torque, wrenches: readonly Wrench[], option
     );
   }
   if (w.kind !== 'click' && w.kind !== 'digital') {
-    warnings.push(`A ${w.kind} wrench has no click: read the scale square-on and stop at the setting.`);
+    warnings.push(
+      `A ${w.kind} wrench has no click: read the scale square-on and stop at the setting.`,
+    );
   }
   return {
     ok: true,

@@ -30,11 +30,16 @@ export const cleanString = (label: string, max: number) =>
     .string({ error: `Enter ${label}.` })
     .trim()
     .max(max, { error: `Keep ${label} under ${max} characters.` })
-    .refine((s) => !CONTROL.test(s), { error: `${capitalise(label)} contains a control character (such as a NUL byte); remove it.` });
+    .refine((s) => !CONTROL.test(s), {
+      error: `${capitalise(label)} contains a control character (such as a NUL byte); remove it.`,
+    });
 
 /** A search box's text: the same rules, and an empty box means no filter. */
 export const searchText = (label = 'the search', max = 100) =>
-  z.preprocess((v) => (typeof v === 'string' && v.trim() === '' ? undefined : v), cleanString(label, max).optional());
+  z.preprocess(
+    (v) => (typeof v === 'string' && v.trim() === '' ? undefined : v),
+    cleanString(label, max).optional(),
+  );
 
 /** A finite number in [min, max]. */
 export const boundedNumber = (label: string, range: { min: number; max: number }) =>
@@ -46,13 +51,24 @@ export const boundedNumber = (label: string, range: { min: number; max: number }
 
 /** A whole number in [min, max], never beyond PostgreSQL's `integer`. */
 export const boundedInt = (label: string, range: { min: number; max: number } = PG_INTEGER) =>
-  boundedNumber(label, { min: Math.max(range.min, PG_INTEGER.min), max: Math.min(range.max, PG_INTEGER.max) }).refine(Number.isInteger, {
+  boundedNumber(label, {
+    min: Math.max(range.min, PG_INTEGER.min),
+    max: Math.min(range.max, PG_INTEGER.max),
+  }).refine(Number.isInteger, {
     error: `${capitalise(label)} must be a whole number.`,
   });
 
 /** Query-string integers (page numbers): digits only, within the range. */
 export const queryInt = (label: string, range: { min: number; max: number }, fallback: number) =>
-  z.preprocess((v) => (v === undefined || v === '' ? fallback : typeof v === 'string' && /^\d{1,10}$/.test(v.trim()) ? Number(v) : v), boundedInt(label, range));
+  z.preprocess(
+    (v) =>
+      v === undefined || v === ''
+        ? fallback
+        : typeof v === 'string' && /^\d{1,10}$/.test(v.trim())
+          ? Number(v)
+          : v,
+    boundedInt(label, range),
+  );
 
 const yearOk = (year: number) => year >= YEARS.min && year <= YEARS.max;
 
@@ -71,16 +87,25 @@ export const isoDate = (label: string) =>
     .string({ error: `Enter ${label} (YYYY-MM-DD).` })
     .trim()
     .max(10, { error: `Enter ${label} (YYYY-MM-DD).` })
-    .refine(isRealIsoDate, { error: `Enter ${label} as a real date from ${YEARS.min} to ${YEARS.max} (YYYY-MM-DD).` });
+    .refine(isRealIsoDate, {
+      error: `Enter ${label} as a real date from ${YEARS.min} to ${YEARS.max} (YYYY-MM-DD).`,
+    });
 
 const dateInYears = (d: Date) => !Number.isNaN(d.getTime()) && yearOk(d.getUTCFullYear());
 
 /** A moment (a form's date-time, an ISO string or a Date), in the plausible years. */
 export const dateTime = (label: string) =>
   z
-    .preprocess((v) => (typeof v === 'string' && v.length > 40 ? 'invalid' : v), z.coerce.date({ error: `Enter ${label}.` }))
+    .preprocess(
+      (v) => (typeof v === 'string' && v.length > 40 ? 'invalid' : v),
+      z.coerce.date({ error: `Enter ${label}.` }),
+    )
     .refine(dateInYears, { error: `Enter ${label} from ${YEARS.min} to ${YEARS.max}.` });
 
 /** An ISO 8601 UTC timestamp string (what a device sends), in the plausible years. */
 export const isoDateTime = (label: string) =>
-  z.iso.datetime({ error: `Enter ${label} as an ISO time.` }).refine((s) => dateInYears(new Date(s)), { error: `${capitalise(label)} must be from ${YEARS.min} to ${YEARS.max}.` });
+  z.iso
+    .datetime({ error: `Enter ${label} as an ISO time.` })
+    .refine((s) => dateInYears(new Date(s)), {
+      error: `${capitalise(label)} must be from ${YEARS.min} to ${YEARS.max}.`,
+    });

@@ -4,6 +4,9 @@
  * Null when the event came from before phones kept an id.
  */
 export function deviceLabel(id: string | null | undefined): string | null {
-  const hex = id?.replace(/[^0-9a-f]/gi, '').slice(0, 4).toUpperCase();
+  const hex = id
+    ?.replace(/[^0-9a-f]/gi, '')
+    .slice(0, 4)
+    .toUpperCase();
   return hex && hex.length === 4 ? `Phone ${hex}` : null;
 }

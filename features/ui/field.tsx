@@ -6,12 +6,12 @@ function Describe({ name, errors, hint }: Omit<Common, 'label'>) {
   return (
     <>
       {hint ? (
-        <p id={`${name}-hint`} className="text-sm text-ink-soft">
+        <p id={`${name}-hint`} className="text-ink-soft text-sm">
           {hint}
         </p>
       ) : null}
       {errors?.length ? (
-        <p id={`${name}-error`} className="text-sm font-semibold text-danger" role="alert">
+        <p id={`${name}-error`} className="text-danger text-sm font-semibold" role="alert">
           {errors.join(' ')}
         </p>
       ) : null}
@@ -20,13 +20,22 @@ function Describe({ name, errors, hint }: Omit<Common, 'label'>) {
 }
 
 function describedBy(name: string, errors?: string[], hint?: ReactNode) {
-  return [hint ? `${name}-hint` : '', errors?.length ? `${name}-error` : ''].filter(Boolean).join(' ') || undefined;
+  return (
+    [hint ? `${name}-hint` : '', errors?.length ? `${name}-error` : ''].filter(Boolean).join(' ') ||
+    undefined
+  );
 }
 
 const INPUT =
   'min-h-touch w-full rounded-lg border-2 bg-paper px-3 text-base text-ink aria-[invalid=true]:border-danger';
 
-export function TextField({ label, name, errors, hint, ...input }: Common & InputHTMLAttributes<HTMLInputElement>) {
+export function TextField({
+  label,
+  name,
+  errors,
+  hint,
+  ...input
+}: Common & InputHTMLAttributes<HTMLInputElement>) {
   return (
     <div className="flex flex-col gap-1">
       <label htmlFor={name} className="font-semibold">
@@ -52,7 +61,8 @@ export function SelectField({
   hint,
   options,
   ...select
-}: Common & SelectHTMLAttributes<HTMLSelectElement> & { options: { value: string; label: string }[] }) {
+}: Common &
+  SelectHTMLAttributes<HTMLSelectElement> & { options: { value: string; label: string }[] }) {
   return (
     <div className="flex flex-col gap-1">
       <label htmlFor={name} className="font-semibold">

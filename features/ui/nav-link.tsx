@@ -12,7 +12,7 @@ export function NavLink({ href, children }: { href: string; children: ReactNode 
     <Link
       href={href}
       aria-current={current ? 'page' : undefined}
-      className={`inline-flex min-h-touch items-center rounded-lg px-3 font-semibold hover:bg-work-dark ${current ? 'underline decoration-4 underline-offset-8' : ''}`}
+      className={`min-h-touch hover:bg-work-dark inline-flex items-center rounded-lg px-3 font-semibold ${current ? 'underline decoration-4 underline-offset-8' : ''}`}
     >
       {children}
       <Pending />

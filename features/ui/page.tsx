@@ -11,9 +11,9 @@ export function PageHeader({ title, children }: { title: string; children?: Reac
 
 export function EmptyState({ title, children }: { title: string; children?: ReactNode }) {
   return (
-    <section className="rounded-xl border-2 border-dashed border-paper-line bg-paper-dim p-6 text-center">
+    <section className="border-paper-line bg-paper-dim rounded-xl border-2 border-dashed p-6 text-center">
       <h2 className="text-lg font-bold">{title}</h2>
-      {children ? <div className="mt-2 text-ink-soft">{children}</div> : null}
+      {children ? <div className="text-ink-soft mt-2">{children}</div> : null}
     </section>
   );
 }

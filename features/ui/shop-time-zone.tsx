@@ -1,12 +1,27 @@
 'use client';
 
 import { createContext, useContext, useMemo, type ReactNode } from 'react';
-import { dayStatus, dueStatus, formatShopDay, formatShopTime, fromShopLocal, shopDay, toShopLocal, type TimeStyle } from './shop-time';
+import {
+  dayStatus,
+  dueStatus,
+  formatShopDay,
+  formatShopTime,
+  fromShopLocal,
+  shopDay,
+  toShopLocal,
+  type TimeStyle,
+} from './shop-time';
 
 const ShopTimeZoneContext = createContext<string | null>(null);
 
 /** Set once per layout from the shop's settings, so client components read the shop's clock. */
-export function ShopTimeZoneProvider({ timeZone, children }: { timeZone: string; children: ReactNode }) {
+export function ShopTimeZoneProvider({
+  timeZone,
+  children,
+}: {
+  timeZone: string;
+  children: ReactNode;
+}) {
   return <ShopTimeZoneContext.Provider value={timeZone}>{children}</ShopTimeZoneContext.Provider>;
 }
 
@@ -18,7 +33,10 @@ type When = Date | string | number;
  */
 export function useShopTime() {
   const timeZone = useContext(ShopTimeZoneContext);
-  if (!timeZone) throw new Error('useShopTime needs a ShopTimeZoneProvider (set in the layout from the shop settings).');
+  if (!timeZone)
+    throw new Error(
+      'useShopTime needs a ShopTimeZoneProvider (set in the layout from the shop settings).',
+    );
   return useMemo(
     () => ({
       timeZone,
@@ -26,7 +44,8 @@ export function useShopTime() {
       day: (when: When) => shopDay(when, timeZone),
       toLocalInput: (iso: string | null | undefined) => (iso ? toShopLocal(iso, timeZone) : ''),
       /** A `datetime-local` value typed at the shop → ISO instant ('' stays '', bad text stays as typed for the server to refuse). */
-      fromLocalInput: (value: string) => (value ? (fromShopLocal(value, timeZone)?.toISOString() ?? value) : ''),
+      fromLocalInput: (value: string) =>
+        value ? (fromShopLocal(value, timeZone)?.toISOString() ?? value) : '',
       dueStatus: (dueAt: When, now = new Date()) => dueStatus(dueAt, { timeZone, now }),
       dayStatus: (day: string, now = new Date()) => dayStatus(day, { timeZone, now }),
     }),
@@ -35,7 +54,15 @@ export function useShopTime() {
 }
 
 /** A `<time>` showing an instant on the shop's clock; usable from server components too. */
-export function ShopTime({ when, style = 'dateTime', className }: { when: string; style?: TimeStyle; className?: string }) {
+export function ShopTime({
+  when,
+  style = 'dateTime',
+  className,
+}: {
+  when: string;
+  style?: TimeStyle;
+  className?: string;
+}) {
   const { format } = useShopTime();
   return (
     <time dateTime={when} className={className}>

@@ -23,13 +23,24 @@ const STYLES: Record<TimeStyle, Intl.DateTimeFormatOptions> = {
 const formatters = new Map<string, Intl.DateTimeFormat>();
 
 /** Building a formatter costs far more than using one: one per zone and style, kept. */
-function formatter(timeZone: string, style: TimeStyle | 'parts' | 'long' | 'zone'): Intl.DateTimeFormat {
+function formatter(
+  timeZone: string,
+  style: TimeStyle | 'parts' | 'long' | 'zone',
+): Intl.DateTimeFormat {
   const key = `${timeZone}|${style}`;
   let f = formatters.get(key);
   if (!f) {
     const options: Intl.DateTimeFormatOptions =
       style === 'parts'
-        ? { year: 'numeric', month: '2-digit', day: '2-digit', hour: '2-digit', minute: '2-digit', second: '2-digit', hourCycle: 'h23' }
+        ? {
+            year: 'numeric',
+            month: '2-digit',
+            day: '2-digit',
+            hour: '2-digit',
+            minute: '2-digit',
+            second: '2-digit',
+            hourCycle: 'h23',
+          }
         : style === 'long'
           ? { dateStyle: 'long', timeStyle: 'short' }
           : style === 'zone'
@@ -45,7 +56,11 @@ type When = Date | string | number;
 const toDate = (when: When) => (when instanceof Date ? when : new Date(when));
 
 /** A date and time as the shop reads it, e.g. "Mar 8, 2026, 3:30 AM" (no zone name: it is the shop's). */
-export function formatShopTime(when: When, timeZone: string, style: TimeStyle = 'dateTime'): string {
+export function formatShopTime(
+  when: When,
+  timeZone: string,
+  style: TimeStyle = 'dateTime',
+): string {
   return plainSpaces(formatter(timeZone, style).format(toDate(when)));
 }
 
@@ -55,7 +70,23 @@ export function formatShopTime(when: When, timeZone: string, style: TimeStyle = 
  */
 const plainSpaces = (text: string) => text.replace(/[\u202f\u00a0]/g, ' ');
 
-const UNIVERSAL = new Set(['UTC', 'Etc/UTC', 'Etc/UCT', 'UCT', 'Etc/Universal', 'Universal', 'Etc/Zulu', 'Zulu', 'GMT', 'Etc/GMT', 'Etc/GMT0', 'Etc/GMT+0', 'Etc/GMT-0', 'Etc/Greenwich', 'Greenwich']);
+const UNIVERSAL = new Set([
+  'UTC',
+  'Etc/UTC',
+  'Etc/UCT',
+  'UCT',
+  'Etc/Universal',
+  'Universal',
+  'Etc/Zulu',
+  'Zulu',
+  'GMT',
+  'Etc/GMT',
+  'Etc/GMT0',
+  'Etc/GMT+0',
+  'Etc/GMT-0',
+  'Etc/Greenwich',
+  'Greenwich',
+]);
 
 /** The zone as a person reads it beside a form: "America/Denver", "Coordinated Universal Time". */
 export function zoneLabel(timeZone: string): string {
@@ -68,22 +99,40 @@ export function zoneLabel(timeZone: string): string {
  */
 export function formatShopTimeForMail(when: When, timeZone: string): string {
   const text = plainSpaces(formatter(timeZone, 'long').format(toDate(when)));
-  const zone = formatter(timeZone, 'zone').formatToParts(toDate(when)).find((p) => p.type === 'timeZoneName')?.value;
+  const zone = formatter(timeZone, 'zone')
+    .formatToParts(toDate(when))
+    .find((p) => p.type === 'timeZoneName')?.value;
   return zone ? `${text} ${zone}` : text;
 }
 
-type Wall = { year: number; month: number; day: number; hour: number; minute: number; second: number };
+type Wall = {
+  year: number;
+  month: number;
+  day: number;
+  hour: number;
+  minute: number;
+  second: number;
+};
 
 /** The wall clock in the zone at an instant. */
 function wallClock(instant: number, timeZone: string): Wall {
   const get: Record<string, number> = {};
-  for (const p of formatter(timeZone, 'parts').formatToParts(new Date(instant))) if (p.type !== 'literal') get[p.type] = Number(p.value);
-  return { year: get.year!, month: get.month!, day: get.day!, hour: get.hour! % 24, minute: get.minute!, second: get.second! };
+  for (const p of formatter(timeZone, 'parts').formatToParts(new Date(instant)))
+    if (p.type !== 'literal') get[p.type] = Number(p.value);
+  return {
+    year: get.year!,
+    month: get.month!,
+    day: get.day!,
+    hour: get.hour! % 24,
+    minute: get.minute!,
+    second: get.second!,
+  };
 }
 
 const wallAsUtc = (w: Wall) => Date.UTC(w.year, w.month - 1, w.day, w.hour, w.minute, w.second);
 const pad = (n: number, width = 2) => String(n).padStart(width, '0');
-const dayText = (w: Pick<Wall, 'year' | 'month' | 'day'>) => `${pad(w.year, 4)}-${pad(w.month)}-${pad(w.day)}`;
+const dayText = (w: Pick<Wall, 'year' | 'month' | 'day'>) =>
+  `${pad(w.year, 4)}-${pad(w.month)}-${pad(w.day)}`;
 
 /** The zone's offset from UTC at an instant, in ms (Denver in winter: −7 h). */
 function offsetAt(instant: number, timeZone: string): number {
@@ -115,13 +164,28 @@ export function fromShopLocal(value: string, timeZone: string): Date | null {
   const m = LOCAL.exec(value);
   if (!m) return null;
   const [, y, mo, d, h, mi, s] = m.map(Number) as number[];
-  const wall = { year: y!, month: mo!, day: d!, hour: h!, minute: mi!, second: Number.isNaN(s) ? 0 : s! };
+  const wall = {
+    year: y!,
+    month: mo!,
+    day: d!,
+    hour: h!,
+    minute: mi!,
+    second: Number.isNaN(s) ? 0 : s!,
+  };
   const asUtc = wallAsUtc(wall);
-  if (Number.isNaN(asUtc) || addDays(dayText(wall), 0) !== dayText(wall) || wall.hour > 23 || wall.minute > 59) return null;
+  if (
+    Number.isNaN(asUtc) ||
+    addDays(dayText(wall), 0) !== dayText(wall) ||
+    wall.hour > 23 ||
+    wall.minute > 59
+  )
+    return null;
   // Any offset change lies within a day either side; try the offsets before and after it.
   const before = asUtc - offsetAt(asUtc - 86_400_000, timeZone);
   const after = asUtc - offsetAt(asUtc + 86_400_000, timeZone);
-  const fits = [before, after].filter((t) => wallAsUtc(wallClock(t, timeZone)) === asUtc).sort((a, b) => a - b);
+  const fits = [before, after]
+    .filter((t) => wallAsUtc(wallClock(t, timeZone)) === asUtc)
+    .sort((a, b) => a - b);
   return new Date(fits[0] ?? before);
 }
 
@@ -145,7 +209,10 @@ export type ShopClock = { timeZone: string; now: Date };
 export function dueWindows({ timeZone, now }: ShopClock) {
   const today = shopDay(now, timeZone);
   return {
-    today: { from: startOfShopDay(today, timeZone), to: startOfShopDay(addDays(today, 1), timeZone) },
+    today: {
+      from: startOfShopDay(today, timeZone),
+      to: startOfShopDay(addDays(today, 1), timeZone),
+    },
     week: { from: now, to: startOfShopDay(addDays(today, 8), timeZone) },
   };
 }

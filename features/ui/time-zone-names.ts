@@ -20,7 +20,8 @@ export function knownTimeZone(name: unknown): string | null {
   const list = timeZoneNames();
   if (list.includes(name)) return name;
   try {
-    const canonical = new Intl.DateTimeFormat('en-US', { timeZone: name }).resolvedOptions().timeZone;
+    const canonical = new Intl.DateTimeFormat('en-US', { timeZone: name }).resolvedOptions()
+      .timeZone;
     return list.includes(canonical) ? canonical : null;
   } catch {
     return null;

@@ -10,7 +10,10 @@ import { getCurrentMember, sessionCookieName, validateSessionId, type Member } f
  * afterwards, when the page says where it is); a member without the permission gets the 403
  * page. Every shop page calls it itself (layouts do not protect pages).
  */
-export async function requireMember(permission: Permission = 'board.view', returnTo?: string): Promise<Member> {
+export async function requireMember(
+  permission: Permission = 'board.view',
+  returnTo?: string,
+): Promise<Member> {
   const member = await getCurrentMember();
   if (!member) redirect(returnTo ? signInThenBackTo(returnTo) : '/sign-in');
   if (!can(member.role, permission)) forbidden();
@@ -31,7 +34,9 @@ export async function requireMemberForRequest(
   request: Request,
   permission: Permission,
 ): Promise<Member> {
-  const result = await validateSessionId(readCookie(request.headers.get('cookie'), sessionCookieName()));
+  const result = await validateSessionId(
+    readCookie(request.headers.get('cookie'), sessionCookieName()),
+  );
   if (!result) throw new DomainError('unauthenticated', 'Sign in to continue.');
   if (!can(result.member.role, permission)) {
     throw new DomainError('forbidden', 'Your role does not allow this.');

@@ -63,7 +63,8 @@ export function returnPath(raw: unknown): string | null {
   }
   if (url.origin !== BASE) return null;
   const path = `${url.pathname}${url.search}`;
-  if (path.length > MAX_LENGTH || !safeWhenDecoded(url.pathname) || UNSAFE_CHAR.test(url.search)) return null;
+  if (path.length > MAX_LENGTH || !safeWhenDecoded(url.pathname) || UNSAFE_CHAR.test(url.search))
+    return null;
   return path;
 }
 

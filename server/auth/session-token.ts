@@ -44,7 +44,14 @@ export function sessionCookie(token: string, absoluteExpiresAt: Date): SessionCo
   return {
     name: SESSION_COOKIE,
     value: token,
-    attributes: { httpOnly: true, secure: secure(), sameSite: 'lax', path: '/', maxAge, expires: absoluteExpiresAt },
+    attributes: {
+      httpOnly: true,
+      secure: secure(),
+      sameSite: 'lax',
+      path: '/',
+      maxAge,
+      expires: absoluteExpiresAt,
+    },
   };
 }
 

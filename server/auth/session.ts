@@ -5,7 +5,14 @@ import { cache } from 'react';
 import { getDb } from '@/db';
 import { sessions, users, type Role } from '@/db/schema';
 import { env } from '@/server/env.mjs';
-import { blankCookie, generateSessionToken, SESSION_COOKIE, sessionCookie, sessionIdOf, type SessionCookie } from './session-token';
+import {
+  blankCookie,
+  generateSessionToken,
+  SESSION_COOKIE,
+  sessionCookie,
+  sessionIdOf,
+  type SessionCookie,
+} from './session-token';
 
 /** The signed-in person as every guard hands it on: who, which shop, which role. */
 export type Member = {
@@ -33,8 +40,15 @@ export async function createSessionCookie(userId: string): Promise<Cookie> {
   // Housekeeping: this person's ended sessions go when they start a new one.
   await db
     .delete(sessions)
-    .where(and(eq(sessions.userId, userId), or(lt(sessions.expiresAt, new Date(now)), lt(sessions.absoluteExpiresAt, new Date(now)))));
-  await db.insert(sessions).values({ id: sessionIdOf(token)!, userId, expiresAt, absoluteExpiresAt });
+    .where(
+      and(
+        eq(sessions.userId, userId),
+        or(lt(sessions.expiresAt, new Date(now)), lt(sessions.absoluteExpiresAt, new Date(now))),
+      ),
+    );
+  await db
+    .insert(sessions)
+    .values({ id: sessionIdOf(token)!, userId, expiresAt, absoluteExpiresAt });
   return sessionCookie(token, absoluteExpiresAt);
 }
 
@@ -51,7 +65,9 @@ export function sessionCookieName(): string {
  * absolute lifetime and the member's removal. The cookie itself never changes, so nothing needs
  * sending back.
  */
-export async function validateSessionId(token: string | null | undefined): Promise<{ member: Member } | null> {
+export async function validateSessionId(
+  token: string | null | undefined,
+): Promise<{ member: Member } | null> {
   const id = token ? sessionIdOf(token) : null;
   if (!id) return null;
   const db = getDb();

@@ -22,7 +22,11 @@ export type ThrottleKeys = { account: string; address: string };
 
 const keysOf = (k: ThrottleKeys) => {
   const account = k.account.toLowerCase();
-  return { pair: `pair:${account}|${k.address}`, address: `address:${k.address}`, account: `account:${account}` };
+  return {
+    pair: `pair:${account}|${k.address}`,
+    address: `address:${k.address}`,
+    account: `account:${account}`,
+  };
 };
 
 const expired = sql`${signInThrottle.windowStartedAt} < now() - make_interval(mins => ${THROTTLE_WINDOW_MINUTES})`;
@@ -63,7 +67,10 @@ export async function reserveAttempt(keys: ThrottleKeys): Promise<number> {
 /** How long to hold this answer back: nothing at first, then doubling per failure, capped. */
 export function accountDelayMs(failures: number): number {
   if (failures < ACCOUNT_FREE_FAILURES) return 0;
-  return Math.min(ACCOUNT_DELAY_CAP_MS, ACCOUNT_DELAY_BASE_MS * 2 ** (failures - ACCOUNT_FREE_FAILURES));
+  return Math.min(
+    ACCOUNT_DELAY_CAP_MS,
+    ACCOUNT_DELAY_BASE_MS * 2 ** (failures - ACCOUNT_FREE_FAILURES),
+  );
 }
 
 /** The account's failures in the current window, from any address. */
@@ -71,7 +78,9 @@ export async function accountFailures(account: string): Promise<number> {
   const [row] = await getDb()
     .select({ failures: signInThrottle.failures })
     .from(signInThrottle)
-    .where(and(eq(signInThrottle.key, keysOf({ account, address: '' }).account), sql`not (${expired})`));
+    .where(
+      and(eq(signInThrottle.key, keysOf({ account, address: '' }).account), sql`not (${expired})`),
+    );
   return row?.failures ?? 0;
 }
 

@@ -13,7 +13,8 @@ import { SMTPServer } from 'smtp-server';
 
 // Lower case: mailparser keys its header map so. Same value as SHOP_HEADER in server/mail/mailer.ts.
 const SHOP_HEADER = 'x-ringpass-shop';
-const shopOf = (value: unknown) => (typeof value === 'string' && /^[0-9a-f-]{36}$/i.test(value.trim()) ? value.trim() : null);
+const shopOf = (value: unknown) =>
+  typeof value === 'string' && /^[0-9a-f-]{36}$/i.test(value.trim()) ? value.trim() : null;
 
 export type MailSink = { port: number; close: () => Promise<void> };
 
@@ -21,7 +22,11 @@ export type MailSink = { port: number; close: () => Promise<void> };
  * `onUnowned` hears of mail tied to no shop (a sign-up link): no Mailbox shows it, so the start
  * script prints it, and whoever is trying the demo can still finish signing up.
  */
-export async function startMailSink(options: { port: number; dir: string; onUnowned?: (mail: { to: string[]; subject: string; text: string }) => void }): Promise<MailSink> {
+export async function startMailSink(options: {
+  port: number;
+  dir: string;
+  onUnowned?: (mail: { to: string[]; subject: string; text: string }) => void;
+}): Promise<MailSink> {
   mkdirSync(options.dir, { recursive: true });
   const server = new SMTPServer({
     authOptional: true,

@@ -42,7 +42,11 @@ const WILDCARD_HOSTS = new Set(['0.0.0.0', '::', '[::]']);
 
 /** The address people type for a server listening on `host`: a wildcard means this machine. */
 export function appUrlFor(host: string, port: number): string {
-  const shown = WILDCARD_HOSTS.has(host) ? '127.0.0.1' : host.includes(':') && !host.startsWith('[') ? `[${host}]` : host;
+  const shown = WILDCARD_HOSTS.has(host)
+    ? '127.0.0.1'
+    : host.includes(':') && !host.startsWith('[')
+      ? `[${host}]`
+      : host;
   return `http://${shown}:${port}`;
 }
 
@@ -50,8 +54,10 @@ function listenAddress(source: Source): { host: string; port: number } | { error
   const host = source.HOST?.trim() || '127.0.0.1';
   const rawPort = source.PORT?.trim() || '3000';
   const port = Number(rawPort);
-  if (!/^\d+$/.test(rawPort) || port < 1 || port > 65535) return { error: `PORT must be a port number from 1 to 65535 (got "${rawPort}").` };
-  if (!/^[A-Za-z0-9.:[\]-]+$/.test(host)) return { error: `HOST must be a host name or IP address (got "${host}").` };
+  if (!/^\d+$/.test(rawPort) || port < 1 || port > 65535)
+    return { error: `PORT must be a port number from 1 to 65535 (got "${rawPort}").` };
+  if (!/^[A-Za-z0-9.:[\]-]+$/.test(host))
+    return { error: `HOST must be a host name or IP address (got "${host}").` };
   return { host, port };
 }
 

@@ -25,7 +25,13 @@ const NEXT = path.join(ROOT, 'node_modules', '.bin', 'next');
 async function main(mode: 'start' | 'dev') {
   const plan = planStack(process.env);
   if (!plan.ok) throw new Error(plan.message);
-  const env: NodeJS.ProcessEnv = { ...process.env, NEXT_TELEMETRY_DISABLED: '1', APP_URL: plan.appUrl, HOST: plan.host, PORT: String(plan.port) };
+  const env: NodeJS.ProcessEnv = {
+    ...process.env,
+    NEXT_TELEMETRY_DISABLED: '1',
+    APP_URL: plan.appUrl,
+    HOST: plan.host,
+    PORT: String(plan.port),
+  };
 
   if (plan.localCluster) {
     await startCluster();
@@ -34,7 +40,9 @@ async function main(mode: 'start' | 'dev') {
   const databaseUrl = plan.localCluster ? clusterUrl('ringpass') : String(env.DATABASE_URL);
   env.DATABASE_URL = process.env.DATABASE_URL = databaseUrl;
   await migrateDatabase(databaseUrl);
-  const seeded = plan.seedDemoShop ? await seedDemoShop(databaseUrl, { photoDir: path.join(ROOT, '.data', 'uploads') }) : undefined;
+  const seeded = plan.seedDemoShop
+    ? await seedDemoShop(databaseUrl, { photoDir: path.join(ROOT, '.data', 'uploads') })
+    : undefined;
 
   let closeSink = async () => {};
   if (plan.mailSink) {
@@ -44,7 +52,9 @@ async function main(mode: 'start' | 'dev') {
       dir,
       onUnowned: (mail) => {
         const links = mail.text.match(/https?:\/\/\S+/g) ?? [];
-        console.log(`[mail] to ${mail.to.join(', ')}: ${mail.subject}${links.length ? `\n[mail]   ${links.join('\n[mail]   ')}` : ''}`);
+        console.log(
+          `[mail] to ${mail.to.join(', ')}: ${mail.subject}${links.length ? `\n[mail]   ${links.join('\n[mail]   ')}` : ''}`,
+        );
       },
     });
     closeSink = sink.close;
@@ -55,7 +65,10 @@ async function main(mode: 'start' | 'dev') {
   }
   let closeUploads = async () => {};
   if (plan.uploadFake) {
-    const fake = await startUploadFake({ port: UPLOAD_PORT, dir: path.join(ROOT, '.data', 'uploads') });
+    const fake = await startUploadFake({
+      port: UPLOAD_PORT,
+      dir: path.join(ROOT, '.data', 'uploads'),
+    });
     closeUploads = fake.close;
     Object.assign(env, fake.env);
   }
@@ -64,7 +77,11 @@ async function main(mode: 'start' | 'dev') {
 
   if (mode === 'start') {
     console.log('[start] building the app (next build)…');
-    const build = spawnSync(NEXT, ['build'], { cwd: ROOT, env: { ...env, NODE_ENV: 'production' }, stdio: 'inherit' });
+    const build = spawnSync(NEXT, ['build'], {
+      cwd: ROOT,
+      env: { ...env, NODE_ENV: 'production' },
+      stdio: 'inherit',
+    });
     if (build.status !== 0) throw new Error('next build failed');
   }
 
@@ -75,15 +92,24 @@ async function main(mode: 'start' | 'dev') {
   });
 
   if (seeded) {
-    console.log(`\nRingpass: ${env.APP_URL}  (${seeded.created ? 'demo shop created' : 'demo shop already there'})`);
+    console.log(
+      `\nRingpass: ${env.APP_URL}  (${seeded.created ? 'demo shop created' : 'demo shop already there'})`,
+    );
     console.log(`Demo shop "${DEMO_SHOP}", password for everyone: ${DEMO_PASSWORD}`);
     for (const p of DEMO_PEOPLE) console.log(`  ${p.role.padEnd(10)} ${p.email}`);
   } else {
     console.log(`\nRingpass: ${env.APP_URL} (listening on ${plan.host}:${plan.port})`);
   }
   if (env.MAILBOX_DIR) console.log(`Mail goes to the local sink: ${env.APP_URL}/mailbox`);
-  if (env.UPLOADTHING_INGEST_URL?.includes('127.0.0.1')) console.log(`Photos go to the local upload fake: ${env.UPLOADTHING_INGEST_URL} (files in .data/uploads)`);
-  console.log(plan.localCluster ? 'Stop with Ctrl+C; the database keeps running (npm run db:stop).\n' : 'Stop with Ctrl+C.\n');
+  if (env.UPLOADTHING_INGEST_URL?.includes('127.0.0.1'))
+    console.log(
+      `Photos go to the local upload fake: ${env.UPLOADTHING_INGEST_URL} (files in .data/uploads)`,
+    );
+  console.log(
+    plan.localCluster
+      ? 'Stop with Ctrl+C; the database keeps running (npm run db:stop).\n'
+      : 'Stop with Ctrl+C.\n',
+  );
 
   const stop = (signal: NodeJS.Signals) => child.kill(signal);
   process.on('SIGINT', stop);

@@ -19,7 +19,8 @@ export type UploadFake = { port: number; env: Record<string, string>; close: () 
 
 type Pending = { metadata: unknown; callbackUrl: string; callbackSlug: string };
 
-const sign = (payload: string, key: string) => `hmac-sha256=${createHmac('sha256', key).update(payload).digest('hex')}`;
+const sign = (payload: string, key: string) =>
+  `hmac-sha256=${createHmac('sha256', key).update(payload).digest('hex')}`;
 
 /** Room for the multipart envelope around the file (boundary, part headers). */
 const MULTIPART_OVERHEAD = 64 * 1024;
@@ -30,7 +31,9 @@ function signedBy(raw: string, key: string): boolean {
   if (at < 0) return false;
   const given = decodeURIComponent(raw.slice(at + '&signature='.length));
   const expected = sign(raw.slice(0, at), key);
-  return given.length === expected.length && timingSafeEqual(Buffer.from(given), Buffer.from(expected));
+  return (
+    given.length === expected.length && timingSafeEqual(Buffer.from(given), Buffer.from(expected))
+  );
 }
 
 /** Passes a request body through, failing it once more than `limit` bytes have arrived. */
@@ -45,7 +48,9 @@ function capped(limit: number) {
 }
 
 export function uploadFakeEnv(port: number, apiKey: string, appId: string): Record<string, string> {
-  const token = Buffer.from(JSON.stringify({ apiKey, appId, regions: ['local'] })).toString('base64');
+  const token = Buffer.from(JSON.stringify({ apiKey, appId, regions: ['local'] })).toString(
+    'base64',
+  );
   return {
     UPLOADTHING_TOKEN: token,
     UPLOADTHING_INGEST_URL: `http://127.0.0.1:${port}`,
@@ -68,7 +73,10 @@ export async function startUploadFake(options: { port: number; dir: string }): P
   const cors = (req: IncomingMessage, res: ServerResponse) => {
     res.setHeader('access-control-allow-origin', req.headers.origin ?? '*');
     res.setHeader('access-control-allow-methods', 'GET, HEAD, PUT, POST, OPTIONS');
-    res.setHeader('access-control-allow-headers', 'range, content-type, x-uploadthing-version, x-uploadthing-package, b3, traceparent, tracestate');
+    res.setHeader(
+      'access-control-allow-headers',
+      'range, content-type, x-uploadthing-version, x-uploadthing-package, b3, traceparent, tracestate',
+    );
     res.setHeader('access-control-expose-headers', 'x-ut-range-start');
   };
   const json = (res: ServerResponse, status: number, body: unknown) => {
@@ -87,16 +95,26 @@ export async function startUploadFake(options: { port: number; dir: string }): P
     // The SDK signs the URL up to "&signature"; values are encoded twice.
     const raw = `${base}${req.url!}`;
     if (!signedBy(raw, apiKey)) return json(res, 403, { error: 'Invalid signature' });
-    if (Number(url.searchParams.get('expires')) < Date.now()) return json(res, 403, { error: 'URL expired' });
+    if (Number(url.searchParams.get('expires')) < Date.now())
+      return json(res, 403, { error: 'URL expired' });
     const meta = pending.get(key);
     if (!meta) return json(res, 404, { error: 'Unknown upload' });
     const q = (k: string) => decodeURIComponent(url.searchParams.get(k) ?? '');
     // The presigned URL carries the size the app agreed to; a body beyond it is refused unread.
     const declared = Number(q('x-ut-file-size'));
-    if (!Number.isSafeInteger(declared) || declared < 0) return json(res, 400, { error: 'No declared file size' });
-    if (Number(req.headers['content-length'] ?? 0) > declared + MULTIPART_OVERHEAD) return json(res, 413, { error: 'More bytes than the declared size' });
-    const upload = Readable.toWeb(req.pipe(capped(declared + MULTIPART_OVERHEAD))) as ReadableStream;
-    const request = new Request(raw, { method: 'PUT', headers: req.headers as HeadersInit, body: upload, duplex: 'half' } as RequestInit);
+    if (!Number.isSafeInteger(declared) || declared < 0)
+      return json(res, 400, { error: 'No declared file size' });
+    if (Number(req.headers['content-length'] ?? 0) > declared + MULTIPART_OVERHEAD)
+      return json(res, 413, { error: 'More bytes than the declared size' });
+    const upload = Readable.toWeb(
+      req.pipe(capped(declared + MULTIPART_OVERHEAD)),
+    ) as ReadableStream;
+    const request = new Request(raw, {
+      method: 'PUT',
+      headers: req.headers as HeadersInit,
+      body: upload,
+      duplex: 'half',
+    } as RequestInit);
     const form = await request.formData().catch(() => null);
     if (!form) return json(res, 413, { error: 'More bytes than the declared size' });
     const file = form.get('file');
@@ -106,12 +124,26 @@ export async function startUploadFake(options: { port: number; dir: string }): P
     const type = q('x-ut-file-type') || file.type || 'application/octet-stream';
     const acl = q('x-ut-acl') === 'private' ? 'private' : 'public-read';
     writeFileSync(path.join(options.dir, key), bytes);
-    writeFileSync(path.join(options.dir, `${key}.json`), JSON.stringify({ type, name: q('x-ut-file-name'), acl }));
+    writeFileSync(
+      path.join(options.dir, `${key}.json`),
+      JSON.stringify({ type, name: q('x-ut-file-name'), acl }),
+    );
     const ufsUrl = fileUrl(key);
     const fileHash = createHmac('md5', 'x').update(bytes).digest('hex');
     const payload = JSON.stringify({
       status: 'uploaded',
-      file: { name: q('x-ut-file-name'), size: bytes.length, type, customId: q('x-ut-custom-id') || null, key, url: ufsUrl, appUrl: ufsUrl, ufsUrl, fileHash, lastModified: Date.now() },
+      file: {
+        name: q('x-ut-file-name'),
+        size: bytes.length,
+        type,
+        customId: q('x-ut-custom-id') || null,
+        key,
+        url: ufsUrl,
+        appUrl: ufsUrl,
+        ufsUrl,
+        fileHash,
+        lastModified: Date.now(),
+      },
       origin: base,
       metadata: meta.metadata,
     });
@@ -121,8 +153,17 @@ export async function startUploadFake(options: { port: number; dir: string }): P
     });
     const callback = new URL(meta.callbackUrl);
     if (!callback.searchParams.has('slug')) callback.searchParams.set('slug', meta.callbackSlug);
-    const hook = await fetch(callback, { method: 'POST', headers: { 'content-type': 'application/json', 'uploadthing-hook': 'callback', 'x-uploadthing-signature': sign(payload, apiKey) }, body: payload }).catch((e: Error) => e);
-    if (hook instanceof Error || !hook.ok) return json(res, 502, { error: 'Upload callback failed' });
+    const hook = await fetch(callback, {
+      method: 'POST',
+      headers: {
+        'content-type': 'application/json',
+        'uploadthing-hook': 'callback',
+        'x-uploadthing-signature': sign(payload, apiKey),
+      },
+      body: payload,
+    }).catch((e: Error) => e);
+    if (hook instanceof Error || !hook.ok)
+      return json(res, 502, { error: 'Upload callback failed' });
     try {
       const serverData = await done;
       pending.delete(key);
@@ -140,8 +181,18 @@ export async function startUploadFake(options: { port: number; dir: string }): P
       if (req.method === 'OPTIONS') return res.writeHead(204).end();
       if (route === 'POST /route-metadata') {
         if (!authorised(req)) return json(res, 401, { error: 'Bad api key' });
-        const input = JSON.parse(await body(req)) as { fileKeys: string[]; metadata: unknown; callbackUrl: string; callbackSlug: string };
-        for (const key of input.fileKeys) pending.set(key, { metadata: input.metadata, callbackUrl: input.callbackUrl, callbackSlug: input.callbackSlug });
+        const input = JSON.parse(await body(req)) as {
+          fileKeys: string[];
+          metadata: unknown;
+          callbackUrl: string;
+          callbackSlug: string;
+        };
+        for (const key of input.fileKeys)
+          pending.set(key, {
+            metadata: input.metadata,
+            callbackUrl: input.callbackUrl,
+            callbackSlug: input.callbackSlug,
+          });
         return json(res, 200, { ok: true });
       }
       if (route === 'POST /callback-result') {
@@ -167,11 +218,16 @@ export async function startUploadFake(options: { port: number; dir: string }): P
       if (req.method === 'GET' && fileMatch) {
         const file = path.join(options.dir, fileMatch[1]!);
         if (!existsSync(file)) return json(res, 404, { error: 'Not found' });
-        const { type, acl } = JSON.parse(readFileSync(`${file}.json`, 'utf8')) as { type: string; acl?: string };
+        const { type, acl } = JSON.parse(readFileSync(`${file}.json`, 'utf8')) as {
+          type: string;
+          acl?: string;
+        };
         // A private file needs UTApi's signed URL (signed over the URL as the SDK built it, host included).
         if (acl === 'private') {
-          if (!signedBy(`http://${req.headers.host ?? ''}${req.url!}`, apiKey)) return json(res, 403, { error: 'This file is private: a signed URL is required' });
-          if (!(Number(url.searchParams.get('expires')) >= Date.now())) return json(res, 403, { error: 'URL expired' });
+          if (!signedBy(`http://${req.headers.host ?? ''}${req.url!}`, apiKey))
+            return json(res, 403, { error: 'This file is private: a signed URL is required' });
+          if (!(Number(url.searchParams.get('expires')) >= Date.now()))
+            return json(res, 403, { error: 'URL expired' });
         }
         res.writeHead(200, { 'content-type': type, 'cache-control': 'private, max-age=300' });
         return res.end(readFileSync(file));
@@ -191,5 +247,9 @@ export async function startUploadFake(options: { port: number; dir: string }): P
     server.once('error', reject);
     server.listen(options.port, '127.0.0.1', () => resolve());
   });
-  return { port: options.port, env: uploadFakeEnv(options.port, apiKey, appId), close: () => new Promise((r) => server.close(() => r())) };
+  return {
+    port: options.port,
+    env: uploadFakeEnv(options.port, apiKey, appId),
+    close: () => new Promise((r) => server.close(() => r())),
+  };
 }

@@ -19,7 +19,10 @@ export class BodyTooLarge extends Error {
  * Reads the body as text, refusing it as soon as it passes `limit` bytes: by its declared
  * Content-Length before reading anything, else while it streams (chunked bodies declare none).
  */
-export async function readLimitedText(request: Request, limit = MAX_JSON_BODY_BYTES): Promise<string> {
+export async function readLimitedText(
+  request: Request,
+  limit = MAX_JSON_BODY_BYTES,
+): Promise<string> {
   const declared = Number(request.headers.get('content-length'));
   if (Number.isFinite(declared) && declared > limit) throw new BodyTooLarge(limit);
   if (!request.body) return '';

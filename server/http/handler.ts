@@ -9,7 +9,9 @@ import { DomainError, type DomainErrorCode } from '@/server/errors';
 import { BodyTooLarge, readLimitedText } from './body-limit';
 
 /** The one error shape of the JSON API. */
-export type ApiError = { error: { code: string; message: string; fields?: Record<string, string[]> } };
+export type ApiError = {
+  error: { code: string; message: string; fields?: Record<string, string[]> };
+};
 
 const STATUS: Record<DomainErrorCode, number> = {
   invalid: 400,
@@ -38,11 +40,15 @@ export function assertSameOrigin(request: Request) {
   const host = request.headers.get('host');
   const allowed = new Set([new URL(env().APP_URL).origin]);
   if (host) {
-    const proto = request.headers.get('x-forwarded-proto') ?? new URL(request.url).protocol.replace(':', '');
+    const proto =
+      request.headers.get('x-forwarded-proto') ?? new URL(request.url).protocol.replace(':', '');
     allowed.add(`${proto}://${host}`);
   }
   if (!origin || !allowed.has(origin)) {
-    throw new DomainError('forbidden', 'Cross-origin request refused: send it from the Ringpass app (Origin header).');
+    throw new DomainError(
+      'forbidden',
+      'Cross-origin request refused: send it from the Ringpass app (Origin header).',
+    );
   }
 }
 
@@ -59,7 +65,11 @@ async function readJson(request: Request): Promise<unknown> {
 function validate<S extends z.ZodType>(schema: S, value: unknown, what: string): z.output<S> {
   const parsed = schema.safeParse(value);
   if (parsed.success) return parsed.data;
-  throw new DomainError('invalid', `The ${what} has errors; see fields.`, fieldErrorsOf(parsed.error));
+  throw new DomainError(
+    'invalid',
+    `The ${what} has errors; see fields.`,
+    fieldErrorsOf(parsed.error),
+  );
 }
 
 type Context<P, B, Q> = { request: Request; member: Member; params: P; body: B; query: Q };
@@ -77,7 +87,10 @@ export function apiRoute<
   options: { permission: Permission; params?: PS; body?: BS; query?: QS; status?: number },
   run: (ctx: Context<z.output<PS>, z.output<BS>, z.output<QS>>) => Promise<unknown>,
 ) {
-  return async (request: Request, context: { params: Promise<Record<string, string | string[]>> }) => {
+  return async (
+    request: Request,
+    context: { params: Promise<Record<string, string | string[]>> },
+  ) => {
     try {
       assertSameOrigin(request);
       const member = await requireMemberForRequest(request, options.permission);
@@ -101,11 +114,16 @@ export function apiRoute<
     } catch (error) {
       if (error instanceof DomainError) return errorResponse(error);
       if (error instanceof BodyTooLarge) {
-        return Response.json({ error: { code: 'too_large', message: error.message } } satisfies ApiError, { status: 413 });
+        return Response.json(
+          { error: { code: 'too_large', message: error.message } } satisfies ApiError,
+          { status: 413 },
+        );
       }
       console.error('[api] unexpected failure', error);
       return Response.json(
-        { error: { code: 'internal', message: 'Something went wrong on our side.' } } satisfies ApiError,
+        {
+          error: { code: 'internal', message: 'Something went wrong on our side.' },
+        } satisfies ApiError,
         { status: 500 },
       );
     }

@@ -18,7 +18,11 @@ export function recordPeerAddresses() {
   if (proto[PATCHED]) return;
   proto[PATCHED] = true;
   const emit = proto.emit;
-  proto.emit = function emitWithPeerAddress(this: Server, event: string | symbol, ...args: unknown[]) {
+  proto.emit = function emitWithPeerAddress(
+    this: Server,
+    event: string | symbol,
+    ...args: unknown[]
+  ) {
     if (event === 'request') {
       const request = args[0] as IncomingMessage;
       request.headers[PEER_ADDRESS_HEADER] = request.socket.remoteAddress ?? 'unknown';

@@ -26,12 +26,22 @@ const HOSTED_UPLOADS: UploadOrigins = {
 };
 
 /** Where the upload SDK sends files and where their URLs point, from the SDK's own variables. */
-export function uploadOrigins(vars: { UPLOADTHING_INGEST_URL?: string; UPLOADTHING_UFS_HOST?: string }): UploadOrigins {
-  const connect = vars.UPLOADTHING_INGEST_URL ? [new URL(vars.UPLOADTHING_INGEST_URL).origin] : HOSTED_UPLOADS.connect;
+export function uploadOrigins(vars: {
+  UPLOADTHING_INGEST_URL?: string;
+  UPLOADTHING_UFS_HOST?: string;
+}): UploadOrigins {
+  const connect = vars.UPLOADTHING_INGEST_URL
+    ? [new URL(vars.UPLOADTHING_INGEST_URL).origin]
+    : HOSTED_UPLOADS.connect;
   // The SDK uses plain http only for hosts containing "local" (the fake); files may sit under a
   // per-app subdomain of the host.
   const img = vars.UPLOADTHING_UFS_HOST
-    ? [vars.UPLOADTHING_UFS_HOST.includes('local') ? `http://${vars.UPLOADTHING_UFS_HOST}` : `https://${vars.UPLOADTHING_UFS_HOST}`, `https://*.${vars.UPLOADTHING_UFS_HOST}`]
+    ? [
+        vars.UPLOADTHING_UFS_HOST.includes('local')
+          ? `http://${vars.UPLOADTHING_UFS_HOST}`
+          : `https://${vars.UPLOADTHING_UFS_HOST}`,
+        `https://*.${vars.UPLOADTHING_UFS_HOST}`,
+      ]
     : HOSTED_UPLOADS.img;
   return { connect, img };
 }

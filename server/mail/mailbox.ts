@@ -46,7 +46,9 @@ export async function listShopMail(shopId: string, limit = 100): Promise<SinkMes
   names.sort().reverse();
   const found: SinkMessage[] = [];
   for (const name of names.slice(0, SCAN_LIMIT)) {
-    const message = JSON.parse(await readFile(path.join(dir, name), 'utf8')) as Partial<SinkMessage>;
+    const message = JSON.parse(
+      await readFile(path.join(dir, name), 'utf8'),
+    ) as Partial<SinkMessage>;
     if (message.shopId === shopId) found.push(message as SinkMessage);
     if (found.length >= limit) break;
   }

@@ -9,7 +9,13 @@ export const SHOP_HEADER = 'X-Ringpass-Shop';
  * Every mail names the shop it concerns: an invite its inviting shop, a notice about an account
  * that account's shop. `null` only for mail that concerns no shop; the Mailbox shows it nowhere.
  */
-export type OutgoingMail = { to: string; subject: string; text: string; html: string; shopId: string | null };
+export type OutgoingMail = {
+  to: string;
+  subject: string;
+  text: string;
+  html: string;
+  shopId: string | null;
+};
 
 // SMTP_URL points at the local sink in development and tests and at the real relay in
 // production; the code path is the same.
@@ -20,5 +26,9 @@ function getTransport() {
 }
 
 export async function sendMail({ shopId, ...mail }: OutgoingMail): Promise<void> {
-  await getTransport().sendMail({ from: env().MAIL_FROM, ...mail, headers: shopId ? { [SHOP_HEADER]: shopId } : {} });
+  await getTransport().sendMail({
+    from: env().MAIL_FROM,
+    ...mail,
+    headers: shopId ? { [SHOP_HEADER]: shopId } : {},
+  });
 }

@@ -30,7 +30,11 @@ export function toShopSettings(row: ShopSettingsRow): ShopSettings {
   return {
     timeZone: row.timeZone,
     wrenchFloorPercent: row.wrenchFloorPercent,
-    verification: { recency: row.verificationRecency, days: row.verificationDays, nearPercent: row.verificationNearPercent },
+    verification: {
+      recency: row.verificationRecency,
+      days: row.verificationDays,
+      nearPercent: row.verificationNearPercent,
+    },
     tooFastSecondsPerBolt: row.tooFastSecondsPerBolt,
     recheckDays: row.recheckDays,
     pressureUnit: row.pressureUnit,

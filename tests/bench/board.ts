@@ -17,7 +17,6 @@ const JOBS_PER_SHOP = 10_000;
 const RUNS = 300;
 const FILTER = 'state=in_progress&sort=due&dir=asc&page=1&pageSize=25';
 
-
 async function seed(sql: postgres.Sql) {
   const started = Date.now();
   for (let s = 1; s <= SHOPS; s++) {
@@ -51,7 +50,9 @@ async function seed(sql: postgres.Sql) {
     });
   }
   await sql`analyze`;
-  console.log(`[bench] seeded ${SHOPS} shops × ${JOBS_PER_SHOP} jobs (${SHOPS * JOBS_PER_SHOP * 4} wheels) in ${((Date.now() - started) / 1000).toFixed(1)} s`);
+  console.log(
+    `[bench] seeded ${SHOPS} shops × ${JOBS_PER_SHOP} jobs (${SHOPS * JOBS_PER_SHOP * 4} wheels) in ${((Date.now() - started) / 1000).toFixed(1)} s`,
+  );
 }
 
 async function main() {
@@ -62,7 +63,8 @@ async function main() {
   await seed(sql);
 
   // Sign in as the lead of shop 1 by writing a session row (what sign-in does, minus the password).
-  const [lead] = await sql`select u.id, u.shop_id from users u join shops s on s.id = u.shop_id where s.name = 'Bench shop 1' and u.role = 'lead'`;
+  const [lead] =
+    await sql`select u.id, u.shop_id from users u join shops s on s.id = u.shop_id where s.name = 'Bench shop 1' and u.role = 'lead'`;
   const session = newSessionToken();
   await sql`insert into sessions (id, user_id, expires_at, absolute_expires_at) values (${session.id}, ${lead!.id}, now() + interval '1 day', now() + interval '1 day')`;
 
@@ -70,7 +72,10 @@ async function main() {
   try {
     const url = `http://127.0.0.1:${PORT}/api/jobs?${FILTER}`;
     const headers = { cookie: `ringpass_session=${session.token}` };
-    const first = (await (await fetch(url, { headers })).json()) as { total: number; data: unknown[] };
+    const first = (await (await fetch(url, { headers })).json()) as {
+      total: number;
+      data: unknown[];
+    };
     console.log(`[bench] board answers ${first.data.length} rows of ${first.total} in progress`);
 
     for (let i = 0; i < 30; i++) await (await fetch(url, { headers })).arrayBuffer();
@@ -82,11 +87,25 @@ async function main() {
     }
 
     // The very SQL the handler runs (drizzle's own text), straight through postgres.js.
-    Object.assign(process.env, { DATABASE_URL: server.env.DATABASE_URL, SMTP_URL: server.env.SMTP_URL });
+    Object.assign(process.env, {
+      DATABASE_URL: server.env.DATABASE_URL,
+      SMTP_URL: server.env.SMTP_URL,
+    });
     const { boardQuery } = await import('@/features/jobs/server/board');
     const { boardQuerySchema } = await import('@/features/jobs/schemas');
-    const member = { userId: lead!.id, shopId: lead!.shop_id, role: 'lead' as const, name: '', email: '', sessionId: session.id };
-    const query = boardQuery(member, boardQuerySchema.parse(Object.fromEntries(new URLSearchParams(FILTER))), { timeZone: 'UTC', now: new Date() }).toSQL();
+    const member = {
+      userId: lead!.id,
+      shopId: lead!.shop_id,
+      role: 'lead' as const,
+      name: '',
+      email: '',
+      sessionId: session.id,
+    };
+    const query = boardQuery(
+      member,
+      boardQuerySchema.parse(Object.fromEntries(new URLSearchParams(FILTER))),
+      { timeZone: 'UTC', now: new Date() },
+    ).toSQL();
     for (let i = 0; i < 30; i++) await sql.unsafe(query.sql, query.params as never[]);
     const raw: number[] = [];
     for (let i = 0; i < RUNS; i++) {
@@ -94,9 +113,13 @@ async function main() {
       await sql.unsafe(query.sql, query.params as never[]);
       raw.push(performance.now() - t);
     }
-    console.log(`[bench] ${RUNS} requests each: board p50 ${pct(http, 50).toFixed(1)} ms, raw p50 ${pct(raw, 50).toFixed(1)} ms`);
+    console.log(
+      `[bench] ${RUNS} requests each: board p50 ${pct(http, 50).toFixed(1)} ms, raw p50 ${pct(raw, 50).toFixed(1)} ms`,
+    );
     const ratio = pct(http, 95) / pct(raw, 95);
-    console.log(`board p95 ${pct(http, 95).toFixed(1)} ms, raw p95 ${pct(raw, 95).toFixed(1)} ms, ratio ${ratio.toFixed(1)}`);
+    console.log(
+      `board p95 ${pct(http, 95).toFixed(1)} ms, raw p95 ${pct(raw, 95).toFixed(1)} ms, ratio ${ratio.toFixed(1)}`,
+    );
   } finally {
     server.stop();
     await sql.end();

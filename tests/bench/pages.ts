@@ -10,7 +10,16 @@ import { E2E, ROOT } from '../helpers/test-services';
 import { waitForMail } from '../helpers/mailbox';
 
 const BASE = `http://127.0.0.1:${E2E.appPort}`;
-const ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
+const ARGS = [
+  '--headless',
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-quic',
+  '--no-first-run',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+];
 
 async function waitForServer(url: string, seconds: number) {
   for (let i = 0; i < seconds * 2; i++) {
@@ -25,8 +34,13 @@ async function waitForServer(url: string, seconds: number) {
 async function measure(page: Page, cdp: CDPSession, path: string) {
   const scripts = new Map<string, string>();
   let jsBytes = 0;
-  const onResponse = (e: { requestId: string; type?: string; response: { url: string; mimeType: string } }) => {
-    if (e.type === 'Script' || e.response.mimeType.includes('javascript')) scripts.set(e.requestId, e.response.url);
+  const onResponse = (e: {
+    requestId: string;
+    type?: string;
+    response: { url: string; mimeType: string };
+  }) => {
+    if (e.type === 'Script' || e.response.mimeType.includes('javascript'))
+      scripts.set(e.requestId, e.response.url);
   };
   const onFinished = (e: { requestId: string; encodedDataLength: number }) => {
     if (scripts.has(e.requestId)) jsBytes += e.encodedDataLength;
@@ -51,17 +65,31 @@ async function measure(page: Page, cdp: CDPSession, path: string) {
 }
 
 async function main() {
-  const server = spawn('node_modules/.bin/tsx', ['--conditions=react-server', 'tests/e2e/serve.ts'], { cwd: ROOT, stdio: ['ignore', 'ignore', 'inherit'], detached: true });
+  const server = spawn(
+    'node_modules/.bin/tsx',
+    ['--conditions=react-server', 'tests/e2e/serve.ts'],
+    { cwd: ROOT, stdio: ['ignore', 'ignore', 'inherit'], detached: true },
+  );
   try {
     await waitForServer(`${BASE}/sign-in`, 240);
     const browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: ARGS });
-    const context = await browser.newContext({ viewport: { width: 360, height: 640 }, deviceScaleFactor: 3, isMobile: true, hasTouch: true });
+    const context = await browser.newContext({
+      viewport: { width: 360, height: 640 },
+      deviceScaleFactor: 3,
+      isMobile: true,
+      hasTouch: true,
+    });
     const page = await context.newPage();
     const cdp = await context.newCDPSession(page);
     await cdp.send('Network.enable');
     await cdp.send('Network.setCacheDisabled', { cacheDisabled: true });
     await cdp.send('Emulation.setCPUThrottlingRate', { rate: 4 });
-    await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 150, downloadThroughput: (1.6 * 1024 * 1024) / 8, uploadThroughput: (750 * 1024) / 8 });
+    await cdp.send('Network.emulateNetworkConditions', {
+      offline: false,
+      latency: 150,
+      downloadThroughput: (1.6 * 1024 * 1024) / 8,
+      uploadThroughput: (750 * 1024) / 8,
+    });
 
     const rows = [await measure(page, cdp, '/sign-in'), await measure(page, cdp, '/sign-up')];
     // Sign up a shop to measure the signed-in pages.
@@ -72,16 +100,52 @@ async function main() {
     await page.getByLabel('Password').fill('benchmark password');
     await page.getByRole('button', { name: 'Create shop' }).click();
     // Sign-up finishes through the link in the e-mail.
-    const link = /\/sign-up\/[A-Za-z0-9_-]+/.exec((await waitForMail(E2E.sink.dir, email, 60_000)).text)?.[0];
+    const link = /\/sign-up\/[A-Za-z0-9_-]+/.exec(
+      (await waitForMail(E2E.sink.dir, email, 60_000)).text,
+    )?.[0];
     await page.goto(BASE + link);
     await page.getByRole('button', { name: 'Create Bench Shop and sign in' }).click();
     await page.waitForURL(`${BASE}/board`, { timeout: 60_000 });
     for (const path of ['/board', '/team', '/mailbox']) rows.push(await measure(page, cdp, path));
     // A job with one wheel, to measure the runner (the page a technician keeps open all day).
-    const call = async <T>(path: string, data: unknown) => ((await (await page.request.post(BASE + path, { data, headers: { origin: BASE } })).json()) as { data: T }).data;
-    const spec = await call<{ id: string }>('/api/specs', { name: 'Bench 24', boltCount: 24, boltThread: 'M8', finalTorque: 12, torqueUnit: 'lbf-ft', passPercents: [30, 70, 100], patternKind: 'cross', checkPass: true, maxBeadSeatPressure: 30, runningPressure: 14, pressureUnit: 'psi' });
-    const me = ((await (await page.request.get(BASE + '/api/team/members')).json()) as { data: { id: string }[] }).data[0]!;
-    const job = await call<{ id: string; wheels: { id: string }[] }>('/api/jobs', { customer: { name: 'Bench', phone: '', email: '' }, vehicle: { make: 'Bench' }, wheels: [{ position: 'LF', specId: spec.id, tireSize: '30x10R14', targetPressure: 14, pressureUnit: 'psi' }], assigneeId: me.id });
+    const call = async <T>(path: string, data: unknown) =>
+      (
+        (await (
+          await page.request.post(BASE + path, { data, headers: { origin: BASE } })
+        ).json()) as { data: T }
+      ).data;
+    const spec = await call<{ id: string }>('/api/specs', {
+      name: 'Bench 24',
+      boltCount: 24,
+      boltThread: 'M8',
+      finalTorque: 12,
+      torqueUnit: 'lbf-ft',
+      passPercents: [30, 70, 100],
+      patternKind: 'cross',
+      checkPass: true,
+      maxBeadSeatPressure: 30,
+      runningPressure: 14,
+      pressureUnit: 'psi',
+    });
+    const me = (
+      (await (await page.request.get(BASE + '/api/team/members')).json()) as {
+        data: { id: string }[];
+      }
+    ).data[0]!;
+    const job = await call<{ id: string; wheels: { id: string }[] }>('/api/jobs', {
+      customer: { name: 'Bench', phone: '', email: '' },
+      vehicle: { make: 'Bench' },
+      wheels: [
+        {
+          position: 'LF',
+          specId: spec.id,
+          tireSize: '30x10R14',
+          targetPressure: 14,
+          pressureUnit: 'psi',
+        },
+      ],
+      assigneeId: me.id,
+    });
     rows.push(await measure(page, cdp, `/jobs/${job.id}`));
     const runner = await measure(page, cdp, `/jobs/${job.id}/wheels/${job.wheels[0]!.id}/run`);
     rows.push({ ...runner, path: '/…/run (runner)' });
@@ -89,7 +153,9 @@ async function main() {
 
     console.log('route             scripts   JS gzip kB   LCP ms (mobile, 4x CPU, 150 ms RTT)');
     for (const r of rows) {
-      console.log(`${r.path.slice(0, 16).padEnd(17)} ${String(r.scripts).padStart(7)} ${r.jsKb.toFixed(1).padStart(12)} ${Number.isNaN(r.lcpMs) ? '   n/a' : r.lcpMs.toFixed(0).padStart(6)}`);
+      console.log(
+        `${r.path.slice(0, 16).padEnd(17)} ${String(r.scripts).padStart(7)} ${r.jsKb.toFixed(1).padStart(12)} ${Number.isNaN(r.lcpMs) ? '   n/a' : r.lcpMs.toFixed(0).padStart(6)}`,
+      );
     }
   } finally {
     process.kill(-server.pid!, 'SIGTERM');

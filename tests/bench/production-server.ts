@@ -3,16 +3,33 @@ import { spawn, spawnSync } from 'node:child_process';
 import path from 'node:path';
 import { ROOT } from '../helpers/test-services';
 
-export const pct = (xs: number[], p: number) => (xs.length ? [...xs].sort((a, b) => a - b)[Math.min(xs.length - 1, Math.floor((p / 100) * xs.length))]! : NaN);
+export const pct = (xs: number[], p: number) =>
+  xs.length
+    ? [...xs].sort((a, b) => a - b)[Math.min(xs.length - 1, Math.floor((p / 100) * xs.length))]!
+    : NaN;
 
 /** Builds into .next-bench and serves it against `databaseUrl`; resolves once it answers. */
 export async function startProductionServer(port: number, databaseUrl: string) {
   const base = `http://127.0.0.1:${port}`;
-  const env = { ...process.env, NODE_ENV: 'production' as const, NEXT_TELEMETRY_DISABLED: '1', NEXT_DIST_DIR: '.next-bench', DATABASE_URL: databaseUrl, APP_URL: base, SMTP_URL: 'smtp://127.0.0.1:2599', COOKIE_SECURE: 'false' };
+  const env = {
+    ...process.env,
+    NODE_ENV: 'production' as const,
+    NEXT_TELEMETRY_DISABLED: '1',
+    NEXT_DIST_DIR: '.next-bench',
+    DATABASE_URL: databaseUrl,
+    APP_URL: base,
+    SMTP_URL: 'smtp://127.0.0.1:2599',
+    COOKIE_SECURE: 'false',
+  };
   const next = path.join(ROOT, 'node_modules', '.bin', 'next');
   console.log('[bench] building the app (next build)…');
-  if (spawnSync(next, ['build'], { cwd: ROOT, env, stdio: 'ignore' }).status !== 0) throw new Error('next build failed');
-  const server = spawn(next, ['start', '-H', '127.0.0.1', '-p', String(port)], { cwd: ROOT, env, stdio: 'ignore' });
+  if (spawnSync(next, ['build'], { cwd: ROOT, env, stdio: 'ignore' }).status !== 0)
+    throw new Error('next build failed');
+  const server = spawn(next, ['start', '-H', '127.0.0.1', '-p', String(port)], {
+    cwd: ROOT,
+    env,
+    stdio: 'ignore',
+  });
   for (let i = 0; i < 120; i++) {
     try {
       if ((await fetch(`${base}/sign-in`)).ok) break;

@@ -1,7 +1,10 @@
 import { expect, test } from '@playwright/test';
 import { invite, PASSWORD, signIn, signUp, uniqueEmail } from './helpers';
 
-test('a lead signs up, invites a technician by e-mail; the technician accepts, signs in and lands on their (empty) wheels; the board is one tap away', async ({ page, browser }) => {
+test('a lead signs up, invites a technician by e-mail; the technician accepts, signs in and lands on their (empty) wheels; the board is one tap away', async ({
+  page,
+  browser,
+}) => {
   const lead = uniqueEmail('lead');
   const tech = uniqueEmail('tech');
   await signUp(page, 'Sandwash Tire & Wheel', 'Petra Lug', lead);
@@ -11,7 +14,9 @@ test('a lead signs up, invites a technician by e-mail; the technician accepts, s
 
   // The invite arrives in the local sink; the Mailbox page shows it like an inbox would.
   await page.goto('/mailbox');
-  const mail = page.getByRole('article', { name: new RegExp(`Petra Lug invited you to Sandwash Tire & Wheel on Ringpass to ${tech}`) });
+  const mail = page.getByRole('article', {
+    name: new RegExp(`Petra Lug invited you to Sandwash Tire & Wheel on Ringpass to ${tech}`),
+  });
   await expect(mail).toBeVisible();
   const link = await mail.getByRole('link').getAttribute('href');
   expect(link).toMatch(/\/invite\//);
@@ -34,12 +39,17 @@ test('a lead signs up, invites a technician by e-mail; the technician accepts, s
   await signIn(techPage, tech);
   await expect(techPage.getByRole('heading', { name: 'My wheels' })).toBeVisible();
   await expect(techPage.getByText('No wheels waiting for you')).toBeVisible();
-  await techPage.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Board' }).click();
+  await techPage
+    .getByRole('navigation', { name: 'Main' })
+    .getByRole('link', { name: 'Board' })
+    .click();
   await expect(techPage.getByRole('heading', { name: 'Board' })).toBeVisible();
   // A technician's board shows their own work by default; nothing is assigned yet.
   await expect(techPage.getByText('No job cards assigned to you yet')).toBeVisible();
   // A technician sees no Team link and cannot open the lead-only page.
-  await expect(techPage.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Team' })).toHaveCount(0);
+  await expect(
+    techPage.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Team' }),
+  ).toHaveCount(0);
   const response = await techPage.goto('/team');
   expect(response?.status()).toBe(403);
   await expect(techPage.getByRole('heading', { name: 'Not for your role' })).toBeVisible();
@@ -50,18 +60,24 @@ test('a lead signs up, invites a technician by e-mail; the technician accepts, s
   await techContext.close();
 });
 
-test('a wrong password gets a clear error; the sixth wrong password in a row is refused with "try again later"', async ({ page }) => {
+test('a wrong password gets a clear error; the sixth wrong password in a row is refused with "try again later"', async ({
+  page,
+}) => {
   const lead = uniqueEmail('locked');
   await signUp(page, 'Rockcrawl Rims', 'Omar Seat', lead);
   await page.getByRole('button', { name: 'Sign out' }).click();
   await expect(page.getByRole('heading', { name: 'Sign in' })).toBeVisible(); // the session is gone before we go on
   for (let i = 1; i <= 5; i++) {
     await signIn(page, lead, `not-the-password-${i}`);
-    await expect(page.getByRole('alert').filter({ hasText: /./ })).toHaveText('Wrong e-mail or password.');
+    await expect(page.getByRole('alert').filter({ hasText: /./ })).toHaveText(
+      'Wrong e-mail or password.',
+    );
     await expect(page.getByLabel('E-mail')).toHaveValue(lead);
   }
   await signIn(page, lead, 'not-the-password-6');
-  await expect(page.getByRole('alert').filter({ hasText: /./ })).toContainText('Too many failed sign-ins. Try again later');
+  await expect(page.getByRole('alert').filter({ hasText: /./ })).toContainText(
+    'Too many failed sign-ins. Try again later',
+  );
   await signIn(page, lead, PASSWORD);
   await expect(page.getByRole('alert').filter({ hasText: /./ })).toContainText('Try again later');
 });
@@ -72,7 +88,9 @@ test('bad input on sign-up gets a message at each field and creates nothing', as
   await page.getByLabel('Password').fill('short');
   await page.getByRole('button', { name: 'Create shop' }).click();
   await expect(page.getByText('Enter the shop name (at least 2 characters).')).toBeVisible();
-  await expect(page.getByText('Enter a valid e-mail address, like name@example.com.')).toBeVisible();
+  await expect(
+    page.getByText('Enter a valid e-mail address, like name@example.com.'),
+  ).toBeVisible();
   await expect(page.getByText('Use at least 12 characters.')).toBeVisible();
   await expect(page.getByLabel('E-mail')).toHaveAttribute('aria-invalid', 'true');
   await expect(page.getByLabel('E-mail')).toHaveValue('not-an-address');
@@ -94,6 +112,8 @@ test("a user of one shop gets 404 for another shop's id", async ({ page, browser
   await expect(pageB.getByRole('heading', { name: 'Not found' })).toBeVisible();
   const api = await pageB.request.get(memberUrl.replace('/team/', '/api/team/members/'));
   expect(api.status()).toBe(404);
-  expect(await api.json()).toEqual({ error: { code: 'not_found', message: 'That team member was not found.' } });
+  expect(await api.json()).toEqual({
+    error: { code: 'not_found', message: 'That team member was not found.' },
+  });
   await other.close();
 });

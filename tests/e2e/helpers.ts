@@ -3,7 +3,8 @@ import { waitForMail } from '@/tests/helpers/mailbox';
 import { E2E } from '@/tests/helpers/test-services';
 
 let counter = 0;
-export const uniqueEmail = (who: string) => `${who}-${Date.now().toString(36)}-${counter++}@e2e.test`;
+export const uniqueEmail = (who: string) =>
+  `${who}-${Date.now().toString(36)}-${counter++}@e2e.test`;
 export const PASSWORD = 'gloves-on-and-torqued';
 
 export async function signUp(page: Page, shopName: string, name: string, email: string) {
@@ -13,7 +14,9 @@ export async function signUp(page: Page, shopName: string, name: string, email: 
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill(PASSWORD);
   await page.getByRole('button', { name: 'Create shop' }).click();
-  await expect(page.getByRole('status')).toContainText(`Check your e-mail at ${email.toLowerCase()}`);
+  await expect(page.getByRole('status')).toContainText(
+    `Check your e-mail at ${email.toLowerCase()}`,
+  );
   // The link that finishes sign-up goes to the address alone (it belongs to no shop's Mailbox).
   const mail = await waitForMail(E2E.sink.dir, email.toLowerCase());
   const link = /https?:\/\/\S+\/sign-up\/[A-Za-z0-9_-]+/.exec(mail.text)?.[0];
@@ -29,7 +32,11 @@ export async function signIn(page: Page, email: string, password = PASSWORD) {
   await page.getByRole('button', { name: 'Sign in' }).click();
 }
 
-export async function invite(page: Page, email: string, role: 'Lead' | 'Technician' | 'Apprentice') {
+export async function invite(
+  page: Page,
+  email: string,
+  role: 'Lead' | 'Technician' | 'Apprentice',
+) {
   await page.goto('/team');
   const form = page.getByRole('form', { name: 'Invite a team member' });
   await form.getByLabel('E-mail').fill(email);
@@ -39,10 +46,19 @@ export async function invite(page: Page, email: string, role: 'Lead' | 'Technici
 }
 
 /** Invites someone, follows the link from the Mailbox in a fresh browser and joins as `name`. */
-export async function inviteAndJoin(page: Page, browser: Browser, email: string, name: string, role: 'Lead' | 'Technician' | 'Apprentice') {
+export async function inviteAndJoin(
+  page: Page,
+  browser: Browser,
+  email: string,
+  name: string,
+  role: 'Lead' | 'Technician' | 'Apprentice',
+) {
   await invite(page, email, role);
   await page.goto('/mailbox');
-  const link = await page.getByRole('article', { name: new RegExp(`to ${email.replace(/[.+]/g, '\\$&')}`) }).getByRole('link').getAttribute('href');
+  const link = await page
+    .getByRole('article', { name: new RegExp(`to ${email.replace(/[.+]/g, '\\$&')}`) })
+    .getByRole('link')
+    .getAttribute('href');
   const context = await browser.newContext();
   const joined = await context.newPage();
   await joined.goto(link!);
@@ -50,7 +66,9 @@ export async function inviteAndJoin(page: Page, browser: Browser, email: string,
   await joined.getByLabel('Choose a password').fill(PASSWORD);
   await joined.getByRole('button', { name: 'Join the shop' }).click();
   // A technician starts at their wheels; leads and apprentices at the board.
-  await expect(joined.getByRole('heading', { name: role === 'Technician' ? 'My wheels' : 'Board' })).toBeVisible();
+  await expect(
+    joined.getByRole('heading', { name: role === 'Technician' ? 'My wheels' : 'Board' }),
+  ).toBeVisible();
   return { context, page: joined };
 }
 
@@ -58,5 +76,7 @@ export async function inviteAndJoin(page: Page, browser: Browser, email: string,
 export async function expectNoSideScroll(page: Page, where = 'the page') {
   // Against the emulated viewport, not innerWidth: a phone widens its layout viewport to fit what overflows.
   const scroll = await page.evaluate(() => document.documentElement.scrollWidth);
-  expect(scroll, `${where} is wider than the screen`).toBeLessThanOrEqual(page.viewportSize()!.width);
+  expect(scroll, `${where} is wider than the screen`).toBeLessThanOrEqual(
+    page.viewportSize()!.width,
+  );
 }

@@ -1,7 +1,9 @@
 import { expect, test } from '@playwright/test';
 import { expectNoSideScroll, signUp, uniqueEmail } from './helpers';
 
-test('at 360×640 the pages fit the screen and every control is at least 48 px tall', async ({ page }) => {
+test('at 360×640 the pages fit the screen and every control is at least 48 px tall', async ({
+  page,
+}) => {
   for (const path of ['/sign-in', '/sign-up']) {
     await page.goto(path);
     await expectNoSideScroll(page, path);
@@ -12,7 +14,10 @@ test('at 360×640 the pages fit the screen and every control is at least 48 px t
     await expectNoSideScroll(page, path);
     const small = await page.evaluate(() =>
       [...document.querySelectorAll('button, input, select, nav a')]
-        .map((el) => ({ text: (el as HTMLElement).innerText || el.getAttribute('name') || '', h: el.getBoundingClientRect().height }))
+        .map((el) => ({
+          text: (el as HTMLElement).innerText || el.getAttribute('name') || '',
+          h: el.getBoundingClientRect().height,
+        }))
         .filter((c) => c.h > 0 && c.h < 48),
     );
     expect(small, `${path} has small touch targets`).toEqual([]);

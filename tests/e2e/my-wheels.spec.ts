@@ -5,9 +5,18 @@ import { E2E } from '../helpers/test-services';
 import { inviteAndJoin, signIn, signUp, uniqueEmail } from './helpers';
 
 /** A same-origin API call with the page's session, as the app itself would make it. */
-async function api<T>(page: Page, method: 'GET' | 'POST', path: string, body?: unknown): Promise<T> {
+async function api<T>(
+  page: Page,
+  method: 'GET' | 'POST',
+  path: string,
+  body?: unknown,
+): Promise<T> {
   const origin = new URL(page.url()).origin;
-  const res = await page.request.fetch(path, { method, data: body, headers: { origin, 'content-type': 'application/json' } });
+  const res = await page.request.fetch(path, {
+    method,
+    data: body,
+    headers: { origin, 'content-type': 'application/json' },
+  });
   expect(res.ok(), `${method} ${path}: ${await res.text()}`).toBe(true);
   return ((await res.json()) as { data: T }).data;
 }
@@ -15,18 +24,50 @@ async function api<T>(page: Page, method: 'GET' | 'POST', path: string, body?: u
 type Job = { id: string; number: number; wheels: { id: string; position: string }[] };
 const inHours = (h: number) => new Date(Date.now() + h * 3_600_000).toISOString();
 
-test('a technician signs in on a phone and lands on My wheels: the sent-back wheel first, one tap opens its runner; the board and the list arrive in the first HTML', async ({ page, browser }) => {
+test('a technician signs in on a phone and lands on My wheels: the sent-back wheel first, one tap opens its runner; the board and the list arrive in the first HTML', async ({
+  page,
+  browser,
+}) => {
   test.setTimeout(120_000);
   await signUp(page, 'Next Wheel Tires', 'Lou Lead', uniqueEmail('lead'));
   const techEmail = uniqueEmail('tech');
   const tech = await inviteAndJoin(page, browser, techEmail, 'Tia Tread', 'Technician');
   await expect(tech.page.getByText('No wheels waiting for you')).toBeVisible();
-  const techId = (await api<{ id: string; name: string }[]>(page, 'GET', '/api/team/members')).find((m) => m.name === 'Tia Tread')!.id;
+  const techId = (await api<{ id: string; name: string }[]>(page, 'GET', '/api/team/members')).find(
+    (m) => m.name === 'Tia Tread',
+  )!.id;
 
-  const spec = await api<{ id: string }>(page, 'POST', '/api/specs', { name: '8-bolt home ring', boltCount: 8, boltThread: 'M8×1.25', finalTorque: 12, torqueUnit: 'lbf-ft', passPercents: [30, 70, 100], patternKind: 'cross', checkPass: true, maxBeadSeatPressure: 30, runningPressure: 14, pressureUnit: 'psi' });
-  const wheel = (position: string) => ({ position, specId: spec.id, tireSize: '26x9-14', directional: false, targetPressure: 8, pressureUnit: 'psi' });
+  const spec = await api<{ id: string }>(page, 'POST', '/api/specs', {
+    name: '8-bolt home ring',
+    boltCount: 8,
+    boltThread: 'M8×1.25',
+    finalTorque: 12,
+    torqueUnit: 'lbf-ft',
+    passPercents: [30, 70, 100],
+    patternKind: 'cross',
+    checkPass: true,
+    maxBeadSeatPressure: 30,
+    runningPressure: 14,
+    pressureUnit: 'psi',
+  });
+  const wheel = (position: string) => ({
+    position,
+    specId: spec.id,
+    tireSize: '26x9-14',
+    directional: false,
+    targetPressure: 8,
+    pressureUnit: 'psi',
+  });
   const newJob = (customer: string, positions: string[], dueAt: string) =>
-    api<Job>(page, 'POST', '/api/jobs', { customer: { name: customer, phone: '', email: '' }, vehicle: { make: 'Boreal', model: 'Scout', description: '' }, wheels: positions.map(wheel), dismount: false, reinstall: false, assigneeId: techId, dueAt });
+    api<Job>(page, 'POST', '/api/jobs', {
+      customer: { name: customer, phone: '', email: '' },
+      vehicle: { make: 'Boreal', model: 'Scout', description: '' },
+      wheels: positions.map(wheel),
+      dismount: false,
+      reinstall: false,
+      assigneeId: techId,
+      dueAt,
+    });
   const soon = await newJob('Sam Soon', ['LF', 'RF'], inHours(2));
   const later = await newJob('Lee Later', ['LF'], inHours(30));
 
@@ -45,7 +86,9 @@ test('a technician signs in on a phone and lands on My wheels: the sent-back whe
   await signIn(tech.page, techEmail);
   await expect(tech.page).toHaveURL(/\/my-wheels$/);
   await expect(tech.page.getByRole('heading', { name: 'My wheels' })).toBeVisible();
-  const wheels = tech.page.getByRole('list', { name: 'Wheels to do, next first' }).getByRole('link');
+  const wheels = tech.page
+    .getByRole('list', { name: 'Wheels to do, next first' })
+    .getByRole('link');
   await expect(wheels).toHaveCount(3);
   await expect(wheels.nth(0)).toContainText(`Job #${later.number} · Left front`);
   await expect(wheels.nth(0)).toContainText('Sent back');
@@ -61,13 +104,18 @@ test('a technician signs in on a phone and lands on My wheels: the sent-back whe
   expect(scroll).toBeLessThanOrEqual(360);
 
   // The runner links are in the page's first HTML, before any script runs.
-  const html = (await (await tech.page.request.get('/my-wheels')).text()).replaceAll('<!-- -->', '');
+  const html = (await (await tech.page.request.get('/my-wheels')).text()).replaceAll(
+    '<!-- -->',
+    '',
+  );
   expect(html).toContain(`/jobs/${later.id}/wheels/${later.wheels[0]!.id}/run`);
 
   // One tap opens the sent-back wheel's runner, the lead's note on top.
   await wheels.nth(0).click();
   await expect(tech.page).toHaveURL(`/jobs/${later.id}/wheels/${later.wheels[0]!.id}/run`);
-  await expect(tech.page.getByRole('alert', { name: 'Sent back by the lead' })).toContainText('Bead not seated at the valve');
+  await expect(tech.page.getByRole('alert', { name: 'Sent back by the lead' })).toContainText(
+    'Bead not seated at the valve',
+  );
 
   // The board's first HTML already holds the first page of cards (no script needed to see them),
   // and on a phone its filters wait behind one Filter button.
@@ -81,6 +129,8 @@ test('a technician signs in on a phone and lands on My wheels: the sent-back whe
   await expect(page.getByRole('search', { name: 'Filter the board' })).toBeHidden();
   await filter.click();
   await expect(filter).toHaveAttribute('aria-expanded', 'true');
-  await expect(page.getByRole('search', { name: 'Filter the board' }).getByLabel('State')).toBeVisible();
+  await expect(
+    page.getByRole('search', { name: 'Filter the board' }).getByLabel('State'),
+  ).toBeVisible();
   await tech.context.close();
 });

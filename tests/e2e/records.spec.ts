@@ -1,7 +1,10 @@
 import { expect, test } from '@playwright/test';
 import { inviteAndJoin, signUp, uniqueEmail } from './helpers';
 
-test('a lead sets up a spec, a wrench (one verification passes, one fails), a customer with a vehicle and a four-wheel job; the technician sees it on their board', async ({ page, browser }) => {
+test('a lead sets up a spec, a wrench (one verification passes, one fails), a customer with a vehicle and a four-wheel job; the technician sees it on their board', async ({
+  page,
+  browser,
+}) => {
   test.setTimeout(120_000);
   await signUp(page, 'Canyon Bead Works', 'Iris Torque', uniqueEmail('lead'));
   const tech = await inviteAndJoin(page, browser, uniqueEmail('tech'), 'Sol Ring', 'Technician');
@@ -22,7 +25,9 @@ test('a lead sets up a spec, a wrench (one verification passes, one fails), a cu
   await verify.getByLabel('Reading').fill('102');
   await verify.getByRole('button', { name: 'Record verification' }).click();
   // The time it was recorded reads on the shop's clock.
-  await expect(verify.getByRole('status')).toHaveText(/^Within tolerance: \+2\.0 % \(allowed ±4 %\)\. Recorded \d{1,2}:\d{2} [AP]M\.$/);
+  await expect(verify.getByRole('status')).toHaveText(
+    /^Within tolerance: \+2\.0 % \(allowed ±4 %\)\. Recorded \d{1,2}:\d{2} [AP]M\.$/,
+  );
   await expect(page.getByText('In service', { exact: true })).toBeVisible();
 
   // A second wrench fails its verification and goes out of service.
@@ -36,7 +41,9 @@ test('a lead sets up a spec, a wrench (one verification passes, one fails), a cu
   await verify.getByLabel('Reference value').fill('50');
   await verify.getByLabel('Reading').fill('53');
   await verify.getByRole('button', { name: 'Record verification' }).click();
-  await expect(verify.getByRole('alert').filter({ hasText: /./ })).toContainText('Out of tolerance: +6.0 % (allowed ±4 %)');
+  await expect(verify.getByRole('alert').filter({ hasText: /./ })).toContainText(
+    'Out of tolerance: +6.0 % (allowed ±4 %)',
+  );
   await page.reload();
   await expect(page.getByText('Out of service', { exact: true }).first()).toBeVisible();
   await expect(page.getByRole('table', { name: /history/i })).toContainText('OUT OF ±4 %');
@@ -49,7 +56,9 @@ test('a lead sets up a spec, a wrench (one verification passes, one fails), a cu
   await page.getByLabel('Final torque').fill('12');
   await page.getByLabel('Maximum bead-seating pressure').fill('30');
   await page.getByLabel('Running pressure').fill('14');
-  await expect(page.getByRole('row', { name: /Pass 1 \(30 %\)/ })).toContainText('Blue click 20–200 in-lb set to 43 in-lb');
+  await expect(page.getByRole('row', { name: /Pass 1 \(30 %\)/ })).toContainText(
+    'Blue click 20–200 in-lb set to 43 in-lb',
+  );
   await page.getByRole('button', { name: 'Create spec' }).click();
   await expect(page.getByRole('heading', { name: 'Canyon 15 in, 24 bolts' })).toBeVisible();
 
@@ -71,17 +80,35 @@ test('a lead sets up a spec, a wrench (one verification passes, one fails), a cu
 
   // A four-wheel job assigned to the technician; the axle check speaks up first.
   await page.goto('/jobs/new');
-  await page.getByLabel('Customer', { exact: true }).selectOption({ label: 'Remy Calder · 555-0123' });
-  for (const p of ['Left front (LF)', 'Right front (RF)', 'Left rear (LR)', 'Right rear (RR)']) await page.getByLabel(p).check();
-  for (const [name, size] of [['Left front', '30x10R15'], ['Right front', '32x10R15'], ['Left rear', '30x10R15'], ['Right rear', '30x10R15']] as const) {
-    await page.getByRole('region', { name: `${name} wheel` }).getByLabel('Tire size').fill(size);
+  await page
+    .getByLabel('Customer', { exact: true })
+    .selectOption({ label: 'Remy Calder · 555-0123' });
+  for (const p of ['Left front (LF)', 'Right front (RF)', 'Left rear (LR)', 'Right rear (RR)'])
+    await page.getByLabel(p).check();
+  for (const [name, size] of [
+    ['Left front', '30x10R15'],
+    ['Right front', '32x10R15'],
+    ['Left rear', '30x10R15'],
+    ['Right rear', '30x10R15'],
+  ] as const) {
+    await page
+      .getByRole('region', { name: `${name} wheel` })
+      .getByLabel('Tire size')
+      .fill(size);
   }
-  await expect(page.getByRole('alert').filter({ hasText: 'Tire check' })).toContainText('Front axle: 30x10R15 and 32x10R15 differ');
-  await page.getByRole('region', { name: 'Right front wheel' }).getByLabel('Tire size').fill('30x10R15');
+  await expect(page.getByRole('alert').filter({ hasText: 'Tire check' })).toContainText(
+    'Front axle: 30x10R15 and 32x10R15 differ',
+  );
+  await page
+    .getByRole('region', { name: 'Right front wheel' })
+    .getByLabel('Tire size')
+    .fill('30x10R15');
   await expect(page.getByText('Tire check')).toHaveCount(0);
   await page.getByLabel('Assigned to').selectOption({ label: 'Sol Ring' });
   await page.getByRole('button', { name: 'Create job card' }).click();
-  await expect(page.getByRole('heading', { name: /Job #1001 · 2022 Talonworks Ridgeback 1000/ })).toBeVisible();
+  await expect(
+    page.getByRole('heading', { name: /Job #1001 · 2022 Talonworks Ridgeback 1000/ }),
+  ).toBeVisible();
   await expect(page.getByText('Assigned to Sol Ring')).toBeVisible();
 
   // The technician's board shows it (their default view is their own work).

@@ -5,9 +5,18 @@ import { inviteAndJoin, signUp, uniqueEmail } from './helpers';
 import { confirmBolts, startAllBolts } from './runner-helpers';
 
 /** A same-origin API call with the page's session, as the app itself would make it. */
-async function api<T>(page: Page, method: 'GET' | 'POST', path: string, body?: unknown): Promise<T> {
+async function api<T>(
+  page: Page,
+  method: 'GET' | 'POST',
+  path: string,
+  body?: unknown,
+): Promise<T> {
   const origin = new URL(page.url()).origin;
-  const res = await page.request.fetch(path, { method, data: body, headers: { origin, 'content-type': 'application/json' } });
+  const res = await page.request.fetch(path, {
+    method,
+    data: body,
+    headers: { origin, 'content-type': 'application/json' },
+  });
   expect(res.ok(), `${method} ${path}: ${await res.text()}`).toBe(true);
   return ((await res.json()) as { data: T }).data;
 }
@@ -45,10 +54,18 @@ async function runWheelFast(page: Page, jobId: string, wheelId: string) {
     return Array.from(new Uint8Array(await blob.arrayBuffer()));
   });
   const photo = { name: 'bead.jpg', mimeType: 'image/jpeg', buffer: Buffer.from(jpeg) };
-  await page.getByLabel('Take or choose a photo — Seated bead, outer face (required)').setInputFiles(photo);
-  await expect(page.getByRole('img', { name: 'Seated bead, outer face' })).toBeVisible({ timeout: 20_000 });
-  await page.getByLabel('Take or choose a photo — Seated bead, inner face (required)').setInputFiles(photo);
-  await expect(page.getByRole('img', { name: 'Seated bead, inner face' })).toBeVisible({ timeout: 20_000 });
+  await page
+    .getByLabel('Take or choose a photo — Seated bead, outer face (required)')
+    .setInputFiles(photo);
+  await expect(page.getByRole('img', { name: 'Seated bead, outer face' })).toBeVisible({
+    timeout: 20_000,
+  });
+  await page
+    .getByLabel('Take or choose a photo — Seated bead, inner face (required)')
+    .setInputFiles(photo);
+  await expect(page.getByRole('img', { name: 'Seated bead, inner face' })).toBeVisible({
+    timeout: 20_000,
+  });
   for (const box of await page.locator('main input[type=checkbox]').all()) await box.check();
   await page.getByLabel('Highest pressure used to seat the bead').fill('22');
   await page.getByRole('button', { name: 'Step done' }).click();
@@ -57,30 +74,76 @@ async function runWheelFast(page: Page, jobId: string, wheelId: string) {
   await page.getByLabel('Pressure set').fill('8');
   await page.getByRole('button', { name: 'Step done' }).click();
   await page.getByRole('button', { name: 'Submit the wheel' }).click();
-  await expect(page.getByRole('status').filter({ hasText: 'the job card went to sign-off' })).toBeVisible();
+  await expect(
+    page.getByRole('status').filter({ hasText: 'the job card went to sign-off' }),
+  ).toBeVisible();
 }
 
-test('a wheel run too fast: the lead sees it first on the review, sends the wheel back, the technician redoes the passes, the lead signs off with a reason; both e-mails arrive', async ({ page, browser }) => {
+test('a wheel run too fast: the lead sees it first on the review, sends the wheel back, the technician redoes the passes, the lead signs off with a reason; both e-mails arrive', async ({
+  page,
+  browser,
+}) => {
   test.setTimeout(240_000);
   const leadEmail = uniqueEmail('lead');
   await signUp(page, 'Quick Hands Rim Shop', 'Rae Lead', leadEmail);
   const techEmail = uniqueEmail('tech');
   const tech = await inviteAndJoin(page, browser, techEmail, 'Tam Tech', 'Technician');
-  const techId = (await api<{ id: string; name: string }[]>(page, 'GET', '/api/team/members')).find((m) => m.name === 'Tam Tech')!.id;
+  const techId = (await api<{ id: string; name: string }[]>(page, 'GET', '/api/team/members')).find(
+    (m) => m.name === 'Tam Tech',
+  )!.id;
 
   // A wrench verified near each working point (the shop's default: ±25 % of the setting), an 8-bolt spec, a one-wheel job for the technician.
   const calibrationDueOn = new Date(Date.now() + 200 * 86_400_000).toISOString().slice(0, 10);
-  const wrench = await api<{ id: string }>(page, 'POST', '/api/wrenches', { label: 'Blue click 20–200 in-lb', kind: 'click', min: 20, max: 200, unit: 'lbf-in', graduation: 1, calibrationDueOn });
-  for (const referenceValue of [43, 101, 144]) await api(page, 'POST', `/api/wrenches/${wrench.id}/verifications`, { referenceValue, readingValue: referenceValue, unit: 'lbf-in' });
-  const spec = await api<{ id: string }>(page, 'POST', '/api/specs', { name: '8-bolt test ring', boltCount: 8, boltThread: 'M8×1.25', finalTorque: 12, torqueUnit: 'lbf-ft', passPercents: [30, 70, 100], patternKind: 'cross', checkPass: true, maxBeadSeatPressure: 30, runningPressure: 14, pressureUnit: 'psi' });
-  const job = await api<{ id: string; number: number; wheels: { id: string }[] }>(page, 'POST', '/api/jobs', {
-    customer: { name: 'Ada Offroad', phone: '', email: '' },
-    vehicle: { make: 'Boreal', model: 'Scout', description: '' },
-    wheels: [{ position: 'LF', specId: spec.id, tireSize: '26x9-14', directional: false, targetPressure: 8, pressureUnit: 'psi' }],
-    dismount: false,
-    reinstall: false,
-    assigneeId: techId,
+  const wrench = await api<{ id: string }>(page, 'POST', '/api/wrenches', {
+    label: 'Blue click 20–200 in-lb',
+    kind: 'click',
+    min: 20,
+    max: 200,
+    unit: 'lbf-in',
+    graduation: 1,
+    calibrationDueOn,
   });
+  for (const referenceValue of [43, 101, 144])
+    await api(page, 'POST', `/api/wrenches/${wrench.id}/verifications`, {
+      referenceValue,
+      readingValue: referenceValue,
+      unit: 'lbf-in',
+    });
+  const spec = await api<{ id: string }>(page, 'POST', '/api/specs', {
+    name: '8-bolt test ring',
+    boltCount: 8,
+    boltThread: 'M8×1.25',
+    finalTorque: 12,
+    torqueUnit: 'lbf-ft',
+    passPercents: [30, 70, 100],
+    patternKind: 'cross',
+    checkPass: true,
+    maxBeadSeatPressure: 30,
+    runningPressure: 14,
+    pressureUnit: 'psi',
+  });
+  const job = await api<{ id: string; number: number; wheels: { id: string }[] }>(
+    page,
+    'POST',
+    '/api/jobs',
+    {
+      customer: { name: 'Ada Offroad', phone: '', email: '' },
+      vehicle: { make: 'Boreal', model: 'Scout', description: '' },
+      wheels: [
+        {
+          position: 'LF',
+          specId: spec.id,
+          tireSize: '26x9-14',
+          directional: false,
+          targetPressure: 8,
+          pressureUnit: 'psi',
+        },
+      ],
+      dismount: false,
+      reinstall: false,
+      assigneeId: techId,
+    },
+  );
   const wheelId = job.wheels[0]!.id;
 
   await runWheelFast(tech.page, job.id, wheelId);
@@ -93,41 +156,67 @@ test('a wheel run too fast: the lead sees it first on the review, sends the whee
   await page.goto('/board');
   const nav = page.getByRole('navigation', { name: 'Main' });
   await expect(nav.getByRole('link', { name: /^Sign-off/ })).toBeVisible();
-  await expect(nav.getByRole('link', { name: /^Sign-off/ })).toHaveAccessibleName(/^Sign-off ?\(1 waiting\)$/, { timeout: 10_000 });
+  await expect(nav.getByRole('link', { name: /^Sign-off/ })).toHaveAccessibleName(
+    /^Sign-off ?\(1 waiting\)$/,
+    { timeout: 10_000 },
+  );
   await nav.getByRole('link', { name: /^Sign-off/ }).click();
   await expect(page.getByRole('heading', { name: 'Sign-off' })).toBeVisible();
   await page.getByRole('link', { name: `Job ${job.number} · Ada Offroad` }).click();
   const first = page.getByRole('list', { name: 'Anomalies' }).getByRole('listitem').first();
   await expect(first).toContainText('Blocks sign-off');
-  await expect(first).toContainText(/LF wheel: pass 1 of 4 \(30 %, 3\.6 ft-lb\) was confirmed at a median of [\d.]+ s per bolt, faster than the shop's 1\.5 s/);
+  await expect(first).toContainText(
+    /LF wheel: pass 1 of 4 \(30 %, 3\.6 ft-lb\) was confirmed at a median of [\d.]+ s per bolt, faster than the shop's 1\.5 s/,
+  );
 
   const sendBack = page.getByRole('form', { name: 'Send back' });
   await sendBack.getByLabel('Send back the LF wheel').check();
-  await sendBack.getByLabel('What to redo on the LF wheel').fill('Redo every pass: pull each bolt to the click.');
+  await sendBack
+    .getByLabel('What to redo on the LF wheel')
+    .fill('Redo every pass: pull each bolt to the click.');
   await sendBack.getByLabel('Torque passes').check();
   await sendBack.getByRole('button', { name: 'Send back' }).click();
-  await expect(page.getByRole('status').filter({ hasText: 'Sent back by Rae Lead' })).toContainText('LF: Redo every pass: pull each bolt to the click.');
+  await expect(page.getByRole('status').filter({ hasText: 'Sent back by Rae Lead' })).toContainText(
+    'LF: Redo every pass: pull each bolt to the click.',
+  );
   const back = await waitForMail(E2E.sink.dir, techEmail);
   expect(back.subject).toBe(`Job ${job.number} was sent back: LF`);
-  expect(back.text).toContain('LF wheel: Redo every pass: pull each bolt to the click. (redo: torque)');
+  expect(back.text).toContain(
+    'LF wheel: Redo every pass: pull each bolt to the click. (redo: torque)',
+  );
 
   // The technician: the note on top, only the passes to redo, then submit again.
   const t = tech.page;
   await t.goto(`/jobs/${job.id}/wheels/${wheelId}/run`);
-  await expect(t.getByRole('alert', { name: 'Sent back by the lead' })).toContainText('Redo every pass: pull each bolt to the click.');
+  await expect(t.getByRole('alert', { name: 'Sent back by the lead' })).toContainText(
+    'Redo every pass: pull each bolt to the click.',
+  );
   await tapThroughPasses(t);
   await t.getByRole('button', { name: 'Submit the wheel' }).click();
-  await expect(t.getByRole('status').filter({ hasText: 'the job card went to sign-off' })).toBeVisible();
+  await expect(
+    t.getByRole('status').filter({ hasText: 'the job card went to sign-off' }),
+  ).toBeVisible();
 
   // Still too fast: the lead may accept it only with a reason, which the record keeps.
   await page.goto(`/jobs/${job.id}/review`);
   const approve = page.getByRole('form', { name: 'Sign off' });
   await approve.getByRole('button', { name: 'Sign off' }).click();
-  await expect(page.getByRole('alert').filter({ hasText: 'Acknowledge every anomaly that blocks sign-off with a reason first.' })).toBeVisible();
-  for (const box of await approve.getByPlaceholder('Why this is acceptable (kept on the record)').all()) await box.fill('Watched the second run myself; every bolt clicked.');
+  await expect(
+    page
+      .getByRole('alert')
+      .filter({ hasText: 'Acknowledge every anomaly that blocks sign-off with a reason first.' }),
+  ).toBeVisible();
+  for (const box of await approve
+    .getByPlaceholder('Why this is acceptable (kept on the record)')
+    .all())
+    await box.fill('Watched the second run myself; every bolt clicked.');
   await approve.getByRole('button', { name: 'Sign off' }).click();
-  await expect(page.getByRole('status').filter({ hasText: 'Signed off by Rae Lead' })).toContainText('Reason: Watched the second run myself; every bolt clicked.');
-  await expect(page.getByRole('region', { name: 'Acknowledged at sign-off' })).toContainText('Reason: Watched the second run myself; every bolt clicked. — Rae Lead');
+  await expect(
+    page.getByRole('status').filter({ hasText: 'Signed off by Rae Lead' }),
+  ).toContainText('Reason: Watched the second run myself; every bolt clicked.');
+  await expect(page.getByRole('region', { name: 'Acknowledged at sign-off' })).toContainText(
+    'Reason: Watched the second run myself; every bolt clicked. — Rae Lead',
+  );
   await page.goto(`/jobs/${job.id}`);
   await expect(page.getByText('Signed off').first()).toBeVisible();
   await expect(page.getByText(/Acknowledged: LF wheel: pass 1 of 4/).first()).toBeVisible();

@@ -17,10 +17,17 @@ const bounce = DOUBLE_TAP_MS + 50;
  */
 export async function confirmBolts(page: Page, bolts = Infinity) {
   const set = page.getByRole('button', { name: 'Wrench set' });
-  const confirm = page.getByRole('button', { name: /^(Clicked|Reached) — bolt \d+$|^Didn't turn$/ });
+  const confirm = page.getByRole('button', {
+    name: /^(Clicked|Reached) — bolt \d+$|^Didn't turn$/,
+  });
   let n = 0;
   while (n < bolts) {
-    await expect(set.or(confirm).or(page.getByRole('button', { name: 'Torque passes done' })).first()).toBeVisible();
+    await expect(
+      set
+        .or(confirm)
+        .or(page.getByRole('button', { name: 'Torque passes done' }))
+        .first(),
+    ).toBeVisible();
     if (await set.count()) {
       await set.click();
       continue;

@@ -6,38 +6,87 @@ import { expectNoSideScroll, PASSWORD, signUp, uniqueEmail } from './helpers';
 import { confirmBolts, startAllBolts } from './runner-helpers';
 
 /** A same-origin API call with the page's session, as the app itself would make it. */
-async function api<T>(page: Page, method: 'GET' | 'POST', path: string, body?: unknown): Promise<T> {
+async function api<T>(
+  page: Page,
+  method: 'GET' | 'POST',
+  path: string,
+  body?: unknown,
+): Promise<T> {
   const origin = new URL(page.url()).origin;
-  const res = await page.request.fetch(path, { method, data: body, headers: { origin, 'content-type': 'application/json' } });
+  const res = await page.request.fetch(path, {
+    method,
+    data: body,
+    headers: { origin, 'content-type': 'application/json' },
+  });
   expect(res.ok(), `${method} ${path}: ${await res.text()}`).toBe(true);
   return ((await res.json()) as { data: T }).data;
 }
 
-
-const BLUE = { label: 'Blue click 20–200 in-lb', kind: 'click', min: 20, max: 200, unit: 'lbf-in', graduation: 1 };
+const BLUE = {
+  label: 'Blue click 20–200 in-lb',
+  kind: 'click',
+  min: 20,
+  max: 200,
+  unit: 'lbf-in',
+  graduation: 1,
+};
 
 /**
  * A shop with a wrench (verified today unless `unverified`), an 8-bolt spec and a one-wheel job
  * assigned to its lead. A verification counts only near the setting it is used at (the shop's
  * default: ±25 %), so the wrench is checked at each working point: 43, 101 and 144 in-lb.
  */
-async function setUpWheel(page: Page, { wrenches = [BLUE], unverified = false }: { wrenches?: (typeof BLUE)[]; unverified?: boolean } = {}) {
+async function setUpWheel(
+  page: Page,
+  {
+    wrenches = [BLUE],
+    unverified = false,
+  }: { wrenches?: (typeof BLUE)[]; unverified?: boolean } = {},
+) {
   const email = uniqueEmail('runner');
   await signUp(page, 'Offline Rim Shop', 'Lou Bead', email);
   const me = (await api<{ id: string }[]>(page, 'GET', '/api/team/members'))[0]!;
   const calibrationDueOn = new Date(Date.now() + 200 * 86_400_000).toISOString().slice(0, 10);
   for (const body of wrenches) {
-    const wrench = await api<{ id: string }>(page, 'POST', '/api/wrenches', { ...body, calibrationDueOn });
+    const wrench = await api<{ id: string }>(page, 'POST', '/api/wrenches', {
+      ...body,
+      calibrationDueOn,
+    });
     if (unverified) continue;
     for (const referenceValue of [43, 101, 144]) {
-      await api(page, 'POST', `/api/wrenches/${wrench.id}/verifications`, { referenceValue, readingValue: referenceValue, unit: 'lbf-in' });
+      await api(page, 'POST', `/api/wrenches/${wrench.id}/verifications`, {
+        referenceValue,
+        readingValue: referenceValue,
+        unit: 'lbf-in',
+      });
     }
   }
-  const spec = await api<{ id: string }>(page, 'POST', '/api/specs', { name: '8-bolt test ring', boltCount: 8, boltThread: 'M8×1.25', finalTorque: 12, torqueUnit: 'lbf-ft', passPercents: [30, 70, 100], patternKind: 'cross', checkPass: true, maxBeadSeatPressure: 30, runningPressure: 14, pressureUnit: 'psi' });
+  const spec = await api<{ id: string }>(page, 'POST', '/api/specs', {
+    name: '8-bolt test ring',
+    boltCount: 8,
+    boltThread: 'M8×1.25',
+    finalTorque: 12,
+    torqueUnit: 'lbf-ft',
+    passPercents: [30, 70, 100],
+    patternKind: 'cross',
+    checkPass: true,
+    maxBeadSeatPressure: 30,
+    runningPressure: 14,
+    pressureUnit: 'psi',
+  });
   const job = await api<{ id: string; wheels: { id: string }[] }>(page, 'POST', '/api/jobs', {
     customer: { name: 'Ada Offroad', phone: '', email: '' },
     vehicle: { make: 'Boreal', model: 'Scout', description: '' },
-    wheels: [{ position: 'LF', specId: spec.id, tireSize: '26x9-14', directional: true, targetPressure: 8, pressureUnit: 'psi' }],
+    wheels: [
+      {
+        position: 'LF',
+        specId: spec.id,
+        tireSize: '26x9-14',
+        directional: true,
+        targetPressure: 8,
+        pressureUnit: 'psi',
+      },
+    ],
     dismount: false,
     reinstall: false,
     assigneeId: me.id,
@@ -46,14 +95,19 @@ async function setUpWheel(page: Page, { wrenches = [BLUE], unverified = false }:
   return { job, wheelId: job.wheels[0]!.id, email };
 }
 
-test('at 360×640 a wheel runs through its steps; offline, 10 bolts are confirmed, the page reloads offline, and back online exactly those 10 are stored, in order', async ({ page, context }, testInfo) => {
+test('at 360×640 a wheel runs through its steps; offline, 10 bolts are confirmed, the page reloads offline, and back online exactly those 10 are stored, in order', async ({
+  page,
+  context,
+}, testInfo) => {
   test.setTimeout(120_000);
   const { job, wheelId } = await setUpWheel(page);
 
   await page.goto(`/jobs/${job.id}`);
   await page.getByRole('link', { name: 'Run this wheel' }).click();
   await expect(page.getByRole('heading', { name: /Safety gate/ })).toBeVisible();
-  await expect(page.getByRole('complementary', { name: 'Caution' })).toContainText('valve core out');
+  await expect(page.getByRole('complementary', { name: 'Caution' })).toContainText(
+    'valve core out',
+  );
 
   const tickAndDone = async () => {
     for (const box of await page.locator('main input[type=checkbox]').all()) await box.check();
@@ -66,7 +120,9 @@ test('at 360×640 a wheel runs through its steps; offline, 10 bolts are confirme
   await page.getByRole('button', { name: 'Skip the step' }).click();
   await expect(page.getByRole('heading', { name: /Inspect rim, ring and bolts/ })).toBeVisible();
   await tickAndDone(); // inspect
-  await expect(page.getByText('Left side: standing outside the wheel, the arrow turns counterclockwise')).toBeVisible();
+  await expect(
+    page.getByText('Left side: standing outside the wheel, the arrow turns counterclockwise'),
+  ).toBeVisible();
   await tickAndDone(); // mount
   await tickAndDone(); // index
   await expect(page.getByRole('heading', { name: /Start every bolt by hand/ })).toBeVisible();
@@ -74,7 +130,9 @@ test('at 360×640 a wheel runs through its steps; offline, 10 bolts are confirme
 
   await expect(page.getByText('Set Blue click 20–200 in-lb to 43 in-lb')).toBeVisible();
   await expect(page.getByRole('status').filter({ hasText: 'Saved' })).toBeVisible();
-  await page.waitForFunction(async () => Boolean((await navigator.serviceWorker.getRegistration())?.active));
+  await page.waitForFunction(async () =>
+    Boolean((await navigator.serviceWorker.getRegistration())?.active),
+  );
   await page.waitForTimeout(500); // let the worker store the page it was sent
   await expectNoSideScroll(page);
   await testInfo.attach('a pass', { body: await page.screenshot(), contentType: 'image/png' });
@@ -85,14 +143,20 @@ test('at 360×640 a wheel runs through its steps; offline, 10 bolts are confirme
   await expectNoSideScroll(page);
   const ring = page.getByRole('group', { name: /^Bolt circle, pass 1/ });
   const header = (await page.getByRole('banner').boundingBox())!;
-  await page.evaluate((by) => window.scrollBy(0, by), (await ring.boundingBox())!.y - (header.y + header.height));
+  await page.evaluate(
+    (by) => window.scrollBy(0, by),
+    (await ring.boundingBox())!.y - (header.y + header.height),
+  );
   const below = header.y + header.height;
   for (const part of [ring, page.getByRole('button', { name: /^Clicked — bolt \d+$/ })]) {
     const box = (await part.boundingBox())!;
     expect(box.y, 'not under the header').toBeGreaterThanOrEqual(below - 1);
     expect(box.y + box.height, 'on the screen').toBeLessThanOrEqual(360);
   }
-  await testInfo.attach('a pass, landscape', { body: await page.screenshot(), contentType: 'image/png' });
+  await testInfo.attach('a pass, landscape', {
+    body: await page.screenshot(),
+    contentType: 'image/png',
+  });
   await page.setViewportSize({ width: 360, height: 640 });
 
   await context.setOffline(true);
@@ -105,9 +169,15 @@ test('at 360×640 a wheel runs through its steps; offline, 10 bolts are confirme
   await expect(page.getByRole('status').filter({ hasText: '10 waiting' })).toBeVisible();
 
   await context.setOffline(false);
-  await expect(page.getByRole('status').filter({ hasText: 'Saved' })).toBeVisible({ timeout: 15_000 });
-  const { events } = await api<{ events: { type: string; payload: { pass?: number; bolt?: number } }[] }>(page, 'GET', `/api/wheels/${wheelId}/events`);
-  const bolts = events.filter((e) => e.type === 'bolt_confirmed').map((e) => `${e.payload.pass}:${e.payload.bolt}`);
+  await expect(page.getByRole('status').filter({ hasText: 'Saved' })).toBeVisible({
+    timeout: 15_000,
+  });
+  const { events } = await api<{
+    events: { type: string; payload: { pass?: number; bolt?: number } }[];
+  }>(page, 'GET', `/api/wheels/${wheelId}/events`);
+  const bolts = events
+    .filter((e) => e.type === 'bolt_confirmed')
+    .map((e) => `${e.payload.pass}:${e.payload.bolt}`);
   expect(bolts).toEqual(['1:1', '1:5', '1:3', '1:7', '1:2', '1:6', '1:4', '1:8', '2:1', '2:5']);
 
   // Finish the wheel: the rest of pass 2, pass 3, the check pass.
@@ -116,7 +186,9 @@ test('at 360×640 a wheel runs through its steps; offline, 10 bolts are confirme
 
   // Seat the bead: cautions, the pressure limit, two photos through the local upload fake.
   await expect(page.getByRole('heading', { name: /Seat the bead/ })).toBeVisible();
-  await expect(page.getByRole('complementary', { name: 'Caution' })).toContainText('maximum bead-seating pressure');
+  await expect(page.getByRole('complementary', { name: 'Caution' })).toContainText(
+    'maximum bead-seating pressure',
+  );
   const jpeg = await page.evaluate(async () => {
     const c = document.createElement('canvas');
     c.width = 2400;
@@ -132,19 +204,40 @@ test('at 360×640 a wheel runs through its steps; offline, 10 bolts are confirme
     return Array.from(new Uint8Array(await blob.arrayBuffer()));
   });
   const photo = { name: 'bead.jpg', mimeType: 'image/jpeg', buffer: Buffer.from(jpeg) };
-  await page.getByLabel('Take or choose a photo — Seated bead, outer face (required)').setInputFiles(photo);
-  await expect(page.getByRole('img', { name: 'Seated bead, outer face' })).toBeVisible({ timeout: 20_000 });
-  await page.getByLabel('Take or choose a photo — Seated bead, inner face (required)').setInputFiles(photo);
-  await expect(page.getByRole('img', { name: 'Seated bead, inner face' })).toBeVisible({ timeout: 20_000 });
+  await page
+    .getByLabel('Take or choose a photo — Seated bead, outer face (required)')
+    .setInputFiles(photo);
+  await expect(page.getByRole('img', { name: 'Seated bead, outer face' })).toBeVisible({
+    timeout: 20_000,
+  });
+  await page
+    .getByLabel('Take or choose a photo — Seated bead, inner face (required)')
+    .setInputFiles(photo);
+  await expect(page.getByRole('img', { name: 'Seated bead, inner face' })).toBeVisible({
+    timeout: 20_000,
+  });
   // A text file named like a photo is refused by its bytes.
-  await page.getByLabel('Take or choose a photo — Other photo', { exact: true }).setInputFiles({ name: 'notes.jpg', mimeType: 'image/jpeg', buffer: Buffer.from('not a photo at all') });
-  await expect(page.getByRole('alert').filter({ hasText: 'not a JPEG, PNG or WebP photo' })).toBeVisible({ timeout: 20_000 });
+  await page.getByLabel('Take or choose a photo — Other photo', { exact: true }).setInputFiles({
+    name: 'notes.jpg',
+    mimeType: 'image/jpeg',
+    buffer: Buffer.from('not a photo at all'),
+  });
+  await expect(
+    page.getByRole('alert').filter({ hasText: 'not a JPEG, PNG or WebP photo' }),
+  ).toBeVisible({ timeout: 20_000 });
   await expectNoSideScroll(page);
-  await testInfo.attach('bead photos', { body: await page.screenshot({ fullPage: true }), contentType: 'image/png' });
+  await testInfo.attach('bead photos', {
+    body: await page.screenshot({ fullPage: true }),
+    contentType: 'image/png',
+  });
 
   for (const box of await page.locator('main input[type=checkbox]').all()) await box.check();
   await page.getByLabel('Highest pressure used to seat the bead').fill('45');
-  await expect(page.getByRole('alert').filter({ hasText: "Above the tire's maximum bead-seating pressure (30 psi)" })).toBeVisible();
+  await expect(
+    page
+      .getByRole('alert')
+      .filter({ hasText: "Above the tire's maximum bead-seating pressure (30 psi)" }),
+  ).toBeVisible();
   await expect(page.getByRole('button', { name: 'Step done' })).toBeDisabled();
   await page.getByLabel('Highest pressure used to seat the bead').fill('22');
   await page.getByRole('button', { name: 'Step done' }).click();
@@ -156,22 +249,34 @@ test('at 360×640 a wheel runs through its steps; offline, 10 bolts are confirme
 
   await expect(page.getByRole('heading', { name: /Submit the wheel/ })).toBeVisible();
   await expect(page.getByText('None: every bolt in sequence.')).toBeVisible();
-  await expect(page.getByText(/Clean and deburr: skipped \(New wheel, clean from the box\)/)).toBeVisible();
+  await expect(
+    page.getByText(/Clean and deburr: skipped \(New wheel, clean from the box\)/),
+  ).toBeVisible();
   await expectNoSideScroll(page);
-  await testInfo.attach('summary', { body: await page.screenshot({ fullPage: true }), contentType: 'image/png' });
+  await testInfo.attach('summary', {
+    body: await page.screenshot({ fullPage: true }),
+    contentType: 'image/png',
+  });
   await page.getByRole('button', { name: 'Submit the wheel' }).click();
-  await expect(page.getByRole('status').filter({ hasText: 'the job card went to sign-off' })).toBeVisible();
+  await expect(
+    page.getByRole('status').filter({ hasText: 'the job card went to sign-off' }),
+  ).toBeVisible();
   await page.goto(`/jobs/${job.id}`);
   await expect(page.getByText('Awaiting sign-off').first()).toBeVisible();
   await expect(page.getByRole('img', { name: 'Seated bead, outer face' })).toBeVisible();
 });
 
-test('a confirmation queued before a deploy is delivered to the new build', async ({ page, context }) => {
+test('a confirmation queued before a deploy is delivered to the new build', async ({
+  page,
+  context,
+}) => {
   test.setTimeout(180_000);
   const { job, wheelId } = await setUpWheel(page);
   await page.goto(`/jobs/${job.id}/wheels/${wheelId}/run`);
   await expect(page.getByRole('heading', { name: /Safety gate/ })).toBeVisible();
-  await page.waitForFunction(async () => Boolean((await navigator.serviceWorker.getRegistration())?.active));
+  await page.waitForFunction(async () =>
+    Boolean((await navigator.serviceWorker.getRegistration())?.active),
+  );
   const buildBefore = readFileSync(`${E2E.distDir}/BUILD_ID`, 'utf8');
   const actionBefore = serverActionId(E2E.distDir, 'saveWheelEvents');
 
@@ -183,28 +288,37 @@ test('a confirmation queued before a deploy is delivered to the new build', asyn
   // Deploy: the server stops, a new build is made, the server starts again on it.
   process.kill(Number(readFileSync(E2E.servePidFile, 'utf8')), 'SIGUSR2');
   await expect
-    .poll(async () => {
-      try {
-        const buildNow = readFileSync(`${E2E.distDir}/BUILD_ID`, 'utf8');
-        const up = (await fetch(`${new URL(page.url()).origin}/sign-in`)).ok;
-        return up && buildNow !== buildBefore;
-      } catch {
-        return false;
-      }
-    }, { timeout: 150_000, intervals: [1000] })
+    .poll(
+      async () => {
+        try {
+          const buildNow = readFileSync(`${E2E.distDir}/BUILD_ID`, 'utf8');
+          const up = (await fetch(`${new URL(page.url()).origin}/sign-in`)).ok;
+          return up && buildNow !== buildBefore;
+        } catch {
+          return false;
+        }
+      },
+      { timeout: 150_000, intervals: [1000] },
+    )
     .toBe(true);
   // The trap itself: the page still holds the old build's action id, which the new build lacks.
   expect(serverActionId(E2E.distDir, 'saveWheelEvents')).not.toBe(actionBefore);
 
   await context.setOffline(false);
-  await expect(page.getByRole('status').filter({ hasText: 'Saved' })).toBeVisible({ timeout: 20_000 });
-  const { events } = (await (await page.request.get(`/api/wheels/${wheelId}/events`)).json()).data as { events: { type: string; payload: { step?: string } }[] };
+  await expect(page.getByRole('status').filter({ hasText: 'Saved' })).toBeVisible({
+    timeout: 20_000,
+  });
+  const { events } = (await (await page.request.get(`/api/wheels/${wheelId}/events`)).json())
+    .data as { events: { type: string; payload: { step?: string } }[] };
   expect(events.map((e) => `${e.type}:${e.payload.step}`)).toEqual(['step_done:safety']);
   await page.reload();
   await expect(page.getByRole('heading', { name: /Clean and deburr/ })).toBeVisible();
 });
 
-test('a session that ends mid-wheel keeps the confirmation; signing in again comes back to the runner and sends it', async ({ page, context }) => {
+test('a session that ends mid-wheel keeps the confirmation; signing in again comes back to the runner and sends it', async ({
+  page,
+  context,
+}) => {
   const { job, wheelId, email } = await setUpWheel(page);
   await page.goto(`/jobs/${job.id}/wheels/${wheelId}/run`);
   await expect(page.getByRole('heading', { name: /Safety gate/ })).toBeVisible();
@@ -212,22 +326,31 @@ test('a session that ends mid-wheel keeps the confirmation; signing in again com
   await context.clearCookies(); // the session ends (expired, or a lead changed the role)
   for (const box of await page.locator('main input[type=checkbox]').all()) await box.check();
   await page.getByRole('button', { name: 'Step done' }).click();
-  await expect(page.getByRole('alert').filter({ hasText: 'Your session has ended. Everything waiting stays on this phone.' })).toBeVisible();
+  await expect(
+    page
+      .getByRole('alert')
+      .filter({ hasText: 'Your session has ended. Everything waiting stays on this phone.' }),
+  ).toBeVisible();
   await expect(page.getByRole('status').filter({ hasText: '1 waiting' })).toBeVisible();
 
   await page.getByRole('link', { name: 'Sign in again' }).click();
-  await expect(page.getByText('Sign in to go back to where you were. Nothing waiting on this device is lost.')).toBeVisible();
+  await expect(
+    page.getByText('Sign in to go back to where you were. Nothing waiting on this device is lost.'),
+  ).toBeVisible();
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill(PASSWORD);
   await page.getByRole('button', { name: 'Sign in' }).click();
   await expect(page).toHaveURL(new RegExp(`/jobs/${job.id}/wheels/${wheelId}/run$`));
   await expect(page.getByRole('status').filter({ hasText: 'Saved' })).toBeVisible();
   await expect(page.getByRole('heading', { name: /Clean and deburr/ })).toBeVisible();
-  const { events } = (await (await page.request.get(`/api/wheels/${wheelId}/events`)).json()).data as { events: { type: string; payload: { step?: string } }[] };
+  const { events } = (await (await page.request.get(`/api/wheels/${wheelId}/events`)).json())
+    .data as { events: { type: string; payload: { step?: string } }[] };
   expect(events.map((e) => `${e.type}:${e.payload.step}`)).toEqual(['step_done:safety']);
 });
 
-test('a save that fails in flight (Wi-Fi up, no route to the server) waits and goes on the retry', async ({ page }) => {
+test('a save that fails in flight (Wi-Fi up, no route to the server) waits and goes on the retry', async ({
+  page,
+}) => {
   const { job, wheelId } = await setUpWheel(page);
   const runner = `/jobs/${job.id}/wheels/${wheelId}/run`;
   await page.goto(runner);
@@ -235,19 +358,26 @@ test('a save that fails in flight (Wi-Fi up, no route to the server) waits and g
 
   // The phone still believes it is online; every save to the server fails at the network.
   const saves = (url: URL) => url.pathname === runner;
-  await page.route(saves, (route) => (route.request().method() === 'POST' ? route.abort('internetdisconnected') : route.continue()));
+  await page.route(saves, (route) =>
+    route.request().method() === 'POST' ? route.abort('internetdisconnected') : route.continue(),
+  );
   for (const box of await page.locator('main input[type=checkbox]').all()) await box.check();
   await page.getByRole('button', { name: 'Step done' }).click();
   await expect(page.getByRole('status').filter({ hasText: /^1 waiting$/ })).toBeVisible();
   await expect(page.getByRole('heading', { name: /Clean and deburr/ })).toBeVisible(); // applied at once all the same
 
   await page.unroute(saves);
-  await expect(page.getByRole('status').filter({ hasText: 'Saved' })).toBeVisible({ timeout: 15_000 });
-  const { events } = (await (await page.request.get(`/api/wheels/${wheelId}/events`)).json()).data as { events: { type: string; payload: { step?: string } }[] };
+  await expect(page.getByRole('status').filter({ hasText: 'Saved' })).toBeVisible({
+    timeout: 15_000,
+  });
+  const { events } = (await (await page.request.get(`/api/wheels/${wheelId}/events`)).json())
+    .data as { events: { type: string; payload: { step?: string } }[] };
   expect(events.map((e) => `${e.type}:${e.payload.step}`)).toEqual(['step_done:safety']);
 });
 
-test('a wrench not verified today is checked on the spot: out of tolerance takes it out, the next suitable one is offered', async ({ page }) => {
+test('a wrench not verified today is checked on the spot: out of tolerance takes it out, the next suitable one is offered', async ({
+  page,
+}) => {
   const RED = { ...BLUE, label: 'Red click 10–150 in-lb', min: 10, max: 150 };
   const { job, wheelId } = await setUpWheel(page, { wrenches: [BLUE, RED], unverified: true });
   await page.goto(`/jobs/${job.id}/wheels/${wheelId}/run`);
@@ -261,17 +391,23 @@ test('a wrench not verified today is checked on the spot: out of tolerance takes
 
   // 43 in-lb sits higher on the red wrench's scale, so the engine suggests it; it has no check today.
   const check = page.getByRole('region', { name: 'Verify the wrench' });
-  await expect(check).toContainText('Check Red click 10–150 in-lb on the tester before this pass. No passing verification today.');
+  await expect(check).toContainText(
+    'Check Red click 10–150 in-lb on the tester before this pass. No passing verification today.',
+  );
   await expect(page.getByRole('button', { name: /^Clicked/ })).toHaveCount(0);
   // The reference proposed is the pass's own setting.
   await expect(check.getByLabel('Reference (in-lb)')).toHaveValue('43');
   await check.getByLabel('Reference (in-lb)').fill('100');
   await check.getByLabel('Reading (in-lb)').fill('93');
   await check.getByRole('button', { name: 'Record verification' }).click();
-  await expect(page.getByRole('alert').filter({ hasText: 'Out of tolerance (-7.0 %, allowed ±4 %)' })).toBeVisible();
+  await expect(
+    page.getByRole('alert').filter({ hasText: 'Out of tolerance (-7.0 %, allowed ±4 %)' }),
+  ).toBeVisible();
 
   // The red wrench is out; the blue one is next, and it too is checked before its first pass.
-  await expect(check).toContainText('Check Blue click 20–200 in-lb on the tester before this pass.');
+  await expect(check).toContainText(
+    'Check Blue click 20–200 in-lb on the tester before this pass.',
+  );
   await check.getByLabel('Reference (in-lb)').fill('43');
   await check.getByLabel('Reading (in-lb)').fill('44');
   await check.getByRole('button', { name: 'Record verification' }).click();
@@ -281,5 +417,7 @@ test('a wrench not verified today is checked on the spot: out of tolerance takes
   await expect(page.getByRole('button', { name: 'Clicked — bolt 1' })).toBeVisible();
 
   await page.goto('/tool-crib');
-  await expect(page.getByRole('row', { name: /Red click 10–150 in-lb/ })).toContainText(/out of service/i);
+  await expect(page.getByRole('row', { name: /Red click 10–150 in-lb/ })).toContainText(
+    /out of service/i,
+  );
 });

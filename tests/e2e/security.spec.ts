@@ -10,7 +10,9 @@ function cspViolations(page: Page) {
   return seen;
 }
 
-test('pages carry a per-response CSP nonce on every script, refuse framing and sniffing; the app runs under it', async ({ page }) => {
+test('pages carry a per-response CSP nonce on every script, refuse framing and sniffing; the app runs under it', async ({
+  page,
+}) => {
   const violations = cspViolations(page);
   const first = await page.request.get('/sign-in');
   const second = await page.request.get('/sign-in');
@@ -44,7 +46,11 @@ test('a server action with a body over 256 kB is refused before it runs', async 
   await page.route('**/sign-in**', async (route) => {
     const request = route.request();
     if (request.method() === 'POST' && request.headers()['next-action']) {
-      captured = { url: request.url(), headers: request.headers(), body: request.postDataBuffer() ?? Buffer.alloc(0) };
+      captured = {
+        url: request.url(),
+        headers: request.headers(),
+        body: request.postDataBuffer() ?? Buffer.alloc(0),
+      };
     }
     await route.continue();
   });
@@ -56,10 +62,20 @@ test('a server action with a body over 256 kB is refused before it runs', async 
   expect(boundary, 'a multipart action body').toBeTruthy();
 
   const padded = (bytes: number) =>
-    Buffer.concat([Buffer.from(`--${boundary}\r\nContent-Disposition: form-data; name="padding"\r\n\r\n${'x'.repeat(bytes)}\r\n`), body]);
+    Buffer.concat([
+      Buffer.from(
+        `--${boundary}\r\nContent-Disposition: form-data; name="padding"\r\n\r\n${'x'.repeat(bytes)}\r\n`,
+      ),
+      body,
+    ]);
   const send = (bytes: number) =>
     page.request.post(url, {
-      headers: { 'next-action': headers['next-action']!, 'content-type': headers['content-type']!, origin: new URL(url).origin, accept: 'text/x-component' },
+      headers: {
+        'next-action': headers['next-action']!,
+        'content-type': headers['content-type']!,
+        origin: new URL(url).origin,
+        accept: 'text/x-component',
+      },
       data: padded(bytes),
       maxRedirects: 0,
     });
@@ -70,7 +86,10 @@ test('a server action with a body over 256 kB is refused before it runs', async 
   expect(large.status()).toBeGreaterThanOrEqual(400);
 });
 
-test('the Mailbox: signed out goes to sign-in; a technician is refused; a lead sees only their own shop’s mail, under a demo banner', async ({ page, browser }) => {
+test('the Mailbox: signed out goes to sign-in; a technician is refused; a lead sees only their own shop’s mail, under a demo banner', async ({
+  page,
+  browser,
+}) => {
   const signedOut = await browser.newContext();
   const anonymous = await signedOut.newPage();
   await anonymous.goto('/mailbox');
@@ -85,13 +104,17 @@ test('the Mailbox: signed out goes to sign-in; a technician is refused; a lead s
   const refused = await tech.page.goto('/mailbox');
   expect(refused?.status()).toBe(403);
   await expect(tech.page.getByRole('heading', { name: 'Not for your role' })).toBeVisible();
-  await expect(tech.page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Mailbox' })).toHaveCount(0);
+  await expect(
+    tech.page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Mailbox' }),
+  ).toHaveCount(0);
   await tech.context.close();
 
   // The e2e server is a production build with MAILBOX_DEMO=true: the page says it is a demo.
   await page.goto('/mailbox');
   await expect(page.getByText(/Demo server: this Mailbox is switched on/)).toBeVisible();
-  await expect(page.getByRole('article', { name: new RegExp(`to ${invitedToA.replace(/[.+]/g, '\\$&')}`) })).toBeVisible();
+  await expect(
+    page.getByRole('article', { name: new RegExp(`to ${invitedToA.replace(/[.+]/g, '\\$&')}`) }),
+  ).toBeVisible();
 
   const otherShop = await browser.newContext();
   const leadB = await otherShop.newPage();

@@ -36,14 +36,21 @@ async function main() {
   };
   const next = path.join(ROOT, 'node_modules', '.bin', 'next');
   const build = () => {
-    if (spawnSync(next, ['build'], { cwd: ROOT, env, stdio: 'inherit' }).status !== 0) throw new Error('next build failed');
+    if (spawnSync(next, ['build'], { cwd: ROOT, env, stdio: 'inherit' }).status !== 0)
+      throw new Error('next build failed');
   };
-  const start = () => spawn(next, ['start', '-H', '127.0.0.1', '-p', String(E2E.appPort)], { cwd: ROOT, env, stdio: 'inherit' });
+  const start = () =>
+    spawn(next, ['start', '-H', '127.0.0.1', '-p', String(E2E.appPort)], {
+      cwd: ROOT,
+      env,
+      stdio: 'inherit',
+    });
   build();
   let server = start();
   let redeploying = false;
   const onExit = (code: number | null) => {
-    if (!redeploying) void Promise.all([sink.close(), uploads.close()]).finally(() => process.exit(code ?? 0));
+    if (!redeploying)
+      void Promise.all([sink.close(), uploads.close()]).finally(() => process.exit(code ?? 0));
   };
   server.on('exit', onExit);
   process.on('SIGTERM', () => server.kill('SIGTERM'));

@@ -13,9 +13,13 @@ async function setShopZone(page: Page, zone: string) {
 
 /** What a `<time>` on screen should read for its instant in the zone (the app's format: en-US, medium date, short time). */
 const shopText = (iso: string, timeZone: string) =>
-  new Intl.DateTimeFormat('en-US', { timeZone, dateStyle: 'medium', timeStyle: 'short' }).format(new Date(iso)).replace(/[\u202f\u00a0]/g, ' ');
+  new Intl.DateTimeFormat('en-US', { timeZone, dateStyle: 'medium', timeStyle: 'short' })
+    .format(new Date(iso))
+    .replace(/[\u202f\u00a0]/g, ' ');
 
-test("a lead changes the shop's time zone and the job card's times follow it; no UTC on screen", async ({ page }) => {
+test("a lead changes the shop's time zone and the job card's times follow it; no UTC on screen", async ({
+  page,
+}) => {
   test.setTimeout(120_000);
   // A time rendered on the server must read the same in the browser (React error 418 is a hydration mismatch).
   const mismatches: string[] = [];
@@ -42,7 +46,10 @@ test("a lead changes the shop's time zone and the job card's times follow it; no
   await page.getByLabel('Make').fill('Talonworks');
   await page.getByLabel('Model').fill('Ridgeback');
   await page.getByLabel('Left front (LF)').check();
-  await page.getByRole('region', { name: 'Left front wheel' }).getByLabel('Tire size').fill('30x10R15');
+  await page
+    .getByRole('region', { name: 'Left front wheel' })
+    .getByLabel('Tire size')
+    .fill('30x10R15');
   await expect(page.getByText('Shop time: America/Denver.')).toBeVisible();
   await page.getByLabel('Due').fill('2026-12-24T09:30');
   await page.getByRole('button', { name: 'Create job card' }).click();
@@ -53,14 +60,18 @@ test("a lead changes the shop's time zone and the job card's times follow it; no
 
   // The API keeps instants: 09:30 in Denver (MST, UTC−7) is 16:30 UTC.
   const api = await page.request.get('/api/jobs');
-  expect(((await api.json()) as { data: { dueAt: string }[] }).data[0]!.dueAt).toBe('2026-12-24T16:30:00.000Z');
+  expect(((await api.json()) as { data: { dueAt: string }[] }).data[0]!.dueAt).toBe(
+    '2026-12-24T16:30:00.000Z',
+  );
 
   await setShopZone(page, 'Europe/Berlin');
   await page.goto(jobUrl);
   await expect(page.getByText('due Dec 24, 2026, 5:30 PM')).toBeVisible(); // 16:30 UTC is 17:30 CET
   await expect(page.getByLabel('Due')).toHaveValue('2026-12-24T17:30');
   const created = page.getByRole('region', { name: 'History' }).locator('time').first();
-  await expect(created).toHaveText(shopText((await created.getAttribute('datetime'))!, 'Europe/Berlin'));
+  await expect(created).toHaveText(
+    shopText((await created.getAttribute('datetime'))!, 'Europe/Berlin'),
+  );
   await expect(page.locator('main')).not.toContainText('UTC');
 
   await page.goto('/board?assignee=all');

@@ -8,7 +8,9 @@ test('signed in, /sign-in?next=/.//evil.test/x stays on this site', async ({ pag
   expect(response.headers()['location']).toBe('/board');
 });
 
-test('a made-up X-Forwarded-For does not give a sign-in guesser a fresh address', async ({ page }) => {
+test('a made-up X-Forwarded-For does not give a sign-in guesser a fresh address', async ({
+  page,
+}) => {
   const lead = uniqueEmail('spoof');
   await signUp(page, 'Spoofproof Rims', 'Sol Proof', lead);
   await page.getByRole('button', { name: 'Sign out' }).click();
@@ -16,7 +18,9 @@ test('a made-up X-Forwarded-For does not give a sign-in guesser a fresh address'
   for (let i = 1; i <= 5; i++) {
     await page.setExtraHTTPHeaders({ 'x-forwarded-for': `203.0.113.${i}` });
     await signIn(page, lead, `not-it-${i}`);
-    await expect(page.getByRole('alert').filter({ hasText: /./ })).toHaveText('Wrong e-mail or password.');
+    await expect(page.getByRole('alert').filter({ hasText: /./ })).toHaveText(
+      'Wrong e-mail or password.',
+    );
   }
   // The server counts the socket's address (no proxy is trusted by default), so a sixth
   // "address" is the same one, and its limit holds even for the right password.

@@ -23,7 +23,9 @@ async function refusedInBar(page: Page) {
 
   // On save: the server refuses it too, and nothing is created.
   await page.getByRole('button', { name: 'Create spec' }).click();
-  await expect(page.getByRole('alert').filter({ hasText: 'nothing was saved' })).toContainText(REFUSED);
+  await expect(page.getByRole('alert').filter({ hasText: 'nothing was saved' })).toContainText(
+    REFUSED,
+  );
   await expect(page.getByRole('heading', { name: 'New wheel spec' })).toBeVisible();
   await expect(seat).toHaveAccessibleDescription(REFUSED);
 
@@ -33,15 +35,24 @@ async function refusedInBar(page: Page) {
   await page.getByRole('button', { name: 'Create spec' }).click();
   await expect(page.getByRole('heading', { name: 'Kestrel 16 in sport' })).toBeVisible();
   await page.goto('/specs');
-  await expect(page.getByRole('link', { name: /Kestrel 16 in sport/ })).not.toContainText('Flagged');
+  await expect(page.getByRole('link', { name: /Kestrel 16 in sport/ })).not.toContainText(
+    'Flagged',
+  );
 }
 
-test('a lead types a bead-seat limit in bar and sees it refused, naming psi, as they type and on save (desktop)', async ({ page }) => {
+test('a lead types a bead-seat limit in bar and sees it refused, naming psi, as they type and on save (desktop)', async ({
+  page,
+}) => {
   await refusedInBar(page);
 });
 
 test.describe('on a phone (360×640)', () => {
-  test.use({ viewport: { width: 360, height: 640 }, isMobile: true, hasTouch: true, deviceScaleFactor: 2.75 });
+  test.use({
+    viewport: { width: 360, height: 640 },
+    isMobile: true,
+    hasTouch: true,
+    deviceScaleFactor: 2.75,
+  });
 
   test('the same refusal, and the form fits the screen', async ({ page }) => {
     await refusedInBar(page);

@@ -13,7 +13,10 @@ import { awaitingSignoff } from './review-work';
  * Every server action of the app, found by reading the source tree (Vite's glob), not by a list
  * kept by hand: an action added without an entry in ACTION_CASES fails the access test.
  */
-const modules = import.meta.glob<Record<string, unknown>>(['/features/*/actions/*.ts', '/app/**/actions.ts']);
+const modules = import.meta.glob<Record<string, unknown>>([
+  '/features/*/actions/*.ts',
+  '/app/**/actions.ts',
+]);
 
 export type AnyAction = (prev: unknown, input: unknown) => Promise<unknown>;
 
@@ -39,13 +42,28 @@ export async function createWorld(): Promise<World> {
 async function freshTechnician(shop: Shop) {
   const [row] = await getDb()
     .insert(users)
-    .values({ shopId: shop.shopId, role: 'technician', name: 'Fern Fresh', email: `fresh-${randomUUID()}@shop.test`, passwordHash: 'x' })
+    .values({
+      shopId: shop.shopId,
+      role: 'technician',
+      name: 'Fern Fresh',
+      email: `fresh-${randomUUID()}@shop.test`,
+      passwordHash: 'x',
+    })
     .returning({ id: users.id });
   return row!.id;
 }
 
 async function freshJob(w: World) {
-  const { id } = await createJob(w.a.lead, { customerId: w.records.customer.id, vehicleId: w.records.vehicle.id, wheels: fourWheels(w.records.spec.id), dismount: true, reinstall: true, assigneeId: w.a.technician.userId, notes: '', acceptAxleMismatch: false });
+  const { id } = await createJob(w.a.lead, {
+    customerId: w.records.customer.id,
+    vehicleId: w.records.vehicle.id,
+    wheels: fourWheels(w.records.spec.id),
+    dismount: true,
+    reinstall: true,
+    assigneeId: w.a.technician.userId,
+    notes: '',
+    acceptAxleMismatch: false,
+  });
   return getJob(w.a.shopId, id);
 }
 
@@ -77,58 +95,183 @@ export type ActionCase = {
 
 export const ACTION_CASES: Record<string, ActionCase> = {
   // An unknown token: the answer is the same for anyone, signed in or not.
-  '/features/accounts/actions/accept-invite.ts#acceptTeamInvite': { permission: 'public', input: () => ({ token: 'x'.repeat(40), name: 'Nia New', password: 'a long enough password' }), otherShop: 'public', publicGets: 'invalid' },
-  '/features/accounts/actions/sign-in.ts#signIn': { permission: 'public', input: (w) => ({ email: w.a.technician.email, password: PASSWORD }), otherShop: 'public' },
-  '/features/accounts/actions/sign-up.ts#signUp': { permission: 'public', input: () => ({ shopName: 'New Shop', name: 'Nia New', email: `new-${randomUUID()}@shop.test`, password: 'a long enough password' }), otherShop: 'public' },
+  '/features/accounts/actions/accept-invite.ts#acceptTeamInvite': {
+    permission: 'public',
+    input: () => ({ token: 'x'.repeat(40), name: 'Nia New', password: 'a long enough password' }),
+    otherShop: 'public',
+    publicGets: 'invalid',
+  },
+  '/features/accounts/actions/sign-in.ts#signIn': {
+    permission: 'public',
+    input: (w) => ({ email: w.a.technician.email, password: PASSWORD }),
+    otherShop: 'public',
+  },
+  '/features/accounts/actions/sign-up.ts#signUp': {
+    permission: 'public',
+    input: () => ({
+      shopName: 'New Shop',
+      name: 'Nia New',
+      email: `new-${randomUUID()}@shop.test`,
+      password: 'a long enough password',
+    }),
+    otherShop: 'public',
+  },
   // An unknown link: the answer is the same for anyone, signed in or not.
-  '/features/accounts/actions/sign-up.ts#finishSignUp': { permission: 'public', input: () => ({ token: 'x'.repeat(40) }), otherShop: 'public', publicGets: 'invalid' },
-  '/features/accounts/actions/sign-out.ts#signOut': { permission: 'session', input: () => undefined, otherShop: 'public' },
-  '/features/accounts/actions/change-role.ts#changeMemberRole': { permission: 'team.manage', input: async (w) => ({ memberId: await freshTechnician(w.a), role: 'apprentice' }), otherShop: 'not_found' },
-  '/features/accounts/actions/invite-member.ts#inviteMember': { permission: 'team.manage', input: () => ({ email: `invitee-${randomUUID()}@shop.test`, role: 'technician' }), otherShop: 'ok' },
-  '/features/accounts/actions/remove-member.ts#removeTeamMember': { permission: 'team.manage', input: async (w) => ({ memberId: await freshTechnician(w.a) }), otherShop: 'not_found' },
-  '/features/accounts/actions/revoke-invite.ts#revokeTeamInvite': {
+  '/features/accounts/actions/sign-up.ts#finishSignUp': {
+    permission: 'public',
+    input: () => ({ token: 'x'.repeat(40) }),
+    otherShop: 'public',
+    publicGets: 'invalid',
+  },
+  '/features/accounts/actions/sign-out.ts#signOut': {
+    permission: 'session',
+    input: () => undefined,
+    otherShop: 'public',
+  },
+  '/features/accounts/actions/change-role.ts#changeMemberRole': {
     permission: 'team.manage',
-    input: async (w) => ({ inviteId: (await createInvite(w.a.lead, { email: `invitee-${randomUUID()}@shop.test`, role: 'technician' })).id }),
+    input: async (w) => ({ memberId: await freshTechnician(w.a), role: 'apprentice' }),
     otherShop: 'not_found',
   },
-  '/features/jobs/actions/customer-actions.ts#addCustomer': { permission: 'jobs.create', input: () => ({ name: 'Nell Orchard', phone: '555-0100' }), otherShop: 'ok' },
-  '/features/jobs/actions/customer-actions.ts#editCustomer': { permission: 'jobs.edit', input: (w) => ({ customerId: w.records.customer.id, name: 'Wren Halloway', phone: '555-0142' }), otherShop: 'not_found' },
-  '/features/jobs/actions/customer-actions.ts#addVehicle': { permission: 'jobs.create', input: (w) => ({ customerId: w.records.customer.id, make: 'Boreal', model: 'Scout' }), otherShop: 'not_found' },
+  '/features/accounts/actions/invite-member.ts#inviteMember': {
+    permission: 'team.manage',
+    input: () => ({ email: `invitee-${randomUUID()}@shop.test`, role: 'technician' }),
+    otherShop: 'ok',
+  },
+  '/features/accounts/actions/remove-member.ts#removeTeamMember': {
+    permission: 'team.manage',
+    input: async (w) => ({ memberId: await freshTechnician(w.a) }),
+    otherShop: 'not_found',
+  },
+  '/features/accounts/actions/revoke-invite.ts#revokeTeamInvite': {
+    permission: 'team.manage',
+    input: async (w) => ({
+      inviteId: (
+        await createInvite(w.a.lead, {
+          email: `invitee-${randomUUID()}@shop.test`,
+          role: 'technician',
+        })
+      ).id,
+    }),
+    otherShop: 'not_found',
+  },
+  '/features/jobs/actions/customer-actions.ts#addCustomer': {
+    permission: 'jobs.create',
+    input: () => ({ name: 'Nell Orchard', phone: '555-0100' }),
+    otherShop: 'ok',
+  },
+  '/features/jobs/actions/customer-actions.ts#editCustomer': {
+    permission: 'jobs.edit',
+    input: (w) => ({ customerId: w.records.customer.id, name: 'Wren Halloway', phone: '555-0142' }),
+    otherShop: 'not_found',
+  },
+  '/features/jobs/actions/customer-actions.ts#addVehicle': {
+    permission: 'jobs.create',
+    input: (w) => ({ customerId: w.records.customer.id, make: 'Boreal', model: 'Scout' }),
+    otherShop: 'not_found',
+  },
   // Another shop's spec ids are refused as a field ("pick a spec of this shop"), nothing is created.
   '/features/jobs/actions/job-actions.ts#createJobCard': {
     permission: 'jobs.create',
-    input: (w) => ({ customerId: w.records.customer.id, vehicleId: w.records.vehicle.id, wheels: JSON.stringify(fourWheels(w.records.spec.id)) }),
+    input: (w) => ({
+      customerId: w.records.customer.id,
+      vehicleId: w.records.vehicle.id,
+      wheels: JSON.stringify(fourWheels(w.records.spec.id)),
+    }),
     otherShop: 'invalid',
   },
-  '/features/jobs/actions/job-actions.ts#updateJobCard': { permission: 'jobs.edit', input: (w) => ({ jobId: w.records.job.id, notes: 'Bring the cage.' }), otherShop: 'not_found' },
-  // The role table lets every member see the board; who may move which card is a row rule.
-  '/features/jobs/actions/job-actions.ts#moveJobCard': { permission: 'board.view', input: async (w) => ({ jobId: (await freshJob(w)).id, action: 'start' }), asAllowed: { apprentice: 'forbidden' }, otherShop: 'not_found' },
-  '/features/specs/actions/save-spec.ts#createWheelSpec': { permission: 'specs.manage', input: () => ({ ...specBody, name: `Spec ${randomUUID().slice(0, 6)}` }), otherShop: 'ok' },
-  '/features/specs/actions/save-spec.ts#updateWheelSpec': { permission: 'specs.manage', input: (w) => ({ ...specBody, specId: w.records.spec.id }), otherShop: 'not_found' },
-  '/features/settings/actions/save-settings.ts#saveSettings': { permission: 'shop.settings', input: () => ({ recheckDays: '7' }), otherShop: 'ok' },
-  '/features/tool-crib/actions/wrench-actions.ts#addWrench': { permission: 'wrenches.manage', input: () => ({ ...wrenchBody, label: 'Another click wrench' }), otherShop: 'ok' },
-  '/features/tool-crib/actions/wrench-actions.ts#editWrench': { permission: 'wrenches.manage', input: (w) => ({ ...wrenchBody, wrenchId: w.records.wrench.id }), otherShop: 'not_found' },
-  '/features/tool-crib/actions/wrench-actions.ts#verifyWrench': { permission: 'verifications.record', input: (w) => ({ wrenchId: w.records.wrench.id, referenceValue: 100, readingValue: 101, unit: 'lbf-in' }), otherShop: 'not_found' },
-  // The wrench is in service, so a permitted lead is told so (conflict); the rule still holds.
-  '/features/tool-crib/actions/wrench-actions.ts#putBackInService': { permission: 'wrenches.clear', input: (w) => ({ wrenchId: w.records.wrench.id, reason: 'recalibrated at the lab' }), asAllowed: { lead: 'conflict' }, otherShop: 'not_found' },
-  '/app/(runner)/jobs/[jobId]/wheels/[wheelId]/run/actions.ts#saveWheelEvents': {
-    permission: 'jobs.run',
-    input: async (w) => ({ wheelId: (await freshJob(w)).wheels[0]!.id, events: [{ type: 'bolt_confirmed', payload: { pass: 1, bolt: 1 }, clientId: randomUUID(), clientAt: at() }] }),
+  '/features/jobs/actions/job-actions.ts#updateJobCard': {
+    permission: 'jobs.edit',
+    input: (w) => ({ jobId: w.records.job.id, notes: 'Bring the cage.' }),
     otherShop: 'not_found',
   },
-  '/app/(shop)/jobs/[jobId]/review/actions.ts#approveReviewed': { permission: 'jobs.signoff', input: async (w) => ({ jobId: (await awaitingJob(w)).id }), otherShop: 'not_found' },
+  // The role table lets every member see the board; who may move which card is a row rule.
+  '/features/jobs/actions/job-actions.ts#moveJobCard': {
+    permission: 'board.view',
+    input: async (w) => ({ jobId: (await freshJob(w)).id, action: 'start' }),
+    asAllowed: { apprentice: 'forbidden' },
+    otherShop: 'not_found',
+  },
+  '/features/specs/actions/save-spec.ts#createWheelSpec': {
+    permission: 'specs.manage',
+    input: () => ({ ...specBody, name: `Spec ${randomUUID().slice(0, 6)}` }),
+    otherShop: 'ok',
+  },
+  '/features/specs/actions/save-spec.ts#updateWheelSpec': {
+    permission: 'specs.manage',
+    input: (w) => ({ ...specBody, specId: w.records.spec.id }),
+    otherShop: 'not_found',
+  },
+  '/features/settings/actions/save-settings.ts#saveSettings': {
+    permission: 'shop.settings',
+    input: () => ({ recheckDays: '7' }),
+    otherShop: 'ok',
+  },
+  '/features/tool-crib/actions/wrench-actions.ts#addWrench': {
+    permission: 'wrenches.manage',
+    input: () => ({ ...wrenchBody, label: 'Another click wrench' }),
+    otherShop: 'ok',
+  },
+  '/features/tool-crib/actions/wrench-actions.ts#editWrench': {
+    permission: 'wrenches.manage',
+    input: (w) => ({ ...wrenchBody, wrenchId: w.records.wrench.id }),
+    otherShop: 'not_found',
+  },
+  '/features/tool-crib/actions/wrench-actions.ts#verifyWrench': {
+    permission: 'verifications.record',
+    input: (w) => ({
+      wrenchId: w.records.wrench.id,
+      referenceValue: 100,
+      readingValue: 101,
+      unit: 'lbf-in',
+    }),
+    otherShop: 'not_found',
+  },
+  // The wrench is in service, so a permitted lead is told so (conflict); the rule still holds.
+  '/features/tool-crib/actions/wrench-actions.ts#putBackInService': {
+    permission: 'wrenches.clear',
+    input: (w) => ({ wrenchId: w.records.wrench.id, reason: 'recalibrated at the lab' }),
+    asAllowed: { lead: 'conflict' },
+    otherShop: 'not_found',
+  },
+  '/app/(runner)/jobs/[jobId]/wheels/[wheelId]/run/actions.ts#saveWheelEvents': {
+    permission: 'jobs.run',
+    input: async (w) => ({
+      wheelId: (await freshJob(w)).wheels[0]!.id,
+      events: [
+        {
+          type: 'bolt_confirmed',
+          payload: { pass: 1, bolt: 1 },
+          clientId: randomUUID(),
+          clientAt: at(),
+        },
+      ],
+    }),
+    otherShop: 'not_found',
+  },
+  '/app/(shop)/jobs/[jobId]/review/actions.ts#approveReviewed': {
+    permission: 'jobs.signoff',
+    input: async (w) => ({ jobId: (await awaitingJob(w)).id }),
+    otherShop: 'not_found',
+  },
   '/app/(shop)/jobs/[jobId]/review/actions.ts#sendBackReviewed': {
     permission: 'jobs.signoff',
     input: async (w) => {
       const job = await awaitingJob(w);
-      return { jobId: job.id, wheels: [{ wheelId: job.wheels[0]!.id, note: 'Redo the passes at a steady pace.' }] };
+      return {
+        jobId: job.id,
+        wheels: [{ wheelId: job.wheels[0]!.id, note: 'Redo the passes at a steady pace.' }],
+      };
     },
     otherShop: 'not_found',
   },
 };
 
 /** Calls an action and names the outcome: 'ok' (a result or a redirect), or the failure code. */
-export async function outcome(action: AnyAction, input: unknown): Promise<{ code: string; result?: unknown }> {
+export async function outcome(
+  action: AnyAction,
+  input: unknown,
+): Promise<{ code: string; result?: unknown }> {
   try {
     const result = (await action(null, input)) as { ok?: boolean; code?: string } | undefined;
     if (result && result.ok === false) return { code: result.code ?? 'missing-code', result };
@@ -136,7 +279,8 @@ export async function outcome(action: AnyAction, input: unknown): Promise<{ code
   } catch (error) {
     const digest = (error as { digest?: unknown })?.digest;
     if (typeof digest === 'string' && digest.startsWith('NEXT_REDIRECT')) return { code: 'ok' };
-    if (typeof digest === 'string' && digest.startsWith('NEXT_HTTP_ERROR_FALLBACK;404')) return { code: 'not_found' };
+    if (typeof digest === 'string' && digest.startsWith('NEXT_HTTP_ERROR_FALLBACK;404'))
+      return { code: 'not_found' };
     throw error;
   }
 }

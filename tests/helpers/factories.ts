@@ -11,7 +11,12 @@ let passwordHash: Promise<string> | undefined;
 /** A shop with one person in each role, and a way to act as any of them. */
 export async function createTestShop(name = 'Test Shop') {
   const tag = randomUUID().slice(0, 8);
-  const lead = await createShopWithLead({ shopName: name, name: 'Lena Lead', email: `lead-${tag}@shop.test`, password: PASSWORD });
+  const lead = await createShopWithLead({
+    shopName: name,
+    name: 'Lena Lead',
+    email: `lead-${tag}@shop.test`,
+    password: PASSWORD,
+  });
   passwordHash ??= hashPassword(PASSWORD);
   const hash = await passwordHash;
   const others = await getDb()
@@ -51,7 +56,10 @@ export async function cookieFor(userId: string): Promise<string> {
 }
 
 /** A same-origin JSON request as the browser would send it. */
-export function apiRequest(path: string, init: { method?: string; cookie?: string; body?: unknown; origin?: string | null } = {}) {
+export function apiRequest(
+  path: string,
+  init: { method?: string; cookie?: string; body?: unknown; origin?: string | null } = {},
+) {
   const headers = new Headers({ host: '127.0.0.1:3000', 'content-type': 'application/json' });
   if (init.cookie) headers.set('cookie', init.cookie);
   const origin = init.origin === undefined ? 'http://127.0.0.1:3000' : init.origin;
@@ -59,7 +67,12 @@ export function apiRequest(path: string, init: { method?: string; cookie?: strin
   return new Request(`http://127.0.0.1:3000${path}`, {
     method: init.method ?? 'GET',
     headers,
-    body: init.body === undefined ? undefined : typeof init.body === 'string' ? init.body : JSON.stringify(init.body),
+    body:
+      init.body === undefined
+        ? undefined
+        : typeof init.body === 'string'
+          ? init.body
+          : JSON.stringify(init.body),
   });
 }
 

@@ -8,7 +8,10 @@ export async function waitForMail(dir: string, to: string, timeoutMs = 5000): Pr
   while (Date.now() < deadline) {
     let names: string[] = [];
     try {
-      names = readdirSync(dir).filter((n) => n.endsWith('.json')).sort().reverse();
+      names = readdirSync(dir)
+        .filter((n) => n.endsWith('.json'))
+        .sort()
+        .reverse();
     } catch {}
     for (const n of names) {
       const m = JSON.parse(readFileSync(path.join(dir, n), 'utf8')) as SinkMessage;

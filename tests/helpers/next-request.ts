@@ -27,7 +27,8 @@ export function cookieAttributes(name: string) {
 
 export const nextHeadersMock = {
   cookies: async () => ({
-    get: (name: string) => (state.cookies.has(name) ? { name, value: state.cookies.get(name)!.value } : undefined),
+    get: (name: string) =>
+      state.cookies.has(name) ? { name, value: state.cookies.get(name)!.value } : undefined,
     set: (name: string, value: string, attributes?: CookieAttributes) => {
       if (value === '') state.cookies.delete(name);
       else state.cookies.set(name, { value, attributes });

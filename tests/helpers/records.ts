@@ -21,18 +21,52 @@ export const specBody = {
 };
 
 const inAYear = new Date(Date.now() + 365 * 86_400_000).toISOString().slice(0, 10);
-export const wrenchBody = { label: 'Test click 20–200 in-lb', kind: 'click', min: 20, max: 200, unit: 'lbf-in', graduation: 1, calibrationDueOn: inAYear };
+export const wrenchBody = {
+  label: 'Test click 20–200 in-lb',
+  kind: 'click',
+  min: 20,
+  max: 200,
+  unit: 'lbf-in',
+  graduation: 1,
+  calibrationDueOn: inAYear,
+};
 
 export const fourWheels = (specId: string, size = '30x10R14') =>
-  (['LF', 'RF', 'LR', 'RR'] as const).map((position) => ({ position, specId, tireSize: size, directional: false, targetPressure: 14, pressureUnit: 'psi' as const }));
+  (['LF', 'RF', 'LR', 'RR'] as const).map((position) => ({
+    position,
+    specId,
+    tireSize: size,
+    directional: false,
+    targetPressure: 14,
+    pressureUnit: 'psi' as const,
+  }));
 
 /** A spec, a wrench, a customer with a vehicle and a four-wheel job assigned to the technician. */
 export async function createRecords(lead: Member, technicianId: string) {
   const spec = await createSpec(lead, specSchema.parse(specBody));
   const wrench = await createWrench(lead, wrenchSchema.parse(wrenchBody));
-  const customer = await createCustomer(lead, { name: 'Wren Halloway', phone: '555-0142', email: 'wren@example.test' });
-  const vehicle = await createVehicle(lead, customer.id, { year: 2022, make: 'Talonworks', model: 'Ridgeback', description: '', vinOverride: false });
-  const job = await createJob(lead, { customerId: customer.id, vehicleId: vehicle.id, wheels: fourWheels(spec.id), dismount: true, reinstall: true, assigneeId: technicianId, notes: '', acceptAxleMismatch: false });
+  const customer = await createCustomer(lead, {
+    name: 'Wren Halloway',
+    phone: '555-0142',
+    email: 'wren@example.test',
+  });
+  const vehicle = await createVehicle(lead, customer.id, {
+    year: 2022,
+    make: 'Talonworks',
+    model: 'Ridgeback',
+    description: '',
+    vinOverride: false,
+  });
+  const job = await createJob(lead, {
+    customerId: customer.id,
+    vehicleId: vehicle.id,
+    wheels: fourWheels(spec.id),
+    dismount: true,
+    reinstall: true,
+    assigneeId: technicianId,
+    notes: '',
+    acceptAxleMismatch: false,
+  });
   return { spec, wrench, customer, vehicle, job };
 }
 
@@ -43,5 +77,16 @@ export async function createRecords(lead: Member, technicianId: string) {
 export async function verifiedAt(member: Member, wrenchId: string, at: Date, referenceValue = 40) {
   const { getDb } = await import('@/db');
   const { wrenchVerifications } = await import('@/db/schema');
-  await getDb().insert(wrenchVerifications).values({ shopId: member.shopId, wrenchId, referenceValue, readingValue: referenceValue, unit: 'lbf-in', deviationPct: 0, tolerancePct: 4, withinTolerance: true, recordedById: member.userId, recordedAt: at });
+  await getDb().insert(wrenchVerifications).values({
+    shopId: member.shopId,
+    wrenchId,
+    referenceValue,
+    readingValue: referenceValue,
+    unit: 'lbf-in',
+    deviationPct: 0,
+    tolerancePct: 4,
+    withinTolerance: true,
+    recordedById: member.userId,
+    recordedAt: at,
+  });
 }

@@ -8,12 +8,27 @@ import { jobWheels, wheelRunEvents } from '@/db/schema';
  * tested elsewhere): one event per wheel by `byId`, then each wheel submitted by them.
  */
 export async function workAndSubmitWheels(shopId: string, jobId: string, byId: string) {
-  const wheels = await getDb().select({ id: jobWheels.id }).from(jobWheels).where(and(eq(jobWheels.shopId, shopId), eq(jobWheels.jobId, jobId)));
+  const wheels = await getDb()
+    .select({ id: jobWheels.id })
+    .from(jobWheels)
+    .where(and(eq(jobWheels.shopId, shopId), eq(jobWheels.jobId, jobId)));
   for (const w of wheels) {
     await getDb()
       .insert(wheelRunEvents)
-      .values({ shopId, jobId, wheelId: w.id, clientId: randomUUID(), type: 'step_done', payload: { step: 'safety', checklist: [] }, byId, clientAt: new Date() });
+      .values({
+        shopId,
+        jobId,
+        wheelId: w.id,
+        clientId: randomUUID(),
+        type: 'step_done',
+        payload: { step: 'safety', checklist: [] },
+        byId,
+        clientAt: new Date(),
+      });
   }
-  await getDb().update(jobWheels).set({ submittedAt: new Date(), submittedById: byId }).where(and(eq(jobWheels.shopId, shopId), eq(jobWheels.jobId, jobId)));
+  await getDb()
+    .update(jobWheels)
+    .set({ submittedAt: new Date(), submittedById: byId })
+    .where(and(eq(jobWheels.shopId, shopId), eq(jobWheels.jobId, jobId)));
   return wheels.map((w) => w.id);
 }

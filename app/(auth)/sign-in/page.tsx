@@ -16,11 +16,15 @@ export default async function SignInPage({ searchParams }: PageProps<'/sign-in'>
     <>
       <ForgetRunnerPages />
       <h1 className="text-2xl font-bold">Sign in</h1>
-      {next ? <p className="font-semibold">Sign in to go back to where you were. Nothing waiting on this device is lost.</p> : null}
+      {next ? (
+        <p className="font-semibold">
+          Sign in to go back to where you were. Nothing waiting on this device is lost.
+        </p>
+      ) : null}
       <SignInForm next={next} />
       <p>
         New shop?{' '}
-        <Link href="/sign-up" className="font-semibold text-work underline">
+        <Link href="/sign-up" className="text-work font-semibold underline">
           Create your shop
         </Link>
       </p>

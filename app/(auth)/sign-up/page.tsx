@@ -13,11 +13,13 @@ export default async function SignUpPage() {
   return (
     <>
       <h1 className="text-2xl font-bold">Create your shop</h1>
-      <p className="text-ink-soft">You become the shop&apos;s first lead and can invite your team.</p>
+      <p className="text-ink-soft">
+        You become the shop&apos;s first lead and can invite your team.
+      </p>
       <SignUpForm />
       <p>
         Already on Ringpass?{' '}
-        <Link href="/sign-in" className="font-semibold text-work underline">
+        <Link href="/sign-in" className="text-work font-semibold underline">
           Sign in
         </Link>
       </p>

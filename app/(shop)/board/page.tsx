@@ -20,7 +20,8 @@ export default async function BoardPage({ searchParams }: PageProps<'/board'>) {
       <>
         <PageHeader title="Board" />
         <EmptyState title="Job cards are for leads and technicians">
-          Apprentices practise the procedure on simulated wheels; practice mode is coming to Ringpass.
+          Apprentices practise the procedure on simulated wheels; practice mode is coming to
+          Ringpass.
         </EmptyState>
       </>
     );
@@ -28,7 +29,10 @@ export default async function BoardPage({ searchParams }: PageProps<'/board'>) {
   const canCreate = can(member.role, 'jobs.create');
   const defaultAssignee = member.role === 'technician' ? 'me' : undefined;
   // The first page is read here, so the first HTML holds the cards; the browser keeps it live.
-  const [people, firstPage] = await Promise.all([listAssignees(member.shopId), prefetchBoard(member, await searchParams, defaultAssignee)]);
+  const [people, firstPage] = await Promise.all([
+    listAssignees(member.shopId),
+    prefetchBoard(member, await searchParams, defaultAssignee),
+  ]);
   return (
     <>
       <PageHeader title="Board">

@@ -20,30 +20,64 @@ export default async function CustomersPage({ searchParams }: PageProps<'/custom
       <PageHeader title="Customers" />
       <div className="grid gap-8 md:grid-cols-[2fr_1fr]">
         <section aria-labelledby="list-heading">
-          <h2 id="list-heading" className="sr-only">Customer list</h2>
+          <h2 id="list-heading" className="sr-only">
+            Customer list
+          </h2>
           <form role="search" className="mb-4 flex gap-2">
-            <label htmlFor="q" className="sr-only">Search customers</label>
-            <input id="q" name="q" type="search" defaultValue={q} placeholder="Name, phone or e-mail" className="min-h-touch flex-1 rounded-lg border-2 border-ink-soft px-3" />
-            <button type="submit" className="min-h-touch rounded-lg border-2 border-ink px-4 font-semibold">Search</button>
+            <label htmlFor="q" className="sr-only">
+              Search customers
+            </label>
+            <input
+              id="q"
+              name="q"
+              type="search"
+              defaultValue={q}
+              placeholder="Name, phone or e-mail"
+              className="min-h-touch border-ink-soft flex-1 rounded-lg border-2 px-3"
+            />
+            <button
+              type="submit"
+              className="min-h-touch border-ink rounded-lg border-2 px-4 font-semibold"
+            >
+              Search
+            </button>
           </form>
           {data.length === 0 ? (
-            <EmptyState title={q ? 'No customer matches' : 'No customers yet'}>{q ? 'Try part of the name or phone number.' : 'Add the first customer here, or while creating a job card.'}</EmptyState>
+            <EmptyState title={q ? 'No customer matches' : 'No customers yet'}>
+              {q
+                ? 'Try part of the name or phone number.'
+                : 'Add the first customer here, or while creating a job card.'}
+            </EmptyState>
           ) : (
-            <ul className="divide-y-2 divide-paper-line rounded-xl border-2 border-paper-line">
+            <ul className="divide-paper-line border-paper-line divide-y-2 rounded-xl border-2">
               {data.map((c) => (
                 <li key={c.id}>
-                  <Link href={`/customers/${c.id}`} className="flex min-h-touch flex-col p-3 hover:bg-paper-dim">
-                    <span className="font-semibold text-work underline">{c.name}</span>
-                    <span className="text-ink-soft">{[c.phone, c.email].filter(Boolean).join(' · ')}</span>
+                  <Link
+                    href={`/customers/${c.id}`}
+                    className="min-h-touch hover:bg-paper-dim flex flex-col p-3"
+                  >
+                    <span className="text-work font-semibold underline">{c.name}</span>
+                    <span className="text-ink-soft">
+                      {[c.phone, c.email].filter(Boolean).join(' · ')}
+                    </span>
                   </Link>
                 </li>
               ))}
             </ul>
           )}
-          {total > data.length ? <p className="mt-2 text-sm">Showing {data.length} of {total}; search to narrow.</p> : null}
+          {total > data.length ? (
+            <p className="mt-2 text-sm">
+              Showing {data.length} of {total}; search to narrow.
+            </p>
+          ) : null}
         </section>
-        <section aria-labelledby="add-heading" className="rounded-xl border-2 border-paper-line p-4">
-          <h2 id="add-heading" className="mb-3 text-xl font-bold">Add a customer</h2>
+        <section
+          aria-labelledby="add-heading"
+          className="border-paper-line rounded-xl border-2 p-4"
+        >
+          <h2 id="add-heading" className="mb-3 text-xl font-bold">
+            Add a customer
+          </h2>
           <CustomerForm />
         </section>
       </div>

@@ -12,7 +12,10 @@ export default async function MyWheelsPage() {
   return (
     <>
       <PageHeader title="My wheels">
-        <Link href="/board" className="inline-flex min-h-touch items-center font-semibold text-work underline">
+        <Link
+          href="/board"
+          className="min-h-touch text-work inline-flex items-center font-semibold underline"
+        >
           Board and search
         </Link>
       </PageHeader>

@@ -14,7 +14,10 @@ export default async function SignoffPage() {
   return (
     <>
       <PageHeader title="Sign-off" />
-      <p className="mb-4 text-ink-soft">Job cards waiting for a lead, oldest first. Open one to review its record, then sign it off or send wheels back.</p>
+      <p className="text-ink-soft mb-4">
+        Job cards waiting for a lead, oldest first. Open one to review its record, then sign it off
+        or send wheels back.
+      </p>
       <QueryProvider>
         <SignoffQueueList initial={queue} />
       </QueryProvider>

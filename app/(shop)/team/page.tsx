@@ -10,13 +10,19 @@ export const metadata: Metadata = { title: 'Team' };
 
 export default async function TeamPage() {
   const member = await requireMember('team.manage');
-  const [members, invites] = await Promise.all([listTeam(member.shopId), listPendingInvites(member.shopId)]);
+  const [members, invites] = await Promise.all([
+    listTeam(member.shopId),
+    listPendingInvites(member.shopId),
+  ]);
   return (
     <>
       <PageHeader title="Team" />
       <div className="grid gap-8 md:grid-cols-[2fr_1fr]">
         <TeamList members={members} invites={invites} />
-        <section aria-labelledby="invite-heading" className="rounded-xl border-2 border-paper-line p-4">
+        <section
+          aria-labelledby="invite-heading"
+          className="border-paper-line rounded-xl border-2 p-4"
+        >
           <h2 id="invite-heading" className="mb-3 text-xl font-bold">
             Invite someone
           </h2>

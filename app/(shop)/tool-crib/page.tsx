@@ -23,7 +23,11 @@ export default async function ToolCribPage() {
         ) : null}
       </PageHeader>
       {wrenches.length === 0 ? (
-        <EmptyState title="No torque wrenches yet">{canManage ? 'Add the shop’s torque wrenches with their range, unit and calibration date.' : 'A lead adds the shop’s torque wrenches.'}</EmptyState>
+        <EmptyState title="No torque wrenches yet">
+          {canManage
+            ? 'Add the shop’s torque wrenches with their range, unit and calibration date.'
+            : 'A lead adds the shop’s torque wrenches.'}
+        </EmptyState>
       ) : (
         <WrenchTable wrenches={wrenches} />
       )}

@@ -6,6 +6,11 @@ import { pageQuery } from '@/server/http/paginate';
 
 const query = pageQuery.extend({ q: searchText('the customer search') });
 
-export const GET = apiRoute({ permission: 'jobs.create', query }, ({ member, query }) => listCustomers(member.shopId, query));
+export const GET = apiRoute({ permission: 'jobs.create', query }, ({ member, query }) =>
+  listCustomers(member.shopId, query),
+);
 
-export const POST = apiRoute({ permission: 'jobs.create', body: customerSchema, status: 201 }, async ({ member, body }) => ({ data: await createCustomer(member, body) }));
+export const POST = apiRoute(
+  { permission: 'jobs.create', body: customerSchema, status: 201 },
+  async ({ member, body }) => ({ data: await createCustomer(member, body) }),
+);

@@ -5,8 +5,11 @@ import { memberAction } from '@/server/action';
 import { changeRoleSchema } from '../schemas';
 import { changeRole } from '../server/team';
 
-export const changeMemberRole = memberAction({ permission: 'team.manage', schema: changeRoleSchema }, async (input, member) => {
-  const updated = await changeRole(member, input.memberId, input.role);
-  revalidatePath('/team');
-  return updated;
-});
+export const changeMemberRole = memberAction(
+  { permission: 'team.manage', schema: changeRoleSchema },
+  async (input, member) => {
+    const updated = await changeRole(member, input.memberId, input.role);
+    revalidatePath('/team');
+    return updated;
+  },
+);

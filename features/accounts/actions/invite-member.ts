@@ -5,8 +5,11 @@ import { memberAction } from '@/server/action';
 import { inviteSchema } from '../schemas';
 import { createInvite } from '../server/invites';
 
-export const inviteMember = memberAction({ permission: 'team.manage', schema: inviteSchema }, async (input, member) => {
-  const invite = await createInvite(member, input);
-  revalidatePath('/team');
-  return invite;
-});
+export const inviteMember = memberAction(
+  { permission: 'team.manage', schema: inviteSchema },
+  async (input, member) => {
+    const invite = await createInvite(member, input);
+    revalidatePath('/team');
+    return invite;
+  },
+);

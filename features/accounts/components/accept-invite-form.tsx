@@ -12,9 +12,31 @@ export function AcceptInviteForm({ token, email }: { token: string; email: strin
     <form action={formAction} noValidate className="flex flex-col gap-4">
       <FormMessage state={state} />
       <input type="hidden" name="token" value={token} />
-      <TextField label="E-mail" name="email-shown" value={email} readOnly autoComplete="username" hint="The address the invite was sent to." />
-      <TextField label="Your name" name="name" autoComplete="name" required defaultValue={value('name')} errors={errors('name')} />
-      <TextField label="Choose a password" name="password" type="password" autoComplete="new-password" required hint="At least 12 characters." errors={errors('password')} />
+      <TextField
+        label="E-mail"
+        name="email-shown"
+        value={email}
+        readOnly
+        autoComplete="username"
+        hint="The address the invite was sent to."
+      />
+      <TextField
+        label="Your name"
+        name="name"
+        autoComplete="name"
+        required
+        defaultValue={value('name')}
+        errors={errors('name')}
+      />
+      <TextField
+        label="Choose a password"
+        name="password"
+        type="password"
+        autoComplete="new-password"
+        required
+        hint="At least 12 characters."
+        errors={errors('password')}
+      />
       <Button disabled={pending}>{pending ? 'Joining…' : 'Join the shop'}</Button>
     </form>
   );

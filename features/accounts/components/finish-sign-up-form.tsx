@@ -12,7 +12,9 @@ export function FinishSignUpForm({ token, shopName }: { token: string; shopName:
     <form action={formAction} className="flex flex-col gap-4">
       <FormMessage state={state} />
       <input type="hidden" name="token" value={token} />
-      <Button disabled={pending}>{pending ? 'Creating your shop…' : `Create ${shopName} and sign in`}</Button>
+      <Button disabled={pending}>
+        {pending ? 'Creating your shop…' : `Create ${shopName} and sign in`}
+      </Button>
     </form>
   );
 }

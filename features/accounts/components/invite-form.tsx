@@ -11,10 +11,29 @@ export function InviteForm() {
   const { state, formAction, pending, errors, value } = useFormAction(inviteMember);
   const shown = state?.ok ? { ok: true, message: `Invite sent to ${state.data.email}.` } : state;
   return (
-    <form action={formAction} noValidate className="flex flex-col gap-4" aria-label="Invite a team member">
+    <form
+      action={formAction}
+      noValidate
+      className="flex flex-col gap-4"
+      aria-label="Invite a team member"
+    >
       <FormMessage state={shown} />
-      <TextField label="E-mail" name="email" type="email" autoComplete="off" required defaultValue={value('email')} errors={errors('email')} />
-      <SelectField label="Role" name="role" options={ROLE_OPTIONS} defaultValue={value('role') ?? 'technician'} errors={errors('role')} />
+      <TextField
+        label="E-mail"
+        name="email"
+        type="email"
+        autoComplete="off"
+        required
+        defaultValue={value('email')}
+        errors={errors('email')}
+      />
+      <SelectField
+        label="Role"
+        name="role"
+        options={ROLE_OPTIONS}
+        defaultValue={value('role') ?? 'technician'}
+        errors={errors('role')}
+      />
       <Button disabled={pending}>{pending ? 'Sending…' : 'Send invite'}</Button>
     </form>
   );

@@ -10,7 +10,9 @@ import { ROLE_OPTIONS } from './role-options';
 
 export function MemberRoleForm({ memberId, role }: { memberId: string; role: Role }) {
   const { state, formAction, pending, errors } = useFormAction(changeMemberRole);
-  const shown = state?.ok ? { ok: true, message: `Role changed to ${state.data.role}. Their sessions were ended.` } : state;
+  const shown = state?.ok
+    ? { ok: true, message: `Role changed to ${state.data.role}. Their sessions were ended.` }
+    : state;
   return (
     <form action={formAction} noValidate className="flex flex-col gap-4">
       <FormMessage state={shown} />

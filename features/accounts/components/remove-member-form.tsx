@@ -11,7 +11,12 @@ export function RemoveMemberForm({ memberId, name }: { memberId: string; name: s
     <form
       action={formAction}
       onSubmit={(e) => {
-        if (!window.confirm(`Remove ${name} from the team? They will be signed out and cannot sign in again.`)) e.preventDefault();
+        if (
+          !window.confirm(
+            `Remove ${name} from the team? They will be signed out and cannot sign in again.`,
+          )
+        )
+          e.preventDefault();
       }}
       className="flex flex-col gap-3"
     >

@@ -13,8 +13,23 @@ export function SignInForm({ next }: { next?: string }) {
     <form action={formAction} noValidate className="flex flex-col gap-4">
       <FormMessage state={state} />
       {next ? <input type="hidden" name="next" value={next} /> : null}
-      <TextField label="E-mail" name="email" type="email" autoComplete="username" required defaultValue={value('email')} errors={errors('email')} />
-      <TextField label="Password" name="password" type="password" autoComplete="current-password" required errors={errors('password')} />
+      <TextField
+        label="E-mail"
+        name="email"
+        type="email"
+        autoComplete="username"
+        required
+        defaultValue={value('email')}
+        errors={errors('email')}
+      />
+      <TextField
+        label="Password"
+        name="password"
+        type="password"
+        autoComplete="current-password"
+        required
+        errors={errors('password')}
+      />
       <Button disabled={pending}>{pending ? 'Signing in…' : 'Sign in'}</Button>
     </form>
   );

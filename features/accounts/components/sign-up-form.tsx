@@ -17,7 +17,10 @@ export function SignUpForm() {
   // The same answer for every address: whether it already has an account is told only by e-mail.
   if (state?.ok) {
     return (
-      <p role="status" className="rounded-lg border-2 border-ok bg-ok-tint p-3 font-semibold text-ok">
+      <p
+        role="status"
+        className="border-ok bg-ok-tint text-ok rounded-lg border-2 p-3 font-semibold"
+      >
         Check your e-mail at {state.data.email}. The link in it finishes creating your shop.
       </p>
     );
@@ -26,9 +29,31 @@ export function SignUpForm() {
     <form action={formAction} noValidate className="flex flex-col gap-4">
       <FormMessage state={state} />
       <input type="hidden" name="timeZone" value={timeZone} />
-      <TextField label="Shop name" name="shopName" autoComplete="organization" required defaultValue={value('shopName')} errors={errors('shopName')} />
-      <TextField label="Your name" name="name" autoComplete="name" required defaultValue={value('name')} errors={errors('name')} />
-      <TextField label="E-mail" name="email" type="email" autoComplete="email" required defaultValue={value('email')} errors={errors('email')} />
+      <TextField
+        label="Shop name"
+        name="shopName"
+        autoComplete="organization"
+        required
+        defaultValue={value('shopName')}
+        errors={errors('shopName')}
+      />
+      <TextField
+        label="Your name"
+        name="name"
+        autoComplete="name"
+        required
+        defaultValue={value('name')}
+        errors={errors('name')}
+      />
+      <TextField
+        label="E-mail"
+        name="email"
+        type="email"
+        autoComplete="email"
+        required
+        defaultValue={value('email')}
+        errors={errors('email')}
+      />
       <TextField
         label="Password"
         name="password"

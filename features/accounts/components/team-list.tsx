@@ -5,25 +5,36 @@ import type { PendingInvite } from '../server/invites';
 import type { TeamMember } from '../server/team';
 import { RevokeInviteButton } from './revoke-invite-button';
 
-export function TeamList({ members, invites }: { members: TeamMember[]; invites: PendingInvite[] }) {
+export function TeamList({
+  members,
+  invites,
+}: {
+  members: TeamMember[];
+  invites: PendingInvite[];
+}) {
   return (
     <div className="flex flex-col gap-8">
       <section aria-labelledby="members-heading">
         <h2 id="members-heading" className="mb-3 text-xl font-bold">
           Members ({members.length})
         </h2>
-        <ul className="divide-y-2 divide-paper-line rounded-xl border-2 border-paper-line">
+        <ul className="divide-paper-line border-paper-line divide-y-2 rounded-xl border-2">
           {members.map((m) => (
             <li key={m.id}>
-              <Link href={`/team/${m.id}`} className="flex min-h-touch flex-wrap items-center justify-between gap-2 p-3 hover:bg-paper-dim">
+              <Link
+                href={`/team/${m.id}`}
+                className="min-h-touch hover:bg-paper-dim flex flex-wrap items-center justify-between gap-2 p-3"
+              >
                 <span>
                   <span className="block font-semibold">{m.name}</span>
-                  <span className="block break-all text-ink-soft">{m.email}</span>
-                  <span className="block text-sm text-ink-soft">
+                  <span className="text-ink-soft block break-all">{m.email}</span>
+                  <span className="text-ink-soft block text-sm">
                     Joined <ShopTime when={m.joinedAt} style="date" />
                   </span>
                 </span>
-                <span className="rounded-full border-2 border-ink px-3 py-0.5 text-sm font-semibold">{ROLE_LABELS[m.role]}</span>
+                <span className="border-ink rounded-full border-2 px-3 py-0.5 text-sm font-semibold">
+                  {ROLE_LABELS[m.role]}
+                </span>
               </Link>
             </li>
           ))}
@@ -34,9 +45,11 @@ export function TeamList({ members, invites }: { members: TeamMember[]; invites:
           Pending invites ({invites.length})
         </h2>
         {invites.length === 0 ? (
-          <p className="text-ink-soft">No invites waiting. Invite a technician or apprentice below.</p>
+          <p className="text-ink-soft">
+            No invites waiting. Invite a technician or apprentice below.
+          </p>
         ) : (
-          <ul className="divide-y-2 divide-paper-line rounded-xl border-2 border-paper-line">
+          <ul className="divide-paper-line border-paper-line divide-y-2 rounded-xl border-2">
             {invites.map((i) => (
               <li key={i.id} className="flex flex-wrap items-center justify-between gap-2 p-3">
                 <span>

@@ -4,10 +4,20 @@ import { formatShopTimeForMail } from '@/features/ui/shop-time';
 import { ROLE_LABELS } from '@/server/auth/permissions';
 
 const escape = (s: string) =>
-  s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+  s.replace(
+    /[&<>"']/g,
+    (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!,
+  );
 
 /** `timeZone` is the shop's: the expiry is read as the shop's time, with the zone's name spelled out. */
-export function inviteMail(p: { shopName: string; inviterName: string; role: Role; link: string; expiresAt: Date; timeZone: string }) {
+export function inviteMail(p: {
+  shopName: string;
+  inviterName: string;
+  role: Role;
+  link: string;
+  expiresAt: Date;
+  timeZone: string;
+}) {
   const role = ROLE_LABELS[p.role].toLowerCase();
   const until = formatShopTimeForMail(p.expiresAt, p.timeZone);
   const subject = `${p.inviterName} invited you to ${p.shopName} on Ringpass`;

@@ -34,40 +34,88 @@ const usable = () =>
  */
 export async function createInvite(actor: Member, input: InviteInput): Promise<PendingInvite> {
   const db = getDb();
-  const [existing] = await db.select({ shopId: users.shopId }).from(users).where(eq(users.email, input.email));
+  const [existing] = await db
+    .select({ shopId: users.shopId })
+    .from(users)
+    .where(eq(users.email, input.email));
 
   const token = randomBytes(32).toString('base64url');
   const expiresAt = new Date(Date.now() + env().INVITE_TTL_HOURS * 3_600_000);
   const [invite] = await db
     .insert(invites)
-    .values({ shopId: actor.shopId, email: input.email, role: input.role, tokenHash: hashToken(token), invitedById: actor.userId, expiresAt })
+    .values({
+      shopId: actor.shopId,
+      email: input.email,
+      role: input.role,
+      tokenHash: hashToken(token),
+      invitedById: actor.userId,
+      expiresAt,
+    })
     .returning({ id: invites.id });
 
-  const [[shop], { timeZone }] = await Promise.all([db.select({ name: shops.name }).from(shops).where(eq(shops.id, actor.shopId)), getShopSettings(actor.shopId)]);
+  const [[shop], { timeZone }] = await Promise.all([
+    db.select({ name: shops.name }).from(shops).where(eq(shops.id, actor.shopId)),
+    getShopSettings(actor.shopId),
+  ]);
   const shopName = shop?.name ?? 'your shop';
   const link = new URL(`/invite/${token}`, env().APP_URL).toString();
   try {
     if (existing) {
       // The notice belongs to the owner's shop, so the inviting lead's Mailbox never shows it.
-      await sendMail({ to: input.email, shopId: existing.shopId, ...inviteToExistingAccountMail({ shopName, inviterName: actor.name }) });
+      await sendMail({
+        to: input.email,
+        shopId: existing.shopId,
+        ...inviteToExistingAccountMail({ shopName, inviterName: actor.name }),
+      });
     } else {
-      await sendMail({ to: input.email, shopId: actor.shopId, ...inviteMail({ shopName, inviterName: actor.name, role: input.role, link, expiresAt, timeZone }) });
+      await sendMail({
+        to: input.email,
+        shopId: actor.shopId,
+        ...inviteMail({
+          shopName,
+          inviterName: actor.name,
+          role: input.role,
+          link,
+          expiresAt,
+          timeZone,
+        }),
+      });
     }
   } catch (error) {
     console.error('[invite] mail failed', error);
     await db.delete(invites).where(eq(invites.id, invite!.id));
-    throw new DomainError('invalid', 'The invite e-mail could not be sent, so no invite was created. Try again in a moment.');
+    throw new DomainError(
+      'invalid',
+      'The invite e-mail could not be sent, so no invite was created. Try again in a moment.',
+    );
   }
   await db
     .update(invites)
     .set({ revokedAt: new Date() })
-    .where(and(eq(invites.shopId, actor.shopId), eq(invites.email, input.email), ne(invites.id, invite!.id), usable()));
-  return { id: invite!.id, email: input.email, role: input.role, expiresAt: expiresAt.toISOString() };
+    .where(
+      and(
+        eq(invites.shopId, actor.shopId),
+        eq(invites.email, input.email),
+        ne(invites.id, invite!.id),
+        usable(),
+      ),
+    );
+  return {
+    id: invite!.id,
+    email: input.email,
+    role: input.role,
+    expiresAt: expiresAt.toISOString(),
+  };
 }
 
 export async function listPendingInvites(shopId: string): Promise<PendingInvite[]> {
   const rows = await getDb()
-    .select({ id: invites.id, email: invites.email, role: invites.role, expiresAt: invites.expiresAt })
+    .select({
+      id: invites.id,
+      email: invites.email,
+      role: invites.role,
+      expiresAt: invites.expiresAt,
+    })
     .from(invites)
     .where(and(eq(invites.shopId, shopId), usable()))
     .orderBy(desc(invites.createdAt));
@@ -94,7 +142,9 @@ export async function findUsableInvite(token: string) {
 }
 
 /** Uses the invite exactly once (a conditional update wins the race) and creates the account. */
-export async function acceptInvite(input: AcceptInviteInput): Promise<{ userId: string; role: Role }> {
+export async function acceptInvite(
+  input: AcceptInviteInput,
+): Promise<{ userId: string; role: Role }> {
   const passwordHash = await hashPassword(input.password);
   return getDb().transaction(async (tx) => {
     const [invite] = await tx
@@ -103,11 +153,20 @@ export async function acceptInvite(input: AcceptInviteInput): Promise<{ userId: 
       .where(and(eq(invites.tokenHash, hashToken(input.token)), usable()))
       .returning({ shopId: invites.shopId, email: invites.email, role: invites.role });
     if (!invite) throw new DomainError('invalid', INVITE_UNUSABLE);
-    const [taken] = await tx.select({ id: users.id }).from(users).where(eq(users.email, invite.email));
+    const [taken] = await tx
+      .select({ id: users.id })
+      .from(users)
+      .where(eq(users.email, invite.email));
     if (taken) throw new DomainError('conflict', HAS_ACCOUNT);
     const [user] = await tx
       .insert(users)
-      .values({ shopId: invite.shopId, email: invite.email, name: input.name, role: invite.role, passwordHash })
+      .values({
+        shopId: invite.shopId,
+        email: invite.email,
+        name: input.name,
+        role: invite.role,
+        passwordHash,
+      })
       .returning({ id: users.id });
     return { userId: user!.id, role: invite.role };
   });

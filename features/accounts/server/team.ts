@@ -15,7 +15,13 @@ const columns = {
   createdAt: users.createdAt,
 };
 
-const toDto = (row: { id: string; name: string; email: string; role: Role; createdAt: Date }): TeamMember => ({
+const toDto = (row: {
+  id: string;
+  name: string;
+  email: string;
+  role: Role;
+  createdAt: Date;
+}): TeamMember => ({
   id: row.id,
   name: row.name,
   email: row.email,
@@ -26,7 +32,11 @@ const toDto = (row: { id: string; name: string; email: string; role: Role; creat
 const active = (shopId: string) => and(eq(users.shopId, shopId), isNull(users.removedAt));
 
 export async function listTeam(shopId: string): Promise<TeamMember[]> {
-  const rows = await getDb().select(columns).from(users).where(active(shopId)).orderBy(asc(users.name));
+  const rows = await getDb()
+    .select(columns)
+    .from(users)
+    .where(active(shopId))
+    .orderBy(asc(users.name));
   return rows.map(toDto);
 }
 
@@ -64,7 +74,14 @@ async function revokeInvitesSentBy(tx: Tx, shopId: string, memberId: string) {
   await tx
     .update(invites)
     .set({ revokedAt: new Date() })
-    .where(and(eq(invites.shopId, shopId), eq(invites.invitedById, memberId), isNull(invites.acceptedAt), isNull(invites.revokedAt)));
+    .where(
+      and(
+        eq(invites.shopId, shopId),
+        eq(invites.invitedById, memberId),
+        isNull(invites.acceptedAt),
+        isNull(invites.revokedAt),
+      ),
+    );
 }
 
 /** Changes a role and ends that person's sessions, so the new role applies from their next sign-in. */
@@ -81,7 +98,8 @@ export async function changeRole(actor: Member, memberId: string, role: Role): P
       .set({ role })
       .where(and(active(actor.shopId), eq(users.id, memberId), eq(users.role, target.role)))
       .returning({ id: users.id });
-    if (!changed.length) throw new DomainError('conflict', 'This member changed meanwhile; reload and try again.');
+    if (!changed.length)
+      throw new DomainError('conflict', 'This member changed meanwhile; reload and try again.');
     if (target.role === 'lead') await revokeInvitesSentBy(tx, actor.shopId, memberId);
   });
   await endAllSessionsOf(memberId);
@@ -95,7 +113,8 @@ export async function removeMember(actor: Member, memberId: string): Promise<voi
     throw new DomainError('conflict', 'You cannot remove yourself. Ask another lead to do it.');
   }
   await getDb().transaction(async (tx) => {
-    if (target.role === 'lead' && !(await anotherLeadRemains(tx, actor.shopId, memberId))) throw new DomainError('conflict', LAST_LEAD);
+    if (target.role === 'lead' && !(await anotherLeadRemains(tx, actor.shopId, memberId)))
+      throw new DomainError('conflict', LAST_LEAD);
     const removed = await tx
       .update(users)
       .set({ removedAt: new Date() })

@@ -1,7 +1,15 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import type { BoardPage } from '../server/board';
 
-export type BoardFilters = { state?: string; assignee?: string; due?: string; q?: string; sort?: string; dir?: string; page?: string };
+export type BoardFilters = {
+  state?: string;
+  assignee?: string;
+  due?: string;
+  q?: string;
+  sort?: string;
+  dir?: string;
+  page?: string;
+};
 
 export class ApiError extends Error {}
 
@@ -12,18 +20,31 @@ const FILTER_KEYS = ['state', 'assignee', 'due', 'q', 'sort', 'dir', 'page'] as 
  * ones sent to the API ("all" means no assignee filter). One function for the server's prefetch
  * and the browser, so both build the same query key and the prefetched page is used.
  */
-export function boardFiltersFrom(get: (key: string) => string | null | undefined, defaultAssignee?: string): { shown: BoardFilters; api: BoardFilters } {
+export function boardFiltersFrom(
+  get: (key: string) => string | null | undefined,
+  defaultAssignee?: string,
+): { shown: BoardFilters; api: BoardFilters } {
   const shown: BoardFilters = {};
   for (const key of FILTER_KEYS) shown[key] = get(key) ?? undefined;
   shown.assignee ??= defaultAssignee;
-  return { shown, api: { ...shown, assignee: shown.assignee === 'all' ? undefined : shown.assignee } };
+  return {
+    shown,
+    api: { ...shown, assignee: shown.assignee === 'all' ? undefined : shown.assignee },
+  };
 }
 
 export async function getJobs(filters: BoardFilters, signal?: AbortSignal): Promise<BoardPage> {
-  const params = new URLSearchParams(Object.entries(filters).filter((e): e is [string, string] => Boolean(e[1])));
-  const res = await fetch(`/api/jobs?${params}`, { signal, headers: { accept: 'application/json' } });
-  const body = (await res.json().catch(() => null)) as (BoardPage & { error?: { message: string } }) | null;
-  if (!res.ok || !body) throw new ApiError(body?.error?.message ?? `The board could not be loaded (${res.status}).`);
+  const params = new URLSearchParams(
+    Object.entries(filters).filter((e): e is [string, string] => Boolean(e[1])),
+  );
+  const res = await fetch(`/api/jobs?${params}`, {
+    signal,
+    headers: { accept: 'application/json' },
+  });
+  const body = (await res.json().catch(() => null)) as
+    (BoardPage & { error?: { message: string } }) | null;
+  if (!res.ok || !body)
+    throw new ApiError(body?.error?.message ?? `The board could not be loaded (${res.status}).`);
   return body;
 }
 

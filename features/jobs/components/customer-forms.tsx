@@ -9,34 +9,91 @@ import { addCustomer, addVehicle, editCustomer } from '../actions/customer-actio
 import type { Customer } from '../server/customers';
 
 export function CustomerForm({ customer }: { customer?: Customer }) {
-  const { state, formAction, pending, errors, value } = useFormAction(customer ? editCustomer : addCustomer);
+  const { state, formAction, pending, errors, value } = useFormAction(
+    customer ? editCustomer : addCustomer,
+  );
   const initial = (k: keyof Customer) => value(k) ?? customer?.[k] ?? '';
   return (
-    <form action={formAction} noValidate className="flex flex-col gap-3" aria-label={customer ? 'Edit customer' : 'Add a customer'}>
+    <form
+      action={formAction}
+      noValidate
+      className="flex flex-col gap-3"
+      aria-label={customer ? 'Edit customer' : 'Add a customer'}
+    >
       <FormMessage state={state?.ok ? { ok: true, message: 'Saved.' } : state} />
       {customer ? <input type="hidden" name="customerId" value={customer.id} /> : null}
-      <TextField label="Name" name="name" required defaultValue={initial('name')} errors={errors('name')} />
-      <TextField label="Phone" name="phone" type="tel" defaultValue={initial('phone')} errors={errors('phone')} />
-      <TextField label="E-mail" name="email" type="email" defaultValue={initial('email')} errors={errors('email')} />
+      <TextField
+        label="Name"
+        name="name"
+        required
+        defaultValue={initial('name')}
+        errors={errors('name')}
+      />
+      <TextField
+        label="Phone"
+        name="phone"
+        type="tel"
+        defaultValue={initial('phone')}
+        errors={errors('phone')}
+      />
+      <TextField
+        label="E-mail"
+        name="email"
+        type="email"
+        defaultValue={initial('email')}
+        errors={errors('email')}
+      />
       <Button disabled={pending}>{customer ? 'Save customer' : 'Add customer'}</Button>
     </form>
   );
 }
 
-export function VehicleForm({ customerId, canAcceptVin }: { customerId: string; canAcceptVin: boolean }) {
+export function VehicleForm({
+  customerId,
+  canAcceptVin,
+}: {
+  customerId: string;
+  canAcceptVin: boolean;
+}) {
   const { state, formAction, pending, errors, value } = useFormAction(addVehicle);
   return (
     <form action={formAction} noValidate className="flex flex-col gap-3" aria-label="Add a vehicle">
       <FormMessage state={state?.ok ? { ok: true, message: 'Vehicle added.' } : state} />
       <input type="hidden" name="customerId" value={customerId} />
       <div className="grid grid-cols-3 gap-3">
-        <TextField label="Year" name="year" inputMode="numeric" defaultValue={value('year')} errors={errors('year')} />
+        <TextField
+          label="Year"
+          name="year"
+          inputMode="numeric"
+          defaultValue={value('year')}
+          errors={errors('year')}
+        />
         <TextField label="Make" name="make" defaultValue={value('make')} errors={errors('make')} />
-        <TextField label="Model" name="model" defaultValue={value('model')} errors={errors('model')} />
+        <TextField
+          label="Model"
+          name="model"
+          defaultValue={value('model')}
+          errors={errors('model')}
+        />
       </div>
-      <TextField label="Description" name="description" defaultValue={value('description')} errors={errors('description')} />
-      <TextField label="VIN (optional)" name="vin" defaultValue={value('vin')} errors={errors('vin')} />
-      {canAcceptVin ? <CheckboxField label="Accept the VIN even if its check digit does not match" name="vinOverride" /> : null}
+      <TextField
+        label="Description"
+        name="description"
+        defaultValue={value('description')}
+        errors={errors('description')}
+      />
+      <TextField
+        label="VIN (optional)"
+        name="vin"
+        defaultValue={value('vin')}
+        errors={errors('vin')}
+      />
+      {canAcceptVin ? (
+        <CheckboxField
+          label="Accept the VIN even if its check digit does not match"
+          name="vinOverride"
+        />
+      ) : null}
       <Button disabled={pending}>Add vehicle</Button>
     </form>
   );

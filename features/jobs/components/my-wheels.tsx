@@ -20,7 +20,7 @@ export function MyWheels({ wheels }: { wheels: MyWheel[] }) {
     return (
       <EmptyState title="No wheels waiting for you">
         When a lead assigns you a job card, its wheels appear here in the order to do them.{' '}
-        <Link href="/board" className="font-semibold text-work underline">
+        <Link href="/board" className="text-work font-semibold underline">
           Open the board
         </Link>
       </EmptyState>
@@ -34,13 +34,15 @@ export function MyWheels({ wheels }: { wheels: MyWheel[] }) {
           <li key={w.wheelId}>
             <Link
               href={`/jobs/${w.jobId}/wheels/${w.wheelId}/run`}
-              className="flex min-h-touch flex-col gap-1 rounded-xl border-2 border-ink p-4 hover:bg-paper-dim focus-visible:outline-4"
+              className="min-h-touch border-ink hover:bg-paper-dim flex flex-col gap-1 rounded-xl border-2 p-4 focus-visible:outline-4"
             >
               <span className="flex flex-wrap items-center justify-between gap-2">
-                <span className="text-xl font-black text-work underline">
+                <span className="text-work text-xl font-black underline">
                   Job #{w.jobNumber} · {POSITION_LABELS[w.position]}
                 </span>
-                <span className={`rounded-md px-2 py-0.5 text-sm font-bold ${status.className}`}>{status.text}</span>
+                <span className={`rounded-md px-2 py-0.5 text-sm font-bold ${status.className}`}>
+                  {status.text}
+                </span>
               </span>
               <span className="font-semibold">
                 {w.customer} · {w.vehicle}
@@ -48,8 +50,10 @@ export function MyWheels({ wheels }: { wheels: MyWheel[] }) {
               <span>
                 Tire {w.tireSize} · Spec {w.specName}
               </span>
-              {w.reworkNote ? <span className="font-semibold text-danger">Lead’s note: {w.reworkNote}</span> : null}
-              <span className="text-sm text-ink-soft">
+              {w.reworkNote ? (
+                <span className="text-danger font-semibold">Lead’s note: {w.reworkNote}</span>
+              ) : null}
+              <span className="text-ink-soft text-sm">
                 {w.dueAt ? (
                   <>
                     Due <ShopTime when={w.dueAt} />

@@ -13,7 +13,9 @@ const STYLE: Record<JobStateName, { mark: string; className: string }> = {
 export function StateBadge({ state }: { state: JobStateName }) {
   const s = STYLE[state];
   return (
-    <span className={`inline-flex items-center gap-1 whitespace-nowrap rounded-full border-2 px-2.5 py-0.5 text-sm font-bold ${s.className}`}>
+    <span
+      className={`inline-flex items-center gap-1 rounded-full border-2 px-2.5 py-0.5 text-sm font-bold whitespace-nowrap ${s.className}`}
+    >
       <span aria-hidden>{s.mark}</span>
       <span>{STATE_LABELS[state]}</span>
     </span>

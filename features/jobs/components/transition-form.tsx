@@ -12,22 +12,47 @@ import { STATE_LABELS, TRANSITION_RULES, type TransitionName } from '../transiti
  * `selfReview`: this lead worked on the job and may review it only under the single-lead setting,
  * with a written reason.
  */
-export function TransitionForm({ jobId, allowed, selfReview = false }: { jobId: string; allowed: TransitionName[]; selfReview?: boolean }) {
+export function TransitionForm({
+  jobId,
+  allowed,
+  selfReview = false,
+}: {
+  jobId: string;
+  allowed: TransitionName[];
+  selfReview?: boolean;
+}) {
   const { state, formAction, pending, errors } = useFormAction(moveJobCard);
   if (!allowed.length && !state) return null;
-  const shown = state?.ok ? { ok: true, message: `Job card is now ${STATE_LABELS[state.data.state].toLowerCase()}.` } : state;
+  const shown = state?.ok
+    ? { ok: true, message: `Job card is now ${STATE_LABELS[state.data.state].toLowerCase()}.` }
+    : state;
   return (
-    <form action={formAction} noValidate className="flex flex-col gap-3" aria-label="Move the job card">
+    <form
+      action={formAction}
+      noValidate
+      className="flex flex-col gap-3"
+      aria-label="Move the job card"
+    >
       <FormMessage state={shown} />
       <input type="hidden" name="jobId" value={jobId} />
       {selfReview && allowed.includes('sign_off') ? (
-        <TextField label="You worked on this job: why are you signing it off yourself? (required, kept on the record)" name="note" errors={errors('note')} />
+        <TextField
+          label="You worked on this job: why are you signing it off yourself? (required, kept on the record)"
+          name="note"
+          errors={errors('note')}
+        />
       ) : allowed.includes('send_back') ? (
         <TextField label="Note (required to send back)" name="note" errors={errors('note')} />
       ) : null}
       <div className="flex flex-wrap gap-2">
         {allowed.map((t) => (
-          <Button key={t} name="action" value={t} disabled={pending} variant={t === 'send_back' ? 'secondary' : 'primary'}>
+          <Button
+            key={t}
+            name="action"
+            value={t}
+            disabled={pending}
+            variant={t === 'send_back' ? 'secondary' : 'primary'}
+          >
             {TRANSITION_RULES[t].label}
           </Button>
         ))}

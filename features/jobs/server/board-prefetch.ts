@@ -11,16 +11,25 @@ import { listBoard } from './board';
  * per request: a shared one would hand one member's board to another. Filters the API would
  * refuse are not prefetched; the browser asks and shows the API's message.
  */
-export async function prefetchBoard(member: Member, searchParams: Record<string, string | string[] | undefined>, defaultAssignee?: string): Promise<DehydratedState> {
+export async function prefetchBoard(
+  member: Member,
+  searchParams: Record<string, string | string[] | undefined>,
+  defaultAssignee?: string,
+): Promise<DehydratedState> {
   const client = new QueryClient();
   const one = (key: string) => {
     const value = searchParams[key];
     return Array.isArray(value) ? value[0] : value;
   };
   const { api } = boardFiltersFrom(one, defaultAssignee);
-  const query = boardQuerySchema.safeParse(Object.fromEntries(Object.entries(api).filter(([, v]) => v !== undefined)));
+  const query = boardQuerySchema.safeParse(
+    Object.fromEntries(Object.entries(api).filter(([, v]) => v !== undefined)),
+  );
   if (query.success) {
-    await client.prefetchQuery({ queryKey: jobsQueryOptions(api).queryKey, queryFn: () => listBoard(member, query.data) });
+    await client.prefetchQuery({
+      queryKey: jobsQueryOptions(api).queryKey,
+      queryFn: () => listBoard(member, query.data),
+    });
   }
   return dehydrate(client);
 }

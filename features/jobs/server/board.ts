@@ -1,5 +1,19 @@
 import 'server-only';
-import { and, asc, desc, eq, gte, ilike, inArray, isNull, lt, ne, or, sql, type SQL } from 'drizzle-orm';
+import {
+  and,
+  asc,
+  desc,
+  eq,
+  gte,
+  ilike,
+  inArray,
+  isNull,
+  lt,
+  ne,
+  or,
+  sql,
+  type SQL,
+} from 'drizzle-orm';
 import { getDb } from '@/db';
 import { customers, jobs, jobWheels, users, vehicles } from '@/db/schema';
 import { dueWindows, type ShopClock } from '@/features/ui/shop-time';
@@ -31,10 +45,20 @@ function filters(member: Member, q: BoardQuery, clock: ShopClock): SQL | undefin
   return and(
     eq(jobs.shopId, member.shopId),
     q.state?.length ? inArray(jobs.state, q.state) : undefined,
-    q.assignee === 'me' ? eq(jobs.assigneeId, member.userId) : q.assignee === 'unassigned' ? isNull(jobs.assigneeId) : q.assignee ? eq(jobs.assigneeId, q.assignee) : undefined,
+    q.assignee === 'me'
+      ? eq(jobs.assigneeId, member.userId)
+      : q.assignee === 'unassigned'
+        ? isNull(jobs.assigneeId)
+        : q.assignee
+          ? eq(jobs.assigneeId, q.assignee)
+          : undefined,
     q.due === 'overdue' ? and(lt(jobs.dueAt, clock.now), ne(jobs.state, 'signed_off')) : undefined,
-    q.due === 'today' ? and(gte(jobs.dueAt, windows.today.from), lt(jobs.dueAt, windows.today.to)) : undefined,
-    q.due === 'week' ? and(gte(jobs.dueAt, windows.week.from), lt(jobs.dueAt, windows.week.to)) : undefined,
+    q.due === 'today'
+      ? and(gte(jobs.dueAt, windows.today.from), lt(jobs.dueAt, windows.today.to))
+      : undefined,
+    q.due === 'week'
+      ? and(gte(jobs.dueAt, windows.week.from), lt(jobs.dueAt, windows.week.to))
+      : undefined,
     search
       ? or(
           ilike(customers.name, search),
@@ -60,7 +84,10 @@ function ordering(q: BoardQuery): SQL[] {
     case 'updated':
       return [dir(jobs.updatedAt), asc(jobs.number)];
     default:
-      return [sql`${jobs.dueAt} ${sql.raw(q.dir === 'desc' ? 'desc' : 'asc')} nulls last`, asc(jobs.number)];
+      return [
+        sql`${jobs.dueAt} ${sql.raw(q.dir === 'desc' ? 'desc' : 'asc')} nulls last`,
+        asc(jobs.number),
+      ];
   }
 }
 
@@ -94,7 +121,11 @@ export function boardQuery(member: Member, q: BoardQuery, clock: ShopClock) {
 }
 
 /** `now` is for tests that stand at a chosen moment (say 23:30 at the shop); the app passes none. */
-export async function listBoard(member: Member, q: BoardQuery, now = new Date()): Promise<BoardPage> {
+export async function listBoard(
+  member: Member,
+  q: BoardQuery,
+  now = new Date(),
+): Promise<BoardPage> {
   // Only the calendar windows need the zone; the board's hot path skips the settings read.
   const calendar = q.due === 'today' || q.due === 'week';
   const timeZone = calendar ? (await getShopSettings(member.shopId)).timeZone : 'UTC';

@@ -19,12 +19,22 @@ const EVENT_TYPES_OF_STEP: Record<string, string[]> = {
 };
 
 /** The wheels a send-back names, each checked to be on this job; none named = every wheel with the job's note. */
-export function sendBackWheels(job: JobCard, note: string, wheels: SendBackWheel[] | undefined): SendBackWheel[] {
+export function sendBackWheels(
+  job: JobCard,
+  note: string,
+  wheels: SendBackWheel[] | undefined,
+): SendBackWheel[] {
   if (!wheels?.length) return job.wheels.map((w) => ({ wheelId: w.id, note, steps: [] }));
   const ids = new Set(job.wheels.map((w) => w.id));
   const unknown = wheels.findIndex((w) => !ids.has(w.wheelId));
-  if (unknown >= 0) throw new DomainError('invalid', 'Send back wheels of this job card only.', { [`wheels.${unknown}.wheelId`]: ['Not a wheel of this job card.'] });
-  if (new Set(wheels.map((w) => w.wheelId)).size !== wheels.length) throw new DomainError('invalid', 'Name each wheel once.', { wheels: ['Name each wheel once.'] });
+  if (unknown >= 0)
+    throw new DomainError('invalid', 'Send back wheels of this job card only.', {
+      [`wheels.${unknown}.wheelId`]: ['Not a wheel of this job card.'],
+    });
+  if (new Set(wheels.map((w) => w.wheelId)).size !== wheels.length)
+    throw new DomainError('invalid', 'Name each wheel once.', {
+      wheels: ['Name each wheel once.'],
+    });
   return wheels;
 }
 
@@ -34,11 +44,21 @@ export function sendBackWheels(job: JobCard, note: string, wheels: SendBackWheel
  * (all of them, or those of the named steps) are marked superseded — kept in the history, no
  * longer read by the runner's reducer or the anomalies.
  */
-export async function reopenWheels(tx: Tx, shopId: string, byId: string, wheels: SendBackWheel[], at: Date) {
+export async function reopenWheels(
+  tx: Tx,
+  shopId: string,
+  byId: string,
+  wheels: SendBackWheel[],
+  at: Date,
+) {
   for (const w of wheels) {
     await tx
       .update(jobWheels)
-      .set({ submittedAt: null, submittedById: null, rework: { note: w.note, steps: w.steps, byId, at: at.toISOString() } })
+      .set({
+        submittedAt: null,
+        submittedById: null,
+        rework: { note: w.note, steps: w.steps, byId, at: at.toISOString() },
+      })
       .where(and(eq(jobWheels.shopId, shopId), eq(jobWheels.id, w.wheelId)));
     const types = w.steps.flatMap((s) => EVENT_TYPES_OF_STEP[s] ?? []);
     const ofSteps = w.steps.length

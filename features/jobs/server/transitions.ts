@@ -6,7 +6,12 @@ import type { Member } from '@/server/auth/session';
 import { DomainError } from '@/server/errors';
 import { sendTransitionNotices } from '@/server/mail/job-notices';
 import type { SendBackWheel } from '../schemas';
-import { isSelfReview, TRANSITION_RULES, transitionRefusal, type TransitionName } from '../transitions';
+import {
+  isSelfReview,
+  TRANSITION_RULES,
+  transitionRefusal,
+  type TransitionName,
+} from '../transitions';
 import { getJob, type JobCard } from './jobs';
 import { reopenWheels, sendBackWheels } from './send-back';
 import { getWorkFacts } from './work-facts';
@@ -30,25 +35,36 @@ export async function transitionJob(
   options: { wheels?: SendBackWheel[]; tx?: Tx; reviewed?: boolean } = {},
 ): Promise<JobCard> {
   const job = await getJob(actor.shopId, jobId);
-  const facts = TRANSITION_RULES[name].who === 'review' ? await getWorkFacts(actor.shopId, jobId) : {};
+  const facts =
+    TRANSITION_RULES[name].who === 'review' ? await getWorkFacts(actor.shopId, jobId) : {};
   const refusal = transitionRefusal(actor, job, name, facts);
-  if (refusal) throw new DomainError(refusal.kind === 'person' ? 'forbidden' : 'conflict', refusal.message);
+  if (refusal)
+    throw new DomainError(refusal.kind === 'person' ? 'forbidden' : 'conflict', refusal.message);
   const rule = TRANSITION_RULES[name];
   const reason = note.trim();
-  if (rule.noteRequired && !reason) throw noteError('Say what needs fixing, so the technician knows.');
+  if (rule.noteRequired && !reason)
+    throw noteError('Say what needs fixing, so the technician knows.');
   const selfReview = isSelfReview(actor, job, name, facts);
-  if (selfReview && !reason) throw noteError('You worked on this job card: write why you are signing it off yourself; the reason is kept on the record.');
+  if (selfReview && !reason)
+    throw noteError(
+      'You worked on this job card: write why you are signing it off yourself; the reason is kept on the record.',
+    );
   // A sign-off is the product's promise: it lands only through the review, which computes the
   // anomalies again and stores the lead's reason for each that blocks (features/review).
   if (name === 'sign_off' && !options.reviewed) {
-    throw new DomainError('conflict', "Sign off from the job's review, where its anomalies are checked and each one that blocks gets your reason.");
+    throw new DomainError(
+      'conflict',
+      "Sign off from the job's review, where its anomalies are checked and each one that blocks gets your reason.",
+    );
   }
   const reopened = name === 'send_back' ? sendBackWheels(job, reason, options.wheels) : null;
 
   const move = async (tx: Tx) => {
     // Only from the state and assignee we checked: a second device that moved or reassigned it
     // first wins, this one is told. A submit also re-checks the wheels at the moment of writing.
-    const sameAssignee = job.assignee ? eq(jobs.assigneeId, job.assignee.id) : isNull(jobs.assigneeId);
+    const sameAssignee = job.assignee
+      ? eq(jobs.assigneeId, job.assignee.id)
+      : isNull(jobs.assigneeId);
     const wheelsReady =
       name === 'submit'
         ? sql`exists (select 1 from ${jobWheels} w where w.job_id = ${jobId}) and not exists (select 1 from ${jobWheels} w where w.job_id = ${jobId} and (w.submitted_at is null or w.flagged_reason is not null))`
@@ -56,9 +72,18 @@ export async function transitionJob(
     const moved = await tx
       .update(jobs)
       .set({ state: rule.to, updatedAt: new Date() })
-      .where(and(eq(jobs.shopId, actor.shopId), eq(jobs.id, jobId), inArray(jobs.state, [job.state]), sameAssignee, wheelsReady))
+      .where(
+        and(
+          eq(jobs.shopId, actor.shopId),
+          eq(jobs.id, jobId),
+          inArray(jobs.state, [job.state]),
+          sameAssignee,
+          wheelsReady,
+        ),
+      )
       .returning({ id: jobs.id });
-    if (!moved.length) throw new DomainError('conflict', 'The job card changed meanwhile; reload and try again.');
+    if (!moved.length)
+      throw new DomainError('conflict', 'The job card changed meanwhile; reload and try again.');
     const at = new Date();
     if (reopened) await reopenWheels(tx, actor.shopId, actor.userId, reopened, at);
     await tx.insert(jobEvents).values({
@@ -80,6 +105,12 @@ export async function transitionJob(
   }
   await getDb().transaction(move);
   // After the commit: leads hear of a job awaiting sign-off, the technician of a send-back.
-  await sendTransitionNotices({ shopId: actor.shopId, jobId, action: name, byId: actor.userId, wheels: reopened });
+  await sendTransitionNotices({
+    shopId: actor.shopId,
+    jobId,
+    action: name,
+    byId: actor.userId,
+    wheels: reopened,
+  });
   return getJob(actor.shopId, jobId);
 }

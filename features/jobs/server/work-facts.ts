@@ -30,6 +30,9 @@ export async function selfSignoffAllowed(shopId: string): Promise<boolean> {
 }
 
 export async function getWorkFacts(shopId: string, jobId: string): Promise<Required<WorkFacts>> {
-  const [workerIds, allowed] = await Promise.all([jobWorkerIds(shopId, jobId), selfSignoffAllowed(shopId)]);
+  const [workerIds, allowed] = await Promise.all([
+    jobWorkerIds(shopId, jobId),
+    selfSignoffAllowed(shopId),
+  ]);
   return { workerIds, selfSignoffAllowed: allowed };
 }

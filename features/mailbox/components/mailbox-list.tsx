@@ -6,7 +6,7 @@ import type { SinkMessage } from '@/server/mail/mailbox';
 function linkify(text: string): ReactNode[] {
   return text.split(/(https?:\/\/\S+)/g).map((part, i) =>
     /^https?:\/\//.test(part) ? (
-      <a key={i} href={part} className="break-all font-semibold text-work underline">
+      <a key={i} href={part} className="text-work font-semibold break-all underline">
         {part}
       </a>
     ) : (
@@ -23,14 +23,14 @@ export function MailboxList({ messages, demo }: { messages: SinkMessage[]; demo:
         Mailbox
       </h1>
       {demo ? (
-        <p className="mt-2 rounded-lg border-2 border-danger bg-danger-tint p-3 font-semibold text-danger">
-          Demo server: this Mailbox is switched on (MAILBOX_DEMO) and no mail leaves this machine. Never run a shop&apos;s
-          real work on it.
+        <p className="border-danger bg-danger-tint text-danger mt-2 rounded-lg border-2 p-3 font-semibold">
+          Demo server: this Mailbox is switched on (MAILBOX_DEMO) and no mail leaves this machine.
+          Never run a shop&apos;s real work on it.
         </p>
       ) : null}
-      <p className="mb-6 mt-2 rounded-lg border-2 border-caution bg-caution-tint p-3 text-caution-ink">
-        Development only: the e-mails the app sent for this shop to the local mail sink, newest first. Nothing here was
-        delivered.
+      <p className="border-caution bg-caution-tint text-caution-ink mt-2 mb-6 rounded-lg border-2 p-3">
+        Development only: the e-mails the app sent for this shop to the local mail sink, newest
+        first. Nothing here was delivered.
       </p>
       {messages.length === 0 ? (
         <p>No e-mail sent yet. Invite someone from the Team page and it shows up here.</p>
@@ -38,9 +38,12 @@ export function MailboxList({ messages, demo }: { messages: SinkMessage[]; demo:
         <ol className="flex flex-col gap-4">
           {messages.map((m) => (
             <li key={m.id}>
-              <article className="rounded-xl border-2 border-paper-line p-4" aria-label={`${m.subject} to ${m.to.join(', ')}`}>
+              <article
+                className="border-paper-line rounded-xl border-2 p-4"
+                aria-label={`${m.subject} to ${m.to.join(', ')}`}
+              >
                 <h2 className="text-lg font-bold">{m.subject}</h2>
-                <p className="text-sm text-ink-soft">
+                <p className="text-ink-soft text-sm">
                   To {m.to.join(', ')} · <ShopTime when={m.receivedAt} />
                 </p>
                 <p className="mt-3 whitespace-pre-wrap">{linkify(m.text)}</p>

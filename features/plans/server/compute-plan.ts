@@ -21,7 +21,11 @@ export async function computePlan(
     throw new DomainError('invalid', message, { wrenchIds: [message] });
   }
   try {
-    return planTorque({ ...request, minFractionOfMax: request.minFractionOfMax ?? shopFloor, wrenches: [...fromCrib, ...(request.wrenches ?? [])] });
+    return planTorque({
+      ...request,
+      minFractionOfMax: request.minFractionOfMax ?? shopFloor,
+      wrenches: [...fromCrib, ...(request.wrenches ?? [])],
+    });
   } catch (error) {
     if (error instanceof TorquePlanError) {
       throw new DomainError('invalid', error.message, { [error.field ?? 'body']: [error.message] });

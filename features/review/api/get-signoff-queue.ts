@@ -1,10 +1,22 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { SignoffQueue } from '../server/signoff-queue';
 
-export async function getSignoffQueue(signal?: AbortSignal, countOnly = false): Promise<SignoffQueue> {
-  const res = await fetch(countOnly ? '/api/signoff-queue?only=count' : '/api/signoff-queue', { signal, headers: { accept: 'application/json' } });
-  const body = (await res.json().catch(() => null)) as { data?: SignoffQueue; error?: { message: string } } | null;
-  if (!res.ok || !body?.data) throw new Error(body?.error?.message ?? `The sign-off queue could not be loaded (${res.status}).`);
+export async function getSignoffQueue(
+  signal?: AbortSignal,
+  countOnly = false,
+): Promise<SignoffQueue> {
+  const res = await fetch(countOnly ? '/api/signoff-queue?only=count' : '/api/signoff-queue', {
+    signal,
+    headers: { accept: 'application/json' },
+  });
+  const body = (await res.json().catch(() => null)) as {
+    data?: SignoffQueue;
+    error?: { message: string };
+  } | null;
+  if (!res.ok || !body?.data)
+    throw new Error(
+      body?.error?.message ?? `The sign-off queue could not be loaded (${res.status}).`,
+    );
   return body.data;
 }
 
@@ -24,5 +36,6 @@ export const signoffCountOptions = () =>
     refetchInterval: 20_000,
   });
 
-export const useSignoffQueue = (initialData?: SignoffQueue) => useQuery({ ...signoffQueueOptions(), initialData });
+export const useSignoffQueue = (initialData?: SignoffQueue) =>
+  useQuery({ ...signoffQueueOptions(), initialData });
 export const useSignoffCount = () => useQuery(signoffCountOptions());

@@ -11,7 +11,7 @@ export function AcknowledgementList({ acknowledgements }: { acknowledgements: Ac
       </h2>
       <ul className="flex flex-col gap-2 text-sm">
         {acknowledgements.map((a, i) => (
-          <li key={i} className="rounded-lg bg-paper-dim p-2">
+          <li key={i} className="bg-paper-dim rounded-lg p-2">
             {a.message} <strong>Reason: {a.reason}</strong> — {a.by}, <ShopTime when={a.at} />
           </li>
         ))}

@@ -6,7 +6,9 @@ import { Button } from '@/features/ui/button';
 import { FormMessage } from '@/features/ui/form-message';
 import type { ApproveInput, SendBackInput } from '../schemas';
 
-type Result = { ok: true; message?: string } | { ok: false; message: string; fieldErrors?: Record<string, string[] | undefined> };
+type Result =
+  | { ok: true; message?: string }
+  | { ok: false; message: string; fieldErrors?: Record<string, string[] | undefined> };
 type Props = {
   jobId: string;
   /** Why this lead may not decide now (not awaiting sign-off, their own work…), or null. */
@@ -20,22 +22,34 @@ type Props = {
   sendBack: (prev: unknown, input: SendBackInput) => Promise<Result>;
 };
 
-const AREA = 'min-h-20 w-full rounded-lg border-2 bg-paper p-2 text-base text-ink aria-[invalid=true]:border-danger';
+const AREA =
+  'min-h-20 w-full rounded-lg border-2 bg-paper p-2 text-base text-ink aria-[invalid=true]:border-danger';
 
 /** Approve (each blocking anomaly acknowledged with a reason) or send wheels back with a note each. */
-export function DecidePanel({ jobId, refusal, selfReview, blocking, wheels, steps, approve, sendBack }: Props) {
+export function DecidePanel({
+  jobId,
+  refusal,
+  selfReview,
+  blocking,
+  wheels,
+  steps,
+  approve,
+  sendBack,
+}: Props) {
   const router = useRouter();
   const [pending, start] = useTransition();
   const [result, setResult] = useState<Result | null>(null);
   const [reasons, setReasons] = useState<Record<string, string>>({});
   const [note, setNote] = useState('');
-  const [back, setBack] = useState<Record<string, { note: string; steps: string[] } | undefined>>({});
+  const [back, setBack] = useState<Record<string, { note: string; steps: string[] } | undefined>>(
+    {},
+  );
   if (refusal) {
     // After a decision the page refreshes into this: the outcome stays on screen above why.
     return (
       <div className="flex flex-col gap-3">
         <FormMessage state={result} />
-        <p className="rounded-lg bg-paper-dim p-3">{refusal}</p>
+        <p className="bg-paper-dim rounded-lg p-3">{refusal}</p>
       </div>
     );
   }
@@ -55,7 +69,13 @@ export function DecidePanel({ jobId, refusal, selfReview, blocking, wheels, step
         className="flex flex-col gap-3"
         onSubmit={(e) => {
           e.preventDefault();
-          run(() => approve(null, { jobId, note, acknowledgements: Object.entries(reasons).map(([key, reason]) => ({ key, reason })) }));
+          run(() =>
+            approve(null, {
+              jobId,
+              note,
+              acknowledgements: Object.entries(reasons).map(([key, reason]) => ({ key, reason })),
+            }),
+          );
         }}
       >
         <h3 className="text-lg font-bold">Sign off</h3>
@@ -72,13 +92,31 @@ export function DecidePanel({ jobId, refusal, selfReview, blocking, wheels, step
               placeholder="Why this is acceptable (kept on the record)"
               onChange={(e) => setReasons((r) => ({ ...r, [a.key]: e.target.value }))}
             />
-            {errors(`acknowledgements.${a.key}`) ? <span className="text-sm font-semibold text-danger" role="alert">{errors(`acknowledgements.${a.key}`)!.join(' ')}</span> : null}
+            {errors(`acknowledgements.${a.key}`) ? (
+              <span className="text-danger text-sm font-semibold" role="alert">
+                {errors(`acknowledgements.${a.key}`)!.join(' ')}
+              </span>
+            ) : null}
           </label>
         ))}
         <label className="flex flex-col gap-1">
-          <span className="font-semibold">{selfReview ? 'You worked on this job: why are you signing it off yourself? (required, kept on the record)' : 'Note (optional)'}</span>
-          <textarea className={AREA} name="note" value={note} aria-invalid={Boolean(errors('note'))} onChange={(e) => setNote(e.target.value)} />
-          {errors('note') ? <span className="text-sm font-semibold text-danger" role="alert">{errors('note')!.join(' ')}</span> : null}
+          <span className="font-semibold">
+            {selfReview
+              ? 'You worked on this job: why are you signing it off yourself? (required, kept on the record)'
+              : 'Note (optional)'}
+          </span>
+          <textarea
+            className={AREA}
+            name="note"
+            value={note}
+            aria-invalid={Boolean(errors('note'))}
+            onChange={(e) => setNote(e.target.value)}
+          />
+          {errors('note') ? (
+            <span className="text-danger text-sm font-semibold" role="alert">
+              {errors('note')!.join(' ')}
+            </span>
+          ) : null}
         </label>
         <Button disabled={pending}>Sign off</Button>
       </form>
@@ -88,21 +126,36 @@ export function DecidePanel({ jobId, refusal, selfReview, blocking, wheels, step
         className="flex flex-col gap-3"
         onSubmit={(e) => {
           e.preventDefault();
-          const chosen = wheels.filter((w) => back[w.id]).map((w) => ({ wheelId: w.id, note: back[w.id]!.note, steps: back[w.id]!.steps }));
+          const chosen = wheels
+            .filter((w) => back[w.id])
+            .map((w) => ({ wheelId: w.id, note: back[w.id]!.note, steps: back[w.id]!.steps }));
           run(() => sendBack(null, { jobId, wheels: chosen }));
         }}
       >
         <h3 className="text-lg font-bold">Send back</h3>
-        <p className="text-sm text-ink-soft">Tick the wheels to redo and say what to redo on each; pick steps to redo only those (none ticked: the whole wheel).</p>
+        <p className="text-ink-soft text-sm">
+          Tick the wheels to redo and say what to redo on each; pick steps to redo only those (none
+          ticked: the whole wheel).
+        </p>
         {wheels.map((w) => {
           const entry = back[w.id];
           // Errors come back by the wheel's place among those ticked.
           const i = wheels.filter((x) => back[x.id]).findIndex((x) => x.id === w.id);
           return (
-            <fieldset key={w.id} className="rounded-lg border border-paper-line p-2">
+            <fieldset key={w.id} className="border-paper-line rounded-lg border p-2">
               <legend className="px-1">
                 <label className="flex items-center gap-2 font-semibold">
-                  <input type="checkbox" className="size-6" checked={Boolean(entry)} onChange={(e) => setBack((b) => ({ ...b, [w.id]: e.target.checked ? { note: '', steps: [] } : undefined }))} />
+                  <input
+                    type="checkbox"
+                    className="size-6"
+                    checked={Boolean(entry)}
+                    onChange={(e) =>
+                      setBack((b) => ({
+                        ...b,
+                        [w.id]: e.target.checked ? { note: '', steps: [] } : undefined,
+                      }))
+                    }
+                  />
                   Send back the {w.position} wheel
                 </label>
               </legend>
@@ -110,8 +163,19 @@ export function DecidePanel({ jobId, refusal, selfReview, blocking, wheels, step
                 <div className="flex flex-col gap-2">
                   <label className="flex flex-col gap-1">
                     <span>What to redo on the {w.position} wheel</span>
-                    <textarea className={AREA} value={entry.note} aria-invalid={Boolean(errors(`wheels.${i}.note`))} onChange={(e) => setBack((b) => ({ ...b, [w.id]: { ...entry, note: e.target.value } }))} />
-                    {errors(`wheels.${i}.note`) ? <span className="text-sm font-semibold text-danger" role="alert">{errors(`wheels.${i}.note`)!.join(' ')}</span> : null}
+                    <textarea
+                      className={AREA}
+                      value={entry.note}
+                      aria-invalid={Boolean(errors(`wheels.${i}.note`))}
+                      onChange={(e) =>
+                        setBack((b) => ({ ...b, [w.id]: { ...entry, note: e.target.value } }))
+                      }
+                    />
+                    {errors(`wheels.${i}.note`) ? (
+                      <span className="text-danger text-sm font-semibold" role="alert">
+                        {errors(`wheels.${i}.note`)!.join(' ')}
+                      </span>
+                    ) : null}
                   </label>
                   <div className="flex flex-wrap gap-3 text-sm">
                     {steps.map((s) => (
@@ -119,7 +183,17 @@ export function DecidePanel({ jobId, refusal, selfReview, blocking, wheels, step
                         <input
                           type="checkbox"
                           checked={entry.steps.includes(s.id)}
-                          onChange={(e) => setBack((b) => ({ ...b, [w.id]: { ...entry, steps: e.target.checked ? [...entry.steps, s.id] : entry.steps.filter((x) => x !== s.id) } }))}
+                          onChange={(e) =>
+                            setBack((b) => ({
+                              ...b,
+                              [w.id]: {
+                                ...entry,
+                                steps: e.target.checked
+                                  ? [...entry.steps, s.id]
+                                  : entry.steps.filter((x) => x !== s.id),
+                              },
+                            }))
+                          }
                         />
                         {s.title}
                       </label>

@@ -7,9 +7,15 @@ export function LatestDecision({ decision }: { decision: Decision | null }) {
   if (!decision) return null;
   const signed = decision.action === 'sign_off';
   return (
-    <p role="status" className={`rounded-lg border-2 p-3 ${signed ? 'border-ok bg-ok-tint' : 'border-ink bg-paper-dim'}`}>
-      <strong>{signed ? 'Signed off' : 'Sent back'}</strong> by {decision.by}, <ShopTime when={decision.at} />
-      {decision.note ? <span className="mt-1 block whitespace-pre-wrap text-sm">{decision.note}</span> : null}
+    <p
+      role="status"
+      className={`rounded-lg border-2 p-3 ${signed ? 'border-ok bg-ok-tint' : 'border-ink bg-paper-dim'}`}
+    >
+      <strong>{signed ? 'Signed off' : 'Sent back'}</strong> by {decision.by},{' '}
+      <ShopTime when={decision.at} />
+      {decision.note ? (
+        <span className="mt-1 block text-sm whitespace-pre-wrap">{decision.note}</span>
+      ) : null}
     </p>
   );
 }

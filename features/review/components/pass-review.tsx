@@ -11,40 +11,79 @@ import type { WrenchUse } from '../anomalies';
  * sequence (out-of-order bolts marked on both, and in words), the wrench and setting with its
  * verification, and each bolt's time, person and phone.
  */
-export function PassReview({ pass, passCount, boltCount, uses, people }: { pass: PassRecord; passCount: number; boltCount: number; uses: WrenchUse[]; people: Record<string, string> }) {
+export function PassReview({
+  pass,
+  passCount,
+  boltCount,
+  uses,
+  people,
+}: {
+  pass: PassRecord;
+  passCount: number;
+  boltCount: number;
+  uses: WrenchUse[];
+  people: Record<string, string>;
+}) {
   const label = passLabel(pass, passCount);
   const actual = pass.confirmed.map((c) => c.bolt);
   const marked = pass.confirmed.filter((c) => c.outOfOrder).map((c) => c.bolt);
   return (
-    <section className="rounded-lg border border-paper-line p-3" aria-label={label}>
+    <section className="border-paper-line rounded-lg border p-3" aria-label={label}>
       <h4 className="font-bold first-letter:uppercase">{label}</h4>
-      {!pass.complete ? <p className="font-semibold text-danger">{pass.confirmed.length} of {boltCount} bolts confirmed.</p> : null}
+      {!pass.complete ? (
+        <p className="text-danger font-semibold">
+          {pass.confirmed.length} of {boltCount} bolts confirmed.
+        </p>
+      ) : null}
       <ul className="my-2 text-sm">
         {uses.map((u) => (
           <li key={u.wrenchId ?? 'none'}>
             <strong>{u.label}</strong>
-            {u.setting ? ` set to ${formatTorque(u.setting, 2)}` : ''} — {u.verifiedAt ? (
+            {u.setting ? ` set to ${formatTorque(u.setting, 2)}` : ''} —{' '}
+            {u.verifiedAt ? (
               <>
                 {u.verification}, <ShopTime when={u.verifiedAt} />
               </>
             ) : (
-              <span className="font-semibold text-danger">{u.verification || 'no verification on record'}</span>
+              <span className="text-danger font-semibold">
+                {u.verification || 'no verification on record'}
+              </span>
             )}
           </li>
         ))}
       </ul>
       <div className="grid gap-3 sm:grid-cols-2">
         <figure>
-          <BoltCircle count={boltCount} order={actual} done={[]} mode="preview" passLabel={label} marked={marked} label={`${label}: order confirmed`} />
-          <figcaption className="text-center text-sm font-semibold">Order confirmed{marked.length ? ` (dashed: out of order)` : ''}</figcaption>
+          <BoltCircle
+            count={boltCount}
+            order={actual}
+            done={[]}
+            mode="preview"
+            passLabel={label}
+            marked={marked}
+            label={`${label}: order confirmed`}
+          />
+          <figcaption className="text-center text-sm font-semibold">
+            Order confirmed{marked.length ? ` (dashed: out of order)` : ''}
+          </figcaption>
         </figure>
         <figure>
-          <BoltCircle count={boltCount} order={pass.order} done={[]} mode="preview" passLabel={label} marked={marked} label={`${label}: planned sequence`} />
+          <BoltCircle
+            count={boltCount}
+            order={pass.order}
+            done={[]}
+            mode="preview"
+            passLabel={label}
+            marked={marked}
+            label={`${label}: planned sequence`}
+          />
           <figcaption className="text-center text-sm font-semibold">Planned sequence</figcaption>
         </figure>
       </div>
       <details open={marked.length > 0} className="mt-2">
-        <summary className="cursor-pointer font-semibold">Each bolt ({pass.confirmed.length})</summary>
+        <summary className="cursor-pointer font-semibold">
+          Each bolt ({pass.confirmed.length})
+        </summary>
         <table className="mt-2 w-full text-left text-sm">
           <thead>
             <tr>
@@ -59,10 +98,17 @@ export function PassReview({ pass, passCount, boltCount, uses, people }: { pass:
           </thead>
           <tbody>
             {pass.confirmed.map((c, i) => (
-              <tr key={c.bolt} className={c.outOfOrder ? 'bg-danger-tint font-semibold' : undefined}>
+              <tr
+                key={c.bolt}
+                className={c.outOfOrder ? 'bg-danger-tint font-semibold' : undefined}
+              >
                 <td>{i + 1}</td>
                 <td>{c.bolt}</td>
-                <td>{c.outOfOrder ? `out of order (plan: ${c.expected ?? '—'})` : pass.order[i] ?? '—'}</td>
+                <td>
+                  {c.outOfOrder
+                    ? `out of order (plan: ${c.expected ?? '—'})`
+                    : (pass.order[i] ?? '—')}
+                </td>
                 <td>
                   <ShopTime when={c.at} style="time" />
                 </td>

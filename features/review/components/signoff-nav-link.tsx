@@ -12,7 +12,10 @@ export function SignoffNavLink() {
       Sign-off
       {count ? (
         <>
-          <span className="ml-1.5 inline-flex min-w-6 items-center justify-center rounded-full bg-white px-1.5 text-sm font-black text-work" aria-hidden>
+          <span
+            className="text-work ml-1.5 inline-flex min-w-6 items-center justify-center rounded-full bg-white px-1.5 text-sm font-black"
+            aria-hidden
+          >
             {count}
           </span>
           <span className="sr-only"> ({count} waiting)</span>

@@ -16,19 +16,43 @@ type Tx = Parameters<Parameters<ReturnType<typeof getDb>['transaction']>[0]>[0];
  * (`transition`, the jobs feature's own path with its rules), so a sign-off never lands without
  * them. The note the move records lists them for the job's history.
  */
-export async function signOffReviewed(member: Member, input: ApproveInput, sources: ReviewSources, transition: (tx: Tx, note: string) => Promise<unknown>) {
+export async function signOffReviewed(
+  member: Member,
+  input: ApproveInput,
+  sources: ReviewSources,
+  transition: (tx: Tx, note: string) => Promise<unknown>,
+) {
   const review = await getJobReview(member.shopId, input.jobId, sources);
   const { accepted, missing } = matchAcknowledgements(review.anomalies, input.acknowledgements);
   if (missing.length) {
     const message = 'Acknowledge every anomaly that blocks sign-off with a reason first.';
-    throw new DomainError('invalid', message, Object.fromEntries(missing.map((a) => [`acknowledgements.${a.key}`, ['Say why this is acceptable before signing off.']])));
+    throw new DomainError(
+      'invalid',
+      message,
+      Object.fromEntries(
+        missing.map((a) => [
+          `acknowledgements.${a.key}`,
+          ['Say why this is acceptable before signing off.'],
+        ]),
+      ),
+    );
   }
   const at = new Date();
   await getDb().transaction(async (tx) => {
     await transition(tx, signoffNote(input.note, accepted));
     if (accepted.length) {
       await tx.insert(anomalyAcknowledgements).values(
-        accepted.map(({ anomaly, reason }) => ({ shopId: member.shopId, jobId: input.jobId, wheelId: anomaly.wheelId, anomalyKey: anomaly.key, code: anomaly.code, message: anomaly.message, reason, byId: member.userId, at })),
+        accepted.map(({ anomaly, reason }) => ({
+          shopId: member.shopId,
+          jobId: input.jobId,
+          wheelId: anomaly.wheelId,
+          anomalyKey: anomaly.key,
+          code: anomaly.code,
+          message: anomaly.message,
+          reason,
+          byId: member.userId,
+          at,
+        })),
       );
     }
   });
@@ -38,12 +62,22 @@ export async function signOffReviewed(member: Member, input: ApproveInput, sourc
 export type Acknowledgement = { message: string; reason: string; by: string; at: string };
 
 /** Every acknowledgement on the job, oldest first, with who gave it. */
-export async function listAcknowledgements(shopId: string, jobId: string): Promise<Acknowledgement[]> {
+export async function listAcknowledgements(
+  shopId: string,
+  jobId: string,
+): Promise<Acknowledgement[]> {
   const rows = await getDb()
-    .select({ message: anomalyAcknowledgements.message, reason: anomalyAcknowledgements.reason, by: users.name, at: anomalyAcknowledgements.at })
+    .select({
+      message: anomalyAcknowledgements.message,
+      reason: anomalyAcknowledgements.reason,
+      by: users.name,
+      at: anomalyAcknowledgements.at,
+    })
     .from(anomalyAcknowledgements)
     .innerJoin(users, eq(users.id, anomalyAcknowledgements.byId))
-    .where(and(eq(anomalyAcknowledgements.shopId, shopId), eq(anomalyAcknowledgements.jobId, jobId)))
+    .where(
+      and(eq(anomalyAcknowledgements.shopId, shopId), eq(anomalyAcknowledgements.jobId, jobId)),
+    )
     .orderBy(asc(anomalyAcknowledgements.at));
   return rows.map((r) => ({ ...r, at: r.at.toISOString() }));
 }

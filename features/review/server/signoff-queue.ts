@@ -25,7 +25,11 @@ const QUEUE_LIMIT = 50;
  * The shop's job cards awaiting sign-off, oldest first, each with its anomalies counted by severity.
  * `countOnly`: just how many (the nav polls it), without computing every job's anomalies.
  */
-export async function getSignoffQueue(shopId: string, sources: ReviewSources, { countOnly = false } = {}): Promise<SignoffQueue> {
+export async function getSignoffQueue(
+  shopId: string,
+  sources: ReviewSources,
+  { countOnly = false } = {},
+): Promise<SignoffQueue> {
   const db = getDb();
   const since = max(jobEvents.at);
   const rows = await db
@@ -45,7 +49,14 @@ export async function getSignoffQueue(shopId: string, sources: ReviewSources, { 
     .innerJoin(customers, eq(customers.id, jobs.customerId))
     .innerJoin(vehicles, eq(vehicles.id, jobs.vehicleId))
     .leftJoin(users, eq(users.id, jobs.assigneeId))
-    .leftJoin(jobEvents, and(eq(jobEvents.jobId, jobs.id), eq(jobEvents.shopId, shopId), eq(jobEvents.toState, 'awaiting_signoff')))
+    .leftJoin(
+      jobEvents,
+      and(
+        eq(jobEvents.jobId, jobs.id),
+        eq(jobEvents.shopId, shopId),
+        eq(jobEvents.toState, 'awaiting_signoff'),
+      ),
+    )
     .where(and(eq(jobs.shopId, shopId), eq(jobs.state, 'awaiting_signoff')))
     .groupBy(jobs.id, customers.name, vehicles.id, users.name)
     .orderBy(asc(sql`coalesce(${since}, ${jobs.updatedAt})`), asc(jobs.number));
@@ -58,7 +69,8 @@ export async function getSignoffQueue(shopId: string, sources: ReviewSources, { 
       id: r.id,
       number: r.number,
       customerName: r.customerName,
-      vehicleLabel: [r.year, r.make, r.model].filter(Boolean).join(' ') || r.description || 'Vehicle',
+      vehicleLabel:
+        [r.year, r.make, r.model].filter(Boolean).join(' ') || r.description || 'Vehicle',
       assigneeName: r.assigneeName,
       awaitingSince: (r.since ?? r.updatedAt).toISOString(),
       ...countBySeverity(reviews[i]!.anomalies),

@@ -11,7 +11,8 @@ export const UploadButton = generateUploadButton<PhotoRouter>();
  * (from `appearance`) last. Keeping only ours lets the shop theme replace the stock look whole,
  * instead of two sets of sizes and colours fighting over one element.
  */
-export const oursOnly = (...classes: (string | false | null | undefined)[]) => (classes.at(-1) || '') as string;
+export const oursOnly = (...classes: (string | false | null | undefined)[]) =>
+  (classes.at(-1) || '') as string;
 
 /**
  * Shrinks a photo on the phone before it travels over the shop Wi-Fi: long edge about 2000 px,
@@ -25,9 +26,14 @@ export async function downscale(file: File, longEdge = 2000): Promise<File> {
     canvas.width = Math.round(bitmap.width * scale);
     canvas.height = Math.round(bitmap.height * scale);
     canvas.getContext('2d')!.drawImage(bitmap, 0, 0, canvas.width, canvas.height);
-    const blob = await new Promise<Blob | null>((resolve) => canvas.toBlob(resolve, 'image/jpeg', 0.85));
+    const blob = await new Promise<Blob | null>((resolve) =>
+      canvas.toBlob(resolve, 'image/jpeg', 0.85),
+    );
     if (!blob) return file;
-    return new File([blob], file.name.replace(/\.[^.]+$/, '') + '.jpg', { type: 'image/jpeg', lastModified: file.lastModified });
+    return new File([blob], file.name.replace(/\.[^.]+$/, '') + '.jpg', {
+      type: 'image/jpeg',
+      lastModified: file.lastModified,
+    });
   } catch {
     return file;
   }

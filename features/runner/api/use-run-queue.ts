@@ -22,14 +22,24 @@ export type OthersWaiting = { ownerName: string; waiting: number };
  * What the phone keeps per person and wheel. `generation`: the lead's latest send-back of the
  * wheel (its time), so a phone drops its copy of events the send-back superseded.
  */
-type Held = { owner: QueuePerson; pending: ClientEvent[]; saved: ClientEvent[]; attention: AttentionItem[]; generation: string | null };
+type Held = {
+  owner: QueuePerson;
+  pending: ClientEvent[];
+  saved: ClientEvent[];
+  attention: AttentionItem[];
+  generation: string | null;
+};
 
 const PREFIX = 'ringpass:run:';
 /** The outbox key: person and wheel, so one person's waiting events are never sent in another's session. */
 export const outboxKey = (personId: string, wheelId: string) => `${PREFIX}${personId}:${wheelId}`;
 
 /** Other people's waiting events for this wheel, from the phone's stored outboxes (pure, for the screen and tests). */
-export function othersWaiting(entries: readonly [string, unknown][], person: QueuePerson, wheelId: string): OthersWaiting[] {
+export function othersWaiting(
+  entries: readonly [string, unknown][],
+  person: QueuePerson,
+  wheelId: string,
+): OthersWaiting[] {
   return entries.flatMap(([k, value]) => {
     if (k === outboxKey(person.id, wheelId)) return [];
     const legacy = k === `${PREFIX}${wheelId}`;
@@ -37,7 +47,9 @@ export function othersWaiting(entries: readonly [string, unknown][], person: Que
     const held = value as Partial<Held> | undefined;
     const waiting = held?.pending?.length ?? 0;
     // Stored before outboxes were kept per person: whose they are is unknown, so they are not sent.
-    return waiting ? [{ ownerName: held?.owner?.name ?? 'someone (from before an update)', waiting }] : [];
+    return waiting
+      ? [{ ownerName: held?.owner?.name ?? 'someone (from before an update)', waiting }]
+      : [];
   });
 }
 
@@ -50,9 +62,11 @@ function subscribeOnline(change: () => void) {
   };
 }
 
-
 /** The server action that stores a batch (passed down from the runner page). */
-export type SaveEvents = (prev: unknown, input: { wheelId: string; events: ClientEvent[] }) => Promise<ActionResult<{ saved: number; duplicates: number; refused?: EventRefusal[] }>>;
+export type SaveEvents = (
+  prev: unknown,
+  input: { wheelId: string; events: ClientEvent[] },
+) => Promise<ActionResult<{ saved: number; duplicates: number; refused?: EventRefusal[] }>>;
 
 // Refusals that may pass: a session that ended (sign in again), a rate limit, our own failure.
 const KEEP_AND_RETRY = new Set<FailureCode>(['unauthenticated', 'rate_limited', 'internal']);
@@ -60,7 +74,8 @@ const KEEP_AND_RETRY = new Set<FailureCode>(['unauthenticated', 'rate_limited', 
 /** What the technician reads when the server set some confirmations aside. */
 export function refusalMessage(refused: EventRefusal[]): string | null {
   if (refused.length === 0) return null;
-  const what = refused.length === 1 ? 'One confirmation was' : `${refused.length} confirmations were`;
+  const what =
+    refused.length === 1 ? 'One confirmation was' : `${refused.length} confirmations were`;
   return `${what} not saved and set aside: ${refused[0]!.message} Everything else was saved; redo that step if it still needs doing.`;
 }
 
@@ -78,15 +93,30 @@ function reloadForNewBuild(): boolean {
  * once, kept in IndexedDB until the server has it, and sent in order when the network allows.
  * The server stores each id once, so sending again after a drop or a reload is always safe.
  */
-export function useRunQueue(wheelId: string, serverEvents: ClientEvent[], saveEvents: SaveEvents, person: QueuePerson, generation: string | null = null) {
+export function useRunQueue(
+  wheelId: string,
+  serverEvents: ClientEvent[],
+  saveEvents: SaveEvents,
+  person: QueuePerson,
+  generation: string | null = null,
+) {
   const [saved, setSaved] = useState<ClientEvent[]>(serverEvents);
   const [pending, setPending] = useState<ClientEvent[]>([]);
   const [attention, setAttention] = useState<AttentionItem[]>([]);
   const [others, setOthers] = useState<OthersWaiting[]>([]);
-  const [status, setStatus] = useState<Status>({ waiting: 0, error: null, ready: false, signedOut: false });
+  const [status, setStatus] = useState<Status>({
+    waiting: 0,
+    error: null,
+    ready: false,
+    signedOut: false,
+  });
   const attentionRef = useRef<AttentionItem[]>([]);
   const key = outboxKey(person.id, wheelId);
-  const online = useSyncExternalStore(subscribeOnline, () => navigator.onLine, () => true);
+  const online = useSyncExternalStore(
+    subscribeOnline,
+    () => navigator.onLine,
+    () => true,
+  );
   const flushRef = useRef<() => Promise<void>>(async () => {});
   const pendingRef = useRef<ClientEvent[]>([]);
   const loaded = useRef(false); // status.ready, readable inside the send callback without re-creating it
@@ -98,7 +128,14 @@ export function useRunQueue(wheelId: string, serverEvents: ClientEvent[], saveEv
   // The device keeps both what waits and what the server already has, so a reload while offline
   // (the page then comes from the service worker's copy) still shows every confirmation.
   const persist = useCallback(
-    () => set(key, { owner: person, pending: pendingRef.current, saved: savedRef.current, attention: attentionRef.current, generation } satisfies Held),
+    () =>
+      set(key, {
+        owner: person,
+        pending: pendingRef.current,
+        saved: savedRef.current,
+        attention: attentionRef.current,
+        generation,
+      } satisfies Held),
     [key, person, generation],
   );
 
@@ -146,13 +183,27 @@ export function useRunQueue(wheelId: string, serverEvents: ClientEvent[], saveEv
         // a message), everything else in the batch was stored.
         const refusals = result.data.refused ?? [];
         const refused = new Set(refusals.map((r) => batch[r.index]?.clientId));
-        setAside(refusals.flatMap((r) => (batch[r.index] ? [{ event: batch[r.index]!, reason: r.message }] : [])));
+        setAside(
+          refusals.flatMap((r) =>
+            batch[r.index] ? [{ event: batch[r.index]!, reason: r.message }] : [],
+          ),
+        );
         addSaved(batch.filter((e) => !refused.has(e.clientId)));
         await store(pendingRef.current.filter((e) => !sent.has(e.clientId)));
-        setStatus((s) => ({ ...s, error: refusalMessage(result.data.refused ?? []), signedOut: false }));
+        setStatus((s) => ({
+          ...s,
+          error: refusalMessage(result.data.refused ?? []),
+          signedOut: false,
+        }));
       } else if (KEEP_AND_RETRY.has(result.code)) {
         const signedOut = result.code === 'unauthenticated';
-        setStatus((s) => ({ ...s, signedOut, error: signedOut ? 'Your session has ended. Everything waiting stays on this phone.' : result.message }));
+        setStatus((s) => ({
+          ...s,
+          signedOut,
+          error: signedOut
+            ? 'Your session has ended. Everything waiting stays on this phone.'
+            : result.message,
+        }));
         backOff();
       } else {
         // The server refused these for good (bad data, no permission): keep them out of the queue
@@ -180,7 +231,14 @@ export function useRunQueue(wheelId: string, serverEvents: ClientEvent[], saveEv
     let cancelled = false;
     void (async () => {
       const held = await get<Held>(key);
-      const all = await keys().then((ks) => Promise.all(ks.map(String).filter((k) => k.startsWith(PREFIX) && k.endsWith(wheelId)).map(async (k) => [k, await get(k)] as [string, unknown])));
+      const all = await keys().then((ks) =>
+        Promise.all(
+          ks
+            .map(String)
+            .filter((k) => k.startsWith(PREFIX) && k.endsWith(wheelId))
+            .map(async (k) => [k, await get(k)] as [string, unknown]),
+        ),
+      );
       if (cancelled) return;
       setOthers(othersWaiting(all, person, wheelId));
       loaded.current = true;
@@ -218,14 +276,22 @@ export function useRunQueue(wheelId: string, serverEvents: ClientEvent[], saveEv
     attempt.current = 0;
     void flush();
   }, [online, flush]);
-  useEffect(() => () => {
-    if (retry.current) clearTimeout(retry.current);
-  }, []);
+  useEffect(
+    () => () => {
+      if (retry.current) clearTimeout(retry.current);
+    },
+    [],
+  );
 
   const record = useCallback(
     async (event: RunEvent) => {
       // `deviceId`: which phone confirmed it, for the lead's review (a shared phone and a second phone both show).
-      const full = { ...event, clientId: crypto.randomUUID(), clientAt: new Date().toISOString(), deviceId: deviceId() } as ClientEvent;
+      const full = {
+        ...event,
+        clientId: crypto.randomUUID(),
+        clientAt: new Date().toISOString(),
+        deviceId: deviceId(),
+      } as ClientEvent;
       await store([...pendingRef.current, full]);
       void flush();
     },

@@ -4,7 +4,10 @@ import { MAKER_FIRST } from '../steps';
 export function Caution({ items }: { items: string[] }) {
   if (!items.length) return null;
   return (
-    <aside aria-label="Caution" className="rounded-xl border-l-8 border-caution bg-caution-tint p-3 text-caution-ink">
+    <aside
+      aria-label="Caution"
+      className="border-caution bg-caution-tint text-caution-ink rounded-xl border-l-8 p-3"
+    >
       <p className="font-black tracking-wide">⚠ CAUTION</p>
       <ul className="ml-5 list-disc">
         {items.map((c) => (

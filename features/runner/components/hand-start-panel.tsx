@@ -35,21 +35,50 @@ export function HandStartPanel({
   photoSlot?: PhotoSlotFor;
 }) {
   const [problem, setProblem] = useState(false);
-  const toggle = (bolt: number) => void record({ type: started.includes(bolt) ? 'hand_unstarted' : 'hand_started', payload: { bolt } });
-  if (problem) return <BoltProblemForm bolt={next ?? started.at(-1) ?? 1} record={record} onCancel={() => setProblem(false)} photoSlot={photoSlot} />;
+  const toggle = (bolt: number) =>
+    void record({
+      type: started.includes(bolt) ? 'hand_unstarted' : 'hand_started',
+      payload: { bolt },
+    });
+  if (problem)
+    return (
+      <BoltProblemForm
+        bolt={next ?? started.at(-1) ?? 1}
+        record={record}
+        onCancel={() => setProblem(false)}
+        photoSlot={photoSlot}
+      />
+    );
   return (
     <div className="flex flex-col gap-4">
       <SpecWordsBox words={specWords} />
       <Caution items={cautions} />
       <RingLayout
         ring={
-          <BoltCircle count={boltCount} done={started} next={next} mode="hand-start" onSelect={toggle} flagged={flaggedBolts} label={`Hand-start: ${started.length} of ${boltCount} bolts started`} />
+          <BoltCircle
+            count={boltCount}
+            done={started}
+            next={next}
+            mode="hand-start"
+            onSelect={toggle}
+            flagged={flaggedBolts}
+            label={`Hand-start: ${started.length} of ${boltCount} bolts started`}
+          />
         }
       >
         <p aria-live="polite" className="text-center text-lg">
           {started.length} of {boltCount} started{next ? ` · next: bolt ${next}` : ''}
         </p>
-        {boltCount >= LIST_FROM ? <BoltList count={boltCount} done={started} next={next} flagged={flaggedBolts} onSelect={toggle} doneWord="started" /> : null}
+        {boltCount >= LIST_FROM ? (
+          <BoltList
+            count={boltCount}
+            done={started}
+            next={next}
+            flagged={flaggedBolts}
+            onSelect={toggle}
+            doneWord="started"
+          />
+        ) : null}
         {next ? (
           <>
             <p className="text-center font-semibold">Press the ring down to start the next bolt.</p>
@@ -58,11 +87,21 @@ export function HandStartPanel({
             </button>
           </>
         ) : (
-          <button type="button" onClick={() => void record({ type: 'step_done', payload: { step: 'hand_start', checklist: [] } })} className="min-h-16 w-full rounded-xl bg-work px-4 text-lg font-bold text-white">
+          <button
+            type="button"
+            onClick={() =>
+              void record({ type: 'step_done', payload: { step: 'hand_start', checklist: [] } })
+            }
+            className="bg-work min-h-16 w-full rounded-xl px-4 text-lg font-bold text-white"
+          >
             All bolts started — step done
           </button>
         )}
-        <button type="button" onClick={() => setProblem(true)} className="min-h-14 rounded-xl border-2 border-danger px-2 font-bold text-danger">
+        <button
+          type="button"
+          onClick={() => setProblem(true)}
+          className="border-danger text-danger min-h-14 rounded-xl border-2 px-2 font-bold"
+        >
           Problem with this bolt
         </button>
       </RingLayout>

@@ -28,14 +28,26 @@ function describe(e: ClientEvent): string {
  * Events the server refused for good, kept on this phone with the reason (the lead sees the same
  * list on the review), and other people's confirmations waiting on this phone for their owner.
  */
-export function NeedsAttention({ items, others, onDismiss }: { items: AttentionItem[]; others: OthersWaiting[]; onDismiss: () => void }) {
+export function NeedsAttention({
+  items,
+  others,
+  onDismiss,
+}: {
+  items: AttentionItem[];
+  others: OthersWaiting[];
+  onDismiss: () => void;
+}) {
   if (!items.length && !others.length) return null;
   return (
-    <section aria-label="Needs attention" className="rounded-xl border-4 border-danger bg-danger-tint p-3 text-danger">
+    <section
+      aria-label="Needs attention"
+      className="border-danger bg-danger-tint text-danger rounded-xl border-4 p-3"
+    >
       <h2 className="text-lg font-black">Needs attention</h2>
       {others.map((o) => (
         <p key={o.ownerName} className="font-semibold">
-          {o.waiting} {o.waiting === 1 ? 'confirmation' : 'confirmations'} by {o.ownerName} wait on this phone; they are sent only when {o.ownerName} signs in here again.
+          {o.waiting} {o.waiting === 1 ? 'confirmation' : 'confirmations'} by {o.ownerName} wait on
+          this phone; they are sent only when {o.ownerName} signs in here again.
         </p>
       ))}
       {items.length ? (
@@ -48,7 +60,11 @@ export function NeedsAttention({ items, others, onDismiss }: { items: AttentionI
               </li>
             ))}
           </ul>
-          <button type="button" onClick={onDismiss} className="mt-2 inline-flex min-h-touch items-center rounded-lg border-2 border-danger px-3 font-bold">
+          <button
+            type="button"
+            onClick={onDismiss}
+            className="min-h-touch border-danger mt-2 inline-flex items-center rounded-lg border-2 px-3 font-bold"
+          >
             I have dealt with these
           </button>
         </>

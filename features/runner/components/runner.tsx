@@ -2,7 +2,13 @@
 
 import Link from 'next/link';
 import { useEffect, useMemo, useState } from 'react';
-import { arrowDirection, type PressureUnit, type RecordedVerification, type Torque, type WheelPosition } from '@/features/torque-plan';
+import {
+  arrowDirection,
+  type PressureUnit,
+  type RecordedVerification,
+  type Torque,
+  type WheelPosition,
+} from '@/features/torque-plan';
 import { useRunQueue, type SaveEvents } from '../api/use-run-queue';
 import type { ClientEvent } from '../events';
 import { missingPhotos } from '../photo-kinds';
@@ -24,7 +30,14 @@ import { useWakeLock } from './use-wake-lock';
 export type RunnerProps = {
   jobId: string;
   jobNumber: number;
-  wheel: { id: string; position: WheelPosition; tireSize: string; directional: boolean; targetPressure: number; pressureUnit: PressureUnit };
+  wheel: {
+    id: string;
+    position: WheelPosition;
+    tireSize: string;
+    directional: boolean;
+    targetPressure: number;
+    pressureUnit: PressureUnit;
+  };
   spec: {
     name: string;
     maxBeadSeatPressure: number;
@@ -57,8 +70,17 @@ export type RunnerProps = {
 /** The guided procedure for one wheel on a phone at the tire cart. */
 export function Runner(props: RunnerProps) {
   const { plan, wheel } = props;
-  const person = useMemo(() => ({ id: props.person.id, name: props.person.name }), [props.person.id, props.person.name]);
-  const { events, record, status, attention, others, dismiss } = useRunQueue(wheel.id, props.events, props.saveEvents, person, props.rework?.at ?? null);
+  const person = useMemo(
+    () => ({ id: props.person.id, name: props.person.name }),
+    [props.person.id, props.person.name],
+  );
+  const { events, record, status, attention, others, dismiss } = useRunQueue(
+    wheel.id,
+    props.events,
+    props.saveEvents,
+    person,
+    props.rework?.at ?? null,
+  );
   const state = useMemo(() => reduceRun(plan, events), [plan, events]);
   const [photos, setPhotos] = useState<Photo[]>(props.photos);
   const photoKinds = photos.map((p) => p.kind);
@@ -95,28 +117,42 @@ export function Runner(props: RunnerProps) {
 
   return (
     <div className="mx-auto flex min-h-dvh max-w-xl flex-col">
-      <header className="sticky top-0 z-10 bg-ink px-3 py-2 text-white landscape:py-1">
+      <header className="bg-ink sticky top-0 z-10 px-3 py-2 text-white landscape:py-1">
         <div className="flex items-center justify-between gap-2">
           {/* On its side the phone has little height: one line, so the ring keeps the room. */}
           <div className="flex min-w-0 flex-col landscape:flex-row landscape:items-center landscape:gap-3">
-            <Link href={`/jobs/${props.jobId}`} className="inline-flex min-h-touch shrink-0 items-center font-bold underline">
+            <Link
+              href={`/jobs/${props.jobId}`}
+              className="min-h-touch inline-flex shrink-0 items-center font-bold underline"
+            >
               ← Job #{props.jobNumber}
             </Link>
             <p className="font-semibold">
               {wheel.position} · {wheel.tireSize} · {props.spec.name}
             </p>
           </div>
-          <p role="status" aria-live="polite" className={`shrink-0 rounded-full px-3 py-1 text-sm font-bold ${!status.ready ? 'bg-white text-ink' : status.waiting ? 'bg-caution text-caution-ink' : 'bg-ok text-white'}`}>
-            {!status.ready ? 'Checking this phone…' : status.waiting ? `${status.waiting} waiting${status.online ? '' : ' · offline'}` : 'Saved'}
+          <p
+            role="status"
+            aria-live="polite"
+            className={`shrink-0 rounded-full px-3 py-1 text-sm font-bold ${!status.ready ? 'text-ink bg-white' : status.waiting ? 'bg-caution text-caution-ink' : 'bg-ok text-white'}`}
+          >
+            {!status.ready
+              ? 'Checking this phone…'
+              : status.waiting
+                ? `${status.waiting} waiting${status.online ? '' : ' · offline'}`
+                : 'Saved'}
           </p>
         </div>
         {status.error ? (
-          <p role="alert" className="mt-1 rounded bg-danger px-2 py-1 text-sm font-bold">
+          <p role="alert" className="bg-danger mt-1 rounded px-2 py-1 text-sm font-bold">
             {status.error}
             {status.signedOut ? (
               <>
                 {' '}
-                <a href={props.signInHref} className="inline-flex min-h-touch items-center underline">
+                <a
+                  href={props.signInHref}
+                  className="min-h-touch inline-flex items-center underline"
+                >
                   Sign in again
                 </a>
               </>
@@ -126,48 +162,131 @@ export function Runner(props: RunnerProps) {
       </header>
       <main className="flex flex-1 flex-col gap-4 p-3">
         <NeedsAttention items={attention} others={others} onDismiss={() => void dismiss()} />
-        {props.rework ? <ReworkNote note={props.rework.note} steps={props.rework.steps.map((id) => plan.steps.find((s) => s.id === id)?.title ?? id)} /> : null}
+        {props.rework ? (
+          <ReworkNote
+            note={props.rework.note}
+            steps={props.rework.steps.map((id) => plan.steps.find((s) => s.id === id)?.title ?? id)}
+          />
+        ) : null}
         {state.flagged ? (
-          <div role="alert" className="rounded-xl border-4 border-danger bg-danger-tint p-4 text-danger">
-            <p className="text-xl font-black">{flaggedBolts.length ? 'Wheel stopped: problem with a bolt' : 'Wheel stopped: inspection failed'}</p>
+          <div
+            role="alert"
+            className="border-danger bg-danger-tint text-danger rounded-xl border-4 p-4"
+          >
+            <p className="text-xl font-black">
+              {flaggedBolts.length
+                ? 'Wheel stopped: problem with a bolt'
+                : 'Wheel stopped: inspection failed'}
+            </p>
             <p>{state.flagged}</p>
-            <p className="mt-2 font-semibold">Leave the wheel as it is: it is flagged for a lead, and nothing goes back on the vehicle until a lead has looked at it and the parts are right.</p>
+            <p className="mt-2 font-semibold">
+              Leave the wheel as it is: it is flagged for a lead, and nothing goes back on the
+              vehicle until a lead has looked at it and the parts are right.
+            </p>
             {flaggedBolts.length ? (
               <div className="mt-3 bg-white">
-                <BoltCircle count={plan.boltCount} done={[]} mode="preview" flagged={flaggedBolts} label={`Bolt circle: bolt ${flaggedBolts.join(', ')} flagged`} />
+                <BoltCircle
+                  count={plan.boltCount}
+                  done={[]}
+                  mode="preview"
+                  flagged={flaggedBolts}
+                  label={`Bolt circle: bolt ${flaggedBolts.join(', ')} flagged`}
+                />
               </div>
             ) : null}
           </div>
         ) : (
           <>
             <h1 className="text-xl font-black sm:text-2xl">
-              <span className="text-ink-soft">Step {stepNo} of {plan.steps.length} · </span>
+              <span className="text-ink-soft">
+                Step {stepNo} of {plan.steps.length} ·{' '}
+              </span>
               {step.title}
             </h1>
             {step.id === 'hand_start' ? (
-              <HandStartPanel boltCount={plan.boltCount} started={state.handStarted} next={state.nextHandStart} cautions={step.cautions} record={record} specWords={props.spec.words} flaggedBolts={flaggedBolts} photoSlot={boltPhoto} />
+              <HandStartPanel
+                boltCount={plan.boltCount}
+                started={state.handStarted}
+                next={state.nextHandStart}
+                cautions={step.cautions}
+                record={record}
+                specWords={props.spec.words}
+                flaggedBolts={flaggedBolts}
+                photoSlot={boltPhoto}
+              />
             ) : step.id === 'torque' ? (
-              <TorquePanel state={state} targets={props.targets} wrenches={props.wrenches} verifications={props.verifications} rules={props.rules} cautions={step.cautions} boltCount={plan.boltCount} record={record} specWords={props.spec.words} flaggedBolts={flaggedBolts} photoSlot={boltPhoto} />
+              <TorquePanel
+                state={state}
+                targets={props.targets}
+                wrenches={props.wrenches}
+                verifications={props.verifications}
+                rules={props.rules}
+                cautions={step.cautions}
+                boltCount={plan.boltCount}
+                record={record}
+                specWords={props.spec.words}
+                flaggedBolts={flaggedBolts}
+                photoSlot={boltPhoto}
+              />
             ) : step.id === 'submit' ? (
-              <SummaryPanel wheelId={wheel.id} plan={plan} state={state} targets={props.targets} wrenches={props.wrenches} minFractionOfMax={props.rules.minFractionOfMax} photoKinds={photoKinds} waiting={status.waiting} />
+              <SummaryPanel
+                wheelId={wheel.id}
+                plan={plan}
+                state={state}
+                targets={props.targets}
+                wrenches={props.wrenches}
+                minFractionOfMax={props.rules.minFractionOfMax}
+                photoKinds={photoKinds}
+                waiting={status.waiting}
+              />
             ) : step.id === 'reinstall' ? (
-              <ReinstallPanel step={step} record={record} lug={props.spec.lug ?? { torque: null, count: null }} wrenches={props.wrenches} verifications={props.verifications} rules={props.rules} />
+              <ReinstallPanel
+                step={step}
+                record={record}
+                lug={props.spec.lug ?? { torque: null, count: null }}
+                wrenches={props.wrenches}
+                verifications={props.verifications}
+                rules={props.rules}
+              />
             ) : (
               <StepPanel
                 key={step.id}
                 step={step}
                 record={record}
-                limit={step.id === 'seat_bead' ? { value: props.spec.maxBeadSeatPressure, unit: props.spec.pressureUnit } : undefined}
+                limit={
+                  step.id === 'seat_bead'
+                    ? { value: props.spec.maxBeadSeatPressure, unit: props.spec.pressureUnit }
+                    : undefined
+                }
                 readingUnit={wheel.pressureUnit}
-                target={step.id === 'leak_check' ? { value: wheel.targetPressure, unit: wheel.pressureUnit } : undefined}
-                blocked={step.id === 'seat_bead' && missingPhotos(photoKinds).length ? 'Add both bead photos first.' : undefined}
+                target={
+                  step.id === 'leak_check'
+                    ? { value: wheel.targetPressure, unit: wheel.pressureUnit }
+                    : undefined
+                }
+                blocked={
+                  step.id === 'seat_bead' && missingPhotos(photoKinds).length
+                    ? 'Add both bead photos first.'
+                    : undefined
+                }
                 extra={
                   step.id === 'mount' && wheel.directional ? (
-                    <p className="rounded-xl border-2 border-work bg-work-tint p-3 text-lg font-bold text-work-dark">{arrowDirection(wheel.position).instruction}</p>
+                    <p className="border-work bg-work-tint text-work-dark rounded-xl border-2 p-3 text-lg font-bold">
+                      {arrowDirection(wheel.position).instruction}
+                    </p>
                   ) : step.id === 'leak_check' ? (
-                    <p className="text-lg">Target pressure: <strong>{wheel.targetPressure} {wheel.pressureUnit}</strong></p>
+                    <p className="text-lg">
+                      Target pressure:{' '}
+                      <strong>
+                        {wheel.targetPressure} {wheel.pressureUnit}
+                      </strong>
+                    </p>
                   ) : step.id === 'seat_bead' ? (
-                    <PhotoCapture wheelId={wheel.id} photos={photos} onAdded={(p) => setPhotos((all) => [...all, p])} />
+                    <PhotoCapture
+                      wheelId={wheel.id}
+                      photos={photos}
+                      onAdded={(p) => setPhotos((all) => [...all, p])}
+                    />
                   ) : null
                 }
               />
@@ -175,14 +294,32 @@ export function Runner(props: RunnerProps) {
           </>
         )}
       </main>
-      <footer className="flex flex-wrap items-center gap-3 border-t-2 border-paper-line p-3 text-sm">
-        <label className="flex min-h-touch items-center gap-2">
-          <input type="checkbox" className="size-6" checked={settings.speak} onChange={settings.toggleSpeak} /> Speak the next bolt
+      <footer className="border-paper-line flex flex-wrap items-center gap-3 border-t-2 p-3 text-sm">
+        <label className="min-h-touch flex items-center gap-2">
+          <input
+            type="checkbox"
+            className="size-6"
+            checked={settings.speak}
+            onChange={settings.toggleSpeak}
+          />{' '}
+          Speak the next bolt
         </label>
-        <label className="flex min-h-touch items-center gap-2">
-          <input type="checkbox" className="size-6" checked={settings.vibrate} onChange={settings.toggleVibrate} /> Vibrate on each bolt
+        <label className="min-h-touch flex items-center gap-2">
+          <input
+            type="checkbox"
+            className="size-6"
+            checked={settings.vibrate}
+            onChange={settings.toggleVibrate}
+          />{' '}
+          Vibrate on each bolt
         </label>
-        <span>{wake === 'on' ? 'Screen stays on.' : wake === 'unsupported' ? 'This browser cannot keep the screen on: set the screen timeout longer.' : ''}</span>
+        <span>
+          {wake === 'on'
+            ? 'Screen stays on.'
+            : wake === 'unsupported'
+              ? 'This browser cannot keep the screen on: set the screen timeout longer.'
+              : ''}
+        </span>
       </footer>
     </div>
   );

@@ -1,7 +1,13 @@
 'use client';
 
 import { useState } from 'react';
-import { convertPressure, pressureOffTarget, PRESSURE_UNITS, UNIT_LABELS, type PressureUnit } from '@/features/torque-plan';
+import {
+  convertPressure,
+  pressureOffTarget,
+  PRESSURE_UNITS,
+  UNIT_LABELS,
+  type PressureUnit,
+} from '@/features/torque-plan';
 import { UnitOptions } from '@/features/ui/unit-options';
 import type { RunEvent } from '../events';
 import type { Step } from '../steps';
@@ -44,15 +50,26 @@ export function StepPanel({
   const [failing, setFailing] = useState(false);
   const [reason, setReason] = useState('');
   const reading = value.trim() ? Number(value.replace(',', '.')) : null;
-  const overLimit = reading !== null && limit ? convertPressure(reading, unit, limit.unit) > limit.value + 1e-9 : false;
-  const readingOk = !step.measurement || (reading !== null && Number.isFinite(reading) && reading > 0 && !overLimit);
-  const off = target && reading !== null && Number.isFinite(reading) && reading > 0 ? pressureOffTarget({ value: reading, unit }, target) : null;
+  const overLimit =
+    reading !== null && limit
+      ? convertPressure(reading, unit, limit.unit) > limit.value + 1e-9
+      : false;
+  const readingOk =
+    !step.measurement ||
+    (reading !== null && Number.isFinite(reading) && reading > 0 && !overLimit);
+  const off =
+    target && reading !== null && Number.isFinite(reading) && reading > 0
+      ? pressureOffTarget({ value: reading, unit }, target)
+      : null;
   const [rechecked, setRechecked] = useState(false);
   // The limit in the unit being typed, so nobody converts in their head at the gauge.
   // Rounded down, never up: a maximum shown must never be above the real one.
   const places = unit === 'bar' ? 100 : 10;
-  const limitHere = limit ? `${Math.floor(convertPressure(limit.value, limit.unit, unit) * places + 1e-9) / places} ${UNIT_LABELS[unit]}` : null;
-  const ready = ticked.length === step.checklist.length && readingOk && !blocked && (!off || rechecked);
+  const limitHere = limit
+    ? `${Math.floor(convertPressure(limit.value, limit.unit, unit) * places + 1e-9) / places} ${UNIT_LABELS[unit]}`
+    : null;
+  const ready =
+    ticked.length === step.checklist.length && readingOk && !blocked && (!off || rechecked);
 
   return (
     <div className="flex flex-col gap-4">
@@ -62,12 +79,19 @@ export function StepPanel({
         <fieldset className="flex flex-col gap-2">
           <legend className="sr-only">Checklist</legend>
           {step.checklist.map((item) => (
-            <label key={item.id} className="flex min-h-14 items-center gap-3 rounded-xl border-2 border-paper-line px-3 text-lg">
+            <label
+              key={item.id}
+              className="border-paper-line flex min-h-14 items-center gap-3 rounded-xl border-2 px-3 text-lg"
+            >
               <input
                 type="checkbox"
-                className="size-8 shrink-0 accent-work"
+                className="accent-work size-8 shrink-0"
                 checked={ticked.includes(item.id)}
-                onChange={(e) => setTicked((t) => (e.target.checked ? [...t, item.id] : t.filter((x) => x !== item.id)))}
+                onChange={(e) =>
+                  setTicked((t) =>
+                    e.target.checked ? [...t, item.id] : t.filter((x) => x !== item.id),
+                  )
+                }
               />
               {item.text}
             </label>
@@ -80,48 +104,104 @@ export function StepPanel({
             {step.measurement.label}
           </label>
           <div className="grid grid-cols-[2fr_1fr] gap-2">
-            <input id={`${step.id}-reading`} inputMode="decimal" value={value} onChange={(e) => setValue(e.target.value)} aria-invalid={overLimit || undefined} aria-describedby={`${step.id}-reading-note`} className="min-h-14 min-w-0 rounded-xl border-2 border-ink-soft px-3 text-xl" />
-            <select aria-label="Pressure unit" value={unit} onChange={(e) => setUnit(e.target.value as PressureUnit)} className="min-h-14 min-w-0 rounded-xl border-2 border-ink-soft px-2 text-lg">
+            <input
+              id={`${step.id}-reading`}
+              inputMode="decimal"
+              value={value}
+              onChange={(e) => setValue(e.target.value)}
+              aria-invalid={overLimit || undefined}
+              aria-describedby={`${step.id}-reading-note`}
+              className="border-ink-soft min-h-14 min-w-0 rounded-xl border-2 px-3 text-xl"
+            />
+            <select
+              aria-label="Pressure unit"
+              value={unit}
+              onChange={(e) => setUnit(e.target.value as PressureUnit)}
+              className="border-ink-soft min-h-14 min-w-0 rounded-xl border-2 px-2 text-lg"
+            >
               <UnitOptions units={PRESSURE_UNITS} />
             </select>
           </div>
-          <p id={`${step.id}-reading-note`} className={overLimit ? 'font-bold text-danger' : 'text-sm text-ink-soft'} role={overLimit ? 'alert' : undefined}>
+          <p
+            id={`${step.id}-reading-note`}
+            className={overLimit ? 'text-danger font-bold' : 'text-ink-soft text-sm'}
+            role={overLimit ? 'alert' : undefined}
+          >
             {overLimit
               ? `Above the tire's maximum bead-seating pressure (${limitHere}). Stop, let the air out and find out why.`
               : reading && Number.isFinite(reading)
-                ? PRESSURE_UNITS.filter((u) => u !== unit).map((u) => `${Number(convertPressure(reading, unit, u).toFixed(2))} ${UNIT_LABELS[u]}`).join(' · ')
+                ? PRESSURE_UNITS.filter((u) => u !== unit)
+                    .map(
+                      (u) =>
+                        `${Number(convertPressure(reading, unit, u).toFixed(2))} ${UNIT_LABELS[u]}`,
+                    )
+                    .join(' · ')
                 : limit
                   ? `At most ${limitHere}.`
                   : ' '}
           </p>
-          {limit && reading && Number.isFinite(reading) && !overLimit ? <p className="text-sm text-ink-soft">At most {limitHere}.</p> : null}
+          {limit && reading && Number.isFinite(reading) && !overLimit ? (
+            <p className="text-ink-soft text-sm">At most {limitHere}.</p>
+          ) : null}
           {off ? (
-            <div role="alert" className="flex flex-col gap-2 rounded-xl border-2 border-caution bg-caution-tint p-3 text-caution-ink">
+            <div
+              role="alert"
+              className="border-caution bg-caution-tint text-caution-ink flex flex-col gap-2 rounded-xl border-2 p-3"
+            >
               <p className="font-bold">
-                {target!.unit === 'psi' ? `${Math.abs(off.psi).toFixed(1)} psi` : `${Math.abs(off.kPa).toFixed(0)} kPa`} {off.psi > 0 ? 'over' : 'under'} the wheel&apos;s target ({target!.value} {UNIT_LABELS[target!.unit]}). Adjust, then check the pressure again with the gauge.
+                {target!.unit === 'psi'
+                  ? `${Math.abs(off.psi).toFixed(1)} psi`
+                  : `${Math.abs(off.kPa).toFixed(0)} kPa`}{' '}
+                {off.psi > 0 ? 'over' : 'under'} the wheel&apos;s target ({target!.value}{' '}
+                {UNIT_LABELS[target!.unit]}). Adjust, then check the pressure again with the gauge.
               </p>
               <label className="flex min-h-14 items-center gap-3 text-lg">
-                <input type="checkbox" className="size-8 shrink-0" checked={rechecked} onChange={(e) => setRechecked(e.target.checked)} />
+                <input
+                  type="checkbox"
+                  className="size-8 shrink-0"
+                  checked={rechecked}
+                  onChange={(e) => setRechecked(e.target.checked)}
+                />
                 Re-checked: this is the pressure now.
               </label>
             </div>
           ) : null}
         </div>
       ) : null}
-      {blocked ? <p className="font-semibold text-danger">{blocked}</p> : null}
+      {blocked ? <p className="text-danger font-semibold">{blocked}</p> : null}
       <button
         type="button"
         disabled={!ready}
-        onClick={() => void record({ type: 'step_done', payload: { step: step.id, checklist: [...ticked, ...extraChecked], ...(step.measurement && reading ? { measurement: { value: reading, unit } } : {}) } })}
-        className={`${big} bg-work text-white disabled:bg-paper-line disabled:text-ink-soft`}
+        onClick={() =>
+          void record({
+            type: 'step_done',
+            payload: {
+              step: step.id,
+              checklist: [...ticked, ...extraChecked],
+              ...(step.measurement && reading ? { measurement: { value: reading, unit } } : {}),
+            },
+          })
+        }
+        className={`${big} bg-work disabled:bg-paper-line disabled:text-ink-soft text-white`}
       >
         Step done
       </button>
       {step.id === 'inspect' ? (
         failing ? (
-          <ReasonForm label="What failed the inspection?" onCancel={() => setFailing(false)} value={reason} setValue={setReason} submit="Stop this wheel and flag it" onSubmit={() => void record({ type: 'inspection_failed', payload: { notes: reason } })} />
+          <ReasonForm
+            label="What failed the inspection?"
+            onCancel={() => setFailing(false)}
+            value={reason}
+            setValue={setReason}
+            submit="Stop this wheel and flag it"
+            onSubmit={() => void record({ type: 'inspection_failed', payload: { notes: reason } })}
+          />
         ) : (
-          <button type="button" onClick={() => setFailing(true)} className={`${big} border-2 border-danger text-danger`}>
+          <button
+            type="button"
+            onClick={() => setFailing(true)}
+            className={`${big} border-danger text-danger border-2`}
+          >
             Inspection failed…
           </button>
         )
@@ -136,19 +216,43 @@ export function StepPanel({
             value={reason}
             setValue={setReason}
             submit="Stop this wheel and flag it"
-            onSubmit={() => void record({ type: 'inspection_failed', payload: { notes: `Bead did not seat by the limit${limitHere ? ` (${limitHere})` : ''}${reading !== null && Number.isFinite(reading) ? `; gauge read ${reading} ${UNIT_LABELS[unit]}` : ''}: ${reason}` } })}
+            onSubmit={() =>
+              void record({
+                type: 'inspection_failed',
+                payload: {
+                  notes: `Bead did not seat by the limit${limitHere ? ` (${limitHere})` : ''}${reading !== null && Number.isFinite(reading) ? `; gauge read ${reading} ${UNIT_LABELS[unit]}` : ''}: ${reason}`,
+                },
+              })
+            }
           />
         ) : (
-          <button type="button" onClick={() => setFailing(true)} className={`${big} border-2 border-danger text-danger`}>
+          <button
+            type="button"
+            onClick={() => setFailing(true)}
+            className={`${big} border-danger text-danger border-2`}
+          >
             Bead won&apos;t seat at the limit…
           </button>
         )
       ) : null}
       {!step.required ? (
         skipping ? (
-          <ReasonForm label="Why skip this step?" onCancel={() => setSkipping(false)} value={reason} setValue={setReason} submit="Skip the step" onSubmit={() => void record({ type: 'step_skipped', payload: { step: step.id, reason } })} />
+          <ReasonForm
+            label="Why skip this step?"
+            onCancel={() => setSkipping(false)}
+            value={reason}
+            setValue={setReason}
+            submit="Skip the step"
+            onSubmit={() =>
+              void record({ type: 'step_skipped', payload: { step: step.id, reason } })
+            }
+          />
         ) : (
-          <button type="button" onClick={() => setSkipping(true)} className={`${big} border-2 border-ink`}>
+          <button
+            type="button"
+            onClick={() => setSkipping(true)}
+            className={`${big} border-ink border-2`}
+          >
             Skip this step…
           </button>
         )
@@ -157,18 +261,42 @@ export function StepPanel({
   );
 }
 
-function ReasonForm({ label, value, setValue, submit, onSubmit, onCancel }: { label: string; value: string; setValue: (v: string) => void; submit: string; onSubmit: () => void; onCancel: () => void }) {
+function ReasonForm({
+  label,
+  value,
+  setValue,
+  submit,
+  onSubmit,
+  onCancel,
+}: {
+  label: string;
+  value: string;
+  setValue: (v: string) => void;
+  submit: string;
+  onSubmit: () => void;
+  onCancel: () => void;
+}) {
   return (
-    <div className="flex flex-col gap-2 rounded-xl border-2 border-ink p-3">
+    <div className="border-ink flex flex-col gap-2 rounded-xl border-2 p-3">
       <label htmlFor="reason" className="font-semibold">
         {label}
       </label>
-      <input id="reason" value={value} onChange={(e) => setValue(e.target.value)} className="min-h-14 rounded-xl border-2 border-ink-soft px-3 text-lg" />
+      <input
+        id="reason"
+        value={value}
+        onChange={(e) => setValue(e.target.value)}
+        className="border-ink-soft min-h-14 rounded-xl border-2 px-3 text-lg"
+      />
       <div className="grid grid-cols-2 gap-2">
-        <button type="button" onClick={onCancel} className={`${big} border-2 border-ink`}>
+        <button type="button" onClick={onCancel} className={`${big} border-ink border-2`}>
           Cancel
         </button>
-        <button type="button" disabled={value.trim().length < 3} onClick={onSubmit} className={`${big} bg-ink text-white disabled:opacity-40`}>
+        <button
+          type="button"
+          disabled={value.trim().length < 3}
+          onClick={onSubmit}
+          className={`${big} bg-ink text-white disabled:opacity-40`}
+        >
           {submit}
         </button>
       </div>

@@ -3,7 +3,12 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { BoltCircle, LIST_FROM } from '@/features/bolt-circle/bolt-circle';
 import { BoltList } from '@/features/bolt-circle/bolt-list';
-import { formatTorque, UNIT_LABELS, type RecordedVerification, type Torque } from '@/features/torque-plan';
+import {
+  formatTorque,
+  UNIT_LABELS,
+  type RecordedVerification,
+  type Torque,
+} from '@/features/torque-plan';
 import { tapCounts } from '../double-tap';
 import type { RunEvent } from '../events';
 import type { PassProgress, RunnerState } from '../state';
@@ -88,8 +93,24 @@ export function TorquePanel({
   // A check pass added because a bolt turned is at the final target, like the plan's last pass.
   const target = index ? (targets[index - 1] ?? targets.at(-1) ?? null) : null;
   const allVerifications = useMemo(() => [...fresh, ...verifications], [fresh, verifications]);
-  const gate = target ? passWrench({ target, wrenches, failed, chosenId: pass?.wrenchId, rules, verifications: allVerifications, now: new Date() }) : null;
-  const { best = null, suitable = [], wrench = null, choice = null, verification = null } = gate ?? {};
+  const gate = target
+    ? passWrench({
+        target,
+        wrenches,
+        failed,
+        chosenId: pass?.wrenchId,
+        rules,
+        verifications: allVerifications,
+        now: new Date(),
+      })
+    : null;
+  const {
+    best = null,
+    suitable = [],
+    wrench = null,
+    choice = null,
+    verification = null,
+  } = gate ?? {};
 
   useEffect(() => {
     if (pass?.next && speak) cue(`Bolt ${pass.next}`, speak, false);
@@ -98,8 +119,16 @@ export function TorquePanel({
   if (!pass || !target) {
     return (
       <div className="flex flex-col gap-4">
-        <p className="rounded-xl border-2 border-ok bg-ok-tint p-4 text-lg font-bold text-ok">Every pass is done, check pass included.</p>
-        <button type="button" onClick={() => void record({ type: 'step_done', payload: { step: 'torque', checklist: [] } })} className={`${big} bg-work text-white`}>
+        <p className="border-ok bg-ok-tint text-ok rounded-xl border-2 p-4 text-lg font-bold">
+          Every pass is done, check pass included.
+        </p>
+        <button
+          type="button"
+          onClick={() =>
+            void record({ type: 'step_done', payload: { step: 'torque', checklist: [] } })
+          }
+          className={`${big} bg-work text-white`}
+        >
           Torque passes done
         </button>
       </div>
@@ -108,8 +137,13 @@ export function TorquePanel({
 
   const name = passName(pass, state.passes);
   const label = pass.kind === 'check' ? name.toLowerCase() : `pass ${pass.index}`;
-  const settingText = choice?.ok ? `${choice.setting.value} ${UNIT_LABELS[choice.setting.unit]}` : null;
-  const ackKey = wrench && choice?.ok ? `${pass.index}|${wrench.id}|${choice.setting.value}|${choice.setting.unit}` : null;
+  const settingText = choice?.ok
+    ? `${choice.setting.value} ${UNIT_LABELS[choice.setting.unit]}`
+    : null;
+  const ackKey =
+    wrench && choice?.ok
+      ? `${pass.index}|${wrench.id}|${choice.setting.value}|${choice.setting.unit}`
+      : null;
   const word = confirmWord(wrench?.kind);
   const big32 = boltCount >= LIST_FROM;
 
@@ -120,16 +154,31 @@ export function TorquePanel({
     lastTap.current = now;
     // What was used, as shown at this moment: the wrench and its setting travel with the bolt.
     const used = wrench && choice?.ok ? { wrenchId: wrench.id, setting: choice.setting } : {};
-    void record({ type: 'bolt_confirmed', payload: { pass: pass.index, bolt, ...used, ...(turned === undefined ? {} : { turned }) } });
+    void record({
+      type: 'bolt_confirmed',
+      payload: { pass: pass.index, bolt, ...used, ...(turned === undefined ? {} : { turned }) },
+    });
     cue(`Bolt ${bolt} done`, false, vibrate);
     setSelected(null);
   };
   // The last bolt confirmed: in this pass, or the pass before when this one has none yet.
   const previous = state.passes[pass.index - 2];
-  const last = pass.confirmed.length ? { pass: pass.index, bolt: pass.confirmed.at(-1)! } : previous?.confirmed.length ? { pass: previous.index, bolt: previous.confirmed.at(-1)! } : null;
+  const last = pass.confirmed.length
+    ? { pass: pass.index, bolt: pass.confirmed.at(-1)! }
+    : previous?.confirmed.length
+      ? { pass: previous.index, bolt: previous.confirmed.at(-1)! }
+      : null;
 
   if (problem) {
-    return <BoltProblemForm bolt={selected ?? pass.next ?? 1} pass={pass.index} record={record} onCancel={() => setProblem(false)} photoSlot={photoSlot} />;
+    return (
+      <BoltProblemForm
+        bolt={selected ?? pass.next ?? 1}
+        pass={pass.index}
+        record={record}
+        onCancel={() => setProblem(false)}
+        photoSlot={photoSlot}
+      />
+    );
   }
 
   if (!wrench || !choice?.ok || !settingText) {
@@ -138,7 +187,7 @@ export function TorquePanel({
         <p className="text-lg font-bold">
           {name}: {formatTorque(target, 2)}
         </p>
-        <p role="alert" className="font-bold text-danger">
+        <p role="alert" className="text-danger font-bold">
           {best && !best.ok ? best.reason : 'No in-service wrench suits this pass.'}
         </p>
       </div>
@@ -155,7 +204,11 @@ export function TorquePanel({
           wrench={wrench}
           setting={choice.setting}
           why={verification.reason}
-          onResult={(recorded) => (recorded.withinTolerance ? setFresh((v) => [recorded, ...v]) : setFailed((f) => [...f, wrench.id]))}
+          onResult={(recorded) =>
+            recorded.withinTolerance
+              ? setFresh((v) => [recorded, ...v])
+              : setFailed((f) => [...f, wrench.id])
+          }
         />
       </div>
     );
@@ -164,17 +217,32 @@ export function TorquePanel({
   if (ackKey && !acked.includes(ackKey)) {
     return (
       <div className="flex flex-col gap-4">
-        <SettingCard passName={`${name}: ${formatTorque(target, 2)}`} wrench={wrench.label} setting={settingText} warnings={choice.warnings} onSet={() => {
+        <SettingCard
+          passName={`${name}: ${formatTorque(target, 2)}`}
+          wrench={wrench.label}
+          setting={settingText}
+          warnings={choice.warnings}
+          onSet={() => {
             setAcked((a) => [...a, ackKey]);
             // Bring the ring up under the header: ring, setting and button on one screen.
             setTimeout(() => {
               document.getElementById('pass-ring')?.scrollIntoView?.({ block: 'start' });
             }, 0);
-          }}>
+          }}
+        >
           {suitable.length > 1 ? (
             <label className="flex flex-col gap-1 font-semibold">
               Wrench
-              <select value={wrench.id} onChange={(e) => void record({ type: 'wrench_chosen', payload: { pass: pass.index, wrenchId: e.target.value } })} className="min-h-14 rounded-xl border-2 border-ink-soft bg-white px-2 text-lg">
+              <select
+                value={wrench.id}
+                onChange={(e) =>
+                  void record({
+                    type: 'wrench_chosen',
+                    payload: { pass: pass.index, wrenchId: e.target.value },
+                  })
+                }
+                className="border-ink-soft min-h-14 rounded-xl border-2 bg-white px-2 text-lg"
+              >
                 {suitable.map((w) => (
                   <option key={w.id} value={w.id}>
                     {w.label}
@@ -192,16 +260,24 @@ export function TorquePanel({
   }
 
   const other = selected && selected !== pass.next ? selected : null;
-  const question = word === 'Clicked' ? 'did it turn before the wrench clicked?' : 'did it turn before the wrench reached the setting?';
+  const question =
+    word === 'Clicked'
+      ? 'did it turn before the wrench clicked?'
+      : 'did it turn before the wrench reached the setting?';
   return (
     <div className="flex flex-col gap-3">
       {/* Above the ring, so the sticky panel is the last thing on the page and never scrolls away;
           folded, since the card before the pass showed it in full and the ring needs the room. */}
       {cautions.length ? (
-        <details className="rounded-xl border-l-8 border-caution bg-caution-tint px-3 text-caution-ink">
-          <summary className="flex min-h-touch cursor-pointer items-center font-black">⚠ Cautions, and reading the ring</summary>
+        <details className="border-caution bg-caution-tint text-caution-ink rounded-xl border-l-8 px-3">
+          <summary className="min-h-touch flex cursor-pointer items-center font-black">
+            ⚠ Cautions, and reading the ring
+          </summary>
           <Caution items={cautions} />
-          <p className="py-2 text-sm">Number beside the ring: the bolt. Number inside a bolt: its turn, shown for the next few. Tap a bolt to undo or correct it.</p>
+          <p className="py-2 text-sm">
+            Number beside the ring: the bolt. Number inside a bolt: its turn, shown for the next
+            few. Tap a bolt to undo or correct it.
+          </p>
         </details>
       ) : null}
       <p aria-live="polite" className="text-center text-lg">
@@ -209,7 +285,10 @@ export function TorquePanel({
       </p>
       <RingLayout
         ring={
-          <div id="pass-ring" className="mx-auto w-full max-w-[min(100%,calc(100dvh-22rem))] scroll-mt-32 landscape:max-w-none landscape:[&>svg]:max-h-[calc(100dvh-5rem)]">
+          <div
+            id="pass-ring"
+            className="mx-auto w-full max-w-[min(100%,calc(100dvh-22rem))] scroll-mt-32 landscape:max-w-none landscape:[&>svg]:max-h-[calc(100dvh-5rem)]"
+          >
             <BoltCircle
               count={boltCount}
               order={pass.order}
@@ -224,7 +303,16 @@ export function TorquePanel({
           </div>
         }
       >
-        {big32 ? <BoltList count={boltCount} done={pass.confirmed} next={pass.next} selected={selected} flagged={flaggedBolts} onSelect={setSelected} /> : null}
+        {big32 ? (
+          <BoltList
+            count={boltCount}
+            done={pass.confirmed}
+            next={pass.next}
+            selected={selected}
+            flagged={flaggedBolts}
+            onSelect={setSelected}
+          />
+        ) : null}
         {other ? (
           pass.confirmed.includes(other) ? (
             <button
@@ -233,28 +321,43 @@ export function TorquePanel({
                 void record({ type: 'bolt_undone', payload: { pass: pass.index, bolt: other } });
                 setSelected(null);
               }}
-              className={`${big} border-2 border-ink`}
+              className={`${big} border-ink border-2`}
             >
               Undo bolt {other}
             </button>
           ) : pass.kind === 'check' ? (
             <div className="grid grid-cols-2 gap-2">
-              <button type="button" onClick={(e) => confirm(e.timeStamp, other, true)} className={`${big} border-4 border-caution bg-caution-tint text-caution-ink`}>
+              <button
+                type="button"
+                onClick={(e) => confirm(e.timeStamp, other, true)}
+                className={`${big} border-caution bg-caution-tint text-caution-ink border-4`}
+              >
                 Bolt {other}, out of sequence: turned
               </button>
-              <button type="button" onClick={(e) => confirm(e.timeStamp, other, false)} className={`${big} border-4 border-caution bg-caution-tint text-caution-ink`}>
+              <button
+                type="button"
+                onClick={(e) => confirm(e.timeStamp, other, false)}
+                className={`${big} border-caution bg-caution-tint text-caution-ink border-4`}
+              >
                 Bolt {other}, out of sequence: didn&apos;t turn
               </button>
             </div>
           ) : (
-            <button type="button" onClick={(e) => confirm(e.timeStamp, other)} className={`${big} border-4 border-caution bg-caution-tint text-caution-ink`}>
+            <button
+              type="button"
+              onClick={(e) => confirm(e.timeStamp, other)}
+              className={`${big} border-caution bg-caution-tint text-caution-ink border-4`}
+            >
               Bolt {other} is out of sequence: confirm it anyway
             </button>
           )
         ) : null}
         {/* Sticky in portrait: the setting and the button stay in view however far the page scrolls. */}
-        <div className="z-10 flex flex-col gap-2 border-t-2 border-paper-line bg-paper pt-2 pb-1 portrait:sticky portrait:bottom-0">
-          <p aria-label="Current setting" className="rounded-lg bg-work-tint px-2 py-1 text-center text-lg font-black text-work-dark">
+        <div className="border-paper-line bg-paper z-10 flex flex-col gap-2 border-t-2 pt-2 pb-1 portrait:sticky portrait:bottom-0">
+          <p
+            aria-label="Current setting"
+            className="bg-work-tint text-work-dark rounded-lg px-2 py-1 text-center text-lg font-black"
+          >
             {name} · Set {wrench.label} to {settingText}
           </p>
 
@@ -264,16 +367,28 @@ export function TorquePanel({
                 Bolt {pass.next}: {question}
               </p>
               <div className="grid grid-cols-2 gap-2">
-                <button type="button" onClick={(e) => confirm(e.timeStamp, pass.next!, true)} className={`${panelButton} bg-caution! text-caution-ink!`}>
+                <button
+                  type="button"
+                  onClick={(e) => confirm(e.timeStamp, pass.next!, true)}
+                  className={`${panelButton} bg-caution! text-caution-ink!`}
+                >
                   Turned
                 </button>
-                <button type="button" onClick={(e) => confirm(e.timeStamp, pass.next!, false)} className={panelButton}>
+                <button
+                  type="button"
+                  onClick={(e) => confirm(e.timeStamp, pass.next!, false)}
+                  className={panelButton}
+                >
                   Didn&apos;t turn
                 </button>
               </div>
             </>
           ) : (
-            <button type="button" onClick={(e) => pass.next && confirm(e.timeStamp, pass.next)} className={panelButton}>
+            <button
+              type="button"
+              onClick={(e) => pass.next && confirm(e.timeStamp, pass.next)}
+              className={panelButton}
+            >
               {word} — bolt {pass.next}
             </button>
           )}
@@ -282,11 +397,15 @@ export function TorquePanel({
               type="button"
               disabled={!last}
               onClick={() => last && void record({ type: 'bolt_undone', payload: last })}
-              className="min-h-12 rounded-xl border-2 border-ink px-2 font-bold disabled:opacity-40"
+              className="border-ink min-h-12 rounded-xl border-2 px-2 font-bold disabled:opacity-40"
             >
               Undo last bolt{last ? ` (${last.bolt})` : ''}
             </button>
-            <button type="button" onClick={() => setProblem(true)} className="min-h-12 rounded-xl border-2 border-danger px-2 font-bold text-danger">
+            <button
+              type="button"
+              onClick={() => setProblem(true)}
+              className="border-danger text-danger min-h-12 rounded-xl border-2 px-2 font-bold"
+            >
               Problem with this bolt
             </button>
           </div>

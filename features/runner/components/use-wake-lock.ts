@@ -6,7 +6,11 @@ const noop = () => () => {};
 
 /** Keeps the screen on while the runner is open; says so where the browser cannot. */
 export function useWakeLock(): 'on' | 'unsupported' | 'off' {
-  const supported = useSyncExternalStore(noop, () => 'wakeLock' in navigator, () => true);
+  const supported = useSyncExternalStore(
+    noop,
+    () => 'wakeLock' in navigator,
+    () => true,
+  );
   const [on, setOn] = useState(false);
   useEffect(() => {
     if (!supported) return;

@@ -1,7 +1,12 @@
 'use client';
 
 import { useState } from 'react';
-import { UNIT_LABELS, type RecordedVerification, type Torque, type Wrench } from '@/features/torque-plan';
+import {
+  UNIT_LABELS,
+  type RecordedVerification,
+  type Torque,
+  type Wrench,
+} from '@/features/torque-plan';
 
 type Saved = RecordedVerification & { withinTolerance: boolean };
 
@@ -45,13 +50,39 @@ export function VerifyInline({
         headers: { 'content-type': 'application/json' },
         body: JSON.stringify({ referenceValue, readingValue: Number(reading), unit: wrench.unit }),
       });
-      const body = (await res.json()) as { data?: { recordedAt: string; withinTolerance: boolean; deviationPct: number; tolerancePct: number }; error?: { message: string } };
-      if (!res.ok || !body.data) return setMessage({ ok: false, text: body.error?.message ?? 'The verification was not saved.' });
+      const body = (await res.json()) as {
+        data?: {
+          recordedAt: string;
+          withinTolerance: boolean;
+          deviationPct: number;
+          tolerancePct: number;
+        };
+        error?: { message: string };
+      };
+      if (!res.ok || !body.data)
+        return setMessage({
+          ok: false,
+          text: body.error?.message ?? 'The verification was not saved.',
+        });
       const d = body.data;
-      setMessage({ ok: d.withinTolerance, text: d.withinTolerance ? `Within tolerance (${d.deviationPct.toFixed(1)} %).` : `Out of tolerance (${d.deviationPct.toFixed(1)} %, allowed ±${d.tolerancePct} %): the wrench is out of service. Pick another.` });
-      onResult({ wrenchId: wrench.id, recordedAt: d.recordedAt, referenceValue, unit: wrench.unit, withinTolerance: d.withinTolerance });
+      setMessage({
+        ok: d.withinTolerance,
+        text: d.withinTolerance
+          ? `Within tolerance (${d.deviationPct.toFixed(1)} %).`
+          : `Out of tolerance (${d.deviationPct.toFixed(1)} %, allowed ±${d.tolerancePct} %): the wrench is out of service. Pick another.`,
+      });
+      onResult({
+        wrenchId: wrench.id,
+        recordedAt: d.recordedAt,
+        referenceValue,
+        unit: wrench.unit,
+        withinTolerance: d.withinTolerance,
+      });
     } catch {
-      setMessage({ ok: false, text: 'No connection: a verification has to reach the server. Try again when the Wi-Fi is back.' });
+      setMessage({
+        ok: false,
+        text: 'No connection: a verification has to reach the server. Try again when the Wi-Fi is back.',
+      });
     } finally {
       setBusy(false);
     }
@@ -59,29 +90,51 @@ export function VerifyInline({
 
   const unit = UNIT_LABELS[wrench.unit];
   return (
-    <section aria-label="Verify the wrench" className="flex flex-col gap-3 rounded-xl border-2 border-caution p-3">
+    <section
+      aria-label="Verify the wrench"
+      className="border-caution flex flex-col gap-3 rounded-xl border-2 p-3"
+    >
       <p className="font-bold">
         Check {wrench.label} on the tester before this pass. {why}
       </p>
       <p className="text-sm">
-        The reference is this pass&apos;s setting, {setting.value} {unit}; change it to what the tester is set to.
+        The reference is this pass&apos;s setting, {setting.value} {unit}; change it to what the
+        tester is set to.
       </p>
       <div className="grid grid-cols-2 gap-2">
         <label className="flex min-w-0 flex-col gap-1 font-semibold">
           Reference ({unit})
-          <input inputMode="decimal" value={reference} onChange={(e) => setReference(e.target.value)} className="min-h-14 min-w-0 rounded-xl border-2 border-ink-soft px-3 text-lg" />
+          <input
+            inputMode="decimal"
+            value={reference}
+            onChange={(e) => setReference(e.target.value)}
+            className="border-ink-soft min-h-14 min-w-0 rounded-xl border-2 px-3 text-lg"
+          />
         </label>
         <label className="flex min-w-0 flex-col gap-1 font-semibold">
           Reading ({unit})
-          <input inputMode="decimal" value={reading} onChange={(e) => setReading(e.target.value)} className="min-h-14 min-w-0 rounded-xl border-2 border-ink-soft px-3 text-lg" />
+          <input
+            inputMode="decimal"
+            value={reading}
+            onChange={(e) => setReading(e.target.value)}
+            className="border-ink-soft min-h-14 min-w-0 rounded-xl border-2 px-3 text-lg"
+          />
         </label>
       </div>
       {message ? (
-        <p role={message.ok ? 'status' : 'alert'} className={message.ok ? 'font-bold text-ok' : 'font-bold text-danger'}>
+        <p
+          role={message.ok ? 'status' : 'alert'}
+          className={message.ok ? 'text-ok font-bold' : 'text-danger font-bold'}
+        >
           {message.text}
         </p>
       ) : null}
-      <button type="button" disabled={busy || !Number(reference) || !Number(reading)} onClick={() => void submit()} className="min-h-16 rounded-xl bg-work px-4 text-lg font-bold text-white disabled:opacity-40">
+      <button
+        type="button"
+        disabled={busy || !Number(reference) || !Number(reading)}
+        onClick={() => void submit()}
+        className="bg-work min-h-16 rounded-xl px-4 text-lg font-bold text-white disabled:opacity-40"
+      >
         Record verification
       </button>
     </section>

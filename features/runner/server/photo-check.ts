@@ -10,10 +10,17 @@ const SNIFF_BYTES = 64 * 1024;
  * What the upload service does not check: that the bytes really are a photo (by their content,
  * not the name or the declared type) and not over 10 MB.
  */
-export async function inspectPhoto(bytes: Uint8Array): Promise<{ ok: true; mime: string } | { ok: false; message: string }> {
-  if (bytes.byteLength > MAX_PHOTO_BYTES) return { ok: false, message: `The photo is ${(bytes.byteLength / 1048576).toFixed(1)} MB; at most 10 MB.` };
+export async function inspectPhoto(
+  bytes: Uint8Array,
+): Promise<{ ok: true; mime: string } | { ok: false; message: string }> {
+  if (bytes.byteLength > MAX_PHOTO_BYTES)
+    return {
+      ok: false,
+      message: `The photo is ${(bytes.byteLength / 1048576).toFixed(1)} MB; at most 10 MB.`,
+    };
   const type = await fileTypeFromBuffer(bytes);
-  if (!type || !IMAGE_TYPES.has(type.mime)) return { ok: false, message: 'That file is not a JPEG, PNG or WebP photo.' };
+  if (!type || !IMAGE_TYPES.has(type.mime))
+    return { ok: false, message: 'That file is not a JPEG, PNG or WebP photo.' };
   return { ok: true, mime: type.mime };
 }
 
@@ -35,7 +42,10 @@ export async function inspectPhotoStream(
     total += value.byteLength;
     if (total > limit) {
       await reader.cancel();
-      return { ok: false, message: `The photo is over ${limit / 1048576} MB; at most ${limit / 1048576} MB.` };
+      return {
+        ok: false,
+        message: `The photo is over ${limit / 1048576} MB; at most ${limit / 1048576} MB.`,
+      };
     }
     if (headLength < SNIFF_BYTES) {
       const take = value.subarray(0, SNIFF_BYTES - headLength);

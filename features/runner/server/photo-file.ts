@@ -19,7 +19,15 @@ export async function streamPhoto(shopId: string, photoId: string): Promise<Resp
   const { ufsUrl } = await new UTApi().generateSignedURL(row.fileKey, { expiresIn: 60 });
   const res = await fetch(ufsUrl).catch(() => null);
   if (!res?.ok || !res.body) {
-    return Response.json({ error: { code: 'unavailable', message: 'The photo store did not answer; try again in a moment.' } }, { status: 502 });
+    return Response.json(
+      {
+        error: {
+          code: 'unavailable',
+          message: 'The photo store did not answer; try again in a moment.',
+        },
+      },
+      { status: 502 },
+    );
   }
   return new Response(res.body, {
     headers: {

@@ -33,10 +33,22 @@ export const photoRouter = {
         const member = await requireMemberForRequest(req, 'jobs.run');
         const ctx = await loadWheel(member.shopId, input.wheelId);
         assertMayRun(member, ctx);
-        if (ctx.wheel.submittedAt) throw new DomainError('conflict', 'This wheel was submitted; its evidence is closed.');
-        return { userId: member.userId, shopId: member.shopId, jobId: ctx.job.id, wheelId: input.wheelId, kind: input.kind, note: input.note };
+        if (ctx.wheel.submittedAt)
+          throw new DomainError('conflict', 'This wheel was submitted; its evidence is closed.');
+        return {
+          userId: member.userId,
+          shopId: member.shopId,
+          jobId: ctx.job.id,
+          wheelId: input.wheelId,
+          kind: input.kind,
+          note: input.note,
+        };
       } catch (error) {
-        if (error instanceof DomainError) throw new UploadThingError({ code: error.code === 'unauthenticated' ? 'FORBIDDEN' : 'BAD_REQUEST', message: error.message });
+        if (error instanceof DomainError)
+          throw new UploadThingError({
+            code: error.code === 'unauthenticated' ? 'FORBIDDEN' : 'BAD_REQUEST',
+            message: error.message,
+          });
         throw error;
       }
     })
@@ -46,19 +58,34 @@ export const photoRouter = {
       const { ufsUrl } = await utapi.generateSignedURL(file.key, { expiresIn: 60 });
       const res = await fetch(ufsUrl);
       // The wheel may have been submitted while the file travelled: its evidence is closed then too.
-      const [wheel] = await getDb().select({ submittedAt: jobWheels.submittedAt }).from(jobWheels).where(and(eq(jobWheels.shopId, metadata.shopId), eq(jobWheels.id, metadata.wheelId)));
-      const verdict = !wheel || wheel.submittedAt
-        ? { ok: false as const, message: 'This wheel was submitted; its evidence is closed.' }
-        : res.ok && res.body
-          ? await inspectPhotoStream(res.body)
-          : { ok: false as const, message: 'The photo could not be read back.' };
+      const [wheel] = await getDb()
+        .select({ submittedAt: jobWheels.submittedAt })
+        .from(jobWheels)
+        .where(and(eq(jobWheels.shopId, metadata.shopId), eq(jobWheels.id, metadata.wheelId)));
+      const verdict =
+        !wheel || wheel.submittedAt
+          ? { ok: false as const, message: 'This wheel was submitted; its evidence is closed.' }
+          : res.ok && res.body
+            ? await inspectPhotoStream(res.body)
+            : { ok: false as const, message: 'The photo could not be read back.' };
       if (!verdict.ok) {
         await utapi.deleteFiles(file.key);
         return { ok: false as const, message: verdict.message };
       }
       const [row] = await getDb()
         .insert(wheelPhotos)
-        .values({ shopId: metadata.shopId, jobId: metadata.jobId, wheelId: metadata.wheelId, kind: metadata.kind, note: metadata.note, fileKey: file.key, url: file.ufsUrl, bytes: verdict.bytes, mime: verdict.mime, uploadedById: metadata.userId })
+        .values({
+          shopId: metadata.shopId,
+          jobId: metadata.jobId,
+          wheelId: metadata.wheelId,
+          kind: metadata.kind,
+          note: metadata.note,
+          fileKey: file.key,
+          url: file.ufsUrl,
+          bytes: verdict.bytes,
+          mime: verdict.mime,
+          uploadedById: metadata.userId,
+        })
         .returning({ id: wheelPhotos.id });
       return { ok: true as const, photoId: row!.id, kind: metadata.kind, url: photoPath(row!.id) };
     }),
@@ -79,12 +106,25 @@ export async function listPhotos(shopId: string, wheelId: string): Promise<Wheel
 
 /** Every wheel's photos of a job in one read, keyed by wheel id (for the job card's thumbnails). */
 /** A job's photos by wheel, each with its caption from the one photo list (the job card shows them). */
-export async function listJobPhotos(shopId: string, jobId: string): Promise<Record<string, (WheelPhoto & { label: string })[]>> {
+export async function listJobPhotos(
+  shopId: string,
+  jobId: string,
+): Promise<Record<string, (WheelPhoto & { label: string })[]>> {
   const rows = await getDb()
-    .select({ wheelId: wheelPhotos.wheelId, id: wheelPhotos.id, kind: wheelPhotos.kind, note: wheelPhotos.note })
+    .select({
+      wheelId: wheelPhotos.wheelId,
+      id: wheelPhotos.id,
+      kind: wheelPhotos.kind,
+      note: wheelPhotos.note,
+    })
     .from(wheelPhotos)
     .where(and(eq(wheelPhotos.shopId, shopId), eq(wheelPhotos.jobId, jobId)));
   const byWheel: Record<string, (WheelPhoto & { label: string })[]> = {};
-  for (const { wheelId, ...photo } of rows) (byWheel[wheelId] ??= []).push({ ...photo, url: photoPath(photo.id), label: PHOTO_KIND_INFO[photo.kind].label });
+  for (const { wheelId, ...photo } of rows)
+    (byWheel[wheelId] ??= []).push({
+      ...photo,
+      url: photoPath(photo.id),
+      label: PHOTO_KIND_INFO[photo.kind].label,
+    });
   return byWheel;
 }

@@ -1,7 +1,16 @@
 import 'server-only';
 import { and, eq, inArray, isNull, sql } from 'drizzle-orm';
 import { getDb } from '@/db';
-import { jobs, jobWheels, refusedRunEvents, wheelPhotos, wheelRunEvents, wheelSpecs, wrenches, type WheelSnapshot } from '@/db/schema';
+import {
+  jobs,
+  jobWheels,
+  refusedRunEvents,
+  wheelPhotos,
+  wheelRunEvents,
+  wheelSpecs,
+  wrenches,
+  type WheelSnapshot,
+} from '@/db/schema';
 import type { Member } from '@/server/auth/session';
 import { DomainError } from '@/server/errors';
 import { clampClientAt } from '../clock-window';
@@ -25,7 +34,9 @@ const UNSTORABLE = /\u0000|[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF
 /** The event as the phone sent it, made storable (bad characters replaced, at most 4 kB kept). */
 function storableRaw(raw: unknown): unknown {
   try {
-    const text = JSON.stringify(raw ?? null, (_key, value: unknown) => (typeof value === 'string' ? value.replace(UNSTORABLE, '\uFFFD') : value));
+    const text = JSON.stringify(raw ?? null, (_key, value: unknown) =>
+      typeof value === 'string' ? value.replace(UNSTORABLE, '\uFFFD') : value,
+    );
     return text.length <= 4096 ? (JSON.parse(text) as unknown) : { truncated: text.slice(0, 4096) };
   } catch {
     return { unreadable: true };
@@ -33,7 +44,8 @@ function storableRaw(raw: unknown): unknown {
 }
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
-const num = (payload: object, key: 'bolt' | 'pass') => (key in payload ? (payload as Record<string, number>)[key]! : null);
+const num = (payload: object, key: 'bolt' | 'pass') =>
+  key in payload ? (payload as Record<string, number>)[key]! : null;
 
 /**
  * The common case in one statement, without a transaction: insert the batch only if this member
@@ -44,7 +56,8 @@ const num = (payload: object, key: 'bolt' | 'pass') => (key in payload ? (payloa
  */
 async function insertIfAllowed(member: Member, wheelId: string, events: Timed[]): Promise<number> {
   const rows = events.map(
-    (e) => sql`(${e.clientId}::uuid, ${e.type}, ${JSON.stringify(e.payload)}::jsonb, ${e.clientAt}::timestamptz, ${e.deviceAt}::timestamptz, ${e.deviceId ?? null}::uuid, ${num(e.payload, 'bolt')}::int, ${num(e.payload, 'pass')}::int)`,
+    (e) =>
+      sql`(${e.clientId}::uuid, ${e.type}, ${JSON.stringify(e.payload)}::jsonb, ${e.clientAt}::timestamptz, ${e.deviceAt}::timestamptz, ${e.deviceId ?? null}::uuid, ${num(e.payload, 'bolt')}::int, ${num(e.payload, 'pass')}::int)`,
   );
   const inserted = await getDb().execute(sql`
     with ev (client_id, type, payload, client_at, device_at, device_id, bolt, pass) as (values ${sql.join(rows, sql`, `)}),
@@ -91,22 +104,55 @@ async function insertIfAllowed(member: Member, wheelId: string, events: Timed[])
  * has a bolt confirmed as turned — stored on this wheel or earlier in the same batch (`turnedPasses`)
  * — and only up to MAX_CHECK_PASSES check passes in all.
  */
-function planRefusal(e: ClientEvent, snapshot: WheelSnapshot, turnedPasses: ReadonlySet<number>): Omit<EventRefusal, 'index' | 'clientId'> | null {
+function planRefusal(
+  e: ClientEvent,
+  snapshot: WheelSnapshot,
+  turnedPasses: ReadonlySet<number>,
+): Omit<EventRefusal, 'index' | 'clientId'> | null {
   const bolt = 'bolt' in e.payload ? e.payload.bolt : undefined;
   const pass = 'pass' in e.payload ? e.payload.pass : undefined;
   const boltCount = snapshot.spec.boltCount;
   const planned = snapshot.plan.passes.length;
-  if (bolt !== undefined && bolt > boltCount) return { message: `Bolt ${bolt} is not on this ${boltCount}-bolt ring.`, fieldErrors: { 'payload.bolt': ['No such bolt.'] } };
-  if (pass !== undefined && pass > maxPassIndex(snapshot.plan.passes)) return { message: `Pass ${pass} is not in this wheel's plan.`, fieldErrors: { 'payload.pass': ['No such pass.'] } };
+  if (bolt !== undefined && bolt > boltCount)
+    return {
+      message: `Bolt ${bolt} is not on this ${boltCount}-bolt ring.`,
+      fieldErrors: { 'payload.bolt': ['No such bolt.'] },
+    };
+  if (pass !== undefined && pass > maxPassIndex(snapshot.plan.passes))
+    return {
+      message: `Pass ${pass} is not in this wheel's plan.`,
+      fieldErrors: { 'payload.pass': ['No such pass.'] },
+    };
   if (pass !== undefined && pass > planned && !turnedPasses.has(pass - 1)) {
-    return { message: `Pass ${pass} is not in this wheel's plan.`, fieldErrors: { 'payload.pass': [`A check pass is only added after a bolt turned on pass ${pass - 1}; none did.`] } };
+    return {
+      message: `Pass ${pass} is not in this wheel's plan.`,
+      fieldErrors: {
+        'payload.pass': [
+          `A check pass is only added after a bolt turned on pass ${pass - 1}; none did.`,
+        ],
+      },
+    };
   }
   return null;
 }
 
 /** The passes past the plan's check pass's predecessor on which a stored, current bolt confirmation says the bolt turned. */
-async function storedTurnedPasses(tx: Tx, shopId: string, wheelId: string, events: readonly ClientEvent[], planned: number): Promise<Set<number>> {
-  const wanted = [...new Set(events.flatMap((e) => ('pass' in e.payload && e.payload.pass !== undefined && e.payload.pass > planned ? [e.payload.pass - 1] : [])))];
+async function storedTurnedPasses(
+  tx: Tx,
+  shopId: string,
+  wheelId: string,
+  events: readonly ClientEvent[],
+  planned: number,
+): Promise<Set<number>> {
+  const wanted = [
+    ...new Set(
+      events.flatMap((e) =>
+        'pass' in e.payload && e.payload.pass !== undefined && e.payload.pass > planned
+          ? [e.payload.pass - 1]
+          : [],
+      ),
+    ),
+  ];
   if (!wanted.length) return new Set();
   const rows = await tx
     .selectDistinct({ pass: sql<number>`(${wheelRunEvents.payload}->>'pass')::int` })
@@ -125,10 +171,26 @@ async function storedTurnedPasses(tx: Tx, shopId: string, wheelId: string, event
 }
 
 /** Which photo ids named by flagged bolts are photos of this wheel. */
-async function wheelPhotoIds(tx: Tx, shopId: string, wheelId: string, events: readonly ClientEvent[]): Promise<Set<string>> {
-  const ids = events.flatMap((e) => (e.type === 'bolt_flagged' && e.payload.photoId ? [e.payload.photoId] : []));
+async function wheelPhotoIds(
+  tx: Tx,
+  shopId: string,
+  wheelId: string,
+  events: readonly ClientEvent[],
+): Promise<Set<string>> {
+  const ids = events.flatMap((e) =>
+    e.type === 'bolt_flagged' && e.payload.photoId ? [e.payload.photoId] : [],
+  );
   if (!ids.length) return new Set();
-  const rows = await tx.select({ id: wheelPhotos.id }).from(wheelPhotos).where(and(eq(wheelPhotos.shopId, shopId), eq(wheelPhotos.wheelId, wheelId), inArray(wheelPhotos.id, ids)));
+  const rows = await tx
+    .select({ id: wheelPhotos.id })
+    .from(wheelPhotos)
+    .where(
+      and(
+        eq(wheelPhotos.shopId, shopId),
+        eq(wheelPhotos.wheelId, wheelId),
+        inArray(wheelPhotos.id, ids),
+      ),
+    );
   return new Set(rows.map((r) => r.id));
 }
 
@@ -145,7 +207,10 @@ function withoutForeignPhoto<E extends ClientEvent>(e: E, photos: ReadonlySet<st
 
 /** A bolt that turned on the last check pass allowed: no pass follows, so the wheel goes to a lead. */
 const stillTurning = (e: ClientEvent, snapshot: WheelSnapshot) =>
-  e.type === 'bolt_confirmed' && e.payload.turned === true && snapshot.plan.passes.at(-1)?.kind === 'check' && e.payload.pass === maxPassIndex(snapshot.plan.passes);
+  e.type === 'bolt_confirmed' &&
+  e.payload.turned === true &&
+  snapshot.plan.passes.at(-1)?.kind === 'check' &&
+  e.payload.pass === maxPassIndex(snapshot.plan.passes);
 
 /** The runner step an event belongs to (the jobs feature's send-back supersedes by the same mapping). */
 function stepOf(e: ClientEvent): string {
@@ -157,14 +222,22 @@ function stepOf(e: ClientEvent): string {
 }
 
 /** A wheel sent back for named steps takes rework for exactly those steps; null when this event may be stored. */
-function reworkRefusal(e: ClientEvent, rework: { steps: string[] } | null): Omit<EventRefusal, 'index' | 'clientId'> | null {
+function reworkRefusal(
+  e: ClientEvent,
+  rework: { steps: string[] } | null,
+): Omit<EventRefusal, 'index' | 'clientId'> | null {
   if (!rework?.steps.length || rework.steps.includes(stepOf(e))) return null;
-  return { message: `This wheel was sent back to redo ${rework.steps.join(', ').replaceAll('_', ' ')} only; the rest of its record stands.`, fieldErrors: {} };
+  return {
+    message: `This wheel was sent back to redo ${rework.steps.join(', ').replaceAll('_', ' ')} only; the rest of its record stands.`,
+    fieldErrors: {},
+  };
 }
 
 // An added check pass has the plan's check pass's target.
 const withTarget = (e: ClientEvent, snapshot: WheelSnapshot) =>
-  e.type === 'bolt_confirmed' ? { ...e.payload, target: plannedPassOf(snapshot.plan.passes, e.payload.pass)!.target } : e.payload;
+  e.type === 'bolt_confirmed'
+    ? { ...e.payload, target: plannedPassOf(snapshot.plan.passes, e.payload.pass)!.target }
+    : e.payload;
 
 /**
  * The runner's save path. Each event is judged alone; those that may be stored are stored in one
@@ -174,21 +247,46 @@ const withTarget = (e: ClientEvent, snapshot: WheelSnapshot) =>
  * event of an open or sent-back job starts it, and the first event of a wheel takes its snapshot,
  * both inside the same transaction. The person is always the session's member, never the phone's say.
  */
-export async function saveWheelBatch(member: Member, wheelId: string, raw: unknown[], startJob: StartJob, now = new Date()): Promise<SaveResult> {
+export async function saveWheelBatch(
+  member: Member,
+  wheelId: string,
+  raw: unknown[],
+  startJob: StartJob,
+  now = new Date(),
+): Promise<SaveResult> {
   const parsed = partitionEvents(raw);
-  const events: Timed[] = parsed.events.map((e) => ({ ...e, ...clampClientAt(e.clientAt, now) }) as Timed);
+  const events: Timed[] = parsed.events.map(
+    (e) => ({ ...e, ...clampClientAt(e.clientAt, now) }) as Timed,
+  );
   let fast = 0;
-  const simple = !parsed.refused.length && new Set(events.map((e) => e.clientId)).size === events.length && !events.some((e) => e.type === 'inspection_failed' || e.type === 'wrench_chosen' || e.type === 'bolt_flagged');
+  const simple =
+    !parsed.refused.length &&
+    new Set(events.map((e) => e.clientId)).size === events.length &&
+    !events.some(
+      (e) =>
+        e.type === 'inspection_failed' || e.type === 'wrench_chosen' || e.type === 'bolt_flagged',
+    );
   if (simple && events.length) {
     fast = await insertIfAllowed(member, wheelId, events);
     if (fast === events.length) return { saved: fast, duplicates: 0, refused: [] };
   }
-  const indexOf = new Map(raw.map((e, i) => [(e as { clientId?: unknown })?.clientId, i] as const).reverse());
+  const indexOf = new Map(
+    raw.map((e, i) => [(e as { clientId?: unknown })?.clientId, i] as const).reverse(),
+  );
   return getDb().transaction(async (tx) => {
     const ctx = await loadWheel(member.shopId, wheelId, tx, true);
     assertMayRun(member, ctx);
-    const refused: (EventRefusal & { raw: unknown })[] = parsed.refused.map((r) => ({ ...r, raw: raw[r.index] }));
-    const refuse = (e: Timed, r: Omit<EventRefusal, 'index' | 'clientId'>) => refused.push({ ...r, index: indexOf.get(e.clientId) ?? -1, clientId: e.clientId, raw: raw[indexOf.get(e.clientId) ?? -1] ?? e });
+    const refused: (EventRefusal & { raw: unknown })[] = parsed.refused.map((r) => ({
+      ...r,
+      raw: raw[r.index],
+    }));
+    const refuse = (e: Timed, r: Omit<EventRefusal, 'index' | 'clientId'>) =>
+      refused.push({
+        ...r,
+        index: indexOf.get(e.clientId) ?? -1,
+        clientId: e.clientId,
+        raw: raw[indexOf.get(e.clientId) ?? -1] ?? e,
+      });
     let accepted: Timed[] = [];
     let stored = 0;
     const closed = closedMessage(ctx);
@@ -198,38 +296,92 @@ export async function saveWheelBatch(member: Member, wheelId: string, raw: unkno
       if (ctx.job.state !== 'in_progress') await startJob(ctx.job.id, tx);
       const snapshot = await ensureSnapshot(tx, member.shopId, ctx, now);
       const wrenchNo = await wrenchRefusals(tx, member.shopId, events, snapshot);
-      const turnedPasses = await storedTurnedPasses(tx, member.shopId, wheelId, events, snapshot.plan.passes.length);
+      const turnedPasses = await storedTurnedPasses(
+        tx,
+        member.shopId,
+        wheelId,
+        events,
+        snapshot.plan.passes.length,
+      );
       // In the batch's order, so a turned bolt opens the next check pass for the events after it.
       accepted = events.filter((e) => {
-        const why = planRefusal(e, snapshot, turnedPasses) ?? reworkRefusal(e, ctx.wheel.rework) ?? wrenchNo.get(e.clientId) ?? null;
+        const why =
+          planRefusal(e, snapshot, turnedPasses) ??
+          reworkRefusal(e, ctx.wheel.rework) ??
+          wrenchNo.get(e.clientId) ??
+          null;
         if (why) refuse(e, why);
         else if (e.type === 'bolt_confirmed' && e.payload.turned) turnedPasses.add(e.payload.pass);
         return !why;
       });
       const photos = await wheelPhotoIds(tx, member.shopId, wheelId, accepted);
-      const fresh = await insertAccepted(tx, member, ctx, accepted.map((e) => withoutForeignPhoto(e, photos)), snapshot, refuse);
+      const fresh = await insertAccepted(
+        tx,
+        member,
+        ctx,
+        accepted.map((e) => withoutForeignPhoto(e, photos)),
+        snapshot,
+        refuse,
+      );
       stored = fresh.size;
-      await countWrenchCycles(tx, member.shopId, accepted.filter((e) => fresh.has(e.clientId)));
+      await countWrenchCycles(
+        tx,
+        member.shopId,
+        accepted.filter((e) => fresh.has(e.clientId)),
+      );
       // A failed inspection, a flagged bolt or a bolt still turning on the last check pass stops the wheel for a lead (the first reason stays).
-      const stop = accepted.find((e) => e.type === 'inspection_failed' || e.type === 'bolt_flagged' || stillTurning(e, snapshot));
-      const reason = stop?.type === 'inspection_failed' ? stop.payload.notes : stop?.type === 'bolt_flagged' ? boltFlagReason(stop.payload) : stop?.type === 'bolt_confirmed' ? `Bolt ${stop.payload.bolt} still turned on check pass ${stop.payload.pass}, the last one allowed.` : null;
+      const stop = accepted.find(
+        (e) =>
+          e.type === 'inspection_failed' || e.type === 'bolt_flagged' || stillTurning(e, snapshot),
+      );
+      const reason =
+        stop?.type === 'inspection_failed'
+          ? stop.payload.notes
+          : stop?.type === 'bolt_flagged'
+            ? boltFlagReason(stop.payload)
+            : stop?.type === 'bolt_confirmed'
+              ? `Bolt ${stop.payload.bolt} still turned on check pass ${stop.payload.pass}, the last one allowed.`
+              : null;
       if (reason && !ctx.wheel.flaggedReason) {
-        await tx.update(jobWheels).set({ flaggedReason: reason }).where(and(eq(jobWheels.shopId, member.shopId), eq(jobWheels.id, wheelId)));
+        await tx
+          .update(jobWheels)
+          .set({ flaggedReason: reason })
+          .where(and(eq(jobWheels.shopId, member.shopId), eq(jobWheels.id, wheelId)));
       }
     }
     if (refused.length) {
       // clientId: only a real uuid is kept, so junk ids cannot collide with or fill the index.
       await tx
         .insert(refusedRunEvents)
-        .values(refused.map((r) => ({ shopId: member.shopId, jobId: ctx.job.id, wheelId, clientId: r.clientId && UUID.test(r.clientId) ? r.clientId : null, byId: member.userId, reason: r.message.replace(UNSTORABLE, '\uFFFD'), raw: storableRaw(r.raw) })))
+        .values(
+          refused.map((r) => ({
+            shopId: member.shopId,
+            jobId: ctx.job.id,
+            wheelId,
+            clientId: r.clientId && UUID.test(r.clientId) ? r.clientId : null,
+            byId: member.userId,
+            reason: r.message.replace(UNSTORABLE, '\uFFFD'),
+            raw: storableRaw(r.raw),
+          })),
+        )
         .onConflictDoNothing();
     }
     // Accepted ids neither new now nor in the fast path's insert, nor refused as another wheel's: replays.
     const elsewhere = refused.filter((r) => r.message === ID_ELSEWHERE).length;
     return {
       saved: stored + fast,
-      duplicates: Math.max(0, new Set(accepted.map((e) => e.clientId)).size - stored - fast - elsewhere),
-      refused: refused.map((r) => ({ index: r.index, clientId: r.clientId, message: r.message, fieldErrors: r.fieldErrors })).sort((a, b) => a.index - b.index),
+      duplicates: Math.max(
+        0,
+        new Set(accepted.map((e) => e.clientId)).size - stored - fast - elsewhere,
+      ),
+      refused: refused
+        .map((r) => ({
+          index: r.index,
+          clientId: r.clientId,
+          message: r.message,
+          fieldErrors: r.fieldErrors,
+        }))
+        .sort((a, b) => a.index - b.index),
     };
   });
 }
@@ -240,17 +392,26 @@ const ID_ELSEWHERE = 'This event id was already used for another wheel.';
 function closedMessage(ctx: Awaited<ReturnType<typeof loadWheel>>): string | null {
   const flagged = flaggedSpecMessage(ctx.spec);
   if (flagged) throw new DomainError('conflict', flagged);
-  if (ctx.job.state === 'awaiting_signoff' || ctx.job.state === 'signed_off') return 'The job card was submitted for sign-off; its record is closed.';
+  if (ctx.job.state === 'awaiting_signoff' || ctx.job.state === 'signed_off')
+    return 'The job card was submitted for sign-off; its record is closed.';
   if (ctx.wheel.submittedAt) return 'This wheel was submitted; its record is closed.';
   return null;
 }
 
 /** The wheel's snapshot; taken (with its start time) on the first event, once, inside the transaction. */
-async function ensureSnapshot(tx: Tx, shopId: string, ctx: Awaited<ReturnType<typeof loadWheel>>, now: Date): Promise<WheelSnapshot> {
+async function ensureSnapshot(
+  tx: Tx,
+  shopId: string,
+  ctx: Awaited<ReturnType<typeof loadWheel>>,
+  now: Date,
+): Promise<WheelSnapshot> {
   if (ctx.wheel.snapshot) return ctx.wheel.snapshot;
   const snapshot = takeSnapshot(ctx.spec, ctx.wheel, now);
   // The job's row is held, so no other save of this wheel is between the read and this write.
-  await tx.update(jobWheels).set({ snapshot, startedAt: now }).where(and(eq(jobWheels.shopId, shopId), eq(jobWheels.id, ctx.wheel.id)));
+  await tx
+    .update(jobWheels)
+    .set({ snapshot, startedAt: now })
+    .where(and(eq(jobWheels.shopId, shopId), eq(jobWheels.id, ctx.wheel.id)));
   return snapshot;
 }
 
@@ -287,9 +448,20 @@ async function insertAccepted(
     const mine = await tx
       .select({ clientId: wheelRunEvents.clientId })
       .from(wheelRunEvents)
-      .where(and(eq(wheelRunEvents.shopId, member.shopId), eq(wheelRunEvents.wheelId, ctx.wheel.id), inArray(wheelRunEvents.clientId, accepted.filter((e) => !fresh.has(e.clientId)).map((e) => e.clientId))));
+      .where(
+        and(
+          eq(wheelRunEvents.shopId, member.shopId),
+          eq(wheelRunEvents.wheelId, ctx.wheel.id),
+          inArray(
+            wheelRunEvents.clientId,
+            accepted.filter((e) => !fresh.has(e.clientId)).map((e) => e.clientId),
+          ),
+        ),
+      );
     const known = new Set(mine.map((r) => r.clientId));
-    for (const e of accepted) if (!fresh.has(e.clientId) && !known.has(e.clientId)) refuse(e, { message: ID_ELSEWHERE, fieldErrors: { clientId: ['Already used.'] } });
+    for (const e of accepted)
+      if (!fresh.has(e.clientId) && !known.has(e.clientId))
+        refuse(e, { message: ID_ELSEWHERE, fieldErrors: { clientId: ['Already used.'] } });
   }
   return new Set(rows.map((r) => r.clientId));
 }
@@ -300,11 +472,12 @@ async function insertAccepted(
  */
 async function countWrenchCycles(tx: Tx, shopId: string, stored: readonly ClientEvent[]) {
   const perWrench = new Map<string, number>();
-  for (const e of stored) if (e.type === 'bolt_confirmed' && e.payload.wrenchId) perWrench.set(e.payload.wrenchId, (perWrench.get(e.payload.wrenchId) ?? 0) + 1);
+  for (const e of stored)
+    if (e.type === 'bolt_confirmed' && e.payload.wrenchId)
+      perWrench.set(e.payload.wrenchId, (perWrench.get(e.payload.wrenchId) ?? 0) + 1);
   if (!perWrench.size) return;
   const rows = [...perWrench].map(([id, n]) => sql`(${id}::uuid, ${n}::int)`);
   await tx.execute(sql`update ${wrenches} set cycles_since_calibration = coalesce(${wrenches}.cycles_since_calibration, 0) + c.n
     from (values ${sql.join(rows, sql`, `)}) as c (wrench_id, n)
     where ${wrenches}.id = c.wrench_id and ${wrenches}.shop_id = ${shopId}`);
 }
-

@@ -11,15 +11,34 @@ import { passWrench } from '../wrench-gate';
 type Db = Pick<ReturnType<typeof getDb>, 'select'>;
 type Why = Omit<EventRefusal, 'index' | 'clientId'>;
 
-const refusal = (message: string): Why => ({ message, fieldErrors: { 'payload.wrenchId': [message] } });
+const refusal = (message: string): Why => ({
+  message,
+  fieldErrors: { 'payload.wrenchId': [message] },
+});
 
 /** A use of a wrench on a pass: a `wrench_chosen`, or a bolt confirmation that names its wrench. */
 type WrenchUse = { clientId: string; clientAt: string; pass: number; wrenchId: string };
 
 function usesOf(events: readonly ClientEvent[]): WrenchUse[] {
   return events.flatMap((e) => {
-    if (e.type === 'wrench_chosen') return [{ clientId: e.clientId, clientAt: e.clientAt, pass: e.payload.pass, wrenchId: e.payload.wrenchId }];
-    if (e.type === 'bolt_confirmed' && e.payload.wrenchId) return [{ clientId: e.clientId, clientAt: e.clientAt, pass: e.payload.pass, wrenchId: e.payload.wrenchId }];
+    if (e.type === 'wrench_chosen')
+      return [
+        {
+          clientId: e.clientId,
+          clientAt: e.clientAt,
+          pass: e.payload.pass,
+          wrenchId: e.payload.wrenchId,
+        },
+      ];
+    if (e.type === 'bolt_confirmed' && e.payload.wrenchId)
+      return [
+        {
+          clientId: e.clientId,
+          clientAt: e.clientAt,
+          pass: e.payload.pass,
+          wrenchId: e.payload.wrenchId,
+        },
+      ];
     return [];
   });
 }
@@ -31,7 +50,12 @@ function usesOf(events: readonly ClientEvent[]): WrenchUse[] {
  * verification the shop's policy accepts at that pass's setting at the time it was chosen. The
  * same engine rules as the phone's wrench gate (`passWrench`), judged again here.
  */
-export async function wrenchRefusals(db: Db, shopId: string, events: readonly ClientEvent[], snapshot: WheelSnapshot): Promise<Map<string, Why>> {
+export async function wrenchRefusals(
+  db: Db,
+  shopId: string,
+  events: readonly ClientEvent[],
+  snapshot: WheelSnapshot,
+): Promise<Map<string, Why>> {
   const chosen = usesOf(events);
   const out = new Map<string, Why>();
   if (!chosen.length) return out;
@@ -41,13 +65,36 @@ export async function wrenchRefusals(db: Db, shopId: string, events: readonly Cl
   const earliest = Math.min(...chosen.map((e) => Date.parse(e.clientAt)));
   const [rows, verifications] = await Promise.all([
     db
-      .select({ id: wrenches.id, label: wrenches.label, kind: wrenches.kind, min: wrenches.min, max: wrenches.max, unit: wrenches.unit, graduation: wrenches.graduation, status: wrenches.status, statusReason: wrenches.statusReason, calibrationDueOn: wrenches.calibrationDueOn })
+      .select({
+        id: wrenches.id,
+        label: wrenches.label,
+        kind: wrenches.kind,
+        min: wrenches.min,
+        max: wrenches.max,
+        unit: wrenches.unit,
+        graduation: wrenches.graduation,
+        status: wrenches.status,
+        statusReason: wrenches.statusReason,
+        calibrationDueOn: wrenches.calibrationDueOn,
+      })
       .from(wrenches)
       .where(and(eq(wrenches.shopId, shopId), inArray(wrenches.id, ids))),
     db
-      .select({ wrenchId: wrenchVerifications.wrenchId, recordedAt: wrenchVerifications.recordedAt, referenceValue: wrenchVerifications.referenceValue, unit: wrenchVerifications.unit })
+      .select({
+        wrenchId: wrenchVerifications.wrenchId,
+        recordedAt: wrenchVerifications.recordedAt,
+        referenceValue: wrenchVerifications.referenceValue,
+        unit: wrenchVerifications.unit,
+      })
       .from(wrenchVerifications)
-      .where(and(eq(wrenchVerifications.shopId, shopId), inArray(wrenchVerifications.wrenchId, ids), eq(wrenchVerifications.withinTolerance, true), gte(wrenchVerifications.recordedAt, new Date(earliest - (days + 1) * 86_400_000)))),
+      .where(
+        and(
+          eq(wrenchVerifications.shopId, shopId),
+          inArray(wrenchVerifications.wrenchId, ids),
+          eq(wrenchVerifications.withinTolerance, true),
+          gte(wrenchVerifications.recordedAt, new Date(earliest - (days + 1) * 86_400_000)),
+        ),
+      ),
   ]);
   const recorded = verifications.map((v) => ({ ...v, recordedAt: v.recordedAt.toISOString() }));
   for (const e of chosen) {
@@ -61,25 +108,51 @@ export async function wrenchRefusals(db: Db, shopId: string, events: readonly Cl
       continue;
     }
     if (w.status !== 'in_service') {
-      out.set(e.clientId, refusal(`${w.label} is out of service${w.statusReason ? ` (${w.statusReason})` : ''}; it cannot be used for a pass.`));
+      out.set(
+        e.clientId,
+        refusal(
+          `${w.label} is out of service${w.statusReason ? ` (${w.statusReason})` : ''}; it cannot be used for a pass.`,
+        ),
+      );
       continue;
     }
     if (w.calibrationDueOn < shopDay(e.clientAt, settings.timeZone)) {
-      out.set(e.clientId, refusal(`${w.label} is overdue for calibration (due ${w.calibrationDueOn}); it cannot be used for a pass.`));
+      out.set(
+        e.clientId,
+        refusal(
+          `${w.label} is overdue for calibration (due ${w.calibrationDueOn}); it cannot be used for a pass.`,
+        ),
+      );
       continue;
     }
     // Verifications recorded after the wrench was chosen do not count for that choice.
-    const before = recorded.filter((v) => Date.parse(v.recordedAt) <= Date.parse(e.clientAt) + 60_000);
+    const before = recorded.filter(
+      (v) => Date.parse(v.recordedAt) <= Date.parse(e.clientAt) + 60_000,
+    );
     const gate = passWrench({
       target: pass.target,
       wrenches: [w],
       chosenId: w.id,
-      rules: { minFractionOfMax: settings.wrenchFloorPercent / 100, verification: settings.verification, timeZone: settings.timeZone },
+      rules: {
+        minFractionOfMax: settings.wrenchFloorPercent / 100,
+        verification: settings.verification,
+        timeZone: settings.timeZone,
+      },
       verifications: before,
       now: new Date(e.clientAt),
     });
-    if (!gate.choice?.ok) out.set(e.clientId, refusal(`${w.label} does not suit pass ${pass.index} (${pass.target.value} ${pass.target.unit}) at the shop's wrench floor.`));
-    else if (gate.verification && !gate.verification.counts) out.set(e.clientId, refusal(`${w.label} may not be used for pass ${pass.index}: ${gate.verification.reason}`));
+    if (!gate.choice?.ok)
+      out.set(
+        e.clientId,
+        refusal(
+          `${w.label} does not suit pass ${pass.index} (${pass.target.value} ${pass.target.unit}) at the shop's wrench floor.`,
+        ),
+      );
+    else if (gate.verification && !gate.verification.counts)
+      out.set(
+        e.clientId,
+        refusal(`${w.label} may not be used for pass ${pass.index}: ${gate.verification.reason}`),
+      );
   }
   return out;
 }

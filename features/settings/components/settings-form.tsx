@@ -14,20 +14,41 @@ import type { ShopSettings } from '@/server/shop/settings';
 const fieldset = 'flex flex-col gap-4 rounded-xl border-2 border-paper-line p-4';
 const legend = 'px-1 text-lg font-bold';
 
-function UnitSelect({ label, name, units, value, hint, errors }: { label: string; name: string; units: readonly string[]; value: string; hint: string; errors?: string[] }) {
+function UnitSelect({
+  label,
+  name,
+  units,
+  value,
+  hint,
+  errors,
+}: {
+  label: string;
+  name: string;
+  units: readonly string[];
+  value: string;
+  hint: string;
+  errors?: string[];
+}) {
   return (
     <div className="flex flex-col gap-1">
       <label htmlFor={name} className="font-semibold">
         {label}
       </label>
-      <select id={name} name={name} defaultValue={value} aria-describedby={`${name}-hint${errors ? ` ${name}-error` : ''}`} aria-invalid={errors ? true : undefined} className="min-h-touch w-full rounded-lg border-2 border-ink-soft bg-paper px-3 text-base">
+      <select
+        id={name}
+        name={name}
+        defaultValue={value}
+        aria-describedby={`${name}-hint${errors ? ` ${name}-error` : ''}`}
+        aria-invalid={errors ? true : undefined}
+        className="min-h-touch border-ink-soft bg-paper w-full rounded-lg border-2 px-3 text-base"
+      >
         <UnitOptions units={units as never} />
       </select>
-      <p id={`${name}-hint`} className="text-sm text-ink-soft">
+      <p id={`${name}-hint`} className="text-ink-soft text-sm">
         {hint}
       </p>
       {errors ? (
-        <p id={`${name}-error`} role="alert" className="text-sm font-semibold text-danger">
+        <p id={`${name}-error`} role="alert" className="text-danger text-sm font-semibold">
           {errors.join(' ')}
         </p>
       ) : null}
@@ -39,16 +60,32 @@ function UnitSelect({ label, name, units, value, hint, errors }: { label: string
  * The shop's own rules, each explained in a sentence a lead can act on. Field names are the
  * API's JSON paths ("verification.days"), so errors land on the field the server names.
  */
-export function SettingsForm({ settings, timeZones }: { settings: ShopSettings; timeZones: string[] }) {
+export function SettingsForm({
+  settings,
+  timeZones,
+}: {
+  settings: ShopSettings;
+  timeZones: string[];
+}) {
   const { state, formAction, pending, errors, value } = useFormAction(saveSettings);
   // After a save the form shows what was stored, not what the page first loaded.
   const current = state?.ok ? state.data : settings;
   const [recency, setRecency] = useState(current.verification.recency);
   const text = (name: string, stored: string | number) => value(name) ?? String(stored);
-  const shown = state?.ok ? { ok: true, message: 'Settings saved. New plans, runner screens and forms use them from now on.' } : state;
+  const shown = state?.ok
+    ? {
+        ok: true,
+        message: 'Settings saved. New plans, runner screens and forms use them from now on.',
+      }
+    : state;
 
   return (
-    <form action={formAction} noValidate aria-label="Shop settings" className="flex max-w-2xl flex-col gap-6">
+    <form
+      action={formAction}
+      noValidate
+      aria-label="Shop settings"
+      className="flex max-w-2xl flex-col gap-6"
+    >
       <FormMessage state={shown} />
       <fieldset className={fieldset}>
         <legend className={legend}>Clock</legend>
@@ -146,8 +183,24 @@ export function SettingsForm({ settings, timeZones }: { settings: ShopSettings; 
       <fieldset className={fieldset}>
         <legend className={legend}>Units</legend>
         <div className="grid gap-4 sm:grid-cols-2">
-          <UnitSelect key={`p-${current.pressureUnit}`} label="Pressure unit" name="pressureUnit" units={PRESSURE_UNITS} value={current.pressureUnit} errors={errors('pressureUnit')} hint="New specs and job cards start in this unit; a spec keeps the unit it was written in." />
-          <UnitSelect key={`t-${current.torqueUnit}`} label="Torque unit" name="torqueUnit" units={TORQUE_UNITS} value={current.torqueUnit} errors={errors('torqueUnit')} hint="New specs and wrenches start in this unit; each wrench is still set in its own scale's unit." />
+          <UnitSelect
+            key={`p-${current.pressureUnit}`}
+            label="Pressure unit"
+            name="pressureUnit"
+            units={PRESSURE_UNITS}
+            value={current.pressureUnit}
+            errors={errors('pressureUnit')}
+            hint="New specs and job cards start in this unit; a spec keeps the unit it was written in."
+          />
+          <UnitSelect
+            key={`t-${current.torqueUnit}`}
+            label="Torque unit"
+            name="torqueUnit"
+            units={TORQUE_UNITS}
+            value={current.torqueUnit}
+            errors={errors('torqueUnit')}
+            hint="New specs and wrenches start in this unit; each wrench is still set in its own scale's unit."
+          />
         </div>
       </fieldset>
 

@@ -28,8 +28,13 @@ function columnsOf(patch: SettingsPatch) {
  * Changes the member's own shop's settings (any subset) and records who changed them and when.
  * Reads go through `getShopSettings` (server/shop/settings.ts); this returns the same DTO.
  */
-export async function updateShopSettings(actor: Member, patch: SettingsPatch): Promise<ShopSettings> {
-  const changes = Object.fromEntries(Object.entries(columnsOf(patch)).filter(([, value]) => value !== undefined));
+export async function updateShopSettings(
+  actor: Member,
+  patch: SettingsPatch,
+): Promise<ShopSettings> {
+  const changes = Object.fromEntries(
+    Object.entries(columnsOf(patch)).filter(([, value]) => value !== undefined),
+  );
   const [row] = await getDb()
     .update(shopSettings)
     .set({ ...changes, updatedAt: new Date(), updatedById: actor.userId })

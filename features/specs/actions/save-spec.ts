@@ -7,14 +7,20 @@ import { memberAction } from '@/server/action';
 import { specIdField, specSchema } from '../schemas';
 import { createSpec, updateSpec } from '../server/specs';
 
-export const createWheelSpec = memberAction({ permission: 'specs.manage', schema: specSchema }, async (input, member) => {
-  const spec = await createSpec(member, input);
-  revalidatePath('/specs');
-  redirect(`/specs/${spec.id}?saved=1`);
-});
+export const createWheelSpec = memberAction(
+  { permission: 'specs.manage', schema: specSchema },
+  async (input, member) => {
+    const spec = await createSpec(member, input);
+    revalidatePath('/specs');
+    redirect(`/specs/${spec.id}?saved=1`);
+  },
+);
 
 export const updateWheelSpec = memberAction(
-  { permission: 'specs.manage', schema: z.intersection(specSchema, z.object({ specId: specIdField })) },
+  {
+    permission: 'specs.manage',
+    schema: z.intersection(specSchema, z.object({ specId: specIdField })),
+  },
   async ({ specId, ...input }, member) => {
     const spec = await updateSpec(member, specId, input);
     revalidatePath('/specs');

@@ -11,7 +11,10 @@ export function FieldNote({ hint, warnings }: { hint?: ReactNode; warnings?: str
       {hint}
       <span aria-live="polite" className="block">
         {warnings?.map((w) => (
-          <span key={w} className="mt-1 block rounded border-l-4 border-caution bg-caution-tint p-2 font-semibold text-caution-ink">
+          <span
+            key={w}
+            className="border-caution bg-caution-tint text-caution-ink mt-1 block rounded border-l-4 p-2 font-semibold"
+          >
             Check: {w}
           </span>
         ))}

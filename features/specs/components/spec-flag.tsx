@@ -1,7 +1,7 @@
 /** A stored spec that fails the plausibility rules: why, and what it blocks until a lead fixes it. */
 export function SpecFlag({ reason, canFix }: { reason: string; canFix: boolean }) {
   return (
-    <div role="alert" className="rounded-lg border-2 border-danger bg-danger-tint p-3 text-danger">
+    <div role="alert" className="border-danger bg-danger-tint text-danger rounded-lg border-2 p-3">
       <p className="font-bold">Flagged: the runner will not start a wheel on this spec.</p>
       <p>{reason}</p>
       <p className="text-sm">

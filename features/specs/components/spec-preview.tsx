@@ -9,7 +9,15 @@ export type CribWrench = Wrench & { label: string };
  * What each pass of this spec will use with the shop's in-service wrenches, as the engine plans it
  * under the shop's wrench floor (`minFractionOfMax`, a fraction of each wrench's maximum).
  */
-export function SpecPreview({ spec, wrenches, minFractionOfMax }: { spec: SpecInput; wrenches: CribWrench[]; minFractionOfMax: number }) {
+export function SpecPreview({
+  spec,
+  wrenches,
+  minFractionOfMax,
+}: {
+  spec: SpecInput;
+  wrenches: CribWrench[];
+  minFractionOfMax: number;
+}) {
   const plan = planTorque({
     boltCount: spec.boltCount,
     pattern: specPattern(spec),
@@ -26,27 +34,45 @@ export function SpecPreview({ spec, wrenches, minFractionOfMax }: { spec: SpecIn
         Plan preview
       </h2>
       <p>
-        <span className="font-semibold">Sequence ({spec.boltCount} bolts, numbered clockwise from the first bolt past the valve notch):</span>{' '}
+        <span className="font-semibold">
+          Sequence ({spec.boltCount} bolts, numbered clockwise from the first bolt past the valve
+          notch):
+        </span>{' '}
         <span className="font-mono">{plan.sequence.join(' · ')}</span>
       </p>
       <div className="max-w-xs">
-        <BoltCircle count={spec.boltCount} order={plan.sequence} done={[]} next={plan.sequence[0]} mode="preview" label={`Tightening order on a ${spec.boltCount}-bolt ring`} />
+        <BoltCircle
+          count={spec.boltCount}
+          order={plan.sequence}
+          done={[]}
+          next={plan.sequence[0]}
+          mode="preview"
+          label={`Tightening order on a ${spec.boltCount}-bolt ring`}
+        />
       </div>
       <div className="overflow-x-auto">
         <table className="w-full border-collapse text-left">
           <caption className="sr-only">Passes with the wrench and setting for each</caption>
           <thead>
-            <tr className="border-b-2 border-ink">
-              <th scope="col" className="p-2">Pass</th>
-              <th scope="col" className="p-2">Target</th>
-              <th scope="col" className="p-2">Wrench and setting</th>
+            <tr className="border-ink border-b-2">
+              <th scope="col" className="p-2">
+                Pass
+              </th>
+              <th scope="col" className="p-2">
+                Target
+              </th>
+              <th scope="col" className="p-2">
+                Wrench and setting
+              </th>
             </tr>
           </thead>
           <tbody>
             {plan.passes.map((p) => (
-              <tr key={p.index} className="border-b border-paper-line align-top">
+              <tr key={p.index} className="border-paper-line border-b align-top">
                 <th scope="row" className="p-2 font-semibold">
-                  {p.kind === 'check' ? 'Check pass' : `Pass ${p.index} (${Math.round(p.fraction * 100)} %)`}
+                  {p.kind === 'check'
+                    ? 'Check pass'
+                    : `Pass ${p.index} (${Math.round(p.fraction * 100)} %)`}
                 </th>
                 <td className="p-2">{formatTorque(p.target, 2)}</td>
                 <td className="p-2">
@@ -57,14 +83,17 @@ export function SpecPreview({ spec, wrenches, minFractionOfMax }: { spec: SpecIn
                         {p.wrench.setting.value} {UNIT_LABELS[p.wrench.setting.unit]}
                       </span>
                       {p.wrench.warnings.map((w) => (
-                        <p key={w} className="mt-1 rounded border-l-4 border-caution bg-caution-tint p-2 text-caution-ink">
+                        <p
+                          key={w}
+                          className="border-caution bg-caution-tint text-caution-ink mt-1 rounded border-l-4 p-2"
+                        >
                           <span className="font-bold">Warning: </span>
                           {w}
                         </p>
                       ))}
                     </>
                   ) : (
-                    <p className="rounded border-l-4 border-danger bg-danger-tint p-2 text-danger">
+                    <p className="border-danger bg-danger-tint text-danger rounded border-l-4 p-2">
                       <span className="font-bold">No wrench: </span>
                       {p.wrench.reason}
                     </p>
@@ -75,8 +104,9 @@ export function SpecPreview({ spec, wrenches, minFractionOfMax }: { spec: SpecIn
           </tbody>
         </table>
       </div>
-      <p className="text-sm text-ink-soft">
-        The engine plans from what you entered. The wheel maker&apos;s torque spec and sequence come first; never use a computed value in place of it.
+      <p className="text-ink-soft text-sm">
+        The engine plans from what you entered. The wheel maker&apos;s torque spec and sequence come
+        first; never use a computed value in place of it.
       </p>
     </section>
   );

@@ -7,7 +7,10 @@ import { DomainError, notFound } from '@/server/errors';
 import { specErrors } from '../engine-check';
 import type { SpecInput } from '../schemas';
 
-export type Spec = Omit<WheelSpecRow, 'shopId' | 'createdAt' | 'updatedAt' | 'passFractions' | 'beadSeatRatingConfirmedAt'> & {
+export type Spec = Omit<
+  WheelSpecRow,
+  'shopId' | 'createdAt' | 'updatedAt' | 'passFractions' | 'beadSeatRatingConfirmedAt'
+> & {
   passPercents: number[];
   updatedAt: string;
   beadSeatRatingConfirmedAt: string | null;
@@ -50,7 +53,14 @@ const toDto = ({ passFractions, updatedAt, beadSeatRatingConfirmedAt, ...rest }:
   beadSeatRatingConfirmedAt: beadSeatRatingConfirmedAt?.toISOString() ?? null,
 });
 
-type Confirmation = Pick<Row, 'beadSeatRatingConfirmedById' | 'beadSeatRatingConfirmedAt' | 'beadSeatRatingReference' | 'maxBeadSeatPressure' | 'pressureUnit'>;
+type Confirmation = Pick<
+  Row,
+  | 'beadSeatRatingConfirmedById'
+  | 'beadSeatRatingConfirmedAt'
+  | 'beadSeatRatingReference'
+  | 'maxBeadSeatPressure'
+  | 'pressureUnit'
+>;
 
 /**
  * Who vouches for the tire maker's higher rating: only a lead may tick the box. A confirmation
@@ -58,15 +68,22 @@ type Confirmation = Pick<Row, 'beadSeatRatingConfirmedById' | 'beadSeatRatingCon
  */
 function confirmationOf(actor: Member, input: SpecInput, before?: Confirmation) {
   const reference = input.beadSeatRatingReference.trim();
-  if (!input.beadSeatRatingConfirmed || !reference) return { beadSeatRatingConfirmedById: null, beadSeatRatingConfirmedAt: null };
+  if (!input.beadSeatRatingConfirmed || !reference)
+    return { beadSeatRatingConfirmedById: null, beadSeatRatingConfirmedAt: null };
   const unchanged =
     before?.beadSeatRatingConfirmedAt &&
     before.beadSeatRatingReference === reference &&
     before.maxBeadSeatPressure === input.maxBeadSeatPressure &&
     before.pressureUnit === input.pressureUnit;
-  if (unchanged) return { beadSeatRatingConfirmedById: before.beadSeatRatingConfirmedById, beadSeatRatingConfirmedAt: before.beadSeatRatingConfirmedAt };
+  if (unchanged)
+    return {
+      beadSeatRatingConfirmedById: before.beadSeatRatingConfirmedById,
+      beadSeatRatingConfirmedAt: before.beadSeatRatingConfirmedAt,
+    };
   if (actor.role !== 'lead') {
-    throw new DomainError('forbidden', "Only a lead can confirm a tire maker's bead-seat rating.", { beadSeatRatingConfirmed: ["Only a lead can confirm the tire maker's rating."] });
+    throw new DomainError('forbidden', "Only a lead can confirm a tire maker's bead-seat rating.", {
+      beadSeatRatingConfirmed: ["Only a lead can confirm the tire maker's rating."],
+    });
   }
   return { beadSeatRatingConfirmedById: actor.userId, beadSeatRatingConfirmedAt: new Date() };
 }
@@ -106,12 +123,19 @@ function toRow(actor: Member, input: SpecInput, before?: Confirmation) {
 }
 
 export async function listSpecs(shopId: string): Promise<Spec[]> {
-  const rows = await getDb().select(columns).from(wheelSpecs).where(eq(wheelSpecs.shopId, shopId)).orderBy(asc(wheelSpecs.name));
+  const rows = await getDb()
+    .select(columns)
+    .from(wheelSpecs)
+    .where(eq(wheelSpecs.shopId, shopId))
+    .orderBy(asc(wheelSpecs.name));
   return rows.map(toDto);
 }
 
 async function getSpecRow(shopId: string, specId: string): Promise<Row> {
-  const [row] = await getDb().select(columns).from(wheelSpecs).where(and(eq(wheelSpecs.shopId, shopId), eq(wheelSpecs.id, specId)));
+  const [row] = await getDb()
+    .select(columns)
+    .from(wheelSpecs)
+    .where(and(eq(wheelSpecs.shopId, shopId), eq(wheelSpecs.id, specId)));
   if (!row) throw notFound('That wheel spec');
   return row;
 }
@@ -121,7 +145,10 @@ export async function getSpec(shopId: string, specId: string): Promise<Spec> {
 }
 
 export async function createSpec(actor: Member, input: SpecInput): Promise<Spec> {
-  const [row] = await getDb().insert(wheelSpecs).values({ ...toRow(actor, input), shopId: actor.shopId }).returning(columns);
+  const [row] = await getDb()
+    .insert(wheelSpecs)
+    .values({ ...toRow(actor, input), shopId: actor.shopId })
+    .returning(columns);
   return toDto(row!);
 }
 

@@ -8,8 +8,12 @@ export function CalibrationDue({ day }: { day: string }) {
   return (
     <>
       <ShopDate day={day} />
-      {status === 'overdue' ? <span className="block text-sm font-bold text-danger">■ Overdue</span> : null}
-      {status === 'today' ? <span className="block text-sm font-bold text-caution-ink">▲ Due today</span> : null}
+      {status === 'overdue' ? (
+        <span className="text-danger block text-sm font-bold">■ Overdue</span>
+      ) : null}
+      {status === 'today' ? (
+        <span className="text-caution-ink block text-sm font-bold">▲ Due today</span>
+      ) : null}
     </>
   );
 }

@@ -10,31 +10,48 @@ export function WrenchTable({ wrenches }: { wrenches: CribWrenchDto[] }) {
       <table className="w-full border-collapse text-left">
         <caption className="sr-only">Torque wrenches in the tool crib</caption>
         <thead>
-          <tr className="border-b-2 border-ink">
-            <th scope="col" className="p-2">Wrench</th>
-            <th scope="col" className="p-2">Range</th>
-            <th scope="col" className="p-2">Calibration due</th>
-            <th scope="col" className="p-2">Status</th>
+          <tr className="border-ink border-b-2">
+            <th scope="col" className="p-2">
+              Wrench
+            </th>
+            <th scope="col" className="p-2">
+              Range
+            </th>
+            <th scope="col" className="p-2">
+              Calibration due
+            </th>
+            <th scope="col" className="p-2">
+              Status
+            </th>
           </tr>
         </thead>
         <tbody>
           {wrenches.map((w) => (
-            <tr key={w.id} className="border-b border-paper-line align-top">
+            <tr key={w.id} className="border-paper-line border-b align-top">
               <th scope="row" className="p-2">
-                <Link href={`/tool-crib/${w.id}`} className="inline-flex min-h-touch items-center font-semibold text-work underline">
+                <Link
+                  href={`/tool-crib/${w.id}`}
+                  className="min-h-touch text-work inline-flex items-center font-semibold underline"
+                >
                   {w.label}
                 </Link>
-                <span className="block text-sm font-normal text-ink-soft">{w.kind}{w.serial ? ` · S/N ${w.serial}` : ''}</span>
+                <span className="text-ink-soft block text-sm font-normal">
+                  {w.kind}
+                  {w.serial ? ` · S/N ${w.serial}` : ''}
+                </span>
               </th>
               <td className="p-2">
-                {w.min}–{w.max} {UNIT_LABELS[w.unit]} <span className="block text-sm text-ink-soft">steps of {w.graduation}</span>
+                {w.min}–{w.max} {UNIT_LABELS[w.unit]}{' '}
+                <span className="text-ink-soft block text-sm">steps of {w.graduation}</span>
               </td>
               <td className="p-2">
                 <CalibrationDue day={w.calibrationDueOn} />
               </td>
               <td className="p-2">
                 <StatusBadge status={w.status} />
-                {w.statusReason ? <span className="mt-1 block text-sm">{w.statusReason}</span> : null}
+                {w.statusReason ? (
+                  <span className="mt-1 block text-sm">{w.statusReason}</span>
+                ) : null}
               </td>
             </tr>
           ))}

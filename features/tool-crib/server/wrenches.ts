@@ -1,8 +1,20 @@
 import 'server-only';
 import { and, asc, desc, eq, gte, inArray, lt, or, sql } from 'drizzle-orm';
 import { getDb } from '@/db';
-import { users, wrenches, wrenchStatusEvents, wrenchVerifications, type WrenchRow } from '@/db/schema';
-import { assertWrench, TorquePlanError, verifyReading, type RecordedVerification, type Wrench } from '@/features/torque-plan';
+import {
+  users,
+  wrenches,
+  wrenchStatusEvents,
+  wrenchVerifications,
+  type WrenchRow,
+} from '@/db/schema';
+import {
+  assertWrench,
+  TorquePlanError,
+  verifyReading,
+  type RecordedVerification,
+  type Wrench,
+} from '@/features/torque-plan';
 import { shopDay } from '@/features/ui/shop-time';
 import type { Member } from '@/server/auth/session';
 import { DomainError, notFound } from '@/server/errors';
@@ -58,7 +70,10 @@ export async function sweepOverdue(shopId: string, now = new Date()): Promise<vo
   const today = await shopToday(shopId, now);
   const overdue = await db
     .update(wrenches)
-    .set({ status: 'out_of_service', statusReason: sql`case when ${wrenches.calibrationDueOn} < ${today}::date then 'Calibration overdue (was due ' || ${wrenches.calibrationDueOn}::text || ')' else 'Cycle count reached ${sql.raw(String(CYCLE_LIMIT))}: recalibrate' end` })
+    .set({
+      status: 'out_of_service',
+      statusReason: sql`case when ${wrenches.calibrationDueOn} < ${today}::date then 'Calibration overdue (was due ' || ${wrenches.calibrationDueOn}::text || ')' else 'Cycle count reached ${sql.raw(String(CYCLE_LIMIT))}: recalibrate' end`,
+    })
     .where(
       and(
         eq(wrenches.shopId, shopId),
@@ -68,29 +83,60 @@ export async function sweepOverdue(shopId: string, now = new Date()): Promise<vo
     )
     .returning({ id: wrenches.id, reason: wrenches.statusReason });
   if (overdue.length) {
-    await db.insert(wrenchStatusEvents).values(overdue.map((w) => ({ shopId, wrenchId: w.id, status: 'out_of_service' as const, reason: w.reason })));
+    await db.insert(wrenchStatusEvents).values(
+      overdue.map((w) => ({
+        shopId,
+        wrenchId: w.id,
+        status: 'out_of_service' as const,
+        reason: w.reason,
+      })),
+    );
   }
 }
 
 export async function listWrenches(shopId: string): Promise<CribWrenchDto[]> {
   await sweepOverdue(shopId);
-  return getDb().select(columns).from(wrenches).where(eq(wrenches.shopId, shopId)).orderBy(asc(wrenches.label));
+  return getDb()
+    .select(columns)
+    .from(wrenches)
+    .where(eq(wrenches.shopId, shopId))
+    .orderBy(asc(wrenches.label));
 }
 
 export async function getWrench(shopId: string, wrenchId: string): Promise<CribWrenchDto> {
   await sweepOverdue(shopId);
-  const [row] = await getDb().select(columns).from(wrenches).where(and(eq(wrenches.shopId, shopId), eq(wrenches.id, wrenchId)));
+  const [row] = await getDb()
+    .select(columns)
+    .from(wrenches)
+    .where(and(eq(wrenches.shopId, shopId), eq(wrenches.id, wrenchId)));
   if (!row) throw notFound('That wrench');
   return row;
 }
 
 /** In-service wrenches as the engine takes them (optionally only these ids), with their labels. */
-export async function wrenchesForEngine(shopId: string, ids?: string[]): Promise<(Wrench & { label: string })[]> {
+export async function wrenchesForEngine(
+  shopId: string,
+  ids?: string[],
+): Promise<(Wrench & { label: string })[]> {
   await sweepOverdue(shopId);
   const rows = await getDb()
-    .select({ id: wrenches.id, label: wrenches.label, min: wrenches.min, max: wrenches.max, unit: wrenches.unit, graduation: wrenches.graduation, kind: wrenches.kind })
+    .select({
+      id: wrenches.id,
+      label: wrenches.label,
+      min: wrenches.min,
+      max: wrenches.max,
+      unit: wrenches.unit,
+      graduation: wrenches.graduation,
+      kind: wrenches.kind,
+    })
     .from(wrenches)
-    .where(and(eq(wrenches.shopId, shopId), eq(wrenches.status, 'in_service'), ids ? inArray(wrenches.id, ids) : undefined));
+    .where(
+      and(
+        eq(wrenches.shopId, shopId),
+        eq(wrenches.status, 'in_service'),
+        ids ? inArray(wrenches.id, ids) : undefined,
+      ),
+    );
   return rows;
 }
 
@@ -98,13 +144,21 @@ export async function createWrench(actor: Member, input: WrenchInput): Promise<C
   checkWithEngine(input);
   const [row] = await getDb()
     .insert(wrenches)
-    .values({ ...input, cyclesSinceCalibration: input.cyclesSinceCalibration ?? null, shopId: actor.shopId })
+    .values({
+      ...input,
+      cyclesSinceCalibration: input.cyclesSinceCalibration ?? null,
+      shopId: actor.shopId,
+    })
     .returning(columns);
   await sweepOverdue(actor.shopId);
   return getWrench(actor.shopId, row!.id);
 }
 
-export async function updateWrench(actor: Member, wrenchId: string, input: WrenchInput): Promise<CribWrenchDto> {
+export async function updateWrench(
+  actor: Member,
+  wrenchId: string,
+  input: WrenchInput,
+): Promise<CribWrenchDto> {
   checkWithEngine(input);
   const [row] = await getDb()
     .update(wrenches)
@@ -119,60 +173,127 @@ export async function updateWrench(actor: Member, wrenchId: string, input: Wrenc
  * Records a reading against a reference, judged by the engine. Out of tolerance puts the wrench
  * out of service at once; a good reading never puts it back (only a lead does, with a reason).
  */
-export async function recordVerification(actor: Member, wrenchId: string, input: VerificationInput) {
+export async function recordVerification(
+  actor: Member,
+  wrenchId: string,
+  input: VerificationInput,
+) {
   const wrench = await getWrench(actor.shopId, wrenchId);
-  const verdict = verifyReading({ ...wrench }, { value: input.referenceValue, unit: input.unit }, { value: input.readingValue, unit: input.unit });
+  const verdict = verifyReading(
+    { ...wrench },
+    { value: input.referenceValue, unit: input.unit },
+    { value: input.readingValue, unit: input.unit },
+  );
   return getDb().transaction(async (tx) => {
     const [row] = await tx
       .insert(wrenchVerifications)
-      .values({ shopId: actor.shopId, wrenchId, ...input, deviationPct: verdict.deviationPct, tolerancePct: verdict.tolerancePct, withinTolerance: verdict.withinTolerance, recordedById: actor.userId })
+      .values({
+        shopId: actor.shopId,
+        wrenchId,
+        ...input,
+        deviationPct: verdict.deviationPct,
+        tolerancePct: verdict.tolerancePct,
+        withinTolerance: verdict.withinTolerance,
+        recordedById: actor.userId,
+      })
       .returning({ id: wrenchVerifications.id, recordedAt: wrenchVerifications.recordedAt });
     if (!verdict.withinTolerance && wrench.status === 'in_service') {
       const reason = `Verification out of tolerance: ${verdict.deviationPct > 0 ? '+' : ''}${verdict.deviationPct.toFixed(1)} % (allowed ±${verdict.tolerancePct} %)`;
-      await tx.update(wrenches).set({ status: 'out_of_service', statusReason: reason }).where(and(eq(wrenches.shopId, actor.shopId), eq(wrenches.id, wrenchId)));
-      await tx.insert(wrenchStatusEvents).values({ shopId: actor.shopId, wrenchId, status: 'out_of_service', reason, byId: actor.userId });
+      await tx
+        .update(wrenches)
+        .set({ status: 'out_of_service', statusReason: reason })
+        .where(and(eq(wrenches.shopId, actor.shopId), eq(wrenches.id, wrenchId)));
+      await tx.insert(wrenchStatusEvents).values({
+        shopId: actor.shopId,
+        wrenchId,
+        status: 'out_of_service',
+        reason,
+        byId: actor.userId,
+      });
     }
     return { id: row!.id, recordedAt: row!.recordedAt.toISOString(), ...verdict };
   });
 }
 
 /** A lead puts an out-of-service wrench back, with a reason; not while its calibration is overdue. */
-export async function clearWrench(actor: Member, wrenchId: string, reason: string): Promise<CribWrenchDto> {
+export async function clearWrench(
+  actor: Member,
+  wrenchId: string,
+  reason: string,
+): Promise<CribWrenchDto> {
   const wrench = await getWrench(actor.shopId, wrenchId);
-  if (wrench.status === 'in_service') throw new DomainError('conflict', 'This wrench is already in service.');
+  if (wrench.status === 'in_service')
+    throw new DomainError('conflict', 'This wrench is already in service.');
   const [overdue] = await getDb()
-    .select({ yes: sql<boolean>`${wrenches.calibrationDueOn} < ${await shopToday(actor.shopId)}::date or coalesce(${wrenches.cyclesSinceCalibration}, 0) >= ${CYCLE_LIMIT}` })
+    .select({
+      yes: sql<boolean>`${wrenches.calibrationDueOn} < ${await shopToday(actor.shopId)}::date or coalesce(${wrenches.cyclesSinceCalibration}, 0) >= ${CYCLE_LIMIT}`,
+    })
     .from(wrenches)
     .where(and(eq(wrenches.shopId, actor.shopId), eq(wrenches.id, wrenchId)));
   if (overdue?.yes) {
-    const message = 'Its calibration is overdue: record the new calibration (due date, cycles) before putting it back in service.';
+    const message =
+      'Its calibration is overdue: record the new calibration (due date, cycles) before putting it back in service.';
     throw new DomainError('conflict', message, { reason: [message] });
   }
   await getDb().transaction(async (tx) => {
-    await tx.update(wrenches).set({ status: 'in_service', statusReason: '' }).where(and(eq(wrenches.shopId, actor.shopId), eq(wrenches.id, wrenchId)));
-    await tx.insert(wrenchStatusEvents).values({ shopId: actor.shopId, wrenchId, status: 'in_service', reason, byId: actor.userId });
+    await tx
+      .update(wrenches)
+      .set({ status: 'in_service', statusReason: '' })
+      .where(and(eq(wrenches.shopId, actor.shopId), eq(wrenches.id, wrenchId)));
+    await tx
+      .insert(wrenchStatusEvents)
+      .values({ shopId: actor.shopId, wrenchId, status: 'in_service', reason, byId: actor.userId });
   });
   return getWrench(actor.shopId, wrenchId);
 }
 
 export type WrenchHistoryEntry =
-  | { type: 'verification'; at: string; by: string; referenceValue: number; readingValue: number; unit: WrenchRow['unit']; deviationPct: number; tolerancePct: number; withinTolerance: boolean }
+  | {
+      type: 'verification';
+      at: string;
+      by: string;
+      referenceValue: number;
+      readingValue: number;
+      unit: WrenchRow['unit'];
+      deviationPct: number;
+      tolerancePct: number;
+      withinTolerance: boolean;
+    }
   | { type: 'status'; at: string; by: string | null; status: WrenchRow['status']; reason: string };
 
 /** Verifications and status changes, newest first. */
-export async function wrenchHistory(shopId: string, wrenchId: string): Promise<WrenchHistoryEntry[]> {
+export async function wrenchHistory(
+  shopId: string,
+  wrenchId: string,
+): Promise<WrenchHistoryEntry[]> {
   await getWrench(shopId, wrenchId);
   const db = getDb();
   const [checks, events] = await Promise.all([
     db
-      .select({ at: wrenchVerifications.recordedAt, by: users.name, referenceValue: wrenchVerifications.referenceValue, readingValue: wrenchVerifications.readingValue, unit: wrenchVerifications.unit, deviationPct: wrenchVerifications.deviationPct, tolerancePct: wrenchVerifications.tolerancePct, withinTolerance: wrenchVerifications.withinTolerance })
+      .select({
+        at: wrenchVerifications.recordedAt,
+        by: users.name,
+        referenceValue: wrenchVerifications.referenceValue,
+        readingValue: wrenchVerifications.readingValue,
+        unit: wrenchVerifications.unit,
+        deviationPct: wrenchVerifications.deviationPct,
+        tolerancePct: wrenchVerifications.tolerancePct,
+        withinTolerance: wrenchVerifications.withinTolerance,
+      })
       .from(wrenchVerifications)
       .innerJoin(users, eq(users.id, wrenchVerifications.recordedById))
-      .where(and(eq(wrenchVerifications.shopId, shopId), eq(wrenchVerifications.wrenchId, wrenchId)))
+      .where(
+        and(eq(wrenchVerifications.shopId, shopId), eq(wrenchVerifications.wrenchId, wrenchId)),
+      )
       .orderBy(desc(wrenchVerifications.recordedAt))
       .limit(200),
     db
-      .select({ at: wrenchStatusEvents.at, by: users.name, status: wrenchStatusEvents.status, reason: wrenchStatusEvents.reason })
+      .select({
+        at: wrenchStatusEvents.at,
+        by: users.name,
+        status: wrenchStatusEvents.status,
+        reason: wrenchStatusEvents.reason,
+      })
       .from(wrenchStatusEvents)
       .leftJoin(users, eq(users.id, wrenchStatusEvents.byId))
       .where(and(eq(wrenchStatusEvents.shopId, shopId), eq(wrenchStatusEvents.wrenchId, wrenchId)))
@@ -191,12 +312,27 @@ export async function wrenchHistory(shopId: string, wrenchId: string): Promise<W
  * `verificationFor` decides, per pass setting, on the shop's calendar). `days` shop days back,
  * plus one day of margin for any time zone's offset; newest first.
  */
-export async function recentPassingVerifications(shopId: string, days: number, now = new Date()): Promise<RecordedVerification[]> {
+export async function recentPassingVerifications(
+  shopId: string,
+  days: number,
+  now = new Date(),
+): Promise<RecordedVerification[]> {
   const since = new Date(now.getTime() - (Math.max(1, days) + 1) * 86_400_000);
   const rows = await getDb()
-    .select({ wrenchId: wrenchVerifications.wrenchId, recordedAt: wrenchVerifications.recordedAt, referenceValue: wrenchVerifications.referenceValue, unit: wrenchVerifications.unit })
+    .select({
+      wrenchId: wrenchVerifications.wrenchId,
+      recordedAt: wrenchVerifications.recordedAt,
+      referenceValue: wrenchVerifications.referenceValue,
+      unit: wrenchVerifications.unit,
+    })
     .from(wrenchVerifications)
-    .where(and(eq(wrenchVerifications.shopId, shopId), eq(wrenchVerifications.withinTolerance, true), gte(wrenchVerifications.recordedAt, since)))
+    .where(
+      and(
+        eq(wrenchVerifications.shopId, shopId),
+        eq(wrenchVerifications.withinTolerance, true),
+        gte(wrenchVerifications.recordedAt, since),
+      ),
+    )
     .orderBy(desc(wrenchVerifications.recordedAt))
     .limit(1000);
   return rows.map((r) => ({ ...r, recordedAt: r.recordedAt.toISOString() }));

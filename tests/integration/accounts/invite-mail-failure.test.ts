@@ -18,16 +18,25 @@ describe('an invite whose e-mail the mail server refuses', () => {
   it('is not created, and the invite sent before keeps working', async () => {
     const shop = await createTestShop();
     await actAs(shop.lead.userId);
-    expect(await inviteMember(null, { email: 'patient@example.test', role: 'technician' })).toMatchObject({ ok: true });
+    expect(
+      await inviteMember(null, { email: 'patient@example.test', role: 'technician' }),
+    ).toMatchObject({ ok: true });
     const firstToken = inviteToken(await waitForMail(INTEGRATION_SINK.dir, 'patient@example.test'));
 
-    vi.mocked(sendMail).mockRejectedValueOnce(new Error('451 4.3.0 mail server busy, try again later'));
-    expect(await inviteMember(null, { email: 'patient@example.test', role: 'lead' })).toMatchObject({
-      ok: false,
-      message: expect.stringMatching(/could not be sent, so no invite was created/),
-    });
+    vi.mocked(sendMail).mockRejectedValueOnce(
+      new Error('451 4.3.0 mail server busy, try again later'),
+    );
+    expect(await inviteMember(null, { email: 'patient@example.test', role: 'lead' })).toMatchObject(
+      {
+        ok: false,
+        message: expect.stringMatching(/could not be sent, so no invite was created/),
+      },
+    );
 
-    expect(await findUsableInvite(firstToken)).toMatchObject({ email: 'patient@example.test', role: 'technician' });
+    expect(await findUsableInvite(firstToken)).toMatchObject({
+      email: 'patient@example.test',
+      role: 'technician',
+    });
     expect((await listPendingInvites(shop.shopId)).map((i) => i.role)).toEqual(['technician']);
   });
 

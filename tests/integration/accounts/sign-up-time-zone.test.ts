@@ -6,13 +6,19 @@ import { getShopSettings } from '@/server/shop/settings';
 
 /** Sign-up as the form sends it: the browser's zone in a hidden field. */
 async function signUpFrom(timeZone: unknown) {
-  const input = signUpSchema.parse({ shopName: 'Zone Test Tires', name: 'Zed Lead', email: `zone-${randomUUID().slice(0, 8)}@shop.test`, password: 'correct horse battery', timeZone });
+  const input = signUpSchema.parse({
+    shopName: 'Zone Test Tires',
+    name: 'Zed Lead',
+    email: `zone-${randomUUID().slice(0, 8)}@shop.test`,
+    password: 'correct horse battery',
+    timeZone,
+  });
   const { shopId } = await createShopWithLead(input);
   return (await getShopSettings(shopId)).timeZone;
 }
 
 describe("sign-up starts the shop's clock in the browser's time zone", () => {
-  it('a zone the browser reports is the new shop\'s zone', async () => {
+  it("a zone the browser reports is the new shop's zone", async () => {
     expect(await signUpFrom('America/Denver')).toBe('America/Denver');
     expect(await signUpFrom('Pacific/Auckland')).toBe('Pacific/Auckland');
   });

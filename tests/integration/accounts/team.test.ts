@@ -15,27 +15,42 @@ import { inviteToken, waitForMail } from '@/tests/helpers/mailbox';
 import { actAs, resetNextRequest } from '@/tests/helpers/next-request';
 import { INTEGRATION_SINK } from '@/tests/helpers/test-services';
 
-
 describe('invites', () => {
   it('a lead invites by e-mail; the link works once and creates a member with that role', async () => {
     const shop = await createTestShop('Invite Shop');
     await actAs(shop.lead.userId);
     const sent = await inviteMember(null, { email: 'New.Tech@Example.test', role: 'technician' });
-    expect(sent).toMatchObject({ ok: true, data: { email: 'new.tech@example.test', role: 'technician' } });
+    expect(sent).toMatchObject({
+      ok: true,
+      data: { email: 'new.tech@example.test', role: 'technician' },
+    });
 
     const mail = await waitForMail(INTEGRATION_SINK.dir, 'new.tech@example.test');
     expect(mail.subject).toBe('Lena Lead invited you to Invite Shop on Ringpass');
     const token = inviteToken(mail);
-    expect(await findUsableInvite(token)).toMatchObject({ email: 'new.tech@example.test', shopName: 'Invite Shop' });
+    expect(await findUsableInvite(token)).toMatchObject({
+      email: 'new.tech@example.test',
+      shopName: 'Invite Shop',
+    });
     expect(await getDb().$count(invites, eq(invites.tokenHash, token))).toBe(0); // only the hash is stored
 
     resetNextRequest();
     // A new technician starts at their wheels, as after every sign-in.
-    await expect(acceptTeamInvite(null, { token, name: 'Nia Newhand', password: 'twelve chars at least' })).rejects.toMatchObject({ digest: expect.stringContaining('/my-wheels') });
-    const [created] = await getDb().select().from(users).where(eq(users.email, 'new.tech@example.test'));
+    await expect(
+      acceptTeamInvite(null, { token, name: 'Nia Newhand', password: 'twelve chars at least' }),
+    ).rejects.toMatchObject({ digest: expect.stringContaining('/my-wheels') });
+    const [created] = await getDb()
+      .select()
+      .from(users)
+      .where(eq(users.email, 'new.tech@example.test'));
     expect(created).toMatchObject({ shopId: shop.shopId, role: 'technician', name: 'Nia Newhand' });
 
-    expect(await acceptTeamInvite(null, { token, name: 'Again', password: 'twelve chars at least' })).toMatchObject({ ok: false, message: expect.stringMatching(/expired, was revoked or was already used/) });
+    expect(
+      await acceptTeamInvite(null, { token, name: 'Again', password: 'twelve chars at least' }),
+    ).toMatchObject({
+      ok: false,
+      message: expect.stringMatching(/expired, was revoked or was already used/),
+    });
   });
 
   it('an expired or revoked link is refused', async () => {
@@ -43,14 +58,21 @@ describe('invites', () => {
     await actAs(shop.lead.userId);
     await inviteMember(null, { email: 'late@example.test', role: 'apprentice' });
     const token = inviteToken(await waitForMail(INTEGRATION_SINK.dir, 'late@example.test'));
-    await getDb().update(invites).set({ expiresAt: new Date(Date.now() - 1000) }).where(eq(invites.email, 'late@example.test'));
+    await getDb()
+      .update(invites)
+      .set({ expiresAt: new Date(Date.now() - 1000) })
+      .where(eq(invites.email, 'late@example.test'));
     expect(await findUsableInvite(token)).toBeNull();
-    expect(await acceptTeamInvite(null, { token, name: 'Late', password: 'twelve chars at least' })).toMatchObject({ ok: false });
+    expect(
+      await acceptTeamInvite(null, { token, name: 'Late', password: 'twelve chars at least' }),
+    ).toMatchObject({ ok: false });
 
     await actAs(shop.lead.userId);
     const second = await inviteMember(null, { email: 'gone@example.test', role: 'apprentice' });
     const secondToken = inviteToken(await waitForMail(INTEGRATION_SINK.dir, 'gone@example.test'));
-    expect(await revokeTeamInvite(null, { inviteId: second.ok ? second.data.id : '' })).toMatchObject({ ok: true });
+    expect(
+      await revokeTeamInvite(null, { inviteId: second.ok ? second.data.id : '' }),
+    ).toMatchObject({ ok: true });
     expect(await findUsableInvite(secondToken)).toBeNull();
   });
 
@@ -58,14 +80,18 @@ describe('invites', () => {
     const shop = await createTestShop();
     for (const who of [shop.technician, shop.apprentice]) {
       await actAs(who.userId);
-      expect(await inviteMember(null, { email: `x-${who.role}@example.test`, role: 'lead' })).toEqual({ ok: false, code: 'forbidden', message: 'Your role does not allow this.' });
+      expect(
+        await inviteMember(null, { email: `x-${who.role}@example.test`, role: 'lead' }),
+      ).toEqual({ ok: false, code: 'forbidden', message: 'Your role does not allow this.' });
     }
     expect(await getDb().$count(invites, eq(invites.shopId, shop.shopId))).toBe(0);
   });
 
   it('signed out, the action refuses', async () => {
     resetNextRequest();
-    expect(await inviteMember(null, { email: 'x@example.test', role: 'technician' })).toMatchObject({ ok: false, message: expect.stringMatching(/Sign in again/) });
+    expect(await inviteMember(null, { email: 'x@example.test', role: 'technician' })).toMatchObject(
+      { ok: false, message: expect.stringMatching(/Sign in again/) },
+    );
   });
 
   it('bad input gets field errors', async () => {
@@ -73,7 +99,10 @@ describe('invites', () => {
     await actAs(shop.lead.userId);
     expect(await inviteMember(null, { email: 'nope', role: 'owner' as never })).toMatchObject({
       ok: false,
-      fieldErrors: { email: [expect.any(String)], role: ['Choose a role: lead, technician or apprentice.'] },
+      fieldErrors: {
+        email: [expect.any(String)],
+        role: ['Choose a role: lead, technician or apprentice.'],
+      },
     });
   });
 
@@ -82,8 +111,14 @@ describe('invites', () => {
     const other = await createTestShop('Other');
     await actAs(shop.lead.userId);
     const taken = await inviteMember(null, { email: other.technician.email, role: 'technician' });
-    const fresh = await inviteMember(null, { email: 'fresh-face@example.test', role: 'technician' });
-    const shape = (r: typeof taken) => (r.ok ? { ok: r.ok, keys: Object.keys(r.data).sort(), role: r.data.role, message: r.message } : r);
+    const fresh = await inviteMember(null, {
+      email: 'fresh-face@example.test',
+      role: 'technician',
+    });
+    const shape = (r: typeof taken) =>
+      r.ok
+        ? { ok: r.ok, keys: Object.keys(r.data).sort(), role: r.data.role, message: r.message }
+        : r;
     expect(shape(taken)).toEqual(shape(fresh));
     expect(taken).toMatchObject({ ok: true, data: { email: other.technician.email } });
 
@@ -100,23 +135,35 @@ describe('roles and removal', () => {
     const shop = await createTestShop();
     const techSession = await createSessionCookie(shop.technician.userId);
     await actAs(shop.lead.userId);
-    expect(await changeMemberRole(null, { memberId: shop.technician.userId, role: 'lead' })).toMatchObject({ ok: true, data: { role: 'lead' } });
+    expect(
+      await changeMemberRole(null, { memberId: shop.technician.userId, role: 'lead' }),
+    ).toMatchObject({ ok: true, data: { role: 'lead' } });
     expect(await validateSessionId(techSession.value)).toBeNull();
   });
 
   it('the last lead cannot be demoted', async () => {
     const shop = await createTestShop();
     await actAs(shop.lead.userId);
-    expect(await changeMemberRole(null, { memberId: shop.lead.userId, role: 'technician' })).toMatchObject({ ok: false, message: expect.stringMatching(/at least one lead/) });
+    expect(
+      await changeMemberRole(null, { memberId: shop.lead.userId, role: 'technician' }),
+    ).toMatchObject({ ok: false, message: expect.stringMatching(/at least one lead/) });
   });
 
   it('another shop’s member is not found, and is left untouched', async () => {
     const shop = await createTestShop();
     const other = await createTestShop('Other');
     await actAs(shop.lead.userId);
-    expect(await changeMemberRole(null, { memberId: other.technician.userId, role: 'apprentice' })).toMatchObject({ ok: false, message: 'That team member was not found.' });
-    expect(await removeTeamMember(null, { memberId: other.technician.userId })).toMatchObject({ ok: false, message: 'That team member was not found.' });
-    const [row] = await getDb().select({ role: users.role, removedAt: users.removedAt }).from(users).where(eq(users.id, other.technician.userId));
+    expect(
+      await changeMemberRole(null, { memberId: other.technician.userId, role: 'apprentice' }),
+    ).toMatchObject({ ok: false, message: 'That team member was not found.' });
+    expect(await removeTeamMember(null, { memberId: other.technician.userId })).toMatchObject({
+      ok: false,
+      message: 'That team member was not found.',
+    });
+    const [row] = await getDb()
+      .select({ role: users.role, removedAt: users.removedAt })
+      .from(users)
+      .where(eq(users.id, other.technician.userId));
     expect(row).toEqual({ role: 'technician', removedAt: null });
   });
 
@@ -124,7 +171,9 @@ describe('roles and removal', () => {
     const shop = await createTestShop();
     const session = await createSessionCookie(shop.apprentice.userId);
     await actAs(shop.lead.userId);
-    await expect(removeTeamMember(null, { memberId: shop.apprentice.userId })).rejects.toMatchObject({ digest: expect.stringContaining('/team') });
+    await expect(
+      removeTeamMember(null, { memberId: shop.apprentice.userId }),
+    ).rejects.toMatchObject({ digest: expect.stringContaining('/team') });
     expect(await validateSessionId(session.value)).toBeNull();
   });
 
@@ -137,33 +186,57 @@ describe('roles and removal', () => {
       changeMemberRole(null, { memberId: shop.technician.userId, role: 'technician' }),
     ]);
     expect(results.filter((r) => r.ok)).toHaveLength(1);
-    expect(results.filter((r) => !r.ok)).toEqual([expect.objectContaining({ message: expect.stringMatching(/at least one lead/) })]);
-    expect(await getDb().$count(users, and(eq(users.shopId, shop.shopId), eq(users.role, 'lead')))).toBe(1);
+    expect(results.filter((r) => !r.ok)).toEqual([
+      expect.objectContaining({ message: expect.stringMatching(/at least one lead/) }),
+    ]);
+    expect(
+      await getDb().$count(users, and(eq(users.shopId, shop.shopId), eq(users.role, 'lead'))),
+    ).toBe(1);
   });
 
   it('two leads removing each other at once: one is refused, the shop keeps a lead', async () => {
     const shop = await createTestShop();
     await getDb().update(users).set({ role: 'lead' }).where(eq(users.id, shop.technician.userId));
     const secondLead = { ...shop.technician, role: 'lead' as const };
-    const results = await Promise.allSettled([removeMember(shop.lead, secondLead.userId), removeMember(secondLead, shop.lead.userId)]);
+    const results = await Promise.allSettled([
+      removeMember(shop.lead, secondLead.userId),
+      removeMember(secondLead, shop.lead.userId),
+    ]);
     expect(results.filter((r) => r.status === 'fulfilled')).toHaveLength(1);
-    expect(results.filter((r) => r.status === 'rejected')).toEqual([expect.objectContaining({ reason: expect.objectContaining({ message: expect.stringMatching(/at least one lead/) }) })]);
-    expect(await getDb().$count(users, and(eq(users.shopId, shop.shopId), eq(users.role, 'lead'), isNull(users.removedAt)))).toBe(1);
+    expect(results.filter((r) => r.status === 'rejected')).toEqual([
+      expect.objectContaining({
+        reason: expect.objectContaining({ message: expect.stringMatching(/at least one lead/) }),
+      }),
+    ]);
+    expect(
+      await getDb().$count(
+        users,
+        and(eq(users.shopId, shop.shopId), eq(users.role, 'lead'), isNull(users.removedAt)),
+      ),
+    ).toBe(1);
   });
 
   it('removing a lead revokes the invites they sent', async () => {
     const shop = await createTestShop('Two Lead Shop');
     await getDb().update(users).set({ role: 'lead' }).where(eq(users.id, shop.technician.userId));
     await actAs(shop.technician.userId);
-    expect(await inviteMember(null, { email: 'sent-by-leaver@example.test', role: 'lead' })).toMatchObject({ ok: true });
-    const token = inviteToken(await waitForMail(INTEGRATION_SINK.dir, 'sent-by-leaver@example.test'));
+    expect(
+      await inviteMember(null, { email: 'sent-by-leaver@example.test', role: 'lead' }),
+    ).toMatchObject({ ok: true });
+    const token = inviteToken(
+      await waitForMail(INTEGRATION_SINK.dir, 'sent-by-leaver@example.test'),
+    );
     expect(await findUsableInvite(token)).not.toBeNull();
 
     await actAs(shop.lead.userId);
-    await expect(removeTeamMember(null, { memberId: shop.technician.userId })).rejects.toMatchObject({ digest: expect.stringContaining('/team') });
+    await expect(
+      removeTeamMember(null, { memberId: shop.technician.userId }),
+    ).rejects.toMatchObject({ digest: expect.stringContaining('/team') });
     expect(await findUsableInvite(token)).toBeNull();
     resetNextRequest();
-    expect(await acceptTeamInvite(null, { token, name: 'Too Late', password: 'twelve chars at least' })).toMatchObject({ ok: false });
+    expect(
+      await acceptTeamInvite(null, { token, name: 'Too Late', password: 'twelve chars at least' }),
+    ).toMatchObject({ ok: false });
   });
 
   it('a lead made a technician loses the invites they sent too', async () => {
@@ -171,9 +244,13 @@ describe('roles and removal', () => {
     await getDb().update(users).set({ role: 'lead' }).where(eq(users.id, shop.technician.userId));
     await actAs(shop.technician.userId);
     await inviteMember(null, { email: 'sent-before-demotion@example.test', role: 'lead' });
-    const token = inviteToken(await waitForMail(INTEGRATION_SINK.dir, 'sent-before-demotion@example.test'));
+    const token = inviteToken(
+      await waitForMail(INTEGRATION_SINK.dir, 'sent-before-demotion@example.test'),
+    );
     await actAs(shop.lead.userId);
-    expect(await changeMemberRole(null, { memberId: shop.technician.userId, role: 'technician' })).toMatchObject({ ok: true });
+    expect(
+      await changeMemberRole(null, { memberId: shop.technician.userId, role: 'technician' }),
+    ).toMatchObject({ ok: true });
     expect(await findUsableInvite(token)).toBeNull();
   });
 });

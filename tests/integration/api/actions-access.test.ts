@@ -1,7 +1,14 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { can } from '@/server/auth/permissions';
 import type { Member } from '@/server/auth/session';
-import { ACTION_CASES, createWorld, loadActions, outcome, type AnyAction, type World } from '@/tests/helpers/actions';
+import {
+  ACTION_CASES,
+  createWorld,
+  loadActions,
+  outcome,
+  type AnyAction,
+  type World,
+} from '@/tests/helpers/actions';
 import { actAs, resetNextRequest } from '@/tests/helpers/next-request';
 
 // Every server action × lead / technician / apprentice / signed out / another shop's lead, held
@@ -17,8 +24,14 @@ describe('the action table covers every server action in the source', () => {
   it('each exported action has an entry, and each entry names an action that exists', () => {
     const found = [...actions.keys()].sort();
     expect(found.length).toBeGreaterThan(15);
-    expect(found.filter((name) => !(name in ACTION_CASES)), 'actions without an access entry in tests/helpers/actions.ts').toEqual([]);
-    expect(Object.keys(ACTION_CASES).filter((name) => !actions.has(name)), 'entries for actions that no longer exist').toEqual([]);
+    expect(
+      found.filter((name) => !(name in ACTION_CASES)),
+      'actions without an access entry in tests/helpers/actions.ts',
+    ).toEqual([]);
+    expect(
+      Object.keys(ACTION_CASES).filter((name) => !actions.has(name)),
+      'entries for actions that no longer exist',
+    ).toEqual([]);
   });
 });
 

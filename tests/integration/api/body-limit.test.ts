@@ -10,18 +10,33 @@ import { cookieFor, createTestShop, params } from '@/tests/helpers/factories';
 const LIMIT = 256 * 1024;
 
 function patchRequest(cookie: string, body: string, declareLength: boolean) {
-  const headers = new Headers({ host: '127.0.0.1:3000', origin: 'http://127.0.0.1:3000', 'content-type': 'application/json', cookie });
+  const headers = new Headers({
+    host: '127.0.0.1:3000',
+    origin: 'http://127.0.0.1:3000',
+    'content-type': 'application/json',
+    cookie,
+  });
   if (declareLength) {
-    return new Request('http://127.0.0.1:3000/api/team/members/x', { method: 'PATCH', headers, body });
+    return new Request('http://127.0.0.1:3000/api/team/members/x', {
+      method: 'PATCH',
+      headers,
+      body,
+    });
   }
   const bytes = new TextEncoder().encode(body);
   const stream = new ReadableStream<Uint8Array>({
     start(controller) {
-      for (let at = 0; at < bytes.length; at += 16 * 1024) controller.enqueue(bytes.slice(at, at + 16 * 1024));
+      for (let at = 0; at < bytes.length; at += 16 * 1024)
+        controller.enqueue(bytes.slice(at, at + 16 * 1024));
       controller.close();
     },
   });
-  return new Request('http://127.0.0.1:3000/api/team/members/x', { method: 'PATCH', headers, body: stream, duplex: 'half' } as RequestInit);
+  return new Request('http://127.0.0.1:3000/api/team/members/x', {
+    method: 'PATCH',
+    headers,
+    body: stream,
+    duplex: 'half',
+  } as RequestInit);
 }
 
 async function roleOf(userId: string) {
@@ -36,9 +51,14 @@ describe('JSON body cap on the API', () => {
       const cookie = await cookieFor(shop.lead.userId);
       const id = shop.technician.userId;
       const huge = JSON.stringify({ role: 'apprentice', note: 'x'.repeat(LIMIT) });
-      const res = await patchMember(patchRequest(cookie, huge, declareLength), params({ memberId: id }));
+      const res = await patchMember(
+        patchRequest(cookie, huge, declareLength),
+        params({ memberId: id }),
+      );
       expect(res.status).toBe(413);
-      expect(await res.json()).toEqual({ error: { code: 'too_large', message: 'The request body is larger than 256 kB.' } });
+      expect(await res.json()).toEqual({
+        error: { code: 'too_large', message: 'The request body is larger than 256 kB.' },
+      });
       expect(await roleOf(id)).toBe('technician');
     });
   }

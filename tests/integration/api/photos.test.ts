@@ -25,14 +25,24 @@ const JPEG = (() => {
 
 const dir = path.join(os.tmpdir(), `ringpass-photos-${process.pid}`);
 let fake: UploadFake, app: Server, appUrl: string, apiKey: string;
-let shop: Awaited<ReturnType<typeof createTestShop>>, other: Awaited<ReturnType<typeof createTestShop>>, wheelId: string, tech: string;
+let shop: Awaited<ReturnType<typeof createTestShop>>,
+  other: Awaited<ReturnType<typeof createTestShop>>,
+  wheelId: string,
+  tech: string;
 
 /** The route handler behind a real socket, so the upload fake can call the app back as the service does. */
 function serveUploadRoute() {
   return createServer((req, res) => {
     void (async () => {
-      const request = new Request(`${appUrl}${req.url}`, { method: req.method, headers: req.headers as HeadersInit, body: req.method === 'GET' ? undefined : (Readable.toWeb(req) as ReadableStream), duplex: 'half' } as RequestInit);
-      const response = await (req.method === 'GET' ? uploadRoute.GET : uploadRoute.POST)(request as never);
+      const request = new Request(`${appUrl}${req.url}`, {
+        method: req.method,
+        headers: req.headers as HeadersInit,
+        body: req.method === 'GET' ? undefined : (Readable.toWeb(req) as ReadableStream),
+        duplex: 'half',
+      } as RequestInit);
+      const response = await (req.method === 'GET' ? uploadRoute.GET : uploadRoute.POST)(
+        request as never,
+      );
       res.writeHead(response.status, Object.fromEntries(response.headers));
       res.end(Buffer.from(await response.arrayBuffer()));
     })();
@@ -46,7 +56,9 @@ beforeAll(async () => {
   await new Promise((r) => probe.close(r));
   fake = await startUploadFake({ port, dir });
   Object.assign(process.env, fake.env, { UPLOADTHING_LOG_LEVEL: 'Error' });
-  apiKey = (JSON.parse(Buffer.from(fake.env.UPLOADTHING_TOKEN!, 'base64').toString()) as { apiKey: string }).apiKey;
+  apiKey = (
+    JSON.parse(Buffer.from(fake.env.UPLOADTHING_TOKEN!, 'base64').toString()) as { apiKey: string }
+  ).apiKey;
   app = serveUploadRoute().listen(0, '127.0.0.1');
   await new Promise((r) => app.once('listening', r));
   appUrl = `http://127.0.0.1:${(app.address() as AddressInfo).port}`;
@@ -64,23 +76,49 @@ afterAll(async () => {
 });
 
 /** The SDK's two steps as the phone makes them: ask the app for a presigned URL, then PUT the file. */
-async function upload(bytes: Uint8Array, init: { origin?: string | null; declaredSize?: number } = {}) {
-  const headers: Record<string, string> = { cookie: tech, 'content-type': 'application/json', 'x-uploadthing-package': '@uploadthing/react', 'x-uploadthing-version': '7.7.4' };
+async function upload(
+  bytes: Uint8Array,
+  init: { origin?: string | null; declaredSize?: number } = {},
+) {
+  const headers: Record<string, string> = {
+    cookie: tech,
+    'content-type': 'application/json',
+    'x-uploadthing-package': '@uploadthing/react',
+    'x-uploadthing-version': '7.7.4',
+  };
   if (init.origin !== null) headers.origin = init.origin ?? appUrl;
   const ask = await fetch(`${appUrl}/api/uploadthing?actionType=upload&slug=wheelPhoto`, {
     method: 'POST',
     headers,
-    body: JSON.stringify({ files: [{ name: 'bead.jpg', size: init.declaredSize ?? bytes.byteLength, type: 'image/jpeg', lastModified: Date.now() }], input: { wheelId, kind: 'bead_outer' } }),
+    body: JSON.stringify({
+      files: [
+        {
+          name: 'bead.jpg',
+          size: init.declaredSize ?? bytes.byteLength,
+          type: 'image/jpeg',
+          lastModified: Date.now(),
+        },
+      ],
+      input: { wheelId, kind: 'bead_outer' },
+    }),
   });
   if (!ask.ok) return { ask };
   const url = ((await ask.json()) as { url: string; key: string }[])[0]!.url;
   const form = new FormData();
   form.set('file', new Blob([new Uint8Array(bytes)], { type: 'image/jpeg' }), 'bead.jpg');
   const put = await fetch(url, { method: 'PUT', body: form });
-  return { ask, put, body: (await put.json()) as { ufsUrl?: string; serverData?: { ok: boolean; photoId: string; url: string } } };
+  return {
+    ask,
+    put,
+    body: (await put.json()) as {
+      ufsUrl?: string;
+      serverData?: { ok: boolean; photoId: string; url: string };
+    },
+  };
 }
 
-const getPhoto = (id: string, cookie?: string) => photoRoute.GET(apiRequest(`/api/photos/${id}`, { cookie }), params({ photoId: id }));
+const getPhoto = (id: string, cookie?: string) =>
+  photoRoute.GET(apiRequest(`/api/photos/${id}`, { cookie }), params({ photoId: id }));
 
 describe('photos are private: served only through the app, to its own shop', () => {
   let photoId: string, storageUrl: string;
@@ -88,19 +126,28 @@ describe('photos are private: served only through the app, to its own shop', () 
   it('an upload from the app goes through; the callback (no browser Origin, signed) stores it as the route path', async () => {
     const { put, body } = await upload(JPEG);
     expect(put?.status, JSON.stringify(body)).toBe(200);
-    expect(body?.serverData).toMatchObject({ ok: true, url: `/api/photos/${body!.serverData!.photoId}` });
+    expect(body?.serverData).toMatchObject({
+      ok: true,
+      url: `/api/photos/${body!.serverData!.photoId}`,
+    });
     photoId = body!.serverData!.photoId;
-    const [row] = await getDb().select({ url: wheelPhotos.url, bytes: wheelPhotos.bytes }).from(wheelPhotos).where(eq(wheelPhotos.id, photoId));
+    const [row] = await getDb()
+      .select({ url: wheelPhotos.url, bytes: wheelPhotos.bytes })
+      .from(wheelPhotos)
+      .where(eq(wheelPhotos.id, photoId));
     expect(row!.bytes).toBe(JPEG.byteLength);
     storageUrl = row!.url;
   });
 
   it("the storage's own URL answers 403 without a signature, an expired or a forged one (it used to answer 200 to anyone)", async () => {
     expect((await fetch(storageUrl)).status).toBe(403);
-    const sign = (url: string) => `${url}&signature=${encodeURIComponent(`hmac-sha256=${createHmac('sha256', apiKey).update(url).digest('hex')}`)}`;
+    const sign = (url: string) =>
+      `${url}&signature=${encodeURIComponent(`hmac-sha256=${createHmac('sha256', apiKey).update(url).digest('hex')}`)}`;
     expect((await fetch(sign(`${storageUrl}?expires=${Date.now() - 1000}`))).status).toBe(403);
     // Forge by changing the signature's last hex digit (to another digit: '0' could be what it was).
-    const forged = sign(`${storageUrl}?expires=${Date.now() + 60_000}`).replace(/.$/, (d) => (d === '0' ? '1' : '0'));
+    const forged = sign(`${storageUrl}?expires=${Date.now() + 60_000}`).replace(/.$/, (d) =>
+      d === '0' ? '1' : '0',
+    );
     expect((await fetch(forged)).status).toBe(403);
     expect((await fetch(sign(`${storageUrl}?expires=${Date.now() + 60_000}`))).status).toBe(200);
   });
@@ -126,8 +173,32 @@ describe('photos are private: served only through the app, to its own shop', () 
 
   it('a forged callback (hook header, wrong signature) is refused by the SDK and stores nothing', async () => {
     const before = (await getDb().select({ id: wheelPhotos.id }).from(wheelPhotos)).length;
-    const payload = JSON.stringify({ status: 'uploaded', file: { key: 'forged', name: 'x.jpg', size: 1, type: 'image/jpeg', url: storageUrl, appUrl: storageUrl, ufsUrl: storageUrl, fileHash: 'x', customId: null, lastModified: 0 }, origin: appUrl, metadata: { shopId: other.shopId } });
-    const res = await fetch(`${appUrl}/api/uploadthing?slug=wheelPhoto`, { method: 'POST', headers: { 'content-type': 'application/json', 'uploadthing-hook': 'callback', 'x-uploadthing-signature': 'hmac-sha256=00' }, body: payload });
+    const payload = JSON.stringify({
+      status: 'uploaded',
+      file: {
+        key: 'forged',
+        name: 'x.jpg',
+        size: 1,
+        type: 'image/jpeg',
+        url: storageUrl,
+        appUrl: storageUrl,
+        ufsUrl: storageUrl,
+        fileHash: 'x',
+        customId: null,
+        lastModified: 0,
+      },
+      origin: appUrl,
+      metadata: { shopId: other.shopId },
+    });
+    const res = await fetch(`${appUrl}/api/uploadthing?slug=wheelPhoto`, {
+      method: 'POST',
+      headers: {
+        'content-type': 'application/json',
+        'uploadthing-hook': 'callback',
+        'x-uploadthing-signature': 'hmac-sha256=00',
+      },
+      body: payload,
+    });
     expect(res.status).toBeGreaterThanOrEqual(400);
     expect(res.status).toBeLessThan(500);
     expect((await getDb().select({ id: wheelPhotos.id }).from(wheelPhotos)).length).toBe(before);
@@ -141,12 +212,27 @@ describe('photos are private: served only through the app, to its own shop', () 
 
 describe('evidence closes with the wheel', () => {
   it('an upload for a submitted wheel is refused; once a send-back reopens the wheel it is taken again', async () => {
-    await getDb().update(jobWheels).set({ submittedAt: new Date() }).where(eq(jobWheels.id, wheelId));
-    const before = (await getDb().select({ id: wheelPhotos.id }).from(wheelPhotos).where(eq(wheelPhotos.wheelId, wheelId))).length;
+    await getDb()
+      .update(jobWheels)
+      .set({ submittedAt: new Date() })
+      .where(eq(jobWheels.id, wheelId));
+    const before = (
+      await getDb()
+        .select({ id: wheelPhotos.id })
+        .from(wheelPhotos)
+        .where(eq(wheelPhotos.wheelId, wheelId))
+    ).length;
     const { ask } = await upload(JPEG);
     expect(ask.status).toBe(400);
     expect(await ask.text()).toMatch(/submitted; its evidence is closed/);
-    expect((await getDb().select({ id: wheelPhotos.id }).from(wheelPhotos).where(eq(wheelPhotos.wheelId, wheelId))).length).toBe(before);
+    expect(
+      (
+        await getDb()
+          .select({ id: wheelPhotos.id })
+          .from(wheelPhotos)
+          .where(eq(wheelPhotos.wheelId, wheelId))
+      ).length,
+    ).toBe(before);
     await getDb().update(jobWheels).set({ submittedAt: null }).where(eq(jobWheels.id, wheelId));
     const { put, body } = await upload(JPEG);
     expect(put?.status, JSON.stringify(body)).toBe(200);

@@ -4,7 +4,14 @@ import os from 'node:os';
 import path from 'node:path';
 import postgres from 'postgres';
 import { afterAll, describe, expect, it } from 'vitest';
-import { clusterDataDir, clusterPort, clusterUrl, startCluster, stopCluster, withCluster } from '@/db/cluster';
+import {
+  clusterDataDir,
+  clusterPort,
+  clusterUrl,
+  startCluster,
+  stopCluster,
+  withCluster,
+} from '@/db/cluster';
 
 // Two throwaway "checkouts" in /tmp, each with a cluster of its own: A plays the other checkout
 // whose server already answers on the port that B remembers. The project's own cluster is never
@@ -58,10 +65,16 @@ describe('startCluster on a machine with another checkout’s cluster', () => {
     expect(own.started).toBe(true);
     expect(own.port).not.toBe(port);
     expect(clusterPort({ root: checkoutB })).toBe(own.port);
-    expect(readFileSync(path.join(checkoutB, '.data', 'pg-port'), 'utf8').trim()).toBe(String(own.port));
+    expect(readFileSync(path.join(checkoutB, '.data', 'pg-port'), 'utf8').trim()).toBe(
+      String(own.port),
+    );
     // B's URL reaches B's own folder; A's data is left alone.
-    expect(await dataDirectoryAt(clusterUrl('postgres', { root: checkoutB }))).toBe(clusterDataDir(checkoutB));
-    expect(await dataDirectoryAt(`postgres://postgres@127.0.0.1:${port}/postgres`)).toBe(clusterDataDir(checkoutA));
+    expect(await dataDirectoryAt(clusterUrl('postgres', { root: checkoutB }))).toBe(
+      clusterDataDir(checkoutB),
+    );
+    expect(await dataDirectoryAt(`postgres://postgres@127.0.0.1:${port}/postgres`)).toBe(
+      clusterDataDir(checkoutA),
+    );
 
     // Called again, it finds its own running cluster and starts nothing.
     expect(await startCluster({ root: checkoutB })).toEqual({ port: own.port, started: false });
@@ -80,15 +93,22 @@ describe('startCluster on a machine with another checkout’s cluster', () => {
     await stopCluster({ root: checkoutB });
     const answering = () => clusterPort({ root: checkoutB });
     await expect(
-      withCluster(async () => {
-        expect(await dataDirectoryAt(clusterUrl('postgres', { root: checkoutB }))).toBe(clusterDataDir(checkoutB));
-        throw new Error('a failing test run');
-      }, { root: checkoutB }),
+      withCluster(
+        async () => {
+          expect(await dataDirectoryAt(clusterUrl('postgres', { root: checkoutB }))).toBe(
+            clusterDataDir(checkoutB),
+          );
+          throw new Error('a failing test run');
+        },
+        { root: checkoutB },
+      ),
     ).rejects.toThrow('a failing test run');
     await expect(dataDirectoryAt(clusterUrl('postgres', { root: checkoutB }))).rejects.toThrow();
 
     await startCluster({ root: checkoutB });
     expect(await withCluster(() => Promise.resolve('passed'), { root: checkoutB })).toBe('passed');
-    expect(await dataDirectoryAt(`postgres://postgres@127.0.0.1:${answering()}/postgres`)).toBe(clusterDataDir(checkoutB));
+    expect(await dataDirectoryAt(`postgres://postgres@127.0.0.1:${answering()}/postgres`)).toBe(
+      clusterDataDir(checkoutB),
+    );
   }, 60_000);
 });

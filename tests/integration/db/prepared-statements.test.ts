@@ -9,10 +9,15 @@ describe('the app database client', () => {
     const shop = await createTestShop('Prepared Tires');
     // A transaction holds one connection, so its prepared statements can be listed.
     const listed = await getDb().transaction(async (tx) => {
-      const [row] = await tx.select({ name: shops.name }).from(shops).where(eq(shops.id, shop.shopId));
+      const [row] = await tx
+        .select({ name: shops.name })
+        .from(shops)
+        .where(eq(shops.id, shop.shopId));
       expect(row?.name).toBe('Prepared Tires');
       return tx.execute<{ statement: string }>(sql`select statement from pg_prepared_statements`);
     });
-    expect(listed.map((r) => r.statement)).toContainEqual(expect.stringMatching(/^select "name" from "shops" where "shops"\."id" = \$1/));
+    expect(listed.map((r) => r.statement)).toContainEqual(
+      expect.stringMatching(/^select "name" from "shops" where "shops"\."id" = \$1/),
+    );
   });
 });

@@ -21,7 +21,9 @@ async function mailboxAs(userId: string) {
 describe('the Mailbox page (local mail sink on, not production)', () => {
   it('sends a signed-out visitor to sign-in, and back to the Mailbox afterwards', async () => {
     resetNextRequest();
-    await expect(MailboxPage()).rejects.toMatchObject({ digest: expect.stringMatching(/\/sign-in\?next=%2Fmailbox/) });
+    await expect(MailboxPage()).rejects.toMatchObject({
+      digest: expect.stringMatching(/\/sign-in\?next=%2Fmailbox/),
+    });
   });
 
   it('is forbidden to a technician and an apprentice', async () => {
@@ -37,7 +39,9 @@ describe('the Mailbox page (local mail sink on, not production)', () => {
     const shopB = await createTestShop('Shop B');
     const invited = `new-tech-${Date.now()}@example.test`;
     await actAs(shopA.lead.userId);
-    expect(await inviteMember(null, { email: invited, role: 'technician' })).toMatchObject({ ok: true });
+    expect(await inviteMember(null, { email: invited, role: 'technician' })).toMatchObject({
+      ok: true,
+    });
     const mail = await waitForMail(INTEGRATION_SINK.dir, invited);
     expect(mail.shopId).toBe(shopA.shopId); // the sink kept the shop the app named in the mail
 

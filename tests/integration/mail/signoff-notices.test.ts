@@ -15,9 +15,18 @@ import { workAndSubmitWheels } from '@/tests/helpers/wheel-work';
 async function submittedJob() {
   const shop = await createTestShop('Notice Shop');
   const secondLead = `second-lead-${randomUUID().slice(0, 8)}@shop.test`;
-  await getDb().insert(users).values({ shopId: shop.shopId, role: 'lead', name: 'Sol Second', email: secondLead, passwordHash: 'x' });
+  await getDb().insert(users).values({
+    shopId: shop.shopId,
+    role: 'lead',
+    name: 'Sol Second',
+    email: secondLead,
+    passwordHash: 'x',
+  });
   const { job } = await createRecords(shop.lead, shop.technician.userId);
-  await getDb().update(jobs).set({ state: 'in_progress' }).where(and(eq(jobs.shopId, shop.shopId), eq(jobs.id, job.id)));
+  await getDb()
+    .update(jobs)
+    .set({ state: 'in_progress' })
+    .where(and(eq(jobs.shopId, shop.shopId), eq(jobs.id, job.id)));
   const wheelIds = await workAndSubmitWheels(shop.shopId, job.id, shop.technician.userId);
   await transitionJob(shop.technician, job.id, 'submit', '');
   return { shop, job, secondLead, wheelIds };
@@ -30,7 +39,9 @@ describe('sign-off notices by e-mail', () => {
       const mail = await waitForMail(INTEGRATION_SINK.dir, to);
       expect(mail.subject).toBe(`Job ${job.number} is waiting for sign-off`);
       expect(mail.shopId).toBe(shop.shopId);
-      expect(mail.text).toContain(`Theo Tech submitted job ${job.number} (Wren Halloway, 2022 Talonworks Ridgeback) for sign-off.`);
+      expect(mail.text).toContain(
+        `Theo Tech submitted job ${job.number} (Wren Halloway, 2022 Talonworks Ridgeback) for sign-off.`,
+      );
       expect(mail.text).toMatch(new RegExp(`Review it: http://[^ ]+/jobs/${job.id}/review`));
     }
   });
@@ -38,11 +49,22 @@ describe('sign-off notices by e-mail', () => {
   it('tells the technician which wheels came back and what to redo', async () => {
     const { shop, job, wheelIds } = await submittedJob();
     await actAs(shop.lead.userId);
-    expect(await sendBackReviewed(null, { jobId: job.id, wheels: [{ wheelId: wheelIds[0]!, note: 'Redo pass 2 at a steady pace.', steps: ['torque'] }] })).toMatchObject({ ok: true });
+    expect(
+      await sendBackReviewed(null, {
+        jobId: job.id,
+        wheels: [
+          { wheelId: wheelIds[0]!, note: 'Redo pass 2 at a steady pace.', steps: ['torque'] },
+        ],
+      }),
+    ).toMatchObject({ ok: true });
     const mail = await waitForMail(INTEGRATION_SINK.dir, shop.technician.email);
     expect(mail.subject).toMatch(new RegExp(`^Job ${job.number} was sent back: (LF|RF|LR|RR)$`));
     expect(mail.shopId).toBe(shop.shopId);
-    expect(mail.text).toContain(`Lena Lead sent job ${job.number} (Wren Halloway, 2022 Talonworks Ridgeback) back.`);
-    expect(mail.text).toMatch(/(LF|RF|LR|RR) wheel: Redo pass 2 at a steady pace\. \(redo: torque\)/);
+    expect(mail.text).toContain(
+      `Lena Lead sent job ${job.number} (Wren Halloway, 2022 Talonworks Ridgeback) back.`,
+    );
+    expect(mail.text).toMatch(
+      /(LF|RF|LR|RR) wheel: Redo pass 2 at a steady pace\. \(redo: torque\)/,
+    );
   });
 });

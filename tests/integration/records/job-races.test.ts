@@ -13,7 +13,10 @@ import { createRecords } from '@/tests/helpers/records';
 const otherDevice = postgres(process.env.DATABASE_URL!, { max: 1, onnotice: () => {} });
 afterAll(() => otherDevice.end());
 
-async function whileAnotherDeviceChanges<T>(change: (sql: postgres.TransactionSql) => Promise<unknown>, act: () => Promise<T>) {
+async function whileAnotherDeviceChanges<T>(
+  change: (sql: postgres.TransactionSql) => Promise<unknown>,
+  act: () => Promise<T>,
+) {
   const held = await otherDevice.reserve();
   try {
     await held`begin`;
@@ -25,7 +28,9 @@ async function whileAnotherDeviceChanges<T>(change: (sql: postgres.TransactionSq
     // Give the write time to reach the held row (it waits on the lock when the code locks it).
     const deadline = Date.now() + 3000;
     while (Date.now() < deadline) {
-      const [row] = await getDb().execute<{ n: number }>(`select count(*)::int as n from pg_stat_activity where datname = current_database() and wait_event_type = 'Lock'`);
+      const [row] = await getDb().execute<{ n: number }>(
+        `select count(*)::int as n from pg_stat_activity where datname = current_database() and wait_event_type = 'Lock'`,
+      );
       if (row?.n) break;
       await new Promise((r) => setTimeout(r, 50));
     }
@@ -46,7 +51,10 @@ describe('job cards changed by two devices at once', () => {
       () => updateJob(shop.lead, job.id, { notes: 'late edit' }),
     );
     expect(result).toMatchObject({ ok: false, error: { code: 'conflict' } });
-    const [row] = await getDb().select({ notes: jobs.notes, state: jobs.state }).from(jobs).where(eq(jobs.id, job.id));
+    const [row] = await getDb()
+      .select({ notes: jobs.notes, state: jobs.state })
+      .from(jobs)
+      .where(eq(jobs.id, job.id));
     expect(row).toEqual({ notes: '', state: 'signed_off' });
   });
 
@@ -55,7 +63,15 @@ describe('job cards changed by two devices at once', () => {
     const { job, spec } = await createRecords(shop.lead, shop.technician.userId);
     const result = await whileAnotherDeviceChanges(
       (sql) => sql`update jobs set state = 'in_progress' where id = ${job.id}`,
-      () => addWheel(shop.lead, job.id, { position: 'spare', specId: spec.id, tireSize: '30x10R14', directional: false, targetPressure: 14, pressureUnit: 'psi' }),
+      () =>
+        addWheel(shop.lead, job.id, {
+          position: 'spare',
+          specId: spec.id,
+          tireSize: '30x10R14',
+          directional: false,
+          targetPressure: 14,
+          pressureUnit: 'psi',
+        }),
     );
     expect(result).toMatchObject({ ok: false, error: { code: 'conflict' } });
     expect(await getDb().$count(jobWheels, eq(jobWheels.jobId, job.id))).toBe(4);

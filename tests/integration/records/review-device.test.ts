@@ -15,14 +15,25 @@ describe("the review's per-bolt phone", () => {
     const wheelId = (await getJob(shop.shopId, job.id)).wheels[0]!.id;
     const phone = '3f9a0c1e-2b4d-4e6f-8a9b-0c1d2e3f4a5b';
     const base = Date.now() - 60 * 60 * 1000;
-    const confirm = (bolt: number, i: number, deviceId?: string) => ({ type: 'bolt_confirmed', payload: { pass: 1, bolt }, clientId: randomUUID(), clientAt: new Date(base + 1000 * i).toISOString(), ...(deviceId ? { deviceId } : {}) });
+    const confirm = (bolt: number, i: number, deviceId?: string) => ({
+      type: 'bolt_confirmed',
+      payload: { pass: 1, bolt },
+      clientId: randomUUID(),
+      clientAt: new Date(base + 1000 * i).toISOString(),
+      ...(deviceId ? { deviceId } : {}),
+    });
     await actAs(shop.technician.userId);
-    const result = await saveWheelEvents(null, { wheelId, events: [confirm(1, 0, phone), confirm(13, 1)] } as Parameters<typeof saveWheelEvents>[1]);
+    const result = await saveWheelEvents(null, {
+      wheelId,
+      events: [confirm(1, 0, phone), confirm(13, 1)],
+    } as Parameters<typeof saveWheelEvents>[1]);
     expect(result).toMatchObject({ ok: true, data: { saved: 2 } });
 
     const review = await getJobReview(shop.shopId, job.id, reviewSources);
     const bolts = review.wheels.find((w) => w.id === wheelId)!.record.passes[0]!.confirmed;
-    expect(bolts.map((b) => ({ bolt: b.bolt, byId: b.byId, deviceId: b.deviceId, device: b.device }))).toEqual([
+    expect(
+      bolts.map((b) => ({ bolt: b.bolt, byId: b.byId, deviceId: b.deviceId, device: b.device })),
+    ).toEqual([
       { bolt: 1, byId: shop.technician.userId, deviceId: phone, device: 'Phone 3F9A' },
       { bolt: 13, byId: shop.technician.userId, deviceId: null, device: null },
     ]);

@@ -11,7 +11,8 @@ import { createRecords, fourWheels } from '@/tests/helpers/records';
 
 type Shop = Awaited<ReturnType<typeof createTestShop>>;
 
-const setZone = (shopId: string, timeZone: string) => getDb().update(shopSettings).set({ timeZone }).where(eq(shopSettings.shopId, shopId));
+const setZone = (shopId: string, timeZone: string) =>
+  getDb().update(shopSettings).set({ timeZone }).where(eq(shopSettings.shopId, shopId));
 
 /** 23:30 on 1 December at a Denver shop (MST, UTC−7), while UTC is already on 2 December. */
 const LATE_EVENING = new Date('2026-12-02T06:30:00Z');
@@ -20,12 +21,27 @@ const LATE_EVENING = new Date('2026-12-02T06:30:00Z');
 async function jobsDueAt(shop: Shop, dues: string[]) {
   const { customer, vehicle, spec } = await createRecords(shop.lead, shop.technician.userId);
   for (const due of dues) {
-    const job = await createJob(shop.lead, { customerId: customer.id, vehicleId: vehicle.id, wheels: fourWheels(spec.id), dismount: true, reinstall: true, assigneeId: shop.technician.userId, notes: '', acceptAxleMismatch: false });
-    await getDb().update(jobs).set({ dueAt: new Date(due) }).where(and(eq(jobs.shopId, shop.shopId), eq(jobs.id, job.id)));
+    const job = await createJob(shop.lead, {
+      customerId: customer.id,
+      vehicleId: vehicle.id,
+      wheels: fourWheels(spec.id),
+      dismount: true,
+      reinstall: true,
+      assigneeId: shop.technician.userId,
+      notes: '',
+      acceptAxleMismatch: false,
+    });
+    await getDb()
+      .update(jobs)
+      .set({ dueAt: new Date(due) })
+      .where(and(eq(jobs.shopId, shop.shopId), eq(jobs.id, job.id)));
   }
 }
 
-const numbers = async (shop: Shop, due: string, now = LATE_EVENING) => (await listBoard(shop.lead, boardQuerySchema.parse({ due, sort: 'number' }), now)).data.map((r) => r.number);
+const numbers = async (shop: Shop, due: string, now = LATE_EVENING) =>
+  (await listBoard(shop.lead, boardQuerySchema.parse({ due, sort: 'number' }), now)).data.map(
+    (r) => r.number,
+  );
 
 describe("the board's due filter on the shop's calendar", () => {
   it('around the shop’s midnight, "today" is the shop’s day, not the UTC date', async () => {
@@ -55,25 +71,40 @@ describe("the board's due filter on the shop's calendar", () => {
 });
 
 describe("the calibration sweep on the shop's calendar", () => {
-  const status = async (id: string) => (await getDb().select({ status: wrenches.status, reason: wrenches.statusReason }).from(wrenches).where(eq(wrenches.id, id)))[0];
+  const status = async (id: string) =>
+    (
+      await getDb()
+        .select({ status: wrenches.status, reason: wrenches.statusReason })
+        .from(wrenches)
+        .where(eq(wrenches.id, id))
+    )[0];
 
   it('a wrench due on 1 December is still in service at 23:30 that evening in Denver, and out of service after the shop’s midnight', async () => {
     const shop = await createTestShop();
     await setZone(shop.shopId, 'America/Denver');
     const { wrench } = await createRecords(shop.lead, shop.technician.userId);
-    await getDb().update(wrenches).set({ calibrationDueOn: '2026-12-01' }).where(eq(wrenches.id, wrench.id));
+    await getDb()
+      .update(wrenches)
+      .set({ calibrationDueOn: '2026-12-01' })
+      .where(eq(wrenches.id, wrench.id));
 
     await sweepOverdue(shop.shopId, LATE_EVENING);
     expect(await status(wrench.id)).toEqual({ status: 'in_service', reason: '' });
 
     await sweepOverdue(shop.shopId, new Date('2026-12-02T07:00:00Z'));
-    expect(await status(wrench.id)).toEqual({ status: 'out_of_service', reason: 'Calibration overdue (was due 2026-12-01)' });
+    expect(await status(wrench.id)).toEqual({
+      status: 'out_of_service',
+      reason: 'Calibration overdue (was due 2026-12-01)',
+    });
   });
 
   it('in a shop on UTC the same moment is already 2 December, so the wrench is overdue', async () => {
     const shop = await createTestShop();
     const { wrench } = await createRecords(shop.lead, shop.technician.userId);
-    await getDb().update(wrenches).set({ calibrationDueOn: '2026-12-01' }).where(eq(wrenches.id, wrench.id));
+    await getDb()
+      .update(wrenches)
+      .set({ calibrationDueOn: '2026-12-01' })
+      .where(eq(wrenches.id, wrench.id));
     await sweepOverdue(shop.shopId, LATE_EVENING);
     expect((await status(wrench.id))?.status).toBe('out_of_service');
   });

@@ -16,20 +16,45 @@ beforeEach(async () => {
 describe("a spec carries the wheel maker's thread condition and bolt reuse rule", () => {
   it('stores them, and clears the condition back to "not stated"', async () => {
     const cookie = await cookieFor(shop.lead.userId);
-    const body = { ...specBody, name: 'Oiled ring', threadCondition: 'oiled', boltReuse: 'Replace at every tire change' };
-    const created = await specList.POST(apiRequest('/api/specs', { method: 'POST', cookie, body }), params({}));
+    const body = {
+      ...specBody,
+      name: 'Oiled ring',
+      threadCondition: 'oiled',
+      boltReuse: 'Replace at every tire change',
+    };
+    const created = await specList.POST(
+      apiRequest('/api/specs', { method: 'POST', cookie, body }),
+      params({}),
+    );
     expect(created.status).toBe(201);
     const { data } = (await created.json()) as { data: { id: string } };
-    expect(await getSpec(shop.shopId, data.id)).toMatchObject({ threadCondition: 'oiled', boltReuse: 'Replace at every tire change' });
+    expect(await getSpec(shop.shopId, data.id)).toMatchObject({
+      threadCondition: 'oiled',
+      boltReuse: 'Replace at every tire change',
+    });
 
-    const cleared = await specItem.PATCH(apiRequest(`/api/specs/${data.id}`, { method: 'PATCH', cookie, body: { ...body, threadCondition: '' } }), params({ specId: data.id }));
+    const cleared = await specItem.PATCH(
+      apiRequest(`/api/specs/${data.id}`, {
+        method: 'PATCH',
+        cookie,
+        body: { ...body, threadCondition: '' },
+      }),
+      params({ specId: data.id }),
+    );
     expect(cleared.status).toBe(200);
     expect((await getSpec(shop.shopId, data.id)).threadCondition).toBeNull();
   });
 
   it('refuses a condition the maker cannot have meant, naming the field, and stores nothing', async () => {
     const cookie = await cookieFor(shop.lead.userId);
-    const res = await specList.POST(apiRequest('/api/specs', { method: 'POST', cookie, body: { ...specBody, name: 'Greasy', threadCondition: 'greasy' } }), params({}));
+    const res = await specList.POST(
+      apiRequest('/api/specs', {
+        method: 'POST',
+        cookie,
+        body: { ...specBody, name: 'Greasy', threadCondition: 'greasy' },
+      }),
+      params({}),
+    );
     expect(res.status).toBe(400);
     const { error } = (await res.json()) as { error: { fields: Record<string, string[]> } };
     expect(error.fields.threadCondition![0]).toMatch(/dry, oiled, anti-seize or thread locker/);

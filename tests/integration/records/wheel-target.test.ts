@@ -21,21 +21,55 @@ beforeEach(async () => {
 describe("a wheel's target pressure is below its spec's bead-seating limit", () => {
   it('a job card with a target over the limit is refused at that wheel, naming both units, and nothing is stored', async () => {
     const cookie = await cookieFor(shop.lead.userId);
-    const before = (await getDb().select({ id: jobs.id }).from(jobs).where(eq(jobs.shopId, shop.shopId))).length;
-    const wheels = fourWheels(records.spec.id).map((w, i) => (i === 2 ? { ...w, targetPressure: 2.4, pressureUnit: 'bar' as const } : w));
-    const res = await jobList.POST(apiRequest('/api/jobs', { method: 'POST', cookie, body: { customerId: records.customer.id, vehicleId: records.vehicle.id, wheels, dismount: true, reinstall: true, notes: '' } }), params({}));
+    const before = (
+      await getDb().select({ id: jobs.id }).from(jobs).where(eq(jobs.shopId, shop.shopId))
+    ).length;
+    const wheels = fourWheels(records.spec.id).map((w, i) =>
+      i === 2 ? { ...w, targetPressure: 2.4, pressureUnit: 'bar' as const } : w,
+    );
+    const res = await jobList.POST(
+      apiRequest('/api/jobs', {
+        method: 'POST',
+        cookie,
+        body: {
+          customerId: records.customer.id,
+          vehicleId: records.vehicle.id,
+          wheels,
+          dismount: true,
+          reinstall: true,
+          notes: '',
+        },
+      }),
+      params({}),
+    );
     expect(res.status).toBe(400);
     const { error } = (await res.json()) as { error: { fields: Record<string, string[]> } };
-    expect(error.fields['wheels.2.targetPressure']![0]).toMatch(/2\.4 bar is 34\.8 psi\) must be below the spec's bead-seating limit \(2\.068 bar\)/);
-    expect((await getDb().select({ id: jobs.id }).from(jobs).where(eq(jobs.shopId, shop.shopId))).length).toBe(before);
+    expect(error.fields['wheels.2.targetPressure']![0]).toMatch(
+      /2\.4 bar is 34\.8 psi\) must be below the spec's bead-seating limit \(2\.068 bar\)/,
+    );
+    expect(
+      (await getDb().select({ id: jobs.id }).from(jobs).where(eq(jobs.shopId, shop.shopId))).length,
+    ).toBe(before);
   });
 
   it('changing a wheel to such a target is refused and the wheel keeps its own', async () => {
     const cookie = await cookieFor(shop.lead.userId);
     const wheel = (await getJob(shop.shopId, records.job.id)).wheels[0]!;
-    const body = { position: wheel.position, specId: wheel.specId, tireSize: wheel.tireSize, directional: false, targetPressure: 35, pressureUnit: 'psi' };
-    const res = await wheelItem.PATCH(apiRequest(`/api/wheels/${wheel.id}`, { method: 'PATCH', cookie, body }), params({ wheelId: wheel.id }));
+    const body = {
+      position: wheel.position,
+      specId: wheel.specId,
+      tireSize: wheel.tireSize,
+      directional: false,
+      targetPressure: 35,
+      pressureUnit: 'psi',
+    };
+    const res = await wheelItem.PATCH(
+      apiRequest(`/api/wheels/${wheel.id}`, { method: 'PATCH', cookie, body }),
+      params({ wheelId: wheel.id }),
+    );
     expect(res.status).toBe(400);
-    expect((await getJob(shop.shopId, records.job.id)).wheels[0]!.targetPressure).toBe(wheel.targetPressure);
+    expect((await getJob(shop.shopId, records.job.id)).wheels[0]!.targetPressure).toBe(
+      wheel.targetPressure,
+    );
   });
 });

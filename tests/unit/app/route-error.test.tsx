@@ -7,9 +7,12 @@ import RunnerError from '@/app/(runner)/error';
 import ShopError from '@/app/(shop)/error';
 
 function thrown() {
-  const error = new Error('relation "jobs" does not exist at postgres://ringpass:secret@db/ringpass') as Error & { digest?: string };
+  const error = new Error(
+    'relation "jobs" does not exist at postgres://ringpass:secret@db/ringpass',
+  ) as Error & { digest?: string };
   error.digest = '2417738913';
-  error.stack = 'Error: relation "jobs" does not exist\n    at listBoard (features/jobs/server/board.ts:88:11)';
+  error.stack =
+    'Error: relation "jobs" does not exist\n    at listBoard (features/jobs/server/board.ts:88:11)';
   return error;
 }
 

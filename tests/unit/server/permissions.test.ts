@@ -11,7 +11,17 @@ describe('permissions', () => {
     expect(can('technician', 'jobs.create')).toBe(true);
     expect(can('technician', 'jobs.run')).toBe(true);
     expect(can('technician', 'practice.run')).toBe(true);
-    for (const p of ['team.manage', 'shop.settings', 'specs.manage', 'wrenches.manage', 'wrenches.clear', 'jobs.assign', 'jobs.edit', 'jobs.signoff', 'practice.viewOthers'] as const) {
+    for (const p of [
+      'team.manage',
+      'shop.settings',
+      'specs.manage',
+      'wrenches.manage',
+      'wrenches.clear',
+      'jobs.assign',
+      'jobs.edit',
+      'jobs.signoff',
+      'practice.viewOthers',
+    ] as const) {
       expect(can('technician', p)).toBe(false);
     }
   });

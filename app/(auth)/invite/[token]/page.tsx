@@ -14,7 +14,7 @@ export default async function InvitePage({ params }: PageProps<'/invite/[token]'
       <>
         <h1 className="text-2xl font-bold">Invite not usable</h1>
         <p role="alert">{INVITE_UNUSABLE}</p>
-        <Link href="/sign-in" className="font-semibold text-work underline">
+        <Link href="/sign-in" className="text-work font-semibold underline">
           Go to sign-in
         </Link>
       </>

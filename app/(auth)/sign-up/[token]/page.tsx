@@ -13,7 +13,7 @@ export default async function FinishSignUpPage({ params }: PageProps<'/sign-up/[
       <>
         <h1 className="text-2xl font-bold">Link not usable</h1>
         <p role="alert">{SIGN_UP_UNUSABLE}</p>
-        <Link href="/sign-up" className="font-semibold text-work underline">
+        <Link href="/sign-up" className="text-work font-semibold underline">
           Sign up again
         </Link>
       </>

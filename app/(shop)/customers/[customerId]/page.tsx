@@ -16,21 +16,36 @@ export default async function CustomerPage({ params }: PageProps<'/customers/[cu
   const id = ids.customer.safeParse((await params).customerId);
   if (!id.success) notFound();
   const customer = await orNotFound(getCustomer(member.shopId, id.data));
-  const vehicles = await listVehicles(member.shopId, { page: 1, pageSize: 100, customerId: customer.id });
+  const vehicles = await listVehicles(member.shopId, {
+    page: 1,
+    pageSize: 100,
+    customerId: customer.id,
+  });
   const canEdit = can(member.role, 'jobs.edit');
   return (
     <>
-      <Link href="/customers" className="font-semibold text-work underline">← Customers</Link>
+      <Link href="/customers" className="text-work font-semibold underline">
+        ← Customers
+      </Link>
       <PageHeader title={customer.name} />
       <div className="grid gap-8 md:grid-cols-2">
         <section aria-labelledby="vehicles-heading" className="flex flex-col gap-4">
-          <h2 id="vehicles-heading" className="text-xl font-bold">Vehicles ({vehicles.total})</h2>
+          <h2 id="vehicles-heading" className="text-xl font-bold">
+            Vehicles ({vehicles.total})
+          </h2>
           <ul className="flex flex-col gap-2">
             {vehicles.data.map((v) => (
-              <li key={v.id} className="rounded-xl border-2 border-paper-line p-3">
+              <li key={v.id} className="border-paper-line rounded-xl border-2 p-3">
                 <span className="font-semibold">{vehicleLabel(v)}</span>
-                {v.description && vehicleLabel(v) !== v.description ? <span className="block text-ink-soft">{v.description}</span> : null}
-                {v.vin ? <span className="block text-sm">VIN {v.vin}{v.vinCheckOverridden ? ' (check digit accepted by a lead)' : ''}</span> : null}
+                {v.description && vehicleLabel(v) !== v.description ? (
+                  <span className="text-ink-soft block">{v.description}</span>
+                ) : null}
+                {v.vin ? (
+                  <span className="block text-sm">
+                    VIN {v.vin}
+                    {v.vinCheckOverridden ? ' (check digit accepted by a lead)' : ''}
+                  </span>
+                ) : null}
               </li>
             ))}
           </ul>
@@ -38,7 +53,9 @@ export default async function CustomerPage({ params }: PageProps<'/customers/[cu
         </section>
         {canEdit ? (
           <section aria-labelledby="edit-heading">
-            <h2 id="edit-heading" className="mb-3 text-xl font-bold">Details</h2>
+            <h2 id="edit-heading" className="mb-3 text-xl font-bold">
+              Details
+            </h2>
             <CustomerForm customer={customer} />
           </section>
         ) : null}

@@ -23,24 +23,47 @@ export default async function JobPage({ params }: PageProps<'/jobs/[jobId]'>) {
   if (!id.success) notFound();
   const job = await orNotFound(getJob(member.shopId, id.data));
   const editable = can(member.role, 'jobs.edit') && job.state !== 'signed_off';
-  const [photos, facts] = await Promise.all([listJobPhotos(member.shopId, job.id), getWorkFacts(member.shopId, job.id)]);
+  const [photos, facts] = await Promise.all([
+    listJobPhotos(member.shopId, job.id),
+    getWorkFacts(member.shopId, job.id),
+  ]);
   return (
     <>
-      <Link href="/board" className="font-semibold text-work underline">
+      <Link href="/board" className="text-work font-semibold underline">
         ← Board
       </Link>
       <PageHeader title={`Job #${job.number} · ${job.vehicle.label}`}>
         {can(member.role, 'jobs.signoff') && job.state !== 'open' ? (
-          <Link href={`/jobs/${job.id}/review`} className={buttonClass(job.state === 'awaiting_signoff' ? 'primary' : 'secondary')}>
+          <Link
+            href={`/jobs/${job.id}/review`}
+            className={buttonClass(job.state === 'awaiting_signoff' ? 'primary' : 'secondary')}
+          >
             {job.state === 'awaiting_signoff' ? 'Review for sign-off' : 'Review the record'}
           </Link>
         ) : null}
       </PageHeader>
       <div className="grid gap-8 lg:grid-cols-[2fr_1fr]">
-        <JobDetails job={job} photos={photos} canRun={can(member.role, 'jobs.run') && (member.role === 'lead' || job.assignee?.id === member.userId)} />
+        <JobDetails
+          job={job}
+          photos={photos}
+          canRun={
+            can(member.role, 'jobs.run') &&
+            (member.role === 'lead' || job.assignee?.id === member.userId)
+          }
+        />
         <div className="flex flex-col gap-6">
-          <TransitionForm jobId={job.id} allowed={allowedTransitions(member, job, facts).filter((t) => t !== 'sign_off') /* signed off from the review */} selfReview={isSelfReview(member, job, 'sign_off', facts)} />
-          {editable ? <JobEditForm job={job} assignees={await listAssignees(member.shopId)} /> : null}
+          <TransitionForm
+            jobId={job.id}
+            allowed={
+              allowedTransitions(member, job, facts).filter(
+                (t) => t !== 'sign_off',
+              ) /* signed off from the review */
+            }
+            selfReview={isSelfReview(member, job, 'sign_off', facts)}
+          />
+          {editable ? (
+            <JobEditForm job={job} assignees={await listAssignees(member.shopId)} />
+          ) : null}
         </div>
       </div>
     </>

@@ -28,7 +28,7 @@ export default async function NewJobPage() {
         <EmptyState title="No wheel specs yet">
           A job card needs a wheel spec for each wheel.{' '}
           {can(member.role, 'specs.manage') ? (
-            <Link href="/specs/new" className="font-semibold text-work underline">
+            <Link href="/specs/new" className="text-work font-semibold underline">
               Create a spec first
             </Link>
           ) : (
@@ -39,7 +39,12 @@ export default async function NewJobPage() {
         <JobForm
           customers={customers.data}
           vehicles={vehicles.data.map((v) => ({ ...v, label: vehicleLabel(v) }))}
-          specs={specs.map((s) => ({ id: s.id, name: s.name, runningPressure: s.runningPressure, pressureUnit: s.pressureUnit }))}
+          specs={specs.map((s) => ({
+            id: s.id,
+            name: s.name,
+            runningPressure: s.runningPressure,
+            pressureUnit: s.pressureUnit,
+          }))}
           assignees={canAssign ? people : people.filter((p) => p.id === member.userId)}
           canAcceptVin={can(member.role, 'jobs.edit')}
           pressureUnit={settings.pressureUnit}

@@ -20,23 +20,37 @@ export default async function SpecPage({ params }: PageProps<'/specs/[specId]'>)
   const member = await requireMember('board.view');
   const id = specIdField.safeParse((await params).specId);
   if (!id.success) notFound();
-  const [spec, wrenches, settings] = await Promise.all([orNotFound(getSpec(member.shopId, id.data)), wrenchesForEngine(member.shopId), getShopSettings(member.shopId)]);
+  const [spec, wrenches, settings] = await Promise.all([
+    orNotFound(getSpec(member.shopId, id.data)),
+    wrenchesForEngine(member.shopId),
+    getShopSettings(member.shopId),
+  ]);
   const minFractionOfMax = settings.wrenchFloorPercent / 100;
   return (
     <>
-      <Link href="/specs" className="font-semibold text-work underline">
+      <Link href="/specs" className="text-work font-semibold underline">
         ← Wheel specs
       </Link>
       <PageHeader title={spec.name} />
       {can(member.role, 'specs.manage') ? (
-        <SpecForm spec={spec} wrenches={wrenches} minFractionOfMax={minFractionOfMax} units={{ torque: settings.torqueUnit, pressure: settings.pressureUnit }} />
+        <SpecForm
+          spec={spec}
+          wrenches={wrenches}
+          minFractionOfMax={minFractionOfMax}
+          units={{ torque: settings.torqueUnit, pressure: settings.pressureUnit }}
+        />
       ) : (
         <>
-          {spec.plausibilityFlag ? <SpecFlag reason={spec.plausibilityFlag} canFix={false} /> : null}
-          <SpecPreview spec={specToInput(spec)} wrenches={wrenches} minFractionOfMax={minFractionOfMax} />
+          {spec.plausibilityFlag ? (
+            <SpecFlag reason={spec.plausibilityFlag} canFix={false} />
+          ) : null}
+          <SpecPreview
+            spec={specToInput(spec)}
+            wrenches={wrenches}
+            minFractionOfMax={minFractionOfMax}
+          />
         </>
       )}
     </>
   );
 }
-

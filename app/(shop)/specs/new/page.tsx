@@ -9,11 +9,18 @@ export const metadata: Metadata = { title: 'New wheel spec' };
 
 export default async function NewSpecPage() {
   const member = await requireMember('specs.manage');
-  const [wrenches, settings] = await Promise.all([wrenchesForEngine(member.shopId), getShopSettings(member.shopId)]);
+  const [wrenches, settings] = await Promise.all([
+    wrenchesForEngine(member.shopId),
+    getShopSettings(member.shopId),
+  ]);
   return (
     <>
       <PageHeader title="New wheel spec" />
-      <SpecForm wrenches={wrenches} minFractionOfMax={settings.wrenchFloorPercent / 100} units={{ torque: settings.torqueUnit, pressure: settings.pressureUnit }} />
+      <SpecForm
+        wrenches={wrenches}
+        minFractionOfMax={settings.wrenchFloorPercent / 100}
+        units={{ torque: settings.torqueUnit, pressure: settings.pressureUnit }}
+      />
     </>
   );
 }

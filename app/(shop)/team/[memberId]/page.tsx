@@ -18,14 +18,16 @@ export default async function MemberPage({ params }: PageProps<'/team/[memberId]
   const person = await orNotFound(getTeamMember(member.shopId, id.data));
   return (
     <>
-      <Link href="/team" className="font-semibold text-work underline">
+      <Link href="/team" className="text-work font-semibold underline">
         ← Team
       </Link>
       <PageHeader title={person.name} />
-      <p className="mb-6 text-ink-soft">{person.email}</p>
+      <p className="text-ink-soft mb-6">{person.email}</p>
       <div className="grid max-w-md gap-8">
         <MemberRoleForm memberId={person.id} role={person.role} />
-        {person.id !== member.userId ? <RemoveMemberForm memberId={person.id} name={person.name} /> : null}
+        {person.id !== member.userId ? (
+          <RemoveMemberForm memberId={person.id} name={person.name} />
+        ) : null}
       </div>
     </>
   );

@@ -23,7 +23,7 @@ export default async function WrenchPage({ params }: PageProps<'/tool-crib/[wren
   const history = await wrenchHistory(member.shopId, wrench.id);
   return (
     <>
-      <Link href="/tool-crib" className="font-semibold text-work underline">
+      <Link href="/tool-crib" className="text-work font-semibold underline">
         ← Tool crib
       </Link>
       <PageHeader title={wrench.label}>
@@ -32,24 +32,38 @@ export default async function WrenchPage({ params }: PageProps<'/tool-crib/[wren
       {wrench.statusReason ? <p className="mb-4 font-semibold">{wrench.statusReason}</p> : null}
       <div className="grid gap-8 lg:grid-cols-2">
         <div className="flex flex-col gap-8">
-          <section aria-labelledby="verify-heading" className="rounded-xl border-2 border-paper-line p-4">
-            <h2 id="verify-heading" className="mb-3 text-xl font-bold">Record a verification</h2>
+          <section
+            aria-labelledby="verify-heading"
+            className="border-paper-line rounded-xl border-2 p-4"
+          >
+            <h2 id="verify-heading" className="mb-3 text-xl font-bold">
+              Record a verification
+            </h2>
             <VerificationForm wrenchId={wrench.id} unit={wrench.unit} />
           </section>
           {wrench.status === 'out_of_service' && can(member.role, 'wrenches.clear') ? (
-            <section aria-labelledby="clear-heading" className="rounded-xl border-2 border-danger p-4">
-              <h2 id="clear-heading" className="mb-3 text-xl font-bold">Put back in service</h2>
+            <section
+              aria-labelledby="clear-heading"
+              className="border-danger rounded-xl border-2 p-4"
+            >
+              <h2 id="clear-heading" className="mb-3 text-xl font-bold">
+                Put back in service
+              </h2>
               <ClearForm wrenchId={wrench.id} />
             </section>
           ) : null}
           <section aria-labelledby="history-heading">
-            <h2 id="history-heading" className="mb-3 text-xl font-bold">History</h2>
+            <h2 id="history-heading" className="mb-3 text-xl font-bold">
+              History
+            </h2>
             <HistoryTable entries={history} />
           </section>
         </div>
         {can(member.role, 'wrenches.manage') ? (
           <section aria-labelledby="edit-heading">
-            <h2 id="edit-heading" className="mb-3 text-xl font-bold">Details</h2>
+            <h2 id="edit-heading" className="mb-3 text-xl font-bold">
+              Details
+            </h2>
             <WrenchForm wrench={wrench} />
           </section>
         ) : null}

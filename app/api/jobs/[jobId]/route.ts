@@ -5,8 +5,13 @@ import { apiRoute } from '@/server/http/handler';
 
 const params = z.object({ jobId: ids.job });
 
-export const GET = apiRoute({ permission: 'jobs.view', params }, async ({ member, params }) => ({ data: await getJob(member.shopId, params.jobId) }));
-
-export const PATCH = apiRoute({ permission: 'jobs.edit', params, body: jobUpdateSchema }, async ({ member, params, body }) => ({
-  data: await updateJob(member, params.jobId, body),
+export const GET = apiRoute({ permission: 'jobs.view', params }, async ({ member, params }) => ({
+  data: await getJob(member.shopId, params.jobId),
 }));
+
+export const PATCH = apiRoute(
+  { permission: 'jobs.edit', params, body: jobUpdateSchema },
+  async ({ member, params, body }) => ({
+    data: await updateJob(member, params.jobId, body),
+  }),
+);

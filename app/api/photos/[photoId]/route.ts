@@ -5,4 +5,6 @@ import { apiRoute } from '@/server/http/handler';
 const params = z.object({ photoId: z.uuid() });
 
 /** A wheel photo, for people who may see the shop's job cards (thumbnails, the runner's summary). */
-export const GET = apiRoute({ permission: 'jobs.view', params }, ({ member, params }) => streamPhoto(member.shopId, params.photoId));
+export const GET = apiRoute({ permission: 'jobs.view', params }, ({ member, params }) =>
+  streamPhoto(member.shopId, params.photoId),
+);

@@ -6,9 +6,17 @@ import { apiRoute } from '@/server/http/handler';
 
 const params = z.object({ wheelId: ids.wheel });
 
-export const GET = apiRoute({ permission: 'jobs.view', params }, async ({ member, params }) => ({ data: await getWheel(member.shopId, params.wheelId) }));
+export const GET = apiRoute({ permission: 'jobs.view', params }, async ({ member, params }) => ({
+  data: await getWheel(member.shopId, params.wheelId),
+}));
 
 export const PATCH = apiRoute(
-  { permission: 'jobs.edit', params, body: wheelSchema.extend({ acceptAxleMismatch: checkbox.default(false) }) },
-  async ({ member, params, body: { acceptAxleMismatch, ...wheel } }) => ({ data: await updateWheel(member, params.wheelId, wheel, acceptAxleMismatch) }),
+  {
+    permission: 'jobs.edit',
+    params,
+    body: wheelSchema.extend({ acceptAxleMismatch: checkbox.default(false) }),
+  },
+  async ({ member, params, body: { acceptAxleMismatch, ...wheel } }) => ({
+    data: await updateWheel(member, params.wheelId, wheel, acceptAxleMismatch),
+  }),
 );

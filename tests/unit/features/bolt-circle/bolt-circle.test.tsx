@@ -9,12 +9,26 @@ import { tighteningSequence } from '@/features/torque-plan';
 
 describe('BoltCircle', () => {
   it('draws N bolts, each labelled with its number, the pass and its state', () => {
-    render(<BoltCircle count={24} order={tighteningSequence(24, { kind: 'cross' })} done={[1, 13]} next={7} passLabel="pass 2" label="Pass 2" onSelect={() => {}} />);
+    render(
+      <BoltCircle
+        count={24}
+        order={tighteningSequence(24, { kind: 'cross' })}
+        done={[1, 13]}
+        next={7}
+        passLabel="pass 2"
+        label="Pass 2"
+        onSelect={() => {}}
+      />,
+    );
     const bolts = screen.getAllByRole('button');
     expect(bolts).toHaveLength(24);
     expect(screen.getByRole('button', { name: 'bolt 1, pass 2, done' })).toBeInTheDocument();
-    expect(screen.getByRole('button', { name: 'bolt 7, pass 2, next, 3rd in order' })).toBeInTheDocument();
-    expect(screen.getByRole('button', { name: 'bolt 19, pass 2, to do, 4th in order' })).toBeInTheDocument();
+    expect(
+      screen.getByRole('button', { name: 'bolt 7, pass 2, next, 3rd in order' }),
+    ).toBeInTheDocument();
+    expect(
+      screen.getByRole('button', { name: 'bolt 19, pass 2, to do, 4th in order' }),
+    ).toBeInTheDocument();
   });
 
   it('the highlight follows the sequence as bolts are confirmed', () => {
@@ -32,7 +46,11 @@ describe('BoltCircle', () => {
       );
     }
     render(<Pass />);
-    const nextBolt = () => screen.getAllByRole('img').find((el) => el.getAttribute('data-state') === 'next')?.getAttribute('aria-label');
+    const nextBolt = () =>
+      screen
+        .getAllByRole('img')
+        .find((el) => el.getAttribute('data-state') === 'next')
+        ?.getAttribute('aria-label');
     const seen: (string | null | undefined)[] = [];
     for (let i = 0; i < 8; i++) {
       seen.push(nextBolt());
@@ -43,7 +61,16 @@ describe('BoltCircle', () => {
 
   it('works from the keyboard: one tab stop, arrows go round, Enter selects', async () => {
     const onSelect = vi.fn();
-    render(<BoltCircle count={12} order={tighteningSequence(12, { kind: 'cross' })} done={[]} next={1} label="Pass 1" onSelect={onSelect} />);
+    render(
+      <BoltCircle
+        count={12}
+        order={tighteningSequence(12, { kind: 'cross' })}
+        done={[]}
+        next={1}
+        label="Pass 1"
+        onSelect={onSelect}
+      />,
+    );
     await userEvent.tab();
     expect(document.activeElement).toHaveAccessibleName(/^bolt 1,/);
     await userEvent.keyboard('{ArrowRight}{ArrowRight}');
@@ -52,7 +79,9 @@ describe('BoltCircle', () => {
     expect(document.activeElement).toHaveAccessibleName(/^bolt 12,/);
     await userEvent.keyboard('{Enter}');
     expect(onSelect).toHaveBeenCalledWith(12);
-    expect(screen.getAllByRole('button').filter((b) => b.getAttribute('tabindex') === '0')).toHaveLength(1);
+    expect(
+      screen.getAllByRole('button').filter((b) => b.getAttribute('tabindex') === '0'),
+    ).toHaveLength(1);
   });
 
   it('hand-start mode says which bolts are started, not by colour alone', () => {

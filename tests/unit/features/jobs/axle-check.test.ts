@@ -13,10 +13,14 @@ describe('axleWarnings', () => {
     expect(axleWarnings(four('30x10R14', '30x10R14', '30x10R14', '30x10R14'))).toEqual([]);
   });
   it('different sizes on the front axle', () => {
-    expect(axleWarnings(four('30x10R14', '32x10R14', '30x10R14', '30x10R14'))[0]).toMatch(/^Front axle: 30x10R14 and 32x10R14 differ by 6.7 % in diameter/);
+    expect(axleWarnings(four('30x10R14', '32x10R14', '30x10R14', '30x10R14'))[0]).toMatch(
+      /^Front axle: 30x10R14 and 32x10R14 differ by 6.7 % in diameter/,
+    );
   });
   it('radial beside bias on the rear axle', () => {
-    expect(axleWarnings(four('30x10R14', '30x10R14', '30x10R14', '30x10-14'))[0]).toMatch(/^Rear axle: .* differ in construction/);
+    expect(axleWarnings(four('30x10R14', '30x10R14', '30x10R14', '30x10-14'))[0]).toMatch(
+      /^Rear axle: .* differ in construction/,
+    );
   });
   it('axles matched but front and rear differ by more than 1/4 in of circumference (common practice, no source)', () => {
     const w = axleWarnings(four('30x10R14', '30x10R14', '31x10R14', '31x10R14'));
@@ -24,7 +28,12 @@ describe('axleWarnings', () => {
     expect(w[0]).toMatch(/3\.14 in of circumference, more than 0.25 in/);
   });
   it('a spare is not part of an axle', () => {
-    expect(axleWarnings([...four('30x10R14', '30x10R14', '30x10R14', '30x10R14'), { position: 'spare', tireSize: '27x9-14' }])).toEqual([]);
+    expect(
+      axleWarnings([
+        ...four('30x10R14', '30x10R14', '30x10R14', '30x10R14'),
+        { position: 'spare', tireSize: '27x9-14' },
+      ]),
+    ).toEqual([]);
   });
   it('unreadable tire sizes are errors at their wheel, not warnings', () => {
     const wheels = four('30x10R14', 'thirty', '30x10R14', '30x10R14');

@@ -5,12 +5,18 @@ import { afterEach, describe, expect, it, vi } from 'vitest';
 import { BoardFilters } from '@/features/jobs/components/board-filters';
 
 function screenWidth(wide: boolean) {
-  vi.stubGlobal('matchMedia', (query: string) => ({ matches: wide, media: query, addEventListener: vi.fn(), removeEventListener: vi.fn() }));
+  vi.stubGlobal('matchMedia', (query: string) => ({
+    matches: wide,
+    media: query,
+    addEventListener: vi.fn(),
+    removeEventListener: vi.fn(),
+  }));
 }
 
 afterEach(() => vi.unstubAllGlobals());
 
-const show = () => render(<BoardFilters filters={{ assignee: 'me' }} people={[]} onChange={vi.fn()} />);
+const show = () =>
+  render(<BoardFilters filters={{ assignee: 'me' }} people={[]} onChange={vi.fn()} />);
 
 describe('the board filters', () => {
   it('fold behind one Filter button on a phone, which opens them and says so', async () => {

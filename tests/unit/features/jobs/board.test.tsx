@@ -17,13 +17,29 @@ vi.mock('next/navigation', () => ({
 const { Board } = await import('@/features/jobs/components/board');
 const { ShopTimeZoneProvider } = await import('@/features/ui/shop-time-zone');
 
-const row = { id: 'j1', number: 1042, state: 'in_progress', customer: 'Wren Halloway', vehicle: '2022 Talonworks Ridgeback', wheelCount: 4, assignee: { id: 't1', name: 'Theo Tech' }, dueAt: '2030-01-01T10:00:00.000Z', updatedAt: '2030-01-01T09:00:00.000Z' };
+const row = {
+  id: 'j1',
+  number: 1042,
+  state: 'in_progress',
+  customer: 'Wren Halloway',
+  vehicle: '2022 Talonworks Ridgeback',
+  wheelCount: 4,
+  assignee: { id: 't1', name: 'Theo Tech' },
+  dueAt: '2030-01-01T10:00:00.000Z',
+  updatedAt: '2030-01-01T09:00:00.000Z',
+};
 const fetchMock = vi.fn(async (url: string) => {
   const empty = url.includes('q=nothing');
-  return new Response(JSON.stringify({ data: empty ? [] : [row], page: 1, pageSize: 25, total: empty ? 0 : 1 }), { status: 200 });
+  return new Response(
+    JSON.stringify({ data: empty ? [] : [row], page: 1, pageSize: 25, total: empty ? 0 : 1 }),
+    { status: 200 },
+  );
 });
 
-function renderBoard(props: Partial<Parameters<typeof Board>[0]> = {}, timeZone = 'America/Denver') {
+function renderBoard(
+  props: Partial<Parameters<typeof Board>[0]> = {},
+  timeZone = 'America/Denver',
+) {
   const client = new QueryClient({ defaultOptions: { queries: { retry: false } } });
   return render(
     <ShopTimeZoneProvider timeZone={timeZone}>
@@ -50,7 +66,9 @@ describe('Board', () => {
     expect(row).not.toHaveTextContent(/UTC|GMT/);
     view.unmount();
     renderBoard({}, 'Europe/Berlin');
-    expect(await screen.findByRole('row', { name: /Wren Halloway/ })).toHaveTextContent('Jan 1, 2030, 11:00 AM');
+    expect(await screen.findByRole('row', { name: /Wren Halloway/ })).toHaveTextContent(
+      'Jan 1, 2030, 11:00 AM',
+    );
   });
 
   it('shows the jobs the API returns, with a link to each card', async () => {
@@ -72,15 +90,24 @@ describe('Board', () => {
         </QueryClientProvider>
       </ShopTimeZoneProvider>,
     );
-    await waitFor(() => expect(fetchMock.mock.calls.some(([u]) => String(u) === '/api/jobs?state=awaiting_signoff')).toBe(true));
+    await waitFor(() =>
+      expect(
+        fetchMock.mock.calls.some(([u]) => String(u) === '/api/jobs?state=awaiting_signoff'),
+      ).toBe(true),
+    );
     await userEvent.selectOptions(screen.getByLabelText('Due'), 'overdue');
-    expect(replace).toHaveBeenLastCalledWith('/board?state=awaiting_signoff&due=overdue', { scroll: false });
+    expect(replace).toHaveBeenLastCalledWith('/board?state=awaiting_signoff&due=overdue', {
+      scroll: false,
+    });
   });
 
   it('sorts by a column from its header button, announced with aria-sort', async () => {
     renderBoard();
     await screen.findByRole('link', { name: '#1042' });
-    expect(screen.getByRole('columnheader', { name: /Due/ })).toHaveAttribute('aria-sort', 'ascending');
+    expect(screen.getByRole('columnheader', { name: /Due/ })).toHaveAttribute(
+      'aria-sort',
+      'ascending',
+    );
     await userEvent.click(screen.getByRole('button', { name: /Customer/ }));
     expect(replace).toHaveBeenLastCalledWith('/board?sort=customer&dir=asc', { scroll: false });
   });
@@ -90,7 +117,9 @@ describe('Board', () => {
     await screen.findByRole('link', { name: '#1042' });
     await userEvent.type(screen.getByLabelText('Search'), 'Wren');
     expect(replace).not.toHaveBeenCalledWith(expect.stringContaining('q=W&'), expect.anything());
-    await waitFor(() => expect(replace).toHaveBeenLastCalledWith('/board?q=Wren', { scroll: false }));
+    await waitFor(() =>
+      expect(replace).toHaveBeenLastCalledWith('/board?q=Wren', { scroll: false }),
+    );
   });
 
   it("a technician's default is their own work, with a clear empty state", async () => {

@@ -6,11 +6,15 @@ const wheels = (...positions: string[]) => positions.map((position) => ({ positi
 // Both tires of an axle are replaced together (common practice, no source).
 describe('intakeWarnings: one wheel of an axle', () => {
   it('LF without RF warns for the front axle, naming both', () => {
-    expect(intakeWarnings(wheels('LF'))).toEqual([expect.stringMatching(/^Front axle: only LF is on this job card, not RF\..*differential/)]);
+    expect(intakeWarnings(wheels('LF'))).toEqual([
+      expect.stringMatching(/^Front axle: only LF is on this job card, not RF\..*differential/),
+    ]);
   });
 
   it('RR without LR warns for the rear axle', () => {
-    expect(intakeWarnings(wheels('LF', 'RF', 'RR'))).toEqual([expect.stringMatching(/^Rear axle: only RR .* not LR/)]);
+    expect(intakeWarnings(wheels('LF', 'RF', 'RR'))).toEqual([
+      expect.stringMatching(/^Rear axle: only RR .* not LR/),
+    ]);
   });
 
   it('whole axles, all four, or a spare alone: no warning', () => {

@@ -20,16 +20,48 @@ const event = (bolt: number, second: number, deviceId?: string | null): ReviewEv
 
 describe("the review's per-bolt table", () => {
   it("names each bolt's time, person and phone, and says when an older event has no phone", () => {
-    const plan = { boltCount: 2, steps: [], passes: [{ index: 1, kind: 'check' as const, fraction: 1, target: { value: 100, unit: 'lbf-ft' as const }, order: [1, 2] }] };
-    const record = wheelRecord(plan, [event(1, 0, '3f9a0c1e-2b4d-4e6f-8a9b-0c1d2e3f4a5b'), event(2, 4)]);
+    const plan = {
+      boltCount: 2,
+      steps: [],
+      passes: [
+        {
+          index: 1,
+          kind: 'check' as const,
+          fraction: 1,
+          target: { value: 100, unit: 'lbf-ft' as const },
+          order: [1, 2],
+        },
+      ],
+    };
+    const record = wheelRecord(plan, [
+      event(1, 0, '3f9a0c1e-2b4d-4e6f-8a9b-0c1d2e3f4a5b'),
+      event(2, 4),
+    ]);
     render(
       <ShopTimeZoneProvider timeZone="UTC">
-        <PassReview pass={record.passes[0]!} passCount={1} boltCount={2} uses={[]} people={{ [TECH]: 'Theo Tech' }} />
+        <PassReview
+          pass={record.passes[0]!}
+          passCount={1}
+          boltCount={2}
+          uses={[]}
+          people={{ [TECH]: 'Theo Tech' }}
+        />
       </ShopTimeZoneProvider>,
     );
     const table = screen.getByRole('table');
-    expect(within(table).getAllByRole('columnheader').map((th) => th.textContent)).toEqual(['#', 'Bolt', 'Plan', 'When', 'Gap', 'By', 'Phone']);
-    const rows = within(table).getAllByRole('row').slice(1).map((tr) => within(tr).getAllByRole('cell').map((td) => td.textContent));
+    expect(
+      within(table)
+        .getAllByRole('columnheader')
+        .map((th) => th.textContent),
+    ).toEqual(['#', 'Bolt', 'Plan', 'When', 'Gap', 'By', 'Phone']);
+    const rows = within(table)
+      .getAllByRole('row')
+      .slice(1)
+      .map((tr) =>
+        within(tr)
+          .getAllByRole('cell')
+          .map((td) => td.textContent),
+      );
     expect(rows.map((r) => [r[1], r[5], r[6]])).toEqual([
       ['1', 'Theo Tech', 'Phone 3F9A'],
       ['2', 'Theo Tech', 'not recorded'],

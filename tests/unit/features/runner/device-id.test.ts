@@ -44,9 +44,16 @@ describe("a phone's own id", () => {
   });
 
   it('the event schema takes a phone id beside the event id, or none (events queued before an update), and refuses a bad one', () => {
-    const event = { type: 'hand_started', payload: { bolt: 1 }, clientId: crypto.randomUUID(), clientAt: '2026-01-01T09:00:00.000Z' };
+    const event = {
+      type: 'hand_started',
+      payload: { bolt: 1 },
+      clientId: crypto.randomUUID(),
+      clientAt: '2026-01-01T09:00:00.000Z',
+    };
     expect(clientEventSchema.safeParse(event).success).toBe(true);
-    expect(clientEventSchema.parse({ ...event, deviceId: '3f9a0c1e-2b4d-4e6f-8a9b-0c1d2e3f4a5b' })).toMatchObject({ deviceId: '3f9a0c1e-2b4d-4e6f-8a9b-0c1d2e3f4a5b' });
+    expect(
+      clientEventSchema.parse({ ...event, deviceId: '3f9a0c1e-2b4d-4e6f-8a9b-0c1d2e3f4a5b' }),
+    ).toMatchObject({ deviceId: '3f9a0c1e-2b4d-4e6f-8a9b-0c1d2e3f4a5b' });
     const bad = clientEventSchema.safeParse({ ...event, deviceId: 'phone-1' });
     expect(bad.success).toBe(false);
     expect(bad.error?.issues[0]?.message).toBe('The phone id is not valid.');

@@ -2,7 +2,12 @@ import { describe, expect, it } from 'vitest';
 import { photoKindEnum } from '@/db/schema';
 import { CHECKLISTS } from '@/db/seed-demo-work';
 import { runEventSchema } from '@/features/runner/events';
-import { missingPhotos, PHOTO_KIND_INFO, PHOTO_KINDS, REQUIRED_PHOTOS } from '@/features/runner/photo-kinds';
+import {
+  missingPhotos,
+  PHOTO_KIND_INFO,
+  PHOTO_KINDS,
+  REQUIRED_PHOTOS,
+} from '@/features/runner/photo-kinds';
 import { STEP_IDS, stepsFor } from '@/features/runner/steps';
 
 describe('one list of each thing', () => {
@@ -21,13 +26,22 @@ describe('one list of each thing', () => {
   });
 
   it('an event naming a step outside the list is refused', () => {
-    const event = (step: string) => ({ clientId: crypto.randomUUID(), at: new Date().toISOString(), type: 'step_done', payload: { step, checklist: [] } });
+    const event = (step: string) => ({
+      clientId: crypto.randomUUID(),
+      at: new Date().toISOString(),
+      type: 'step_done',
+      payload: { step, checklist: [] },
+    });
     expect(runEventSchema.safeParse(event('seat_bead')).success).toBe(true);
     expect(runEventSchema.safeParse(event('paint_the_rim')).success).toBe(false);
   });
 
   it("the demo shop's records tick the runner's own checklist items, step by step", () => {
-    const procedure = stepsFor({ dismount: true, reinstall: true }).filter((s) => s.checklist.length);
-    expect(Object.fromEntries(procedure.map((s) => [s.id, s.checklist.map((c) => c.id)]))).toEqual(CHECKLISTS);
+    const procedure = stepsFor({ dismount: true, reinstall: true }).filter(
+      (s) => s.checklist.length,
+    );
+    expect(Object.fromEntries(procedure.map((s) => [s.id, s.checklist.map((c) => c.id)]))).toEqual(
+      CHECKLISTS,
+    );
   });
 });

@@ -18,12 +18,21 @@ const plan: RunnerPlan = {
 
 let n = 0;
 const ev = (e: Omit<ClientEvent, 'clientId' | 'clientAt'>, at = n): ClientEvent =>
-  ({ ...e, clientId: `00000000-0000-4000-8000-${String(++n).padStart(12, '0')}`, clientAt: new Date(Date.UTC(2026, 0, 1, 8, 0, at)).toISOString() }) as ClientEvent;
-const confirm = (pass: number, bolt: number) => ev({ type: 'bolt_confirmed', payload: { pass, bolt } });
+  ({
+    ...e,
+    clientId: `00000000-0000-4000-8000-${String(++n).padStart(12, '0')}`,
+    clientAt: new Date(Date.UTC(2026, 0, 1, 8, 0, at)).toISOString(),
+  }) as ClientEvent;
+const confirm = (pass: number, bolt: number) =>
+  ev({ type: 'bolt_confirmed', payload: { pass, bolt } });
 
 describe('reduceRun', () => {
   it('walks the steps in order and follows each pass’s sequence', () => {
-    const events = [ev({ type: 'step_done', payload: { step: 'safety', checklist: [] } }), confirm(1, 1), confirm(1, 5)];
+    const events = [
+      ev({ type: 'step_done', payload: { step: 'safety', checklist: [] } }),
+      confirm(1, 1),
+      confirm(1, 5),
+    ];
     const s = reduceRun(plan, events);
     expect(s.current).toBe('clean'); // cleaning and deburring come before the inspection
     expect(s.passes[0]).toMatchObject({ confirmed: [1, 5], next: 3, complete: false });
@@ -40,11 +49,19 @@ describe('reduceRun', () => {
   });
 
   it('gives the same state whatever order the events arrive in', () => {
-    const events = [...order.map((b) => confirm(1, b)), ...order.slice(0, 3).map((b) => confirm(2, b))];
+    const events = [
+      ...order.map((b) => confirm(1, b)),
+      ...order.slice(0, 3).map((b) => confirm(2, b)),
+    ];
     const expected = reduceRun(plan, events);
-    fc.assert(fc.property(fc.shuffledSubarray(events, { minLength: events.length, maxLength: events.length }), (shuffled) => {
-      expect(reduceRun(plan, shuffled)).toEqual(expected);
-    }));
+    fc.assert(
+      fc.property(
+        fc.shuffledSubarray(events, { minLength: events.length, maxLength: events.length }),
+        (shuffled) => {
+          expect(reduceRun(plan, shuffled)).toEqual(expected);
+        },
+      ),
+    );
   });
 
   it('keeps an out-of-sequence confirmation and lists it as an anomaly', () => {
@@ -54,32 +71,56 @@ describe('reduceRun', () => {
   });
 
   it('undo takes a bolt back', () => {
-    const s = reduceRun(plan, [confirm(1, 1), confirm(1, 5), ev({ type: 'bolt_undone', payload: { pass: 1, bolt: 5 } })]);
+    const s = reduceRun(plan, [
+      confirm(1, 1),
+      confirm(1, 5),
+      ev({ type: 'bolt_undone', payload: { pass: 1, bolt: 5 } }),
+    ]);
     expect(s.passes[0]).toMatchObject({ confirmed: [1], next: 5 });
   });
 
   it('the torque step cannot finish before every pass is complete; hand-start before every bolt is started', () => {
-    const early = reduceRun(plan, [ev({ type: 'step_done', payload: { step: 'torque', checklist: [] } }), ev({ type: 'step_done', payload: { step: 'hand_start', checklist: [] } })]);
+    const early = reduceRun(plan, [
+      ev({ type: 'step_done', payload: { step: 'torque', checklist: [] } }),
+      ev({ type: 'step_done', payload: { step: 'hand_start', checklist: [] } }),
+    ]);
     expect(early.status.torque).toBe('todo');
     expect(early.status.hand_start).toBe('todo');
-    const started = [1, 2, 3, 4, 5, 6, 7, 8].map((bolt) => ev({ type: 'hand_started', payload: { bolt } }));
+    const started = [1, 2, 3, 4, 5, 6, 7, 8].map((bolt) =>
+      ev({ type: 'hand_started', payload: { bolt } }),
+    );
     const passes = plan.passes.flatMap((p) => p.order.map((b) => confirm(p.index, b)));
-    const done = reduceRun(plan, [...started, ev({ type: 'step_done', payload: { step: 'hand_start', checklist: [] } }), ...passes, ev({ type: 'step_done', payload: { step: 'torque', checklist: [] } })]);
+    const done = reduceRun(plan, [
+      ...started,
+      ev({ type: 'step_done', payload: { step: 'hand_start', checklist: [] } }),
+      ...passes,
+      ev({ type: 'step_done', payload: { step: 'torque', checklist: [] } }),
+    ]);
     expect(done.status).toMatchObject({ hand_start: 'done', torque: 'done' });
     expect(done.currentPass).toBeNull();
   });
 
   it('a required step cannot be skipped; an optional one can, with its reason', () => {
-    const s = reduceRun(plan, [ev({ type: 'step_skipped', payload: { step: 'safety', reason: 'in a hurry' } }), ev({ type: 'step_skipped', payload: { step: 'clean', reason: 'new wheel, clean from the box' } })]);
+    const s = reduceRun(plan, [
+      ev({ type: 'step_skipped', payload: { step: 'safety', reason: 'in a hurry' } }),
+      ev({
+        type: 'step_skipped',
+        payload: { step: 'clean', reason: 'new wheel, clean from the box' },
+      }),
+    ]);
     expect(s.status.safety).toBe('todo');
     expect(s.status.clean).toBe('skipped');
     expect(s.skipReasons.clean).toBe('new wheel, clean from the box');
   });
 
   it('a failed inspection stops the wheel and blocks submit', () => {
-    const s = reduceRun(plan, [ev({ type: 'inspection_failed', payload: { notes: 'crack at bolt hole 7' } })]);
+    const s = reduceRun(plan, [
+      ev({ type: 'inspection_failed', payload: { notes: 'crack at bolt hole 7' } }),
+    ]);
     expect(s.current).toBeNull();
-    expect(submitBlockers(plan, s, ['bead_outer', 'bead_inner'])[0]).toMatch(/crack at bolt hole 7/);
+    expect(submitBlockers(plan, s, ['bead_outer', 'bead_inner'])[0]).toMatch(
+      /crack at bolt hole 7/,
+    );
   });
 
   it('submit needs every step and both bead photos', () => {
@@ -92,8 +133,18 @@ describe('reduceRun', () => {
 
 describe('a repeated pass (a second lap at the same target)', () => {
   it('is its own pass: finishing the first lap does not finish the second', () => {
-    const repeated: RunnerPlan = { ...plan, passes: [{ index: 1, kind: 'staged', order }, { index: 2, kind: 'staged', order }, ...plan.passes.slice(1).map((p, i) => ({ ...p, index: i + 3 }))] };
-    const s = reduceRun(repeated, order.map((bolt) => confirm(1, bolt)));
+    const repeated: RunnerPlan = {
+      ...plan,
+      passes: [
+        { index: 1, kind: 'staged', order },
+        { index: 2, kind: 'staged', order },
+        ...plan.passes.slice(1).map((p, i) => ({ ...p, index: i + 3 })),
+      ],
+    };
+    const s = reduceRun(
+      repeated,
+      order.map((bolt) => confirm(1, bolt)),
+    );
     expect(s.passes.map((p) => p.complete)).toEqual([true, false, false, false]);
     expect(s.currentPass).toBe(2);
     expect(s.passes[1]!.next).toBe(order[0]);

@@ -10,7 +10,15 @@ import { stepsFor } from '@/features/runner/steps';
 import type { CribWrench, WrenchRules } from '@/features/runner/wrench-gate';
 import type { Torque } from '@/features/torque-plan';
 
-const CLICK: CribWrench = { id: '11111111-1111-4111-8111-111111111111', label: 'TW-1', min: 20, max: 150, unit: 'lbf-ft', graduation: 1, kind: 'click' };
+const CLICK: CribWrench = {
+  id: '11111111-1111-4111-8111-111111111111',
+  label: 'TW-1',
+  min: 20,
+  max: 150,
+  unit: 'lbf-ft',
+  graduation: 1,
+  kind: 'click',
+};
 const plan: RunnerPlan = {
   steps: stepsFor({ dismount: false, reinstall: false }),
   boltCount: 4,
@@ -26,23 +34,69 @@ const targets: Torque[] = [
   { value: 100, unit: 'lbf-ft' },
 ];
 // Any point of the scale counts, verified today: the gate lets every pass through.
-const rules: WrenchRules = { minFractionOfMax: 0.2, verification: { recency: 'same_day', days: 1, nearPercent: 0 }, timeZone: 'UTC' };
+const rules: WrenchRules = {
+  minFractionOfMax: 0.2,
+  verification: { recency: 'same_day', days: 1, nearPercent: 0 },
+  timeZone: 'UTC',
+};
 
 let n = 0;
-function Harness({ wrench = CLICK, initial = [], onRecord }: { wrench?: CribWrench; initial?: ClientEvent[]; onRecord: (e: RunEvent) => void }) {
+function Harness({
+  wrench = CLICK,
+  initial = [],
+  onRecord,
+}: {
+  wrench?: CribWrench;
+  initial?: ClientEvent[];
+  onRecord: (e: RunEvent) => void;
+}) {
   const [events, setEvents] = useState<ClientEvent[]>(initial);
   const state = reduceRun(plan, events);
-  const verifications = [{ wrenchId: wrench.id, recordedAt: new Date().toISOString(), referenceValue: 60, unit: 'lbf-ft' as const }];
+  const verifications = [
+    {
+      wrenchId: wrench.id,
+      recordedAt: new Date().toISOString(),
+      referenceValue: 60,
+      unit: 'lbf-ft' as const,
+    },
+  ];
   const record = async (e: RunEvent) => {
     onRecord(e);
     n += 1;
-    setEvents((all) => [...all, { ...e, clientId: `00000000-0000-4000-8000-${String(n).padStart(12, '0')}`, clientAt: new Date(Date.UTC(2026, 0, 1, 8, 0, n)).toISOString() } as ClientEvent]);
+    setEvents((all) => [
+      ...all,
+      {
+        ...e,
+        clientId: `00000000-0000-4000-8000-${String(n).padStart(12, '0')}`,
+        clientAt: new Date(Date.UTC(2026, 0, 1, 8, 0, n)).toISOString(),
+      } as ClientEvent,
+    ]);
   };
-  return <TorquePanel state={state} targets={targets} wrenches={[wrench]} verifications={verifications} rules={rules} cautions={[]} boltCount={4} record={record} flaggedBolts={state.flaggedBolts.map((f) => f.bolt)} />;
+  return (
+    <TorquePanel
+      state={state}
+      targets={targets}
+      wrenches={[wrench]}
+      verifications={verifications}
+      rules={rules}
+      cautions={[]}
+      boltCount={4}
+      record={record}
+      flaggedBolts={state.flaggedBolts.map((f) => f.bolt)}
+    />
+  );
 }
 
 const done = (pass: number, bolts: number[]): ClientEvent[] =>
-  bolts.map((bolt, i) => ({ type: 'bolt_confirmed', payload: { pass, bolt }, clientId: `00000000-0000-4000-9000-${String(pass * 100 + i).padStart(12, '0')}`, clientAt: new Date(Date.UTC(2026, 0, 1, 7, pass, i)).toISOString() }) as ClientEvent);
+  bolts.map(
+    (bolt, i) =>
+      ({
+        type: 'bolt_confirmed',
+        payload: { pass, bolt },
+        clientId: `00000000-0000-4000-9000-${String(pass * 100 + i).padStart(12, '0')}`,
+        clientAt: new Date(Date.UTC(2026, 0, 1, 7, pass, i)).toISOString(),
+      }) as ClientEvent,
+  );
 
 afterEach(() => vi.useRealTimers());
 
@@ -50,19 +104,26 @@ describe('the torque pass screen', () => {
   it('shows "Set <wrench> to <value>" and confirms no bolt until "Wrench set"', () => {
     const onRecord = vi.fn();
     render(<Harness onRecord={onRecord} />);
-    expect(screen.getByRole('region', { name: 'Wrench setting' })).toHaveTextContent('Set TW-1 to 50 ft-lb');
+    expect(screen.getByRole('region', { name: 'Wrench setting' })).toHaveTextContent(
+      'Set TW-1 to 50 ft-lb',
+    );
     expect(screen.queryByRole('button', { name: /^Clicked — bolt/ })).toBeNull();
     fireEvent.click(screen.getByRole('button', { name: 'Wrench set' }));
     expect(screen.getByLabelText('Current setting')).toHaveTextContent('Set TW-1 to 50 ft-lb');
     fireEvent.click(screen.getByRole('button', { name: 'Clicked — bolt 1' }));
-    expect(onRecord).toHaveBeenCalledWith({ type: 'bolt_confirmed', payload: { pass: 1, bolt: 1, wrenchId: CLICK.id, setting: { value: 50, unit: 'lbf-ft' } } });
+    expect(onRecord).toHaveBeenCalledWith({
+      type: 'bolt_confirmed',
+      payload: { pass: 1, bolt: 1, wrenchId: CLICK.id, setting: { value: 50, unit: 'lbf-ft' } },
+    });
   });
 
   it('shows the card again when the next pass changes the setting', () => {
     render(<Harness onRecord={() => {}} initial={done(1, [1, 3, 2])} />);
     fireEvent.click(screen.getByRole('button', { name: 'Wrench set' }));
     fireEvent.click(screen.getByRole('button', { name: 'Clicked — bolt 4' }));
-    expect(screen.getByRole('region', { name: 'Wrench setting' })).toHaveTextContent('Set TW-1 to 100 ft-lb');
+    expect(screen.getByRole('region', { name: 'Wrench setting' })).toHaveTextContent(
+      'Set TW-1 to 100 ft-lb',
+    );
     expect(screen.queryByRole('button', { name: /^Clicked — bolt/ })).toBeNull();
   });
 
@@ -79,7 +140,9 @@ describe('the torque pass screen', () => {
     vi.setSystemTime(new Date('2026-01-01T08:00:00.600Z'));
     fireEvent.click(screen.getByRole('button', { name: 'Clicked — bolt 3' }));
     expect(onRecord).toHaveBeenCalledTimes(2);
-    expect(onRecord).toHaveBeenLastCalledWith(expect.objectContaining({ payload: expect.objectContaining({ bolt: 3 }) }));
+    expect(onRecord).toHaveBeenLastCalledWith(
+      expect.objectContaining({ payload: expect.objectContaining({ bolt: 3 }) }),
+    );
   });
 
   it.each([
@@ -109,9 +172,14 @@ describe('the torque pass screen', () => {
     const stop = screen.getByRole('button', { name: 'Stop the wheel and flag it' });
     expect(stop).toBeDisabled();
     fireEvent.click(screen.getByRole('radio', { name: 'Stripped thread' }));
-    fireEvent.change(screen.getByLabelText(/^Note/), { target: { value: 'threads came out with the bolt' } });
+    fireEvent.change(screen.getByLabelText(/^Note/), {
+      target: { value: 'threads came out with the bolt' },
+    });
     fireEvent.click(stop);
-    expect(onRecord).toHaveBeenCalledWith({ type: 'bolt_flagged', payload: { bolt: 3, pass: 1, problem: 'stripped', note: 'threads came out with the bolt' } });
+    expect(onRecord).toHaveBeenCalledWith({
+      type: 'bolt_flagged',
+      payload: { bolt: 3, pass: 1, problem: 'stripped', note: 'threads came out with the bolt' },
+    });
   });
 
   it('a check pass asks whether each bolt turned, and a bolt that turned adds another check pass', () => {
@@ -119,19 +187,32 @@ describe('the torque pass screen', () => {
     let t = Date.UTC(2026, 0, 1, 9);
     vi.setSystemTime(t);
     const onRecord = vi.fn();
-    render(<Harness onRecord={onRecord} initial={[...done(1, [1, 3, 2, 4]), ...done(2, [1, 3, 2, 4])]} />);
+    render(
+      <Harness
+        onRecord={onRecord}
+        initial={[...done(1, [1, 3, 2, 4]), ...done(2, [1, 3, 2, 4])]}
+      />,
+    );
     expect(screen.getByRole('region', { name: 'Wrench setting' })).toHaveTextContent('Check pass');
     fireEvent.click(screen.getByRole('button', { name: 'Wrench set' }));
     expect(screen.getByText('Bolt 1: did it turn before the wrench clicked?')).toBeInTheDocument();
     fireEvent.click(screen.getByRole('button', { name: 'Turned' }));
-    expect(onRecord).toHaveBeenLastCalledWith(expect.objectContaining({ payload: expect.objectContaining({ pass: 3, bolt: 1, turned: true }) }));
+    expect(onRecord).toHaveBeenLastCalledWith(
+      expect.objectContaining({
+        payload: expect.objectContaining({ pass: 3, bolt: 1, turned: true }),
+      }),
+    );
     for (const bolt of [2, 3, 4]) {
       vi.setSystemTime((t += 1_000));
-      expect(screen.getByText(`Bolt ${bolt}: did it turn before the wrench clicked?`)).toBeInTheDocument();
+      expect(
+        screen.getByText(`Bolt ${bolt}: did it turn before the wrench clicked?`),
+      ).toBeInTheDocument();
       fireEvent.click(screen.getByRole('button', { name: "Didn't turn" }));
     }
     // Bolt 1 turned: another check pass at the same setting, announced like any pass.
-    expect(screen.getByRole('region', { name: 'Wrench setting' })).toHaveTextContent('Check pass 2');
+    expect(screen.getByRole('region', { name: 'Wrench setting' })).toHaveTextContent(
+      'Check pass 2',
+    );
     expect(screen.queryByRole('button', { name: 'Torque passes done' })).toBeNull();
   });
 });
@@ -145,6 +226,9 @@ describe('hand-start', () => {
     fireEvent.click(screen.getByRole('button', { name: 'Problem with this bolt' }));
     fireEvent.click(screen.getByRole('radio', { name: 'Cross-threaded' }));
     fireEvent.click(screen.getByRole('button', { name: 'Stop the wheel and flag it' }));
-    expect(record).toHaveBeenCalledWith({ type: 'bolt_flagged', payload: { bolt: 5, problem: 'cross_threaded' } });
+    expect(record).toHaveBeenCalledWith({
+      type: 'bolt_flagged',
+      payload: { bolt: 5, problem: 'cross_threaded' },
+    });
   });
 });

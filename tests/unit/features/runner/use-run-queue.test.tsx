@@ -2,7 +2,12 @@
 import { act, renderHook, waitFor } from '@testing-library/react';
 import { UnrecognizedActionError } from 'next/dist/client/components/unrecognized-action-error';
 import { beforeEach, describe, expect, it, vi } from 'vitest';
-import { outboxKey, useRunQueue, type QueuePerson, type SaveEvents } from '@/features/runner/api/use-run-queue';
+import {
+  outboxKey,
+  useRunQueue,
+  type QueuePerson,
+  type SaveEvents,
+} from '@/features/runner/api/use-run-queue';
 
 // The device's IndexedDB, in memory.
 const idb = new Map<string, unknown>();
@@ -38,15 +43,24 @@ describe('the runner outbox', () => {
     await waitFor(() => expect(hook.result.current.status.ready).toBe(true));
     await act(() => hook.result.current.record(confirm));
     await waitFor(() => expect(hook.result.current.status.waiting).toBe(0));
-    expect(action).toHaveBeenCalledWith(null, { wheelId: WHEEL, events: [expect.objectContaining({ ...confirm, clientId: expect.any(String) })] });
+    expect(action).toHaveBeenCalledWith(null, {
+      wheelId: WHEEL,
+      events: [expect.objectContaining({ ...confirm, clientId: expect.any(String) })],
+    });
     expect(hook.result.current.events).toHaveLength(1);
   });
 
   it('an ended session keeps the confirmation on the phone and asks to sign in again', async () => {
-    const { action, hook } = setUp(async () => ({ ok: false, code: 'unauthenticated', message: 'Your session has ended. Sign in again.' }));
+    const { action, hook } = setUp(async () => ({
+      ok: false,
+      code: 'unauthenticated',
+      message: 'Your session has ended. Sign in again.',
+    }));
     await waitFor(() => expect(hook.result.current.status.ready).toBe(true));
     await act(() => hook.result.current.record(confirm));
-    await waitFor(() => expect(hook.result.current.status.error).toMatch(/session has ended.*stays on this phone/i));
+    await waitFor(() =>
+      expect(hook.result.current.status.error).toMatch(/session has ended.*stays on this phone/i),
+    );
     expect(hook.result.current.status.signedOut).toBe(true);
     expect(hook.result.current.status.waiting).toBe(1);
     expect(action).toHaveBeenCalledTimes(1);
@@ -54,27 +68,62 @@ describe('the runner outbox', () => {
   });
 
   it('a refusal for good (bad data) leaves the queue, so what follows can go, and says why', async () => {
-    const { hook } = setUp(async () => ({ ok: false, code: 'invalid', message: 'Bolt 99 is not on this 8-bolt ring.' }));
+    const { hook } = setUp(async () => ({
+      ok: false,
+      code: 'invalid',
+      message: 'Bolt 99 is not on this 8-bolt ring.',
+    }));
     await waitFor(() => expect(hook.result.current.status.ready).toBe(true));
     await act(() => hook.result.current.record(confirm));
-    await waitFor(() => expect(hook.result.current.status.error).toBe('Bolt 99 is not on this 8-bolt ring.'));
+    await waitFor(() =>
+      expect(hook.result.current.status.error).toBe('Bolt 99 is not on this 8-bolt ring.'),
+    );
     expect(hook.result.current.status.waiting).toBe(0);
   });
 
   it('one event the server refuses for good is set aside alone: the rest of the queue is saved, nothing retries', async () => {
     const at = '2026-01-01T09:00:00.000Z';
-    const queued = [1, 99, 2].map((bolt) => ({ type: 'bolt_confirmed' as const, payload: { pass: 1, bolt }, clientId: crypto.randomUUID(), clientAt: at }));
+    const queued = [1, 99, 2].map((bolt) => ({
+      type: 'bolt_confirmed' as const,
+      payload: { pass: 1, bolt },
+      clientId: crypto.randomUUID(),
+      clientAt: at,
+    }));
     idb.set(KEY, { pending: queued, saved: [] });
     const { action, hook } = setUp(async () => ({
       ok: true,
-      data: { saved: 2, duplicates: 0, refused: [{ index: 1, clientId: queued[1]!.clientId, message: 'Bolt 99 is not on this 24-bolt ring.', fieldErrors: { 'payload.bolt': ['No such bolt.'] } }] },
+      data: {
+        saved: 2,
+        duplicates: 0,
+        refused: [
+          {
+            index: 1,
+            clientId: queued[1]!.clientId,
+            message: 'Bolt 99 is not on this 24-bolt ring.',
+            fieldErrors: { 'payload.bolt': ['No such bolt.'] },
+          },
+        ],
+      },
     }));
-    await waitFor(() => expect(hook.result.current.status.error).toMatch(/^One confirmation was not saved and set aside: Bolt 99 is not on this 24-bolt ring\./));
+    await waitFor(() =>
+      expect(hook.result.current.status.error).toMatch(
+        /^One confirmation was not saved and set aside: Bolt 99 is not on this 24-bolt ring\./,
+      ),
+    );
     expect(hook.result.current.status.waiting).toBe(0);
-    expect(hook.result.current.events.map((e) => e.clientId)).toEqual([queued[0]!.clientId, queued[2]!.clientId]);
+    expect(hook.result.current.events.map((e) => e.clientId)).toEqual([
+      queued[0]!.clientId,
+      queued[2]!.clientId,
+    ]);
     await new Promise((r) => setTimeout(r, 50));
     expect(action).toHaveBeenCalledTimes(1);
-    expect(idb.get(KEY)).toMatchObject({ pending: [], saved: [expect.objectContaining({ clientId: queued[0]!.clientId }), expect.objectContaining({ clientId: queued[2]!.clientId })] });
+    expect(idb.get(KEY)).toMatchObject({
+      pending: [],
+      saved: [
+        expect.objectContaining({ clientId: queued[0]!.clientId }),
+        expect.objectContaining({ clientId: queued[2]!.clientId }),
+      ],
+    });
   });
 
   it('an action id retired by a deploy reloads the page once, keeping the queue for the new build', async () => {
@@ -96,7 +145,11 @@ describe('the runner outbox', () => {
   });
 
   it("a shared phone: Theo's waiting confirmations are never sent in Lena's session; they wait, labelled, until Theo signs in again", async () => {
-    const ended = setUp(async () => ({ ok: false, code: 'unauthenticated', message: 'Your session has ended. Sign in again.' }));
+    const ended = setUp(async () => ({
+      ok: false,
+      code: 'unauthenticated',
+      message: 'Your session has ended. Sign in again.',
+    }));
     await waitFor(() => expect(ended.hook.result.current.status.ready).toBe(true));
     await act(() => ended.hook.result.current.record(confirm));
     await waitFor(() => expect(ended.hook.result.current.status.signedOut).toBe(true));
@@ -109,34 +162,73 @@ describe('the runner outbox', () => {
     expect(lena.hook.result.current.events).toEqual([]);
     await act(() => lena.hook.result.current.record(confirm));
     await waitFor(() => expect(lena.hook.result.current.status.waiting).toBe(0));
-    const sentInLenasSession = lena.action.mock.calls.flatMap(([, input]) => input.events.map((e) => e.clientId));
+    const sentInLenasSession = lena.action.mock.calls.flatMap(([, input]) =>
+      input.events.map((e) => e.clientId),
+    );
     expect(sentInLenasSession).toHaveLength(1);
     expect(sentInLenasSession).not.toContain(theosEvent.clientId);
     lena.hook.unmount();
 
     const theo = setUp(async () => saved);
     await waitFor(() => expect(theo.hook.result.current.status.waiting).toBe(0));
-    expect(theo.action).toHaveBeenCalledWith(null, { wheelId: WHEEL, events: [expect.objectContaining({ clientId: theosEvent.clientId })] });
+    expect(theo.action).toHaveBeenCalledWith(null, {
+      wheelId: WHEEL,
+      events: [expect.objectContaining({ clientId: theosEvent.clientId })],
+    });
   });
 
   it('events refused for good stay on the phone under "Needs attention" with the reason, until dismissed', async () => {
     const { hook } = setUp(async (_prev, input) => ({
       ok: true,
-      data: { saved: 0, duplicates: 0, refused: [{ index: 0, clientId: input.events[0]!.clientId, message: 'This wheel was submitted; its record is closed.', fieldErrors: {} }] },
+      data: {
+        saved: 0,
+        duplicates: 0,
+        refused: [
+          {
+            index: 0,
+            clientId: input.events[0]!.clientId,
+            message: 'This wheel was submitted; its record is closed.',
+            fieldErrors: {},
+          },
+        ],
+      },
     }));
     await waitFor(() => expect(hook.result.current.status.ready).toBe(true));
     await act(() => hook.result.current.record(confirm));
-    await waitFor(() => expect(hook.result.current.attention).toEqual([{ event: expect.objectContaining(confirm), reason: 'This wheel was submitted; its record is closed.' }]));
-    expect(idb.get(KEY)).toMatchObject({ owner: THEO, attention: [expect.objectContaining({ reason: 'This wheel was submitted; its record is closed.' })] });
+    await waitFor(() =>
+      expect(hook.result.current.attention).toEqual([
+        {
+          event: expect.objectContaining(confirm),
+          reason: 'This wheel was submitted; its record is closed.',
+        },
+      ]),
+    );
+    expect(idb.get(KEY)).toMatchObject({
+      owner: THEO,
+      attention: [
+        expect.objectContaining({ reason: 'This wheel was submitted; its record is closed.' }),
+      ],
+    });
     await act(() => hook.result.current.dismiss());
     expect(hook.result.current.attention).toEqual([]);
     expect(idb.get(KEY)).toMatchObject({ attention: [] });
   });
 
   it("after a lead's send-back the phone drops its copy of the superseded events, keeping what still waits", async () => {
-    const old = { type: 'bolt_confirmed' as const, payload: { pass: 1, bolt: 1 }, clientId: crypto.randomUUID(), clientAt: '2026-01-01T09:00:00.000Z' };
+    const old = {
+      type: 'bolt_confirmed' as const,
+      payload: { pass: 1, bolt: 1 },
+      clientId: crypto.randomUUID(),
+      clientAt: '2026-01-01T09:00:00.000Z',
+    };
     const waiting = { ...old, clientId: crypto.randomUUID(), clientAt: '2026-01-01T09:05:00.000Z' };
-    idb.set(KEY, { owner: THEO, pending: [waiting], saved: [old], attention: [], generation: null });
+    idb.set(KEY, {
+      owner: THEO,
+      pending: [waiting],
+      saved: [old],
+      attention: [],
+      generation: null,
+    });
     const action = vi.fn<SaveEvents>(async () => saved);
     const hook = renderHook(() => useRunQueue(WHEEL, [], action, THEO, '2026-01-02T10:00:00.000Z'));
     await waitFor(() => expect(action).toHaveBeenCalledTimes(1));
@@ -150,7 +242,9 @@ describe('the runner outbox', () => {
     const { action, hook } = setUp(async () => saved);
     await waitFor(() => expect(hook.result.current.status.ready).toBe(true));
     await act(() => hook.result.current.record(confirm));
-    await act(() => hook.result.current.record({ type: 'bolt_confirmed', payload: { pass: 1, bolt: 2 } }));
+    await act(() =>
+      hook.result.current.record({ type: 'bolt_confirmed', payload: { pass: 1, bolt: 2 } }),
+    );
     await waitFor(() => expect(hook.result.current.status.waiting).toBe(0));
     const sent = action.mock.calls.flatMap(([, input]) => input.events);
     const phone = localStorage.getItem('ringpass:device');

@@ -39,7 +39,8 @@ describe('passPlan', () => {
     fc.assert(
       fc.property(fc.double({ min: 0.5, max: 500, noNaN: true }), fractions, (value, fs) => {
         const plan = passPlan({ value, unit: 'lbf-in' }, fs, { checkPass: false });
-        for (let i = 1; i < plan.length; i++) expect(plan[i]!.target.value).toBeGreaterThanOrEqual(plan[i - 1]!.target.value);
+        for (let i = 1; i < plan.length; i++)
+          expect(plan[i]!.target.value).toBeGreaterThanOrEqual(plan[i - 1]!.target.value);
         expect(plan.at(-1)!.target.value).toBeCloseTo(value, 9);
       }),
     );

@@ -12,7 +12,9 @@ describe('pressureOffTarget: "Pressure set" against the wheel’s target', () =>
     const off = pressureOffTarget({ value: 16, unit: 'psi' }, { value: 14, unit: 'psi' });
     expect(off!.psi).toBe(2);
     expect(off!.kPa).toBeCloseTo(13.7895, 3);
-    expect(pressureOffTarget({ value: 12.9, unit: 'psi' }, { value: 14, unit: 'psi' })!.psi).toBeCloseTo(-1.1, 9);
+    expect(
+      pressureOffTarget({ value: 12.9, unit: 'psi' }, { value: 14, unit: 'psi' })!.psi,
+    ).toBeCloseTo(-1.1, 9);
   });
 
   it('a kPa target allows 7 kPa', () => {
@@ -25,6 +27,8 @@ describe('pressureOffTarget: "Pressure set" against the wheel’s target', () =>
   it('compares across units: 1 bar = 100 kPa (NIST SP 811 App. B) against a psi target', () => {
     // 1 bar = 14.5038 psi: 0.5038 psi over a 14 psi target... 1 bar vs 14 psi is within 1 psi.
     expect(pressureOffTarget({ value: 1, unit: 'bar' }, { value: 14, unit: 'psi' })).toBeNull();
-    expect(pressureOffTarget({ value: 1.1, unit: 'bar' }, { value: 14, unit: 'psi' })!.psi).toBeCloseTo(15.954 - 14, 2);
+    expect(
+      pressureOffTarget({ value: 1.1, unit: 'bar' }, { value: 14, unit: 'psi' })!.psi,
+    ).toBeCloseTo(15.954 - 14, 2);
   });
 });

@@ -1,6 +1,12 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { PUBLISHED_CROSS, spreadCross, tighteningSequence, TorquePlanError, type Pattern } from '@/features/torque-plan';
+import {
+  PUBLISHED_CROSS,
+  spreadCross,
+  tighteningSequence,
+  TorquePlanError,
+  type Pattern,
+} from '@/features/torque-plan';
 
 const boltCount = fc.integer({ min: 4, max: 64 });
 const patternFor = (n: number) =>
@@ -9,7 +15,9 @@ const patternFor = (n: number) =>
     fc.constant<Pattern>({ kind: 'sequential' }),
     fc.integer({ min: 1, max: n - 1 }).map<Pattern>((step) => ({ kind: 'skip', step })),
   );
-const case_ = boltCount.chain((n) => fc.record({ n: fc.constant(n), pattern: patternFor(n), start: fc.integer({ min: 1, max: n }) }));
+const case_ = boltCount.chain((n) =>
+  fc.record({ n: fc.constant(n), pattern: patternFor(n), start: fc.integer({ min: 1, max: n }) }),
+);
 
 describe('tighteningSequence: every bolt once', () => {
   it('is a permutation of 1..N that begins at the chosen start, for every pattern and N', () => {
@@ -50,7 +58,8 @@ describe('cross pattern', () => {
   });
 
   it('uses a generalisation that reproduces every table row it replaces', () => {
-    for (const [n, row] of Object.entries(PUBLISHED_CROSS)) expect(spreadCross(Number(n))).toEqual(row);
+    for (const [n, row] of Object.entries(PUBLISHED_CROSS))
+      expect(spreadCross(Number(n))).toEqual(row);
   });
 
   it('follows each bolt with the one nearest opposite it, also when 4 does not divide N', () => {
@@ -62,7 +71,9 @@ describe('cross pattern', () => {
   });
 
   it('turns the whole pattern round when started elsewhere', () => {
-    expect(tighteningSequence(8, { kind: 'cross' }, { start: 3 })).toEqual([3, 7, 5, 1, 4, 8, 6, 2]);
+    expect(tighteningSequence(8, { kind: 'cross' }, { start: 3 })).toEqual([
+      3, 7, 5, 1, 4, 8, 6, 2,
+    ]);
   });
 });
 
@@ -76,7 +87,13 @@ describe('skip pattern', () => {
   it('moves k bolts on, or starts the next lap on the bolt after the last lap start', () => {
     fc.assert(
       fc.property(
-        boltCount.chain((n) => fc.tuple(fc.constant(n), fc.integer({ min: 1, max: n - 1 }), fc.integer({ min: 1, max: n }))),
+        boltCount.chain((n) =>
+          fc.tuple(
+            fc.constant(n),
+            fc.integer({ min: 1, max: n - 1 }),
+            fc.integer({ min: 1, max: n }),
+          ),
+        ),
         ([n, step, start]) => {
           const seq = tighteningSequence(n, { kind: 'skip', step }, { start });
           let lapStart = start;
@@ -107,11 +124,27 @@ describe('refuses nonsense with a clear error', () => {
     ['3 bolts', () => tighteningSequence(3, { kind: 'cross' }), /from 4 to 64/],
     ['65 bolts', () => tighteningSequence(65, { kind: 'cross' }), /from 4 to 64/],
     ['8.5 bolts', () => tighteningSequence(8.5, { kind: 'cross' }), /whole number/],
-    ['step 0', () => tighteningSequence(8, { kind: 'skip', step: 0 }), /skip step must be from 1 to 7/],
-    ['step N', () => tighteningSequence(8, { kind: 'skip', step: 8 }), /skip step must be from 1 to 7/],
-    ['start 0', () => tighteningSequence(8, { kind: 'cross' }, { start: 0 }), /starting bolt must be from 1 to 8/],
+    [
+      'step 0',
+      () => tighteningSequence(8, { kind: 'skip', step: 0 }),
+      /skip step must be from 1 to 7/,
+    ],
+    [
+      'step N',
+      () => tighteningSequence(8, { kind: 'skip', step: 8 }),
+      /skip step must be from 1 to 7/,
+    ],
+    [
+      'start 0',
+      () => tighteningSequence(8, { kind: 'cross' }, { start: 0 }),
+      /starting bolt must be from 1 to 8/,
+    ],
     ['start N+1', () => tighteningSequence(8, { kind: 'cross' }, { start: 9 }), /starting bolt/],
-    ['unknown pattern', () => tighteningSequence(8, { kind: 'zigzag' } as unknown as Pattern), /cross, skip/],
+    [
+      'unknown pattern',
+      () => tighteningSequence(8, { kind: 'zigzag' } as unknown as Pattern),
+      /cross, skip/,
+    ],
   ])('%s', (_, call, message) => {
     expect(call).toThrow(TorquePlanError);
     expect(call).toThrow(message);

@@ -6,19 +6,39 @@ import { tireDiameter } from '@/features/torque-plan';
 // Flotation sizes state the diameter as their first number (nominal).
 describe('tire sizes as printed on the sidewall', () => {
   it('35x12.50R17LT: flotation with the LT mark after it — 35 in (stated on the size)', () => {
-    expect(tireDiameter('35x12.50R17LT')).toEqual({ inches: 35, kind: 'flotation', construction: 'radial', rimInches: 17, widthInches: 12.5 });
+    expect(tireDiameter('35x12.50R17LT')).toEqual({
+      inches: 35,
+      kind: 'flotation',
+      construction: 'radial',
+      rimInches: 17,
+      widthInches: 12.5,
+    });
   });
 
   it('LT35x12.50R17: the LT mark in front — 35 in (stated on the size)', () => {
-    expect(tireDiameter('LT35x12.50R17')).toMatchObject({ inches: 35, rimInches: 17, widthInches: 12.5 });
+    expect(tireDiameter('LT35x12.50R17')).toMatchObject({
+      inches: 35,
+      rimInches: 17,
+      widthInches: 12.5,
+    });
   });
 
   it('AT25x8-12: an ATV tire, bias — 25 in (stated on the size)', () => {
-    expect(tireDiameter('AT25x8-12')).toEqual({ inches: 25, kind: 'flotation', construction: 'bias', rimInches: 12, widthInches: 8 });
+    expect(tireDiameter('AT25x8-12')).toEqual({
+      inches: 25,
+      kind: 'flotation',
+      construction: 'bias',
+      rimInches: 12,
+      widthInches: 8,
+    });
   });
 
   it('30x10-14 6PR: the ply rating is ignored — 30 in (stated on the size)', () => {
-    expect(tireDiameter('30x10-14 6PR')).toMatchObject({ inches: 30, construction: 'bias', rimInches: 14 });
+    expect(tireDiameter('30x10-14 6PR')).toMatchObject({
+      inches: 30,
+      construction: 'bias',
+      rimInches: 14,
+    });
   });
 
   it('315/70R17 121Q: load index and speed rating ignored — 17 + 2 × 315 × 0.70 / 25.4 = 34.362 in (formula above)', () => {

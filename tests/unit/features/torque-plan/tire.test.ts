@@ -1,5 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { arrowDirection, axleMismatch, circumferenceAllowancePct, tireDiameter, TorquePlanError } from '@/features/torque-plan';
+import {
+  arrowDirection,
+  axleMismatch,
+  circumferenceAllowancePct,
+  tireDiameter,
+  TorquePlanError,
+} from '@/features/torque-plan';
 
 describe('tireDiameter', () => {
   it('265/70R17 is 31.61 in (rim + 2 × width × aspect / 100 / 25.4)', () => {
@@ -17,15 +23,21 @@ describe('tireDiameter', () => {
     expect(t.inches).toBeCloseTo(inches, 6);
     expect(t.construction).toBe(construction);
   });
-  it.each(['', '30-14', '265/70', 'big tire', '14x30-30'])('refuses "%s" and names the accepted forms', (size) => {
-    expect(() => tireDiameter(size)).toThrow(TorquePlanError);
-    expect(() => tireDiameter(size)).toThrow(/30x10-14.*265\/70R17/);
-  });
+  it.each(['', '30-14', '265/70', 'big tire', '14x30-30'])(
+    'refuses "%s" and names the accepted forms',
+    (size) => {
+      expect(() => tireDiameter(size)).toThrow(TorquePlanError);
+      expect(() => tireDiameter(size)).toThrow(/30x10-14.*265\/70R17/);
+    },
+  );
 });
 
 describe('axleMismatch', () => {
   it('matching tires do not mismatch', () => {
-    expect(axleMismatch(['30x10R14', '30x10R14'], 1)).toMatchObject({ mismatched: false, spreadPct: 0 });
+    expect(axleMismatch(['30x10R14', '30x10R14'], 1)).toMatchObject({
+      mismatched: false,
+      spreadPct: 0,
+    });
   });
   it('a 30 and a 32 in tire on one axle do', () => {
     const r = axleMismatch(['30x10R14', '32x10R14'], 1);
@@ -34,7 +46,10 @@ describe('axleMismatch', () => {
     expect(r.circumferenceSpreadInches).toBeCloseTo(2 * Math.PI, 6);
   });
   it('radial beside bias is a mismatch even at the same size', () => {
-    expect(axleMismatch(['30x10R14', '30x10-14'], 5)).toMatchObject({ mismatched: true, constructionDiffers: true });
+    expect(axleMismatch(['30x10R14', '30x10-14'], 5)).toMatchObject({
+      mismatched: true,
+      constructionDiffers: true,
+    });
   });
   it('a 1/4 in circumference allowance on a 31.6 in tire is about 0.25 % (common practice, no source)', () => {
     expect(circumferenceAllowancePct(0.25, 31.61)).toBeCloseTo(0.2517, 3);

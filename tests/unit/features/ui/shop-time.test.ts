@@ -1,5 +1,18 @@
 import { describe, expect, it } from 'vitest';
-import { addDays, dayStatus, dueStatus, dueWindows, formatShopDay, formatShopTime, formatShopTimeForMail, fromShopLocal, shopDay, startOfShopDay, toShopLocal, zoneLabel } from '@/features/ui/shop-time';
+import {
+  addDays,
+  dayStatus,
+  dueStatus,
+  dueWindows,
+  formatShopDay,
+  formatShopTime,
+  formatShopTimeForMail,
+  fromShopLocal,
+  shopDay,
+  startOfShopDay,
+  toShopLocal,
+  zoneLabel,
+} from '@/features/ui/shop-time';
 
 // DST dates used below:
 // - America/Denver: US Energy Policy Act of 2005 rule, clocks go forward on the second Sunday of
@@ -33,7 +46,9 @@ describe('formatting on the shop clock', () => {
   });
 
   it('spells the zone out in an e-mail, read away from the shop', () => {
-    expect(formatShopTimeForMail(new Date('2026-12-09T06:30:00Z'), DENVER)).toBe('December 8, 2026 at 11:30 PM Mountain Standard Time');
+    expect(formatShopTimeForMail(new Date('2026-12-09T06:30:00Z'), DENVER)).toBe(
+      'December 8, 2026 at 11:30 PM Mountain Standard Time',
+    );
     expect(formatShopTimeForMail(new Date('2026-12-09T06:30:00Z'), 'UTC')).not.toContain('UTC');
   });
 
@@ -53,8 +68,14 @@ describe("the shop's calendar day", () => {
   it('a day across the spring change is 23 hours, across the autumn change 25', () => {
     expect(startOfShopDay('2026-03-08', DENVER).toISOString()).toBe('2026-03-08T07:00:00.000Z');
     expect(startOfShopDay('2026-03-09', DENVER).toISOString()).toBe('2026-03-09T06:00:00.000Z');
-    expect(startOfShopDay('2026-11-02', DENVER).getTime() - startOfShopDay('2026-11-01', DENVER).getTime()).toBe(25 * 3_600_000);
-    expect(startOfShopDay('2026-03-30', BERLIN).getTime() - startOfShopDay('2026-03-29', BERLIN).getTime()).toBe(23 * 3_600_000);
+    expect(
+      startOfShopDay('2026-11-02', DENVER).getTime() -
+        startOfShopDay('2026-11-01', DENVER).getTime(),
+    ).toBe(25 * 3_600_000);
+    expect(
+      startOfShopDay('2026-03-30', BERLIN).getTime() -
+        startOfShopDay('2026-03-29', BERLIN).getTime(),
+    ).toBe(23 * 3_600_000);
   });
 
   it('counts days on the calendar, across month and year ends', () => {
@@ -85,8 +106,12 @@ describe("the shop's calendar day", () => {
 
 describe('a due time typed at the shop (datetime-local)', () => {
   it('is read in the shop zone, not the phone’s, and comes back as typed', () => {
-    expect(fromShopLocal('2026-12-01T23:30', DENVER)?.toISOString()).toBe('2026-12-02T06:30:00.000Z');
-    expect(fromShopLocal('2026-12-01T23:30', BERLIN)?.toISOString()).toBe('2026-12-01T22:30:00.000Z');
+    expect(fromShopLocal('2026-12-01T23:30', DENVER)?.toISOString()).toBe(
+      '2026-12-02T06:30:00.000Z',
+    );
+    expect(fromShopLocal('2026-12-01T23:30', BERLIN)?.toISOString()).toBe(
+      '2026-12-01T22:30:00.000Z',
+    );
     for (const zone of ['UTC', DENVER, BERLIN, 'Asia/Kolkata', 'Australia/Lord_Howe']) {
       for (const typed of ['2026-01-15T08:00', '2026-07-15T16:45', '2026-11-01T00:30']) {
         expect(toShopLocal(fromShopLocal(typed, zone)!, zone)).toBe(typed);
@@ -104,8 +129,12 @@ describe('a due time typed at the shop (datetime-local)', () => {
   });
 
   it('a time that happens twice (the autumn night) is the first one', () => {
-    expect(fromShopLocal('2026-11-01T01:30', DENVER)?.toISOString()).toBe('2026-11-01T07:30:00.000Z'); // 01:30 MDT
-    expect(fromShopLocal('2026-10-25T02:30', BERLIN)?.toISOString()).toBe('2026-10-25T00:30:00.000Z'); // 02:30 CEST
+    expect(fromShopLocal('2026-11-01T01:30', DENVER)?.toISOString()).toBe(
+      '2026-11-01T07:30:00.000Z',
+    ); // 01:30 MDT
+    expect(fromShopLocal('2026-10-25T02:30', BERLIN)?.toISOString()).toBe(
+      '2026-10-25T00:30:00.000Z',
+    ); // 02:30 CEST
   });
 
   it('refuses text that is not a date and time', () => {

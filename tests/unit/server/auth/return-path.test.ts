@@ -10,7 +10,18 @@ describe('returnPath (where sign-in sends you back)', () => {
   });
 
   it('refuses anything that a browser would take to another host', () => {
-    for (const bad of ['//evil.example/x', '/\\evil.example', 'https://evil.example/', 'evil.example', '/ /x', 'javascript:alert(1)', '', 42, undefined, `/${'a'.repeat(300)}`]) {
+    for (const bad of [
+      '//evil.example/x',
+      '/\\evil.example',
+      'https://evil.example/',
+      'evil.example',
+      '/ /x',
+      'javascript:alert(1)',
+      '',
+      42,
+      undefined,
+      `/${'a'.repeat(300)}`,
+    ]) {
       expect(returnPath(bad), String(bad)).toBeNull();
     }
   });
@@ -42,7 +53,43 @@ describe('returnPath (where sign-in sends you back)', () => {
 // Pieces an attacker would combine: slashes, backslashes, dots, their percent-encodings (once and
 // twice), control characters and other hosts.
 const piece = fc.oneof(
-  fc.constantFrom('/', '//', '\\', '.', '..', './', '../', '%2e', '%2E', '%2e%2e', '%2f', '%2F', '%5c', '%5C', '%252f', '%25', '%', '?', '#', '@', ':', '\t', '\n', '\r', ' ', '\u0000', '\u007f', 'evil.test', 'http:', 'javascript:', '/board', 'jobs', '1', 'é', '\u3000'),
+  fc.constantFrom(
+    '/',
+    '//',
+    '\\',
+    '.',
+    '..',
+    './',
+    '../',
+    '%2e',
+    '%2E',
+    '%2e%2e',
+    '%2f',
+    '%2F',
+    '%5c',
+    '%5C',
+    '%252f',
+    '%25',
+    '%',
+    '?',
+    '#',
+    '@',
+    ':',
+    '\t',
+    '\n',
+    '\r',
+    ' ',
+    '\u0000',
+    '\u007f',
+    'evil.test',
+    'http:',
+    'javascript:',
+    '/board',
+    'jobs',
+    '1',
+    'é',
+    '\u3000',
+  ),
   fc.string({ maxLength: 4 }),
   fc.webSegment(),
 );
@@ -53,7 +100,11 @@ const candidate = fc.oneof(
   fc.webPath(),
 );
 
-const BASES = ['https://shop.ringpass.test', 'http://127.0.0.1:3000/jobs/1/wheels/2/run', 'https://a.test/deep/path/'];
+const BASES = [
+  'https://shop.ringpass.test',
+  'http://127.0.0.1:3000/jobs/1/wheels/2/run',
+  'https://a.test/deep/path/',
+];
 
 function decodedForms(path: string): string[] {
   const forms = [path];
@@ -80,7 +131,9 @@ describe('returnPath, for any input (property)', () => {
         expect(/[\u0000-\u0020\u007f\\]/.test(result)).toBe(false);
         for (const base of BASES) {
           for (const form of decodedForms(result.split('?')[0]!)) {
-            expect(new URL(form, base).origin, `${JSON.stringify(raw)} → ${form} on ${base}`).toBe(new URL(base).origin);
+            expect(new URL(form, base).origin, `${JSON.stringify(raw)} → ${form} on ${base}`).toBe(
+              new URL(base).origin,
+            );
           }
         }
         expect(returnPath(result)).toBe(result); // stable: checking again changes nothing

@@ -21,12 +21,16 @@ describe('clientAddress (the address sign-in throttling counts against)', () => 
 
   it('behind N proxies, is the N-th entry from the right: what the outermost trusted proxy saw', () => {
     // client → proxy A (appends the client's address) → proxy B (appends A's) → app (socket = B)
-    expect(clientAddress(headers('6.6.6.6, 198.51.100.4, 10.0.0.2', '10.0.0.3'), 2)).toBe('198.51.100.4');
+    expect(clientAddress(headers('6.6.6.6, 198.51.100.4, 10.0.0.2', '10.0.0.3'), 2)).toBe(
+      '198.51.100.4',
+    );
     expect(clientAddress(headers('6.6.6.6, 198.51.100.4', '10.0.0.3'), 1)).toBe('198.51.100.4');
   });
 
   it('never takes the client-written leftmost entry when the chain is long enough', () => {
-    expect(clientAddress(headers('evil-chosen, 198.51.100.4', '10.0.0.3'), 1)).not.toBe('evil-chosen');
+    expect(clientAddress(headers('evil-chosen, 198.51.100.4', '10.0.0.3'), 1)).not.toBe(
+      'evil-chosen',
+    );
   });
 
   it('without the socket’s header, takes the rightmost entry (Next puts the socket there when a client sent none)', () => {
@@ -49,10 +53,17 @@ describe('instrumentation: the socket’s address reaches the app', () => {
     await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
     const { port } = server.address() as AddressInfo;
     await new Promise<void>((resolve, reject) => {
-      const req = httpRequest({ host: '127.0.0.1', port, headers: { 'x-forwarded-for': '6.6.6.6', [PEER_ADDRESS_HEADER]: '6.6.6.6' } }, (res) => {
-        res.resume();
-        res.on('end', resolve);
-      });
+      const req = httpRequest(
+        {
+          host: '127.0.0.1',
+          port,
+          headers: { 'x-forwarded-for': '6.6.6.6', [PEER_ADDRESS_HEADER]: '6.6.6.6' },
+        },
+        (res) => {
+          res.resume();
+          res.on('end', resolve);
+        },
+      );
       req.on('error', reject);
       req.end();
     });

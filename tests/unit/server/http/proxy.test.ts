@@ -27,7 +27,9 @@ describe('proxy: per-response security headers', () => {
     expect(response.headers.get('x-middleware-request-x-nonce')).toBe(nonce);
     expect(csp).toContain('http://127.0.0.1:2531');
     expect(response.headers.get('strict-transport-security')).toBeNull();
-    const again = proxy(new NextRequest('http://127.0.0.1:3000/board')).headers.get('content-security-policy');
+    const again = proxy(new NextRequest('http://127.0.0.1:3000/board')).headers.get(
+      'content-security-policy',
+    );
     expect(again).not.toBe(csp);
   });
 

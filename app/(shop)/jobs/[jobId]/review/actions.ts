@@ -19,22 +19,40 @@ const refresh = (jobId: string) => {
 };
 
 /** Sign-off from the review: every blocking anomaly acknowledged, stored with the move in one transaction. */
-export const approveReviewed = memberAction({ permission: 'jobs.signoff', schema: approveSchema }, async (input, member) => {
-  const [job, facts] = await Promise.all([getJob(member.shopId, input.jobId), getWorkFacts(member.shopId, input.jobId)]);
-  if (isSelfReview(member, job, 'sign_off', facts) && !input.note.trim()) {
-    const message = 'You worked on this job card: write why you are signing it off yourself; the reason is kept on the record.';
-    throw new DomainError('invalid', message, { note: [message] });
-  }
-  const result = await signOffReviewed(member, input, reviewSources, (tx, note) => transitionJob(member, input.jobId, 'sign_off', note, { tx, reviewed: true }));
-  refresh(input.jobId);
-  return { ...result, message: 'Signed off.' };
-});
+export const approveReviewed = memberAction(
+  { permission: 'jobs.signoff', schema: approveSchema },
+  async (input, member) => {
+    const [job, facts] = await Promise.all([
+      getJob(member.shopId, input.jobId),
+      getWorkFacts(member.shopId, input.jobId),
+    ]);
+    if (isSelfReview(member, job, 'sign_off', facts) && !input.note.trim()) {
+      const message =
+        'You worked on this job card: write why you are signing it off yourself; the reason is kept on the record.';
+      throw new DomainError('invalid', message, { note: [message] });
+    }
+    const result = await signOffReviewed(member, input, reviewSources, (tx, note) =>
+      transitionJob(member, input.jobId, 'sign_off', note, { tx, reviewed: true }),
+    );
+    refresh(input.jobId);
+    return { ...result, message: 'Signed off.' };
+  },
+);
 
 /** Send-back from the review: the named wheels reopen, each with its own note for the technician. */
-export const sendBackReviewed = memberAction({ permission: 'jobs.signoff', schema: sendBackSchema }, async (input, member) => {
-  const job = await getJob(member.shopId, input.jobId);
-  const position = (id: string) => job.wheels.find((w) => w.id === id)?.position ?? 'Wheel';
-  await transitionJob(member, input.jobId, 'send_back', sendBackNote(input.wheels.map((w) => ({ position: position(w.wheelId), note: w.note }))), { wheels: input.wheels });
-  refresh(input.jobId);
-  return { message: 'Sent back to the technician.' };
-});
+export const sendBackReviewed = memberAction(
+  { permission: 'jobs.signoff', schema: sendBackSchema },
+  async (input, member) => {
+    const job = await getJob(member.shopId, input.jobId);
+    const position = (id: string) => job.wheels.find((w) => w.id === id)?.position ?? 'Wheel';
+    await transitionJob(
+      member,
+      input.jobId,
+      'send_back',
+      sendBackNote(input.wheels.map((w) => ({ position: position(w.wheelId), note: w.note }))),
+      { wheels: input.wheels },
+    );
+    refresh(input.jobId);
+    return { message: 'Sent back to the technician.' };
+  },
+);

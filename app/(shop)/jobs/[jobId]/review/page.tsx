@@ -27,16 +27,20 @@ export default async function ReviewPage({ params }: PageProps<'/jobs/[jobId]/re
   const id = ids.job.safeParse(p.jobId);
   if (!id.success) notFound();
   const review = await orNotFound(getJobReview(member.shopId, id.data, reviewSources));
-  const [job, facts, acknowledgements] = await Promise.all([getJob(member.shopId, id.data), getWorkFacts(member.shopId, id.data), listAcknowledgements(member.shopId, id.data)]);
+  const [job, facts, acknowledgements] = await Promise.all([
+    getJob(member.shopId, id.data),
+    getWorkFacts(member.shopId, id.data),
+    listAcknowledgements(member.shopId, id.data),
+  ]);
   const refusal = transitionRefusal(member, job, 'sign_off', facts)?.message ?? null;
   const steps = reviewSources.stepsFor(review.job).filter((s) => s.id !== 'submit');
   return (
     <>
-      <Link href={`/jobs/${review.job.id}`} className="font-semibold text-work underline">
+      <Link href={`/jobs/${review.job.id}`} className="text-work font-semibold underline">
         ← Job card
       </Link>
       <PageHeader title={`Review · Job #${review.job.number} · ${review.job.vehicleLabel}`} />
-      <p className="-mt-4 mb-4 text-ink-soft">
+      <p className="text-ink-soft -mt-4 mb-4">
         {review.job.customerName} · assigned to {review.job.assignee?.name ?? 'nobody'}
         {review.job.vin ? ` · VIN ${review.job.vin}` : ''}
       </p>
@@ -53,7 +57,12 @@ export default async function ReviewPage({ params }: PageProps<'/jobs/[jobId]/re
           ))}
         </div>
         <aside className="flex flex-col gap-6">
-          <LatestDecision decision={job.events.findLast((e) => e.action === 'sign_off' || e.action === 'send_back') ?? null} />
+          <LatestDecision
+            decision={
+              job.events.findLast((e) => e.action === 'sign_off' || e.action === 'send_back') ??
+              null
+            }
+          />
           <DecidePanel
             jobId={review.job.id}
             refusal={refusal}

@@ -11,10 +11,15 @@ export const GET = apiRoute({ permission: 'team.manage', params }, async ({ memb
 
 export const PATCH = apiRoute(
   { permission: 'team.manage', params, body: z.object({ role: roleField }) },
-  async ({ member, params, body }) => ({ data: await changeRole(member, params.memberId, body.role) }),
+  async ({ member, params, body }) => ({
+    data: await changeRole(member, params.memberId, body.role),
+  }),
 );
 
-export const DELETE = apiRoute({ permission: 'team.manage', params }, async ({ member, params }) => {
-  await removeMember(member, params.memberId);
-  return new Response(null, { status: 204 });
-});
+export const DELETE = apiRoute(
+  { permission: 'team.manage', params },
+  async ({ member, params }) => {
+    await removeMember(member, params.memberId);
+    return new Response(null, { status: 204 });
+  },
+);

@@ -14,6 +14,10 @@ import { memberAction } from '@/server/action';
  * inside the same transaction (the jobs feature's transition, composed here). A device that
  * queued events before a deploy calls the new build's action id after its reload.
  */
-export const saveWheelEvents = memberAction({ permission: 'jobs.run', schema: looseEventBatchSchema.extend({ wheelId: ids.wheel }) }, async ({ wheelId, events }, member) =>
-  saveWheelBatch(member, wheelId, events, (jobId, tx) => transitionJob(member, jobId, 'start', '', { tx })),
+export const saveWheelEvents = memberAction(
+  { permission: 'jobs.run', schema: looseEventBatchSchema.extend({ wheelId: ids.wheel }) },
+  async ({ wheelId, events }, member) =>
+    saveWheelBatch(member, wheelId, events, (jobId, tx) =>
+      transitionJob(member, jobId, 'start', '', { tx }),
+    ),
 );

@@ -4,8 +4,18 @@ import { ids } from '@/features/jobs/schemas';
 import { Runner } from '@/features/runner/components/runner';
 import { listPhotos } from '@/features/runner/server/photo-router';
 import { RunnerBlocked } from '@/features/runner/components/runner-blocked';
-import { assertMayRun, flaggedSpecMessage, listEvents, loadWheel, planFor, snapshotOf } from '@/features/runner/server/run';
-import { recentPassingVerifications, wrenchesForEngine } from '@/features/tool-crib/server/wrenches';
+import {
+  assertMayRun,
+  flaggedSpecMessage,
+  listEvents,
+  loadWheel,
+  planFor,
+  snapshotOf,
+} from '@/features/runner/server/run';
+import {
+  recentPassingVerifications,
+  wrenchesForEngine,
+} from '@/features/tool-crib/server/wrenches';
 import { formatTorque, threadConditionText } from '@/features/torque-plan';
 import { requireMember } from '@/server/auth/guard';
 import { signInThenBackTo } from '@/server/auth/return-path';
@@ -31,13 +41,24 @@ export default async function RunPage({ params }: PageProps<'/jobs/[jobId]/wheel
     throw error;
   }
   const flagged = flaggedSpecMessage(ctx.spec);
-  if (flagged) return <RunnerBlocked jobId={ctx.job.id} jobNumber={ctx.job.number} specId={ctx.spec.id} message={flagged} />;
+  if (flagged)
+    return (
+      <RunnerBlocked
+        jobId={ctx.job.id}
+        jobNumber={ctx.job.number}
+        specId={ctx.spec.id}
+        message={flagged}
+      />
+    );
   const { wheel } = ctx;
   const settings = await getShopSettings(member.shopId);
   const { verification } = settings;
   const [wrenches, verifications, events, photos] = await Promise.all([
     wrenchesForEngine(member.shopId),
-    recentPassingVerifications(member.shopId, verification.recency === 'same_day' ? 1 : verification.days),
+    recentPassingVerifications(
+      member.shopId,
+      verification.recency === 'same_day' ? 1 : verification.days,
+    ),
     listEvents(member.shopId, wheel.id),
     listPhotos(member.shopId, wheel.id),
   ]);
@@ -48,18 +69,49 @@ export default async function RunPage({ params }: PageProps<'/jobs/[jobId]/wheel
     <Runner
       jobId={ctx.job.id}
       jobNumber={ctx.job.number}
-      wheel={{ id: wheel.id, position: wheel.position, tireSize: wheel.tireSize, directional: wheel.directional, targetPressure: wheel.targetPressure, pressureUnit: wheel.pressureUnit }}
-      spec={{ name: snap.spec.name, maxBeadSeatPressure: snap.spec.maxBeadSeatPressure.value, pressureUnit: snap.spec.maxBeadSeatPressure.unit, lugTorque: snap.spec.lugTorque ? formatTorque(snap.spec.lugTorque, 1) : null, lug: { torque: snap.spec.lugTorque, count: snap.spec.lugCount }, words: { makerReference: snap.spec.makerReference, notes: snap.spec.notes ?? ctx.spec.notes, threadCondition: threadConditionText(snap.spec.threadCondition === undefined ? ctx.spec.threadCondition : snap.spec.threadCondition), boltReuse: snap.spec.boltReuse ?? ctx.spec.boltReuse } }}
+      wheel={{
+        id: wheel.id,
+        position: wheel.position,
+        tireSize: wheel.tireSize,
+        directional: wheel.directional,
+        targetPressure: wheel.targetPressure,
+        pressureUnit: wheel.pressureUnit,
+      }}
+      spec={{
+        name: snap.spec.name,
+        maxBeadSeatPressure: snap.spec.maxBeadSeatPressure.value,
+        pressureUnit: snap.spec.maxBeadSeatPressure.unit,
+        lugTorque: snap.spec.lugTorque ? formatTorque(snap.spec.lugTorque, 1) : null,
+        lug: { torque: snap.spec.lugTorque, count: snap.spec.lugCount },
+        words: {
+          makerReference: snap.spec.makerReference,
+          notes: snap.spec.notes ?? ctx.spec.notes,
+          threadCondition: threadConditionText(
+            snap.spec.threadCondition === undefined
+              ? ctx.spec.threadCondition
+              : snap.spec.threadCondition,
+          ),
+          boltReuse: snap.spec.boltReuse ?? ctx.spec.boltReuse,
+        },
+      }}
       plan={planFor(ctx)}
       targets={targets}
       wrenches={wrenches}
       verifications={verifications}
-      rules={{ minFractionOfMax: settings.wrenchFloorPercent / 100, verification, timeZone: settings.timeZone }}
+      rules={{
+        minFractionOfMax: settings.wrenchFloorPercent / 100,
+        verification,
+        timeZone: settings.timeZone,
+      }}
       events={events}
       photos={photos}
       saveEvents={saveWheelEvents}
       signInHref={signInThenBackTo(here)}
-      rework={wheel.rework && !wheel.submittedAt ? { note: wheel.rework.note, steps: wheel.rework.steps, at: wheel.rework.at } : null}
+      rework={
+        wheel.rework && !wheel.submittedAt
+          ? { note: wheel.rework.note, steps: wheel.rework.steps, at: wheel.rework.at }
+          : null
+      }
       person={{ id: member.userId, name: member.name }}
     />
   );
