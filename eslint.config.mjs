@@ -8,6 +8,7 @@ const productFeatures = [
   'jobs',
   'mailbox',
   'plans',
+  'practice',
   'review',
   'runner',
   'settings',
@@ -17,10 +18,18 @@ const productFeatures = [
 // Shared by every feature: the engine and the UI primitives.
 const shared = ['torque-plan', 'ui', 'bolt-circle'];
 
+// One deliberate, one-way exception: practice runs the runner itself (its events, reducer and
+// screens), so apprentices learn on the very code technicians use. The runner never imports practice.
+const builtOn = { practice: ['runner'] };
+
 const featureIslands = productFeatures.map((name) => ({
   target: `./features/${name}`,
   from: './features',
-  except: [`./${name}`, ...shared.map((s) => `./${s}`)],
+  except: [
+    `./${name}`,
+    ...shared.map((s) => `./${s}`),
+    ...(builtOn[name] ?? []).map((s) => `./${s}`),
+  ],
   message: 'Product features do not import each other; they meet in app/.',
 }));
 
