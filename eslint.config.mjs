@@ -9,6 +9,7 @@ const productFeatures = [
   'mailbox',
   'plans',
   'practice',
+  'reports',
   'review',
   'runner',
   'settings',
