@@ -22,6 +22,7 @@ export const PERMISSIONS = [
   'reports.links',
   'practice.run',
   'practice.viewOthers',
+  'practice.clear',
   'plans.compute',
 ] as const;
 export type Permission = (typeof PERMISSIONS)[number];
@@ -41,9 +42,22 @@ const GRANTS: Record<Role, ReadonlySet<Permission>> = {
   apprentice: new Set<Permission>(['board.view', 'practice.run', 'plans.compute']),
 };
 
-export function can(role: Role | undefined | null, permission: Permission): boolean {
-  if (!role) return false;
-  return GRANTS[role]?.has(permission) ?? false;
+/**
+ * What a lead's clearance adds for an apprentice: running the real wheels assigned to them
+ * (practice_clearances, read into the session; assignment checks it again in the jobs feature).
+ */
+const CLEARED_APPRENTICE: ReadonlySet<Permission> = new Set<Permission>(['jobs.run']);
+
+/** A person as the guards know them: a role, and for an apprentice whether a lead has cleared them. */
+export type Grantee = { role: Role; clearedForRealWheels?: boolean };
+
+export function can(who: Role | Grantee | undefined | null, permission: Permission): boolean {
+  if (!who) return false;
+  const { role, clearedForRealWheels } = typeof who === 'string' ? { role: who } : who;
+  if (GRANTS[role]?.has(permission)) return true;
+  return (
+    role === 'apprentice' && clearedForRealWheels === true && CLEARED_APPRENTICE.has(permission)
+  );
 }
 
 export const ROLE_LABELS: Record<Role, string> = {
