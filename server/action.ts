@@ -110,7 +110,7 @@ export function memberAction<S extends z.ZodType, T>(
         code: 'unauthenticated',
         message: 'Your session has ended. Sign in again.',
       };
-    if (!can(member.role, options.permission)) {
+    if (!can(member, options.permission)) {
       return { ok: false, code: 'forbidden', message: 'Your role does not allow this.' };
     }
     return parseAndRun(options.schema, payload, (input) => run(input, member));

@@ -55,7 +55,7 @@ export const STATE_LABELS: Record<JobStateName, string> = {
   sent_back: 'Sent back',
 };
 
-type Actor = { userId: string; role: Role };
+type Actor = { userId: string; role: Role; clearedForRealWheels?: boolean };
 type JobLike = {
   state: JobStateName;
   assignee: { id: string } | null;
@@ -120,7 +120,7 @@ export function transitionRefusal(
       message: `A job card that is ${STATE_LABELS[job.state].toLowerCase()} cannot be moved that way.`,
     };
   }
-  if (!can(actor.role, rule.permission))
+  if (!can(actor, rule.permission))
     return { kind: 'person', message: 'Your role does not allow this.' };
   const isAssignee = job.assignee?.id === actor.userId;
   if (rule.who === 'run' && !isAssignee && actor.role !== 'lead')

@@ -16,7 +16,7 @@ export async function requireMember(
 ): Promise<Member> {
   const member = await getCurrentMember();
   if (!member) redirect(returnTo ? signInThenBackTo(returnTo) : '/sign-in');
-  if (!can(member.role, permission)) forbidden();
+  if (!can(member, permission)) forbidden();
   return member;
 }
 
@@ -38,7 +38,7 @@ export async function requireMemberForRequest(
     readCookie(request.headers.get('cookie'), sessionCookieName()),
   );
   if (!result) throw new DomainError('unauthenticated', 'Sign in to continue.');
-  if (!can(result.member.role, permission)) {
+  if (!can(result.member, permission)) {
     throw new DomainError('forbidden', 'Your role does not allow this.');
   }
   return result.member;

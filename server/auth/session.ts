@@ -5,6 +5,7 @@ import { cache } from 'react';
 import { getDb } from '@/db';
 import { sessions, users, type Role } from '@/db/schema';
 import { env } from '@/server/env.mjs';
+import { isClearedForRealWheels } from './clearance';
 import {
   blankCookie,
   generateSessionToken,
@@ -23,6 +24,8 @@ export type Member = {
   email: string;
   /** The session's id in the database (the hash of the cookie's token, never the token). */
   sessionId: string;
+  /** An apprentice a lead has cleared for real wheels (read on every request, so a revoke counts at once). */
+  clearedForRealWheels?: boolean;
 };
 
 export type Cookie = SessionCookie;
@@ -103,6 +106,9 @@ export async function validateSessionId(
     name: row.name,
     email: row.email,
     sessionId: row.id,
+    ...(row.role === 'apprentice'
+      ? { clearedForRealWheels: await isClearedForRealWheels(row.shopId, row.userId, db) }
+      : {}),
   };
   return { member };
 }

@@ -26,7 +26,7 @@ export function ShopHeader({
           Ringpass <span className="font-semibold opacity-90">· {shopName}</span>
         </p>
         <nav aria-label="Main" className="flex flex-wrap items-center gap-1">
-          {can(member.role, 'jobs.run') ? <NavLink href="/my-wheels">My wheels</NavLink> : null}
+          {can(member, 'jobs.run') ? <NavLink href="/my-wheels">My wheels</NavLink> : null}
           <NavLink href="/board">Board</NavLink>
           {signoff}
           {can(member.role, 'jobs.create') ? <NavLink href="/customers">Customers</NavLink> : null}

@@ -72,9 +72,17 @@ export function flaggedSpecMessage(
   return `Stop: the spec "${spec.name}" is flagged and cannot be run until a lead corrects it. ${spec.plausibilityFlag}`;
 }
 
-/** Who may run this wheel: the assignee (technician or lead) or any lead; never an apprentice. */
+/**
+ * Who may run this wheel: the assignee (technician, or an apprentice a lead has cleared for real
+ * wheels) or any lead. A revoked clearance stops the apprentice's next request, assigned or not.
+ */
 export function assertMayRun(member: Member, ctx: Pick<RunContext, 'job'>) {
-  if (!can(member.role, 'jobs.run'))
+  if (member.role === 'apprentice' && !can(member, 'jobs.run'))
+    throw new DomainError(
+      'forbidden',
+      'You are not yet cleared for real wheels — a lead clears you on Practice progress.',
+    );
+  if (!can(member, 'jobs.run'))
     throw new DomainError('forbidden', 'Your role does not allow running job cards.');
   if (member.role !== 'lead' && ctx.job.assigneeId !== member.userId) {
     throw new DomainError(
