@@ -15,6 +15,8 @@ export type OutgoingMail = {
   text: string;
   html: string;
   shopId: string | null;
+  /** Files sent with the mail (the customer's report PDF). */
+  attachments?: { filename: string; content: Buffer; contentType: string }[];
 };
 
 // SMTP_URL points at the local sink in development and tests and at the real relay in
