@@ -20,6 +20,8 @@ export const PERMISSIONS = [
   'jobs.signoff',
   'reports.download',
   'reports.links',
+  /** Cancel or move the re-check reminder, send the customer e-mail again. */
+  'followup.manage',
   'practice.run',
   'practice.viewOthers',
   'practice.clear',
