@@ -1,7 +1,8 @@
 import 'server-only';
-import { and, asc, eq, inArray, isNull, ne, notInArray, sql } from 'drizzle-orm';
+import { and, asc, eq, inArray, isNull, notInArray, sql } from 'drizzle-orm';
 import { getDb } from '@/db';
 import { jobEvents, jobs, jobWheels, users, wheelSpecs } from '@/db/schema';
+import { clearedAmong, isClearedForRealWheels, notClearedMessage } from '@/server/auth/clearance';
 import { can } from '@/server/auth/permissions';
 import type { Member } from '@/server/auth/session';
 import { wheelTargetError } from '@/features/torque-plan';
@@ -73,12 +74,24 @@ const wheelDto = (
   w: Omit<JobWheel, 'submittedAt'> & { jobId: string; submittedAt: Date | null },
 ) => ({ ...w, submittedAt: w.submittedAt?.toISOString() ?? null });
 
-/** Assignable people: active leads and technicians of the shop (apprentices only practise). */
+/**
+ * Assignable people: active leads and technicians of the shop, and apprentices a lead has cleared
+ * for real wheels (the others only practise).
+ */
 export async function listAssignees(shopId: string) {
+  const people = await activeMembers(shopId);
+  const cleared = await clearedAmong(
+    shopId,
+    people.filter((p) => p.role === 'apprentice').map((p) => p.id),
+  );
+  return people.filter((p) => p.role !== 'apprentice' || cleared.has(p.id));
+}
+
+function activeMembers(shopId: string) {
   return getDb()
     .select({ id: users.id, name: users.name, role: users.role })
     .from(users)
-    .where(and(eq(users.shopId, shopId), isNull(users.removedAt), ne(users.role, 'apprentice')))
+    .where(and(eq(users.shopId, shopId), isNull(users.removedAt)))
     .orderBy(asc(users.name));
 }
 
@@ -89,9 +102,13 @@ async function assertAssignee(actor: Member, assigneeId: string | null | undefin
       'Only a lead assigns job cards to others; you can take it yourself or leave it unassigned.';
     throw new DomainError('forbidden', message, { assigneeId: [message] });
   }
-  const people = await listAssignees(actor.shopId);
-  if (!people.some((p) => p.id === assigneeId)) {
+  const person = (await activeMembers(actor.shopId)).find((p) => p.id === assigneeId);
+  if (!person) {
     const message = 'Assign the job to a lead or technician of this shop.';
+    throw new DomainError('invalid', message, { assigneeId: [message] });
+  }
+  if (person.role === 'apprentice' && !(await isClearedForRealWheels(actor.shopId, person.id))) {
+    const message = notClearedMessage(person.name);
     throw new DomainError('invalid', message, { assigneeId: [message] });
   }
 }
