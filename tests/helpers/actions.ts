@@ -3,6 +3,7 @@ import { getDb } from '@/db';
 import { users } from '@/db/schema';
 import { createInvite } from '@/features/accounts/server/invites';
 import { createJob, getJob } from '@/features/jobs/server/jobs';
+import { createAttempt } from '@/features/practice/server/attempts';
 import type { Permission } from '@/server/auth/permissions';
 import type { Member } from '@/server/auth/session';
 import { createTestShop, PASSWORD } from './factories';
@@ -190,6 +191,32 @@ export const ACTION_CASES: Record<string, ActionCase> = {
     permission: 'board.view',
     input: async (w) => ({ jobId: (await freshJob(w)).id, action: 'start' }),
     asAllowed: { apprentice: 'forbidden' },
+    otherShop: 'not_found',
+  },
+  '/features/practice/actions/practice-actions.ts#startPracticeAttempt': {
+    permission: 'practice.run',
+    input: () => ({ source: 'surprise', level: 'guided' }),
+    otherShop: 'ok',
+  },
+  // The caller's own attempt; another shop's lead (and the signed-out caller) get shop A's apprentice's.
+  '/features/practice/actions/practice-actions.ts#savePracticeEvents': {
+    permission: 'practice.run',
+    input: async (w, caller) => ({
+      wheelId: (
+        await createAttempt(caller?.shopId === w.a.shopId ? caller : w.a.apprentice, {
+          source: 'surprise',
+          level: 'guided',
+        })
+      ).id,
+      events: [
+        {
+          type: 'step_done',
+          payload: { step: 'safety', checklist: [] },
+          clientId: randomUUID(),
+          clientAt: at(),
+        },
+      ],
+    }),
     otherShop: 'not_found',
   },
   '/features/specs/actions/save-spec.ts#createWheelSpec': {

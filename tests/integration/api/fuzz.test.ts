@@ -4,6 +4,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { getDb } from '@/db';
 import { users } from '@/db/schema';
 import { getJob } from '@/features/jobs/server/jobs';
+import { createAttempt } from '@/features/practice/server/attempts';
 import {
   ACTION_CASES,
   createWorld,
@@ -277,6 +278,7 @@ beforeAll(async () => {
     wrenchId: r.wrench.id,
     memberId: spare!.id,
     photoId: randomUUID(),
+    attemptId: (await createAttempt(world.a.lead, { source: 'surprise', level: 'guided' })).id,
   };
   actions = await loadActions();
   for (const name of actions.keys()) {
@@ -329,6 +331,17 @@ const GOOD_BODIES: Record<string, () => Record<string, unknown>> = {
     wrenchIds: [world.records.wrench.id],
   }),
   '/app/api/team/members/[memberId]/route.ts': () => ({ role: 'technician' }),
+  '/app/api/practice/attempts/route.ts': () => ({ source: 'surprise', level: 'guided' }),
+  '/app/api/practice/attempts/[attemptId]/events/route.ts': () => ({
+    events: [
+      {
+        type: 'bolt_confirmed',
+        payload: { pass: 1, bolt: 1 },
+        clientId: randomUUID(),
+        clientAt: new Date().toISOString(),
+      },
+    ],
+  }),
 };
 
 const routes = Object.entries(routeModules).flatMap(([file, mod]) =>
