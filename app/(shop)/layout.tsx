@@ -4,6 +4,7 @@ import { getShopName } from '@/features/accounts/server/shop';
 import { SignoffNavLink } from '@/features/review/components/signoff-nav-link';
 import { QueryProvider } from '@/features/ui/query-provider';
 import { ShopTimeZoneProvider } from '@/features/ui/shop-time-zone';
+import { ToastRegion } from '@/features/ui/toasts';
 import { requireMember } from '@/server/auth/guard';
 import { can } from '@/server/auth/permissions';
 import { mailboxEnabled } from '@/server/mail/mailbox';
@@ -31,7 +32,10 @@ export default async function ShopLayout({ children }: { children: ReactNode }) 
           ) : null
         }
       />
-      <main className="mx-auto w-full max-w-5xl p-4">{children}</main>
+      {/* Action results toast here as well as inline; the runner's layout has no ToastRegion. */}
+      <ToastRegion>
+        <main className="mx-auto w-full max-w-5xl p-4">{children}</main>
+      </ToastRegion>
     </ShopTimeZoneProvider>
   );
 }
