@@ -1,30 +1,28 @@
 'use client';
 
-import { Button } from '@/features/ui/button';
+import { useRef } from 'react';
+import { ConfirmDialog } from '@/features/ui/confirm-dialog';
 import { FormMessage } from '@/features/ui/form-message';
 import { useFormAction } from '@/features/ui/use-form-action';
 import { removeTeamMember } from '../actions/remove-member';
 
 export function RemoveMemberForm({ memberId, name }: { memberId: string; name: string }) {
-  const { state, formAction, pending } = useFormAction(removeTeamMember);
+  const { state, formAction, pending } = useFormAction(removeTeamMember, {
+    leaves: `${name} was removed from the team.`,
+  });
+  const form = useRef<HTMLFormElement>(null);
   return (
-    <form
-      action={formAction}
-      onSubmit={(e) => {
-        if (
-          !window.confirm(
-            `Remove ${name} from the team? They will be signed out and cannot sign in again.`,
-          )
-        )
-          e.preventDefault();
-      }}
-      className="flex flex-col gap-3"
-    >
+    <form ref={form} action={formAction} className="flex flex-col gap-3">
       <FormMessage state={state} />
       <input type="hidden" name="memberId" value={memberId} />
-      <Button variant="danger" disabled={pending}>
-        Remove from team
-      </Button>
+      <ConfirmDialog
+        triggerLabel="Remove from team"
+        title={`Remove ${name} from the team?`}
+        description="They are signed out everywhere and cannot sign in again. Their work stays on the record."
+        confirmLabel={`Remove ${name}`}
+        onConfirm={() => form.current?.requestSubmit()}
+        disabled={pending}
+      />
     </form>
   );
 }
