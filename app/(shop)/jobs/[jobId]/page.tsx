@@ -1,16 +1,19 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
+import { JobCardPrint } from '@/features/jobs/components/job-card-print';
 import { JobDetails } from '@/features/jobs/components/job-details';
 import { JobEditForm } from '@/features/jobs/components/job-edit-form';
 import { TransitionForm } from '@/features/jobs/components/transition-form';
 import { ids } from '@/features/jobs/schemas';
+import { getPrintedWheels } from '@/features/jobs/server/job-card-print';
 import { getJob, listAssignees } from '@/features/jobs/server/jobs';
 import { getWorkFacts } from '@/features/jobs/server/work-facts';
 import { allowedTransitions, isSelfReview } from '@/features/jobs/transitions';
 import { listJobPhotos } from '@/features/runner/server/photo-router';
 import { buttonClass } from '@/features/ui/button';
 import { PageHeader } from '@/features/ui/page';
+import { PrintButton } from '@/features/ui/print-button';
 import { requireMember } from '@/server/auth/guard';
 import { can } from '@/server/auth/permissions';
 import { orNotFound } from '@/server/errors';
@@ -23,9 +26,10 @@ export default async function JobPage({ params }: PageProps<'/jobs/[jobId]'>) {
   if (!id.success) notFound();
   const job = await orNotFound(getJob(member.shopId, id.data));
   const editable = can(member.role, 'jobs.edit') && job.state !== 'signed_off';
-  const [photos, facts] = await Promise.all([
+  const [photos, facts, printedWheels] = await Promise.all([
     listJobPhotos(member.shopId, job.id),
     getWorkFacts(member.shopId, job.id),
+    getPrintedWheels(member.shopId, job.id),
   ]);
   return (
     <>
@@ -33,14 +37,17 @@ export default async function JobPage({ params }: PageProps<'/jobs/[jobId]'>) {
         ← Board
       </Link>
       <PageHeader title={`Job #${job.number} · ${job.vehicle.label}`}>
-        {can(member.role, 'jobs.signoff') && job.state !== 'open' ? (
-          <Link
-            href={`/jobs/${job.id}/review`}
-            className={buttonClass(job.state === 'awaiting_signoff' ? 'primary' : 'secondary')}
-          >
-            {job.state === 'awaiting_signoff' ? 'Review for sign-off' : 'Review the record'}
-          </Link>
-        ) : null}
+        <div className="flex flex-wrap gap-2">
+          <PrintButton>Print job card</PrintButton>
+          {can(member.role, 'jobs.signoff') && job.state !== 'open' ? (
+            <Link
+              href={`/jobs/${job.id}/review`}
+              className={buttonClass(job.state === 'awaiting_signoff' ? 'primary' : 'secondary')}
+            >
+              {job.state === 'awaiting_signoff' ? 'Review for sign-off' : 'Review the record'}
+            </Link>
+          ) : null}
+        </div>
       </PageHeader>
       <div className="grid gap-8 lg:grid-cols-[2fr_1fr]">
         <JobDetails
@@ -66,6 +73,7 @@ export default async function JobPage({ params }: PageProps<'/jobs/[jobId]'>) {
           ) : null}
         </div>
       </div>
+      <JobCardPrint job={job} wheels={printedWheels} />
     </>
   );
 }
