@@ -176,6 +176,10 @@ test('a wheel run too fast: the lead sees it first on the review, sends the whee
     .fill('Redo every pass: pull each bolt to the click.');
   await sendBack.getByLabel('Torque passes').check();
   await sendBack.getByRole('button', { name: 'Send back' }).click();
+  await page
+    .getByRole('alertdialog', { name: 'Send back the LF wheel?' })
+    .getByRole('button', { name: 'Send back the LF wheel' })
+    .click();
   await expect(page.getByRole('status').filter({ hasText: 'Sent back by Rae Lead' })).toContainText(
     'LF: Redo every pass: pull each bolt to the click.',
   );

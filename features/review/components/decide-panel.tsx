@@ -1,8 +1,9 @@
 'use client';
 
 import { useRouter } from 'next/navigation';
-import { useState, useTransition } from 'react';
+import { useRef, useState, useTransition } from 'react';
 import { Button } from '@/features/ui/button';
+import { ConfirmDialog } from '@/features/ui/confirm-dialog';
 import { FormMessage } from '@/features/ui/form-message';
 import type { ApproveInput, SendBackInput } from '../schemas';
 
@@ -21,6 +22,12 @@ type Props = {
   approve: (prev: unknown, input: ApproveInput) => Promise<Result>;
   sendBack: (prev: unknown, input: SendBackInput) => Promise<Result>;
 };
+
+/** "LF wheel", "LF and RF wheels", "LF, RF and LR wheels". */
+function listed(positions: string[]) {
+  if (positions.length === 1) return `${positions[0]} wheel`;
+  return `${positions.slice(0, -1).join(', ')} and ${positions.at(-1)} wheels`;
+}
 
 const AREA =
   'min-h-20 w-full rounded-lg border-2 bg-paper p-2 text-base text-ink aria-[invalid=true]:border-danger';
@@ -44,15 +51,17 @@ export function DecidePanel({
   const [back, setBack] = useState<Record<string, { note: string; steps: string[] } | undefined>>(
     {},
   );
+  const sendBackForm = useRef<HTMLFormElement>(null);
   if (refusal) {
     // After a decision the page refreshes into this: the outcome stays on screen above why.
     return (
       <div className="flex flex-col gap-3">
-        <FormMessage state={result} />
+        <FormMessage state={result} pending={pending} />
         <p className="bg-paper-dim rounded-lg p-3">{refusal}</p>
       </div>
     );
   }
+  const chosen = wheels.filter((w) => back[w.id]).map((w) => w.position);
   const errors = (name: string) => (result && !result.ok ? result.fieldErrors?.[name] : undefined);
   const run = (call: () => Promise<Result>) =>
     start(async () => {
@@ -63,7 +72,7 @@ export function DecidePanel({
 
   return (
     <div className="flex flex-col gap-6">
-      <FormMessage state={result} />
+      <FormMessage state={result} pending={pending} />
       <form
         aria-label="Sign off"
         className="flex flex-col gap-3"
@@ -122,6 +131,7 @@ export function DecidePanel({
       </form>
 
       <form
+        ref={sendBackForm}
         aria-label="Send back"
         className="flex flex-col gap-3"
         onSubmit={(e) => {
@@ -204,9 +214,21 @@ export function DecidePanel({
             </fieldset>
           );
         })}
-        <Button variant="secondary" disabled={pending}>
-          Send back
-        </Button>
+        <ConfirmDialog
+          triggerLabel="Send back"
+          triggerVariant="secondary"
+          disabled={pending}
+          title={chosen.length ? `Send back the ${listed(chosen)}?` : 'Send back the job card?'}
+          description={
+            chosen.length
+              ? 'The technician redoes what you picked (the whole wheel where no step is ticked). The work recorded there stays on the record but no longer counts, and the assignee is e-mailed.'
+              : 'No wheel is ticked yet: a job card goes back with the wheels to redo and what to redo on each.'
+          }
+          confirmLabel={
+            chosen.length ? `Send back the ${listed(chosen)}` : 'Send back the job card'
+          }
+          onConfirm={() => sendBackForm.current?.requestSubmit()}
+        />
       </form>
     </div>
   );
