@@ -1,0 +1,179 @@
+import { describe, expect, it } from 'vitest';
+import { scoreAttempt } from '@/features/practice/scoring';
+import type { PracticeResult } from '@/features/practice/types';
+import { attemptEvents, BIG, practiceSetup, SMALL, swapAt } from '@/tests/helpers/practice-attempt';
+
+// The ring: 12 bolts, cross order 1-7-4-10-2-8-5-11-3-9-6-12 (ASME PCC-1 legacy table, from
+// memory), passes of 9, 21 and 30 ft-lb and a check pass at 30 ft-lb; wrenches 5–50 ft-lb and
+// 20–200 in-lb at a 20 % floor (ISO 6789 from secondary sources: the floor idea).
+const CROSS_12 = [1, 7, 4, 10, 2, 8, 5, 11, 3, 9, 6, 12];
+
+const part = (r: PracticeResult, label: string) => r.parts.find((p) => p.label === label);
+const lost = (r: PracticeResult) => r.mistakes.reduce((sum, m) => sum + m.points, 0);
+
+describe('scoreAttempt', () => {
+  it('scores an attempt done right 100 at every level, with the time of each step', () => {
+    for (const level of ['guided', 'from_memory', 'wrench_setup'] as const) {
+      const setup = practiceSetup(level);
+      const result = scoreAttempt(setup, attemptEvents(setup));
+      expect(result.mistakes).toEqual([]);
+      expect(result.score).toBe(100);
+      expect(result.parts.reduce((s, p) => s + p.max, 0)).toBe(100);
+    }
+    const setup = practiceSetup('guided');
+    const result = scoreAttempt(setup, attemptEvents(setup));
+    // Started 09:00:00, the safety gate done at 09:00:10; 12 hand-starts and the step: 130 s.
+    expect(result.secondsPerStep.safety).toBe(10);
+    expect(result.secondsPerStep.hand_start).toBe(130);
+    expect(result.passes[0]).toEqual({
+      pass: 1,
+      done: CROSS_12,
+      expected: CROSS_12,
+      unit: 'lbf-ft',
+    });
+  });
+
+  it('names the bolt out of order and the one that was next, and takes 5 points off the sequence', () => {
+    const setup = practiceSetup('from_memory');
+    // Pass 1: bolt 4 before bolt 7.
+    const result = scoreAttempt(
+      setup,
+      attemptEvents(setup, { passes: { 1: { order: swapAt(CROSS_12, 1) } } }),
+    );
+    expect(result.mistakes).toHaveLength(1);
+    expect(result.mistakes[0]).toMatchObject({
+      kind: 'bolt_out_of_sequence',
+      pass: 1,
+      bolt: 4,
+      expected: 'bolt 7',
+      points: 5,
+    });
+    expect(result.mistakes[0]!.message).toBe(
+      'Pass 1 (30 %, 9 ft-lb): bolt 4 was tightened when bolt 7 was next. Out of order the ring draws down unevenly and the bolts done first lose torque.',
+    );
+    expect(part(result, 'Sequence')).toEqual({ label: 'Sequence', points: 55, max: 60 });
+    expect(result.score).toBe(95);
+    expect(result.passes[0]!.done).toEqual(swapAt(CROSS_12, 1));
+  });
+
+  it('says why a wrench cannot read the pass (below its floor) and which one would, 10 points', () => {
+    const setup = practiceSetup('wrench_setup');
+    const result = scoreAttempt(
+      setup,
+      attemptEvents(setup, {
+        passes: { 1: { wrenchId: BIG.id, setting: { value: 9, unit: 'lbf-ft' } } },
+      }),
+    );
+    expect(result.mistakes).toHaveLength(1);
+    expect(result.mistakes[0]).toMatchObject({ kind: 'wrong_wrench', pass: 1, points: 10 });
+    expect(result.mistakes[0]!.message).toContain(
+      "9 ft-lb is below the 5–50 ft-lb wrench's 10 ft-lb floor (the shop reads no wrench under 20 % of its maximum)",
+    );
+    expect(result.mistakes[0]!.expected).toBe('the 20–200 in-lb click wrench set to 108 in-lb');
+    expect(part(result, 'Wrench and setting')).toEqual({
+      label: 'Wrench and setting',
+      points: 20,
+      max: 30,
+    });
+    expect(result.score).toBe(90);
+  });
+
+  it('catches the ft-lb number dialled on an in-lb wrench as a unit mistake, naming both units, 15 points', () => {
+    const setup = practiceSetup('wrench_setup');
+    const result = scoreAttempt(
+      setup,
+      attemptEvents(setup, {
+        passes: { 1: { wrenchId: SMALL.id, setting: { value: 9, unit: 'lbf-in' } } },
+      }),
+    );
+    expect(result.mistakes).toHaveLength(1);
+    expect(result.mistakes[0]).toMatchObject({ kind: 'unit_mistake', pass: 1, points: 15 });
+    expect(result.mistakes[0]!.message).toBe(
+      'Pass 1 (30 %, 9 ft-lb): 9 is the target in ft-lb (9 ft-lb), but the 20–200 in-lb click wrench reads in-lb. Set it to 108 in-lb (9 ft-lb).',
+    );
+    expect(result.score).toBe(85);
+  });
+
+  it('takes a setting within one graduation, and not one off by more (21 ft-lb on a 0.5 ft-lb wrench)', () => {
+    const setup = practiceSetup('wrench_setup');
+    const near = scoreAttempt(
+      setup,
+      attemptEvents(setup, {
+        passes: { 2: { wrenchId: BIG.id, setting: { value: 21.5, unit: 'lbf-ft' } } },
+      }),
+    );
+    expect(near.score).toBe(100);
+    const off = scoreAttempt(
+      setup,
+      attemptEvents(setup, {
+        passes: { 2: { wrenchId: BIG.id, setting: { value: 23, unit: 'lbf-ft' } } },
+      }),
+    );
+    expect(off.mistakes).toHaveLength(1);
+    expect(off.mistakes[0]).toMatchObject({ kind: 'wrong_setting', pass: 2, points: 10 });
+    // 21 ft-lb is 28.5 N·m (NIST SP 811 App. B: 1 ft·lbf = 1.355 818 N·m).
+    expect(off.mistakes[0]!.message).toBe(
+      "Pass 2 (70 %, 21 ft-lb): set to 23 ft-lb, 2 ft-lb off the target 21 ft-lb (28.5 N·m), more than the wrench's 0.5 ft-lb graduation.",
+    );
+    expect(off.score).toBe(90);
+  });
+
+  it('calls a safety gate done without the valve core out a skipped caution, 5 points', () => {
+    const setup = practiceSetup('guided');
+    const result = scoreAttempt(
+      setup,
+      attemptEvents(setup, { checklist: { safety: ['off-vehicle', 'deflated'] } }),
+    );
+    expect(result.mistakes).toHaveLength(1);
+    expect(result.mistakes[0]).toMatchObject({
+      kind: 'skipped_caution',
+      step: 'safety',
+      points: 5,
+    });
+    expect(result.mistakes[0]!.message).toContain(
+      'Safety gate was marked done without "The valve core is removed."',
+    );
+    expect(result.mistakes[0]!.message).toContain(
+      'valve core out before any ring bolt is loosened',
+    );
+    expect(part(result, 'Cautions and checks')).toEqual({
+      label: 'Cautions and checks',
+      points: 35,
+      max: 40,
+    });
+    expect(result.score).toBe(95);
+  });
+
+  it('counts an unticked check on an ordinary step as a skipped check, 2 points', () => {
+    const setup = practiceSetup('guided');
+    const result = scoreAttempt(setup, attemptEvents(setup, { checklist: { index: [] } }));
+    expect(result.mistakes.map((m) => [m.kind, m.points])).toEqual([['skipped_check', 2]]);
+    expect(result.score).toBe(98);
+  });
+
+  it('marks steps not finished, the torque pass with its bolt count, and the score adds up', () => {
+    const setup = practiceSetup('guided');
+    const events = attemptEvents(setup, { until: 'hand_start' });
+    const result = scoreAttempt(setup, events);
+    const unfinished = result.mistakes.filter((m) => m.kind === 'unfinished');
+    expect(unfinished.map((m) => m.step)).toEqual(['torque', 'seat_bead', 'leak_check']);
+    expect(unfinished[0]!.message).toBe(
+      'Torque passes was not finished: pass 1 (30 %, 9 ft-lb) has 0 of 12 bolts.',
+    );
+    expect(part(result, 'Completion')!.points).toBeLessThan(20);
+    expect(result.score).toBe(100 - lost(result));
+  });
+
+  it('never takes a part below zero, and the same events in any order score the same', () => {
+    const setup = practiceSetup('from_memory');
+    const reversed = [...CROSS_12].reverse();
+    const events = attemptEvents(setup, {
+      passes: { 1: { order: reversed }, 2: { order: reversed } },
+    });
+    const result = scoreAttempt(setup, events);
+    expect(part(result, 'Sequence')).toEqual({ label: 'Sequence', points: 0, max: 60 });
+    expect(result.score).toBe(100 - lost(result));
+    expect(result.score).toBe(40);
+    expect(scoreAttempt(setup, [...events].reverse())).toEqual(result);
+  });
+});
