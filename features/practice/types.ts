@@ -71,4 +71,11 @@ export type PracticeResult = {
   passes: { pass: number; done: number[]; expected: number[]; unit: TorqueUnit }[];
 };
 
+/**
+ * What the scoring reads from the events, by level: from memory, each tap is a `bolt_confirmed` of
+ * the bolt tapped, right or wrong (the reducer lists the wrong ones as anomalies); wrench setup,
+ * the pick is a `wrench_chosen` for the pass and the typed setting travels as `setting` on each
+ * `bolt_confirmed` of that pass (the number dialled, in the wrench's unit). Step checklists are
+ * judged from the ticked items on the `step_done` the reducer counted.
+ */
 export type PracticeEvent = ClientEvent;
