@@ -28,6 +28,8 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
+  const { stopBoss } = await import('@/server/queue/boss');
+  await stopBoss();
   const { closeDb } = await import('@/db');
   await closeDb();
 });

@@ -4,7 +4,7 @@ import { getDb } from '@/db';
 import { jobEvents, jobs, jobWheels } from '@/db/schema';
 import type { Member } from '@/server/auth/session';
 import { DomainError } from '@/server/errors';
-import { sendTransitionNotices } from '@/server/mail/job-notices';
+import { queueTransitionNotices } from '@/server/mail/job-notices';
 import type { SendBackWheel } from '../schemas';
 import {
   isSelfReview,
@@ -104,8 +104,9 @@ export async function transitionJob(
     return { ...job, state: rule.to };
   }
   await getDb().transaction(move);
-  // After the commit: leads hear of a job awaiting sign-off, the technician of a send-back.
-  await sendTransitionNotices({
+  // After the commit, through the queue: leads hear of a job awaiting sign-off, the technician
+  // of a send-back.
+  await queueTransitionNotices({
     shopId: actor.shopId,
     jobId,
     action: name,

@@ -1,5 +1,5 @@
 import 'server-only';
-import { and, asc, desc, eq, gte, inArray, lt, or, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, gte, inArray, not, sql } from 'drizzle-orm';
 import { getDb } from '@/db';
 import {
   users,
@@ -26,7 +26,7 @@ export const CYCLE_LIMIT = 5000;
 
 export type CribWrenchDto = Omit<WrenchRow, 'shopId' | 'createdAt'>;
 
-const columns = {
+const storedColumns = {
   id: wrenches.id,
   label: wrenches.label,
   kind: wrenches.kind,
@@ -40,6 +40,25 @@ const columns = {
   status: wrenches.status,
   statusReason: wrenches.statusReason,
 };
+
+/** Calibration past due on the shop's calendar, or the cycle count reached. */
+const overdueOn = (today: string) =>
+  sql`(${wrenches.calibrationDueOn} < ${today}::date or coalesce(${wrenches.cyclesSinceCalibration}, 0) >= ${CYCLE_LIMIT})`;
+
+const overdueReason = (today: string) =>
+  sql<string>`case when ${wrenches.calibrationDueOn} < ${today}::date then 'Calibration overdue (was due ' || ${wrenches.calibrationDueOn}::text || ')' else 'Cycle count reached ${sql.raw(String(CYCLE_LIMIT))}: recalibrate' end`;
+
+/**
+ * The crib as people see it: a wrench whose calibration fell due since the last sweep (the hourly
+ * queue job) already reads as out of service, without a write on every read.
+ */
+const columns = (today: string) => ({
+  ...storedColumns,
+  status: sql<
+    WrenchRow['status']
+  >`case when ${wrenches.status} = 'in_service' and ${overdueOn(today)} then 'out_of_service'::wrench_status else ${wrenches.status} end`,
+  statusReason: sql<string>`case when ${wrenches.status} = 'in_service' and ${overdueOn(today)} then ${overdueReason(today)} else ${wrenches.statusReason} end`,
+});
 
 function checkWithEngine(input: WrenchInput) {
   try {
@@ -63,7 +82,8 @@ async function shopToday(shopId: string, now = new Date()): Promise<string> {
 
 /**
  * Puts wrenches whose calibration is overdue (or whose cycle count reached the limit) out of
- * service, with an event each. Run before the crib is read, so nobody is offered such a wrench.
+ * service, with an event each. Run by the hourly queue job for every shop (`sweepAllShops`); reads
+ * in between compute the same verdict without writing (`columns`, `wrenchesForEngine`).
  */
 export async function sweepOverdue(shopId: string, now = new Date()): Promise<void> {
   const db = getDb();
@@ -72,15 +92,9 @@ export async function sweepOverdue(shopId: string, now = new Date()): Promise<vo
     .update(wrenches)
     .set({
       status: 'out_of_service',
-      statusReason: sql`case when ${wrenches.calibrationDueOn} < ${today}::date then 'Calibration overdue (was due ' || ${wrenches.calibrationDueOn}::text || ')' else 'Cycle count reached ${sql.raw(String(CYCLE_LIMIT))}: recalibrate' end`,
+      statusReason: overdueReason(today),
     })
-    .where(
-      and(
-        eq(wrenches.shopId, shopId),
-        eq(wrenches.status, 'in_service'),
-        or(lt(wrenches.calibrationDueOn, today), gte(wrenches.cyclesSinceCalibration, CYCLE_LIMIT)),
-      ),
-    )
+    .where(and(eq(wrenches.shopId, shopId), eq(wrenches.status, 'in_service'), overdueOn(today)))
     .returning({ id: wrenches.id, reason: wrenches.statusReason });
   if (overdue.length) {
     await db.insert(wrenchStatusEvents).values(
@@ -94,19 +108,23 @@ export async function sweepOverdue(shopId: string, now = new Date()): Promise<vo
   }
 }
 
+/** The hourly sweep: every shop, each on its own calendar. */
+export async function sweepAllShops(now = new Date()): Promise<void> {
+  const shopIds = await getDb().selectDistinct({ shopId: wrenches.shopId }).from(wrenches);
+  for (const { shopId } of shopIds) await sweepOverdue(shopId, now);
+}
+
 export async function listWrenches(shopId: string): Promise<CribWrenchDto[]> {
-  await sweepOverdue(shopId);
   return getDb()
-    .select(columns)
+    .select(columns(await shopToday(shopId)))
     .from(wrenches)
     .where(eq(wrenches.shopId, shopId))
     .orderBy(asc(wrenches.label));
 }
 
 export async function getWrench(shopId: string, wrenchId: string): Promise<CribWrenchDto> {
-  await sweepOverdue(shopId);
   const [row] = await getDb()
-    .select(columns)
+    .select(columns(await shopToday(shopId)))
     .from(wrenches)
     .where(and(eq(wrenches.shopId, shopId), eq(wrenches.id, wrenchId)));
   if (!row) throw notFound('That wrench');
@@ -118,7 +136,7 @@ export async function wrenchesForEngine(
   shopId: string,
   ids?: string[],
 ): Promise<(Wrench & { label: string })[]> {
-  await sweepOverdue(shopId);
+  const today = await shopToday(shopId);
   const rows = await getDb()
     .select({
       id: wrenches.id,
@@ -134,6 +152,7 @@ export async function wrenchesForEngine(
       and(
         eq(wrenches.shopId, shopId),
         eq(wrenches.status, 'in_service'),
+        not(overdueOn(today)),
         ids ? inArray(wrenches.id, ids) : undefined,
       ),
     );
@@ -149,8 +168,7 @@ export async function createWrench(actor: Member, input: WrenchInput): Promise<C
       cyclesSinceCalibration: input.cyclesSinceCalibration ?? null,
       shopId: actor.shopId,
     })
-    .returning(columns);
-  await sweepOverdue(actor.shopId);
+    .returning({ id: wrenches.id });
   return getWrench(actor.shopId, row!.id);
 }
 

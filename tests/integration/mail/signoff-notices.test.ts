@@ -8,9 +8,13 @@ import { transitionJob } from '@/features/jobs/server/transitions';
 import { createTestShop } from '@/tests/helpers/factories';
 import { waitForMail } from '@/tests/helpers/mailbox';
 import { actAs } from '@/tests/helpers/next-request';
+import { runQueueWorker } from '@/tests/helpers/queue';
 import { createRecords } from '@/tests/helpers/records';
 import { INTEGRATION_SINK } from '@/tests/helpers/test-services';
 import { workAndSubmitWheels } from '@/tests/helpers/wheel-work';
+
+// The notices go out from the queue: a worker runs for this file, as `npm run worker` would.
+runQueueWorker();
 
 async function submittedJob() {
   const shop = await createTestShop('Notice Shop');

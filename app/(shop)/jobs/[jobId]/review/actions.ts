@@ -9,6 +9,7 @@ import { isSelfReview } from '@/features/jobs/transitions';
 import { sendBackNote } from '@/features/review/acknowledge';
 import { signOffReviewed } from '@/features/review/server/decide';
 import { approveSchema, sendBackSchema } from '@/features/review/schemas';
+import { scheduleFollowUp } from '@/features/follow-up/server/schedule';
 import { memberAction } from '@/server/action';
 import { DomainError } from '@/server/errors';
 
@@ -34,6 +35,8 @@ export const approveReviewed = memberAction(
     const result = await signOffReviewed(member, input, reviewSources, (tx, note) =>
       transitionJob(member, input.jobId, 'sign_off', note, { tx, reviewed: true }),
     );
+    // After the commit: the customer's e-mail and the re-check reminder go on the queue.
+    await scheduleFollowUp(member.shopId, input.jobId);
     refresh(input.jobId);
     return { ...result, message: 'Signed off.' };
   },

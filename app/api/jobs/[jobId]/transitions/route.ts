@@ -6,6 +6,7 @@ import { transitionJob } from '@/features/jobs/server/transitions';
 import { getWorkFacts } from '@/features/jobs/server/work-facts';
 import { isSelfReview, transitionRefusal } from '@/features/jobs/transitions';
 import { acknowledgementSchema } from '@/features/review/schemas';
+import { scheduleFollowUp } from '@/features/follow-up/server/schedule';
 import { signOffReviewed } from '@/features/review/server/decide';
 import { DomainError } from '@/server/errors';
 import { apiRoute } from '@/server/http/handler';
@@ -49,6 +50,8 @@ export const POST = apiRoute(
       reviewSources,
       (tx, note) => transitionJob(member, params.jobId, 'sign_off', note, { tx, reviewed: true }),
     );
+    // After the commit: the customer's e-mail and the re-check reminder go on the queue.
+    await scheduleFollowUp(member.shopId, params.jobId);
     return { data: await getJob(member.shopId, params.jobId) };
   },
 );

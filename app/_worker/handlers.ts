@@ -1,0 +1,39 @@
+import 'server-only';
+import {
+  deliverRecheckReminder,
+  deliverReportEmail,
+  type ReportEmailComposer,
+} from '@/features/follow-up/server/deliver';
+import { sweepAllShops } from '@/features/tool-crib/server/wrenches';
+import { deliverTransitionNotices } from '@/server/mail/job-notices';
+import { sendMail, type OutgoingMail } from '@/server/mail/mailer';
+import type { QueueHandlers } from '@/server/queue/jobs';
+
+/** Where the queue's handlers meet the features they call (features never import each other). */
+export type WorkerDeps = {
+  send: (mail: OutgoingMail) => Promise<void>;
+  composeReportEmail: ReportEmailComposer;
+};
+
+// Until the reports feature's composer is wired here, the customer e-mail is refused with a reason.
+const noComposer: ReportEmailComposer = () =>
+  Promise.reject(new Error('The completion report e-mail is not available on this server yet.'));
+
+export const defaultDeps: WorkerDeps = { send: sendMail, composeReportEmail: noComposer };
+
+export function queueHandlers(deps: WorkerDeps = defaultDeps): QueueHandlers {
+  return {
+    'recheck-reminder': async (data, attempt) => {
+      await deliverRecheckReminder(data, attempt, deps.send);
+    },
+    'customer-report-email': async (data, attempt) => {
+      await deliverReportEmail(data, attempt, {
+        compose: deps.composeReportEmail,
+        send: deps.send,
+      });
+    },
+    'job-notice': (data) => deliverTransitionNotices(data, deps.send),
+    'invite-email': () => Promise.resolve(),
+    'wrench-overdue-sweep': () => sweepAllShops(),
+  };
+}

@@ -1,0 +1,35 @@
+'use server';
+
+import { revalidatePath } from 'next/cache';
+import { memberAction } from '@/server/action';
+import { followUpJobSchema, rescheduleSchema } from '../schemas';
+import { cancelRecheck, rescheduleRecheck, resendReportEmail } from '../server/control';
+
+const refresh = (jobId: string) => revalidatePath(`/jobs/${jobId}`);
+
+export const cancelRecheckReminder = memberAction(
+  { permission: 'followup.manage', schema: followUpJobSchema },
+  async ({ jobId }, member) => {
+    const followUp = await cancelRecheck(member, jobId);
+    refresh(jobId);
+    return { followUp, message: 'Re-check reminder cancelled.' };
+  },
+);
+
+export const rescheduleRecheckReminder = memberAction(
+  { permission: 'followup.manage', schema: rescheduleSchema },
+  async ({ jobId, dueOn }, member) => {
+    const followUp = await rescheduleRecheck(member, jobId, dueOn);
+    refresh(jobId);
+    return { followUp, message: 'Re-check reminder rescheduled.' };
+  },
+);
+
+export const sendCustomerEmailAgain = memberAction(
+  { permission: 'followup.manage', schema: followUpJobSchema },
+  async ({ jobId }, member) => {
+    const followUp = await resendReportEmail(member, jobId);
+    refresh(jobId);
+    return { followUp, message: 'The customer e-mail is on its way again.' };
+  },
+);

@@ -1,0 +1,69 @@
+'use client';
+
+import { Button } from '@/features/ui/button';
+import { TextField } from '@/features/ui/field';
+import { FormMessage } from '@/features/ui/form-message';
+import { useFormAction } from '@/features/ui/use-form-action';
+import {
+  cancelRecheckReminder,
+  rescheduleRecheckReminder,
+  sendCustomerEmailAgain,
+} from '../actions/follow-up-actions';
+
+type Outcome = { ok: true; data: { message: string } } | { ok: false; message: string } | null;
+const shown = (state: Outcome) => (state?.ok ? { ok: true, message: state.data.message } : state);
+
+/** A lead's controls for the reminder: move it to a day (also to send it again), or cancel it. */
+export function RecheckControls({
+  jobId,
+  dueOn,
+  canCancel,
+}: {
+  jobId: string;
+  dueOn: string;
+  canCancel: boolean;
+}) {
+  const move = useFormAction(rescheduleRecheckReminder);
+  const cancel = useFormAction(cancelRecheckReminder);
+  return (
+    <div className="flex flex-col gap-3">
+      <form action={move.formAction} noValidate className="flex flex-col gap-2">
+        <FormMessage state={shown(move.state)} />
+        <input type="hidden" name="jobId" value={jobId} />
+        <TextField
+          label="Re-check due on"
+          name="dueOn"
+          type="date"
+          defaultValue={move.value('dueOn') ?? dueOn}
+          errors={move.errors('dueOn')}
+        />
+        <Button variant="secondary" disabled={move.pending}>
+          Reschedule
+        </Button>
+      </form>
+      {canCancel ? (
+        <form action={cancel.formAction}>
+          <FormMessage state={shown(cancel.state)} />
+          <input type="hidden" name="jobId" value={jobId} />
+          <Button variant="danger" disabled={cancel.pending}>
+            Cancel reminder
+          </Button>
+        </form>
+      ) : null}
+    </div>
+  );
+}
+
+/** "Send again" for the customer's completion e-mail. */
+export function SendAgainButton({ jobId }: { jobId: string }) {
+  const { state, formAction, pending } = useFormAction(sendCustomerEmailAgain);
+  return (
+    <form action={formAction} className="flex flex-col gap-2">
+      <FormMessage state={shown(state)} />
+      <input type="hidden" name="jobId" value={jobId} />
+      <Button variant="secondary" disabled={pending}>
+        Send again
+      </Button>
+    </form>
+  );
+}

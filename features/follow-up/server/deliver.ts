@@ -1,0 +1,138 @@
+import 'server-only';
+import { and, eq, sql } from 'drizzle-orm';
+import { getDb } from '@/db';
+import { customerReportEmails, recheckReminders } from '@/db/schema';
+import type { OutgoingMail } from '@/server/mail/mailer';
+import { isLastAttempt, type JobAttempt } from '@/server/queue/jobs';
+import { composeRecheckReminder } from './reminder-data';
+
+/** How a handler sends mail: the mail module in the worker, a stand-in in tests. */
+export type MailSender = (mail: OutgoingMail) => Promise<void>;
+
+/** The customer's completion e-mail, made by the reports feature (null: no address). */
+export type ReportEmail = {
+  to: string;
+  subject: string;
+  html: string;
+  text: string;
+  attachments: { filename: string; content: Buffer; contentType: string }[];
+};
+export type ReportEmailComposer = (shopId: string, jobId: string) => Promise<ReportEmail | null>;
+
+/** Why a send failed, short enough for the job card. */
+export const failureReason = (error: unknown) =>
+  (error instanceof Error ? error.message : String(error)).replace(/\s+/g, ' ').slice(0, 300);
+
+/** Thrown after the row has recorded the failure, so pg-boss retries the job with its backoff. */
+export class RetryLater extends Error {}
+
+/**
+ * The re-check reminder, once. The row is locked for the send: a second worker holding the same
+ * job (or a duplicate job) waits, then finds it `sent` and does nothing. A row that was cancelled
+ * or moved to another day (its job carries the old day) is left alone. A failed send stays
+ * `scheduled` with its reason until the last attempt, which marks it `failed`.
+ */
+export async function deliverRecheckReminder(
+  data: { shopId: string; jobId: string; dueOn: string },
+  attempt: JobAttempt,
+  send: MailSender,
+): Promise<'sent' | 'skipped'> {
+  const outcome = await getDb().transaction(async (tx) => {
+    const where = and(
+      eq(recheckReminders.shopId, data.shopId),
+      eq(recheckReminders.jobId, data.jobId),
+    );
+    const [row] = await tx
+      .select({ status: recheckReminders.status, dueOn: recheckReminders.dueOn })
+      .from(recheckReminders)
+      .where(where)
+      .for('update');
+    if (!row || row.status !== 'scheduled' || row.dueOn !== data.dueOn) return 'skipped' as const;
+    try {
+      const mails = await composeRecheckReminder(data.shopId, data.jobId, data.dueOn);
+      if (!mails) throw new Error('Nobody to send it to: no customer address and no lead.');
+      for (const mail of mails) await send(mail);
+    } catch (error) {
+      const last = isLastAttempt(attempt);
+      await tx
+        .update(recheckReminders)
+        .set({
+          status: last ? 'failed' : 'scheduled',
+          attempts: sql`${recheckReminders.attempts} + 1`,
+          lastError: failureReason(error),
+          updatedAt: new Date(),
+        })
+        .where(where);
+      return last ? ('skipped' as const) : new RetryLater(failureReason(error));
+    }
+    await tx
+      .update(recheckReminders)
+      .set({
+        status: 'sent',
+        sentAt: new Date(),
+        attempts: sql`${recheckReminders.attempts} + 1`,
+        lastError: null,
+        updatedAt: new Date(),
+      })
+      .where(where);
+    return 'sent' as const;
+  });
+  if (outcome instanceof RetryLater) throw outcome;
+  return outcome;
+}
+
+/**
+ * The customer's completion e-mail, once per request: the same lock-then-check as the reminder,
+ * on the row a sign-off or a lead's "Send again" set to `queued`.
+ */
+export async function deliverReportEmail(
+  data: { shopId: string; jobId: string },
+  attempt: JobAttempt,
+  deps: { compose: ReportEmailComposer; send: MailSender },
+): Promise<'sent' | 'skipped'> {
+  const outcome = await getDb().transaction(async (tx) => {
+    const where = and(
+      eq(customerReportEmails.shopId, data.shopId),
+      eq(customerReportEmails.jobId, data.jobId),
+    );
+    const [row] = await tx
+      .select({ status: customerReportEmails.status })
+      .from(customerReportEmails)
+      .where(where)
+      .for('update');
+    if (!row || row.status !== 'queued') return 'skipped' as const;
+    let to: string;
+    try {
+      const mail = await deps.compose(data.shopId, data.jobId);
+      if (!mail) throw new Error('The customer has no e-mail address.');
+      to = mail.to;
+      await deps.send({ ...mail, shopId: data.shopId });
+    } catch (error) {
+      const last = isLastAttempt(attempt);
+      await tx
+        .update(customerReportEmails)
+        .set({
+          status: last ? 'failed' : 'queued',
+          attempts: sql`${customerReportEmails.attempts} + 1`,
+          lastError: failureReason(error),
+          updatedAt: new Date(),
+        })
+        .where(where);
+      return last ? ('skipped' as const) : new RetryLater(failureReason(error));
+    }
+    await tx
+      .update(customerReportEmails)
+      .set({
+        status: 'sent',
+        toAddress: to,
+        sentAt: new Date(),
+        attempts: sql`${customerReportEmails.attempts} + 1`,
+        lastError: null,
+        updatedAt: new Date(),
+      })
+      .where(where);
+    return 'sent' as const;
+  });
+  if (outcome instanceof RetryLater) throw outcome;
+  return outcome;
+}
