@@ -10,6 +10,7 @@ import { migrateDatabase } from '@/db/migrate';
 import { startMailSink } from '@/server/dev/mail-sink';
 import { startUploadFake } from '@/server/dev/upload-fake';
 import { E2E, ROOT } from '../helpers/test-services';
+import { builtFrom, sourceFingerprint, stampBuild } from './build-fingerprint';
 
 async function main() {
   await startCluster();
@@ -20,8 +21,7 @@ async function main() {
   rmSync(E2E.uploads.dir, { recursive: true, force: true });
   const uploads = await startUploadFake(E2E.uploads);
 
-  const env = {
-    ...process.env,
+  const settings = {
     NODE_ENV: 'production' as const,
     NEXT_TELEMETRY_DISABLED: '1',
     NEXT_DIST_DIR: '.next-e2e',
@@ -32,12 +32,18 @@ async function main() {
     // A production build: the Mailbox, through which the tests read mail as a lead, needs the demo flag.
     MAILBOX_DEMO: 'true',
     COOKIE_SECURE: 'false',
-    ...uploads.env,
+    // The types are checked once per `npm test`, by its typecheck step, not again inside the build.
+    RINGPASS_BUILD_SKIP_TYPECHECK: '1',
   };
+  const env = { ...process.env, ...settings, ...uploads.env };
+  // The upload fake's key is new on every start and read only at run time: not part of the build.
+  const fingerprint = sourceFingerprint(ROOT, settings);
   const next = path.join(ROOT, 'node_modules', '.bin', 'next');
   const build = () => {
+    rmSync(path.join(E2E.distDir, 'BUILD_ID'), { force: true });
     if (spawnSync(next, ['build'], { cwd: ROOT, env, stdio: 'inherit' }).status !== 0)
       throw new Error('next build failed');
+    stampBuild(E2E.distDir, fingerprint);
   };
   const start = () =>
     spawn(next, ['start', '-H', '127.0.0.1', '-p', String(E2E.appPort)], {
@@ -45,7 +51,10 @@ async function main() {
       env,
       stdio: 'inherit',
     });
-  build();
+  // One build per run at most, none when .next-e2e was built from these very sources (a developer
+  // running one spec after another); E2E_REBUILD=1 builds regardless.
+  if (process.env.E2E_REBUILD || !builtFrom(E2E.distDir, fingerprint)) build();
+  else console.log('[e2e] the sources are unchanged since the last e2e build: reusing .next-e2e');
   let server = start();
   let redeploying = false;
   const onExit = (code: number | null) => {
