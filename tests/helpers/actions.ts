@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { getDb } from '@/db';
-import { users } from '@/db/schema';
+import { practiceClearances, users } from '@/db/schema';
 import { createInvite } from '@/features/accounts/server/invites';
 import { createJob, getJob } from '@/features/jobs/server/jobs';
 import { createAttempt } from '@/features/practice/server/attempts';
@@ -66,6 +66,25 @@ async function freshJob(w: World) {
     acceptAxleMismatch: false,
   });
   return getJob(w.a.shopId, id);
+}
+
+/** A new apprentice of the shop, optionally already cleared for real wheels by its lead. */
+async function freshApprentice(shop: Shop, cleared = false) {
+  const [row] = await getDb()
+    .insert(users)
+    .values({
+      shopId: shop.shopId,
+      role: 'apprentice',
+      name: 'Ash Apprentice',
+      email: `apprentice-${randomUUID()}@shop.test`,
+      passwordHash: 'x',
+    })
+    .returning({ id: users.id });
+  if (cleared)
+    await getDb()
+      .insert(practiceClearances)
+      .values({ shopId: shop.shopId, userId: row!.id, clearedById: shop.lead.userId });
+  return row!.id;
 }
 
 const at = () => new Date().toISOString();
@@ -191,6 +210,19 @@ export const ACTION_CASES: Record<string, ActionCase> = {
     permission: 'board.view',
     input: async (w) => ({ jobId: (await freshJob(w)).id, action: 'start' }),
     asAllowed: { apprentice: 'forbidden' },
+    otherShop: 'not_found',
+  },
+  '/features/practice/actions/clearance-actions.ts#clearForRealWheels': {
+    permission: 'practice.clear',
+    input: async (w) => ({
+      userId: await freshApprentice(w.a),
+      note: 'Clean passes at every level.',
+    }),
+    otherShop: 'not_found',
+  },
+  '/features/practice/actions/clearance-actions.ts#revokeRealWheelsClearance': {
+    permission: 'practice.clear',
+    input: async (w) => ({ userId: await freshApprentice(w.a, true) }),
     otherShop: 'not_found',
   },
   '/features/practice/actions/practice-actions.ts#startPracticeAttempt': {

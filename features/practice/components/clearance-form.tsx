@@ -1,0 +1,58 @@
+'use client';
+
+import { Button } from '@/features/ui/button';
+import { FormMessage } from '@/features/ui/form-message';
+import { useFormAction } from '@/features/ui/use-form-action';
+import { clearForRealWheels, revokeRealWheelsClearance } from '../actions/clearance-actions';
+
+/** The lead's control: clear an apprentice for real wheels (with a note), or take it back. */
+export function ClearanceForm({
+  userId,
+  name,
+  cleared,
+}: {
+  userId: string;
+  name: string;
+  cleared: boolean;
+}) {
+  const clear = useFormAction(clearForRealWheels);
+  const revoke = useFormAction(revokeRealWheelsClearance);
+  if (cleared) {
+    return (
+      <form action={revoke.formAction} className="flex flex-col gap-2">
+        <input type="hidden" name="userId" value={userId} />
+        <Button variant="secondary" disabled={revoke.pending}>
+          Revoke {name}&rsquo;s clearance
+        </Button>
+        <FormMessage state={revoke.state} />
+      </form>
+    );
+  }
+  const noteId = `clear-note-${userId}`;
+  const errors = clear.errors('note');
+  return (
+    <form action={clear.formAction} className="flex flex-col gap-2">
+      <input type="hidden" name="userId" value={userId} />
+      <label htmlFor={noteId} className="font-semibold">
+        Note (optional)
+      </label>
+      <textarea
+        id={noteId}
+        name="note"
+        rows={2}
+        maxLength={500}
+        defaultValue={clear.value('note')}
+        aria-invalid={errors?.length ? true : undefined}
+        className="border-ink-soft bg-paper text-ink rounded-lg border-2 p-2"
+        placeholder="What you saw them do well"
+      />
+      {errors?.length ? (
+        <p className="text-danger text-sm font-semibold" role="alert">
+          {errors.join(' ')}
+        </p>
+      ) : null}
+      <Button disabled={clear.pending}>Clear {name} for real wheels</Button>
+      <FormMessage state={clear.state} />
+    </form>
+  );
+}
