@@ -26,6 +26,8 @@ export type StackPlan =
       mailSink: boolean;
       /** Run the local upload fake (no UPLOADTHING_TOKEN). */
       uploadFake: boolean;
+      /** Run a queue worker beside the web server (unless RINGPASS_WORKER=false: workers run apart). */
+      worker: boolean;
     };
 
 type Source = Record<string, string | undefined>;
@@ -99,5 +101,6 @@ export function planStack(source: Source): StackPlan {
     seedDemoShop: demo,
     mailSink: !set('SMTP_URL'),
     uploadFake: !set('UPLOADTHING_TOKEN'),
+    worker: source.RINGPASS_WORKER?.trim() !== 'false',
   };
 }

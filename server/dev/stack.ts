@@ -16,6 +16,7 @@ import { DEMO_PASSWORD, DEMO_PEOPLE, DEMO_SHOP, seedDemoShop } from '@/db/seed';
 import { startMailSink } from './mail-sink';
 import { planStack } from './stack-plan';
 import { startUploadFake } from './upload-fake';
+import { spawnWorker, stopWorker } from './worker-process';
 
 const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
 const SINK_PORT = 2525;
@@ -85,11 +86,14 @@ async function main(mode: 'start' | 'dev') {
     if (build.status !== 0) throw new Error('next build failed');
   }
 
+  const nodeEnv = mode === 'start' ? 'production' : 'development';
   const child = spawn(NEXT, [mode, '-H', plan.host, '-p', String(plan.port)], {
     cwd: ROOT,
-    env: { ...env, NODE_ENV: mode === 'start' ? 'production' : 'development' },
+    env: { ...env, NODE_ENV: nodeEnv },
     stdio: 'inherit',
   });
+  // The queue's worker (mail, the re-check reminders, the hourly wrench sweep), stopped with the app.
+  const worker = plan.worker ? spawnWorker({ ...env, NODE_ENV: nodeEnv }) : undefined;
 
   if (seeded) {
     console.log(
@@ -101,6 +105,7 @@ async function main(mode: 'start' | 'dev') {
     console.log(`\nRingpass: ${env.APP_URL} (listening on ${plan.host}:${plan.port})`);
   }
   if (env.MAILBOX_DIR) console.log(`Mail goes to the local sink: ${env.APP_URL}/mailbox`);
+  if (!worker) console.log('No queue worker here (RINGPASS_WORKER=false): run `npm run worker`.');
   if (env.UPLOADTHING_INGEST_URL?.includes('127.0.0.1'))
     console.log(
       `Photos go to the local upload fake: ${env.UPLOADTHING_INGEST_URL} (files in .data/uploads)`,
@@ -115,7 +120,9 @@ async function main(mode: 'start' | 'dev') {
   process.on('SIGINT', stop);
   process.on('SIGTERM', stop);
   child.on('exit', (code) => {
-    void Promise.all([closeSink(), closeUploads()]).finally(() => process.exit(code ?? 0));
+    void (worker ? stopWorker(worker) : Promise.resolve())
+      .then(() => Promise.all([closeSink(), closeUploads()]))
+      .finally(() => process.exit(code ?? 0));
   });
 }
 
