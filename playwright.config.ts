@@ -18,29 +18,46 @@ const chromium = {
   ],
 };
 
+const desktop = { ...devices['Desktop Chrome'], launchOptions: chromium };
+const phone = {
+  ...devices['Pixel 5'],
+  viewport: { width: 360, height: 640 },
+  launchOptions: chromium,
+};
+
 export default defineConfig({
   testDir: 'tests/e2e',
-  fullyParallel: false,
-  workers: 1,
+  // Every test makes or reuses what it needs (tests/e2e/roles.ts), so tests run in any order, on two
+  // workers (the machine's two cores; the server and the database share them). E2E_WORKERS=1 to compare.
+  fullyParallel: true,
+  workers: Number(process.env.E2E_WORKERS ?? 2),
   retries: 0,
   forbidOnly: Boolean(process.env.CI),
   timeout: 60_000,
   reporter: [['list'], ['json', { outputFile: '.data/reports/e2e.json' }]],
   use: { baseURL, trace: 'retain-on-failure', launchOptions: chromium },
   projects: [
+    // Signs up one shop and its people through the product once and saves each role's signed-in
+    // state under .data/e2e-auth (tests/e2e/roles.ts); every other project waits for it.
+    { name: 'setup', testMatch: /auth\.setup\.ts/, use: desktop },
     {
       name: 'desktop',
-      use: { ...devices['Desktop Chrome'], launchOptions: chromium },
-      testIgnore: /(mobile|my-wheels|runner|runner-procedure)\.spec/,
+      use: desktop,
+      dependencies: ['setup'],
+      testIgnore: /(mobile|my-wheels|runner|runner-procedure|redeploy)\.spec/,
     },
     {
       name: 'phone',
-      use: {
-        ...devices['Pixel 5'],
-        viewport: { width: 360, height: 640 },
-        launchOptions: chromium,
-      },
+      use: phone,
+      dependencies: ['setup'],
       testMatch: /(mobile|my-wheels|runner|runner-procedure)\.spec/,
+    },
+    // Stops the server and builds the app again mid-test: alone, after every other test.
+    {
+      name: 'redeploy',
+      use: phone,
+      dependencies: ['desktop', 'phone'],
+      testMatch: /redeploy\.spec/,
     },
   ],
   webServer: {

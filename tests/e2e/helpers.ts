@@ -3,8 +3,9 @@ import { waitForMail } from '@/tests/helpers/mailbox';
 import { E2E } from '@/tests/helpers/test-services';
 
 let counter = 0;
+// The process id keeps two workers that ask in the same millisecond apart.
 export const uniqueEmail = (who: string) =>
-  `${who}-${Date.now().toString(36)}-${counter++}@e2e.test`;
+  `${who}-${Date.now().toString(36)}-${process.pid.toString(36)}-${counter++}@e2e.test`;
 export const PASSWORD = 'gloves-on-and-torqued';
 
 export async function signUp(page: Page, shopName: string, name: string, email: string) {

@@ -1,99 +1,7 @@
-import { expect, test, type Page } from '@playwright/test';
-import { readFileSync } from 'node:fs';
-import { serverActionId } from '../helpers/next-build';
-import { E2E } from '../helpers/test-services';
-import { expectNoSideScroll, PASSWORD, signUp, uniqueEmail } from './helpers';
+import { expect, test } from '@playwright/test';
+import { expectNoSideScroll, PASSWORD } from './helpers';
 import { confirmBolts, startAllBolts } from './runner-helpers';
-
-/** A same-origin API call with the page's session, as the app itself would make it. */
-async function api<T>(
-  page: Page,
-  method: 'GET' | 'POST',
-  path: string,
-  body?: unknown,
-): Promise<T> {
-  const origin = new URL(page.url()).origin;
-  const res = await page.request.fetch(path, {
-    method,
-    data: body,
-    headers: { origin, 'content-type': 'application/json' },
-  });
-  expect(res.ok(), `${method} ${path}: ${await res.text()}`).toBe(true);
-  return ((await res.json()) as { data: T }).data;
-}
-
-const BLUE = {
-  label: 'Blue click 20–200 in-lb',
-  kind: 'click',
-  min: 20,
-  max: 200,
-  unit: 'lbf-in',
-  graduation: 1,
-};
-
-/**
- * A shop with a wrench (verified today unless `unverified`), an 8-bolt spec and a one-wheel job
- * assigned to its lead. A verification counts only near the setting it is used at (the shop's
- * default: ±25 %), so the wrench is checked at each working point: 43, 101 and 144 in-lb.
- */
-async function setUpWheel(
-  page: Page,
-  {
-    wrenches = [BLUE],
-    unverified = false,
-  }: { wrenches?: (typeof BLUE)[]; unverified?: boolean } = {},
-) {
-  const email = uniqueEmail('runner');
-  await signUp(page, 'Offline Rim Shop', 'Lou Bead', email);
-  const me = (await api<{ id: string }[]>(page, 'GET', '/api/team/members'))[0]!;
-  const calibrationDueOn = new Date(Date.now() + 200 * 86_400_000).toISOString().slice(0, 10);
-  for (const body of wrenches) {
-    const wrench = await api<{ id: string }>(page, 'POST', '/api/wrenches', {
-      ...body,
-      calibrationDueOn,
-    });
-    if (unverified) continue;
-    for (const referenceValue of [43, 101, 144]) {
-      await api(page, 'POST', `/api/wrenches/${wrench.id}/verifications`, {
-        referenceValue,
-        readingValue: referenceValue,
-        unit: 'lbf-in',
-      });
-    }
-  }
-  const spec = await api<{ id: string }>(page, 'POST', '/api/specs', {
-    name: '8-bolt test ring',
-    boltCount: 8,
-    boltThread: 'M8×1.25',
-    finalTorque: 12,
-    torqueUnit: 'lbf-ft',
-    passPercents: [30, 70, 100],
-    patternKind: 'cross',
-    checkPass: true,
-    maxBeadSeatPressure: 30,
-    runningPressure: 14,
-    pressureUnit: 'psi',
-  });
-  const job = await api<{ id: string; wheels: { id: string }[] }>(page, 'POST', '/api/jobs', {
-    customer: { name: 'Ada Offroad', phone: '', email: '' },
-    vehicle: { make: 'Boreal', model: 'Scout', description: '' },
-    wheels: [
-      {
-        position: 'LF',
-        specId: spec.id,
-        tireSize: '26x9-14',
-        directional: true,
-        targetPressure: 8,
-        pressureUnit: 'psi',
-      },
-    ],
-    dismount: false,
-    reinstall: false,
-    assigneeId: me.id,
-  });
-
-  return { job, wheelId: job.wheels[0]!.id, email };
-}
+import { api, BLUE, setUpWheel } from './runner-shop';
 
 test('at 360×640 a wheel runs through its steps; offline, 10 bolts are confirmed, the page reloads offline, and back online exactly those 10 are stored, in order', async ({
   page,
@@ -130,10 +38,16 @@ test('at 360×640 a wheel runs through its steps; offline, 10 bolts are confirme
 
   await expect(page.getByText('Set Blue click 20–200 in-lb to 43 in-lb')).toBeVisible();
   await expect(page.getByRole('status').filter({ hasText: 'Saved' })).toBeVisible();
-  await page.waitForFunction(async () =>
-    Boolean((await navigator.serviceWorker.getRegistration())?.active),
-  );
-  await page.waitForTimeout(500); // let the worker store the page it was sent
+  // Offline reload works once the service worker holds this page and the scripts it runs on.
+  await page.waitForFunction(async () => {
+    const copy = await caches.match(location.pathname, { cacheName: 'ringpass-runner-pages-v1' });
+    const assets = await caches.open('ringpass-runner-assets-v1');
+    const scripts = [...document.scripts]
+      .map((s) => s.src)
+      .filter((src) => src && new URL(src).pathname.startsWith('/_next/static/'));
+    const held = await Promise.all(scripts.map((src) => assets.match(src)));
+    return Boolean(copy) && held.every(Boolean);
+  });
   await expectNoSideScroll(page);
   await testInfo.attach('a pass', { body: await page.screenshot(), contentType: 'image/png' });
   await page.getByRole('button', { name: 'Wrench set' }).click();
@@ -264,55 +178,6 @@ test('at 360×640 a wheel runs through its steps; offline, 10 bolts are confirme
   await page.goto(`/jobs/${job.id}`);
   await expect(page.getByText('Awaiting sign-off').first()).toBeVisible();
   await expect(page.getByRole('img', { name: 'Seated bead, outer face' })).toBeVisible();
-});
-
-test('a confirmation queued before a deploy is delivered to the new build', async ({
-  page,
-  context,
-}) => {
-  test.setTimeout(180_000);
-  const { job, wheelId } = await setUpWheel(page);
-  await page.goto(`/jobs/${job.id}/wheels/${wheelId}/run`);
-  await expect(page.getByRole('heading', { name: /Safety gate/ })).toBeVisible();
-  await page.waitForFunction(async () =>
-    Boolean((await navigator.serviceWorker.getRegistration())?.active),
-  );
-  const buildBefore = readFileSync(`${E2E.distDir}/BUILD_ID`, 'utf8');
-  const actionBefore = serverActionId(E2E.distDir, 'saveWheelEvents');
-
-  await context.setOffline(true);
-  for (const box of await page.locator('main input[type=checkbox]').all()) await box.check();
-  await page.getByRole('button', { name: 'Step done' }).click();
-  await expect(page.getByRole('status').filter({ hasText: '1 waiting · offline' })).toBeVisible();
-
-  // Deploy: the server stops, a new build is made, the server starts again on it.
-  process.kill(Number(readFileSync(E2E.servePidFile, 'utf8')), 'SIGUSR2');
-  await expect
-    .poll(
-      async () => {
-        try {
-          const buildNow = readFileSync(`${E2E.distDir}/BUILD_ID`, 'utf8');
-          const up = (await fetch(`${new URL(page.url()).origin}/sign-in`)).ok;
-          return up && buildNow !== buildBefore;
-        } catch {
-          return false;
-        }
-      },
-      { timeout: 150_000, intervals: [1000] },
-    )
-    .toBe(true);
-  // The trap itself: the page still holds the old build's action id, which the new build lacks.
-  expect(serverActionId(E2E.distDir, 'saveWheelEvents')).not.toBe(actionBefore);
-
-  await context.setOffline(false);
-  await expect(page.getByRole('status').filter({ hasText: 'Saved' })).toBeVisible({
-    timeout: 20_000,
-  });
-  const { events } = (await (await page.request.get(`/api/wheels/${wheelId}/events`)).json())
-    .data as { events: { type: string; payload: { step?: string } }[] };
-  expect(events.map((e) => `${e.type}:${e.payload.step}`)).toEqual(['step_done:safety']);
-  await page.reload();
-  await expect(page.getByRole('heading', { name: /Clean and deburr/ })).toBeVisible();
 });
 
 test('a session that ends mid-wheel keeps the confirmation; signing in again comes back to the runner and sends it', async ({
