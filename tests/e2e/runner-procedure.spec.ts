@@ -2,7 +2,7 @@ import { expect, test, type Page } from '@playwright/test';
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import { expectNoSideScroll, signUp, uniqueEmail } from './helpers';
-import { confirmBolts, startAllBolts } from './runner-helpers';
+import { confirmBolts, startAllBolts, tapConfirmation } from './runner-helpers';
 
 const SHOTS = path.join(process.cwd(), '.data', 'screenshots');
 mkdirSync(SHOTS, { recursive: true });
@@ -209,8 +209,7 @@ test('a check pass with one bolt that turned adds another check pass; a lap wher
   await expect(card).toContainText('Check pass');
   await page.getByRole('button', { name: 'Wrench set' }).click();
   await expect(page.getByText('Bolt 1: did it turn before the wrench clicked?')).toBeVisible();
-  await page.getByRole('button', { name: 'Turned' }).click();
-  await page.waitForTimeout(450);
+  await tapConfirmation(page, page.getByRole('button', { name: 'Turned' }));
   await confirmBolts(page, 7); // "Didn't turn" for the rest
   await expect(card).toContainText('Check pass 2');
   await page.getByRole('button', { name: 'Wrench set' }).click();
