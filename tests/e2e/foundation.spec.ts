@@ -1,5 +1,6 @@
 import { expect, test } from '@playwright/test';
 import { invite, PASSWORD, signIn, signUp, uniqueEmail } from './helpers';
+import { contextAs, sharedPeople } from './roles';
 
 test('a lead signs up, invites a technician by e-mail; the technician accepts, signs in and lands on their (empty) wheels; the board is one tap away', async ({
   page,
@@ -96,17 +97,18 @@ test('bad input on sign-up gets a message at each field and creates nothing', as
   await expect(page.getByLabel('E-mail')).toHaveValue('not-an-address');
 });
 
-test("a user of one shop gets 404 for another shop's id", async ({ page, browser }) => {
-  const leadA = uniqueEmail('lead-a');
-  await signUp(page, 'Shop A Offroad', 'Alma Ring', leadA);
+test("a user of one shop gets 404 for another shop's id", async ({ browser }) => {
+  // The shared shop's lead and the second shop's lead, both signed in by the setup project.
+  const lead = sharedPeople().lead;
+  const shopA = await contextAs(browser, 'lead');
+  const page = shopA.page;
   await page.goto('/team');
-  await page.getByRole('link', { name: /Alma Ring/ }).click();
-  await expect(page.getByRole('heading', { name: 'Alma Ring' })).toBeVisible();
+  await page.getByRole('link', { name: lead.name }).click();
+  await expect(page.getByRole('heading', { name: lead.name })).toBeVisible();
   const memberUrl = page.url();
+  await shopA.context.close();
 
-  const other = await browser.newContext();
-  const pageB = await other.newPage();
-  await signUp(pageB, 'Shop B Offroad', 'Bo Valve', uniqueEmail('lead-b'));
+  const { context: other, page: pageB } = await contextAs(browser, 'other-lead');
   const response = await pageB.goto(memberUrl);
   expect(response?.status()).toBe(404);
   await expect(pageB.getByRole('heading', { name: 'Not found' })).toBeVisible();

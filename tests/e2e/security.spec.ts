@@ -1,5 +1,6 @@
 import { expect, test, type Page } from '@playwright/test';
-import { invite, inviteAndJoin, signIn, signUp, uniqueEmail } from './helpers';
+import { invite, signIn, signUp, uniqueEmail } from './helpers';
+import { contextAs, sharedPeople } from './roles';
 
 /** Collects what Chromium reports as blocked by the Content-Security-Policy on this page. */
 function cspViolations(page: Page) {
@@ -36,10 +37,8 @@ test('pages carry a per-response CSP nonce on every script, refuse framing and s
 });
 
 test('a server action with a body over 256 kB is refused before it runs', async ({ page }) => {
-  const email = uniqueEmail('action-cap');
-  await signUp(page, 'Body Cap Wheels', 'Bea Limit', email);
-  await page.getByRole('button', { name: 'Sign out' }).click();
-  await expect(page.getByRole('heading', { name: 'Sign in' })).toBeVisible();
+  // Signed out: the shared lead signs in (a session of this test's own; the shared one is untouched).
+  const { email } = sharedPeople().lead;
 
   // Catch the sign-in action as the form sends it, then send it again with padding added.
   let captured: { url: string; headers: Record<string, string>; body: Buffer } | undefined;
@@ -87,7 +86,6 @@ test('a server action with a body over 256 kB is refused before it runs', async 
 });
 
 test('the Mailbox: signed out goes to sign-in; a technician is refused; a lead sees only their own shop’s mail, under a demo banner', async ({
-  page,
   browser,
 }) => {
   const signedOut = await browser.newContext();
@@ -98,9 +96,13 @@ test('the Mailbox: signed out goes to sign-in; a technician is refused; a lead s
   await expect(anonymous.getByRole('heading', { name: 'Mailbox' })).toHaveCount(0);
   await signedOut.close();
 
-  await signUp(page, 'Mailbox Shop A', 'Ana Inbox', uniqueEmail('mail-a'));
-  const invitedToA = uniqueEmail('mail-a-tech');
-  const tech = await inviteAndJoin(page, browser, invitedToA, 'Tia Tech', 'Technician');
+  // Shop A is the shared shop (the invite below is this test's own); shop B is the second shop,
+  // whose Mailbox nobody writes to.
+  const lead = await contextAs(browser, 'lead');
+  const page = lead.page;
+  const invitedToA = uniqueEmail('mail-a-invitee');
+  await invite(page, invitedToA, 'Technician');
+  const tech = await contextAs(browser, 'technician');
   const refused = await tech.page.goto('/mailbox');
   expect(refused?.status()).toBe(403);
   await expect(tech.page.getByRole('heading', { name: 'Not for your role' })).toBeVisible();
@@ -116,9 +118,9 @@ test('the Mailbox: signed out goes to sign-in; a technician is refused; a lead s
     page.getByRole('article', { name: new RegExp(`to ${invitedToA.replace(/[.+]/g, '\\$&')}`) }),
   ).toBeVisible();
 
-  const otherShop = await browser.newContext();
-  const leadB = await otherShop.newPage();
-  await signUp(leadB, 'Mailbox Shop B', 'Ben Inbox', uniqueEmail('mail-b'));
+  await lead.context.close();
+
+  const { context: otherShop, page: leadB } = await contextAs(browser, 'other-lead');
   await leadB.goto('/mailbox');
   await expect(leadB.getByRole('heading', { name: 'Mailbox' })).toBeVisible();
   await expect(leadB.getByText(invitedToA)).toHaveCount(0);

@@ -1,14 +1,17 @@
 import { expect, test, type Page } from '@playwright/test';
-import { expectNoSideScroll, signUp, uniqueEmail } from './helpers';
+import { expectNoSideScroll } from './helpers';
+import { authFile } from './roles';
 
 // 35 bar is 507.6 psi (1 bar = 100 kPa, 1 psi = 6.894 757 kPa: NIST SP 811 App. B); the ceiling
 // is the tire industry's 40 psi bead-seating guidance for passenger and light-truck tires.
 const REFUSED = /35 bar is 507\.6 psi: above the 40 psi bead-seating ceiling/;
 
-async function refusedInBar(page: Page) {
-  await signUp(page, 'Basin Bead Works', 'Noor Lead', uniqueEmail('lead'));
+// The shared shop's lead; each test names its spec apart, since both land in the same spec list.
+test.use({ storageState: authFile('lead') });
+
+async function refusedInBar(page: Page, name: string) {
   await page.goto('/specs/new');
-  await page.getByLabel('Spec name').fill('Kestrel 16 in sport');
+  await page.getByLabel('Spec name').fill(name);
   await page.getByLabel('Bolt count').fill('16');
   await page.getByLabel('Ring bolt thread').fill('M8×1.25');
   await page.getByLabel('Final torque').fill('15');
@@ -33,17 +36,15 @@ async function refusedInBar(page: Page) {
   await seat.fill('2.4');
   await expect(seat).not.toHaveAttribute('aria-invalid');
   await page.getByRole('button', { name: 'Create spec' }).click();
-  await expect(page.getByRole('heading', { name: 'Kestrel 16 in sport' })).toBeVisible();
+  await expect(page.getByRole('heading', { name })).toBeVisible();
   await page.goto('/specs');
-  await expect(page.getByRole('link', { name: /Kestrel 16 in sport/ })).not.toContainText(
-    'Flagged',
-  );
+  await expect(page.getByRole('link', { name })).not.toContainText('Flagged');
 }
 
 test('a lead types a bead-seat limit in bar and sees it refused, naming psi, as they type and on save (desktop)', async ({
   page,
 }) => {
-  await refusedInBar(page);
+  await refusedInBar(page, 'Kestrel 16 in sport (desktop)');
 });
 
 test.describe('on a phone (360×640)', () => {
@@ -55,7 +56,7 @@ test.describe('on a phone (360×640)', () => {
   });
 
   test('the same refusal, and the form fits the screen', async ({ page }) => {
-    await refusedInBar(page);
+    await refusedInBar(page, 'Kestrel 16 in sport (phone)');
     await page.goto('/specs/new');
     await expectNoSideScroll(page, 'the spec form');
   });
