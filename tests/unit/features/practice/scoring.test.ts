@@ -1,6 +1,8 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
+import { TORQUE_UNITS } from '@/features/torque-plan';
 import { scoreAttempt } from '@/features/practice/scoring';
-import type { PracticeResult } from '@/features/practice/types';
+import { PRACTICE_LEVELS, type PracticeResult } from '@/features/practice/types';
 import { attemptEvents, BIG, practiceSetup, SMALL, swapAt } from '@/tests/helpers/practice-attempt';
 
 // The ring: 12 bolts, cross order 1-7-4-10-2-8-5-11-3-9-6-12 (ASME PCC-1 legacy table, from
@@ -175,5 +177,44 @@ describe('scoreAttempt', () => {
     expect(result.score).toBe(100 - lost(result));
     expect(result.score).toBe(40);
     expect(scoreAttempt(setup, [...events].reverse())).toEqual(result);
+  });
+});
+
+describe('scoreAttempt on any events', () => {
+  it('never throws, stays within 0–100 and each mistake says the points that make the difference', () => {
+    const setup = practiceSetup('wrench_setup');
+    const perfect = attemptEvents(setup);
+    const stray = fc.record({
+      type: fc.constant('bolt_confirmed' as const),
+      payload: fc.record({
+        pass: fc.integer({ min: 1, max: 6 }),
+        bolt: fc.integer({ min: 1, max: 14 }),
+        wrenchId: fc.constantFrom(BIG.id, SMALL.id, 'ffffffff-0000-4000-8000-000000000000'),
+        setting: fc.record({
+          value: fc.double({ min: 0.1, max: 500, noNaN: true }),
+          unit: fc.constantFrom(...TORQUE_UNITS),
+        }),
+        turned: fc.boolean(),
+      }),
+      clientId: fc.uuid(),
+      clientAt: fc
+        .integer({ min: 0, max: 3_600_000 })
+        .map((ms) => new Date(Date.parse('2026-12-01T09:00:00Z') + ms).toISOString()),
+    });
+    fc.assert(
+      fc.property(
+        fc.subarray(perfect),
+        fc.array(stray, { maxLength: 20 }),
+        fc.constantFrom(...PRACTICE_LEVELS),
+        (kept, extra, level) => {
+          const result = scoreAttempt({ ...setup, level }, [...kept, ...extra]);
+          expect(result.score).toBeGreaterThanOrEqual(0);
+          expect(result.score).toBeLessThanOrEqual(100);
+          expect(result.score).toBe(100 - lost(result));
+          for (const p of result.parts) expect(p.points).toBeGreaterThanOrEqual(0);
+        },
+      ),
+      { numRuns: 150 },
+    );
   });
 });
