@@ -64,7 +64,8 @@ export default defineConfig({
     // Builds the app into .next-e2e and serves it against its own database and mail sink.
     command: 'node_modules/.bin/tsx --conditions=react-server tests/e2e/serve.ts',
     url: `${baseURL}/sign-in`,
-    timeout: 240_000,
+    // ≈30 s to build on an idle machine; several minutes when other builds and checks share the cores.
+    timeout: 600_000,
     reuseExistingServer: false,
     stdout: 'pipe',
     stderr: 'pipe',
