@@ -1,6 +1,7 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
+import { JobFollowUp } from '@/features/follow-up/components/job-follow-up';
 import { JobCardPrint } from '@/features/jobs/components/job-card-print';
 import { JobDetails } from '@/features/jobs/components/job-details';
 import { JobEditForm } from '@/features/jobs/components/job-edit-form';
@@ -68,6 +69,13 @@ export default async function JobPage({ params }: PageProps<'/jobs/[jobId]'>) {
             }
             selfReview={isSelfReview(member, job, 'sign_off', facts)}
           />
+          {job.state === 'signed_off' ? (
+            <JobFollowUp
+              shopId={member.shopId}
+              jobId={job.id}
+              canManage={can(member.role, 'followup.manage')}
+            />
+          ) : null}
           {editable ? (
             <JobEditForm job={job} assignees={await listAssignees(member.shopId)} />
           ) : null}
