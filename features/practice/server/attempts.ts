@@ -7,7 +7,7 @@ import type { Member } from '@/server/auth/session';
 import { DomainError, notFound } from '@/server/errors';
 import { getShopSettings } from '@/server/shop/settings';
 import type { StartAttemptInput } from '../schemas';
-import { drawSurpriseSetup, setupFromSpec } from '../stand-in';
+import { drawSurpriseSetup, setupFromSpec } from '../surprise';
 import type { PracticeEvent, PracticeResult, PracticeSetup } from '../types';
 import { practiceSpec, practiceWrenches } from './sources';
 

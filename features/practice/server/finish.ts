@@ -4,7 +4,7 @@ import { getDb } from '@/db';
 import { practiceAttempts } from '@/db/schema';
 import type { Member } from '@/server/auth/session';
 import { notFound } from '@/server/errors';
-import { scoreAttempt } from '../stand-in';
+import { scoreAttempt } from '../scoring';
 import type { PracticeResult, PracticeSetup } from '../types';
 import { listPracticeEvents } from './attempts';
 
