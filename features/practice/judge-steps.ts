@@ -1,7 +1,7 @@
 import { convertPressure, UNIT_LABELS, type Pressure } from '@/features/torque-plan';
 import { orderEvents, type RunnerPlan, type RunnerState } from '@/features/runner/state';
 import type { Step } from '@/features/runner/steps';
-import { passWords } from './judge-passes';
+import { passWords } from './words';
 import { POINTS, type Finding } from './scoring-parts';
 import type { PracticeEvent, PracticeSetup } from './types';
 

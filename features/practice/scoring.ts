@@ -1,5 +1,6 @@
 import { reduceRun } from '@/features/runner/state';
-import { judgeSequence, judgeWrenches } from './judge-passes';
+import { judgeSequence } from './judge-passes';
+import { judgeWrenches } from './judge-wrench';
 import { judgeSteps, secondsPerStep } from './judge-steps';
 import { practicePlan } from './plan';
 import { PART_LABELS, PART_MAX, type Finding, type PartKey } from './scoring-parts';

@@ -1,6 +1,6 @@
 import { formatDuration } from '@/features/runner/duration';
 import { MAKER_FIRST } from '@/features/runner/steps';
-import { passWords } from '../judge-passes';
+import { passWords } from '../words';
 import { practicePlan } from '../plan';
 import type { MistakeKind, PracticeResult, PracticeSetup } from '../types';
 import { PassCompare } from './pass-compare';
