@@ -96,6 +96,61 @@ describe('scoreAttempt', () => {
     expect(result.score).toBe(85);
   });
 
+  it("says a wrench is too small for the final pass in its own unit and the spec's", () => {
+    const setup = practiceSetup('wrench_setup');
+    const result = scoreAttempt(
+      setup,
+      attemptEvents(setup, {
+        passes: { 3: { wrenchId: SMALL.id, setting: { value: 200, unit: 'lbf-in' } } },
+      }),
+    );
+    expect(result.mistakes.map((m) => m.kind)).toEqual(['wrong_wrench']);
+    // 30 ft-lb = 360 in-lb (NIST SP 811 App. B: 1 ft = 12 in).
+    expect(result.mistakes[0]!.message).toBe(
+      "Pass 3 (100 %, 30 ft-lb): 360 in-lb (30 ft-lb) is above the 20–200 in-lb wrench's maximum. Use the 5–50 ft-lb click wrench set to 30 ft-lb.",
+    );
+  });
+
+  it('tells a bolt started on the next pass before this one was finished', () => {
+    const setup = practiceSetup('from_memory');
+    const events = attemptEvents(setup);
+    // The last bolt of pass 1 (bolt 12) moved after the first bolt of pass 2.
+    const last = events.findIndex(
+      (e) => e.type === 'bolt_confirmed' && e.payload.pass === 1 && e.payload.bolt === 12,
+    );
+    const firstOf2 = events.findIndex((e) => e.type === 'bolt_confirmed' && e.payload.pass === 2);
+    // Swap their times: bolt 1 of pass 2 now comes before bolt 12 of pass 1.
+    const moved = [...events];
+    moved[last] = { ...events[last]!, clientAt: events[firstOf2]!.clientAt };
+    moved[firstOf2] = { ...events[firstOf2]!, clientAt: events[last]!.clientAt };
+    const result = scoreAttempt(setup, moved);
+    expect(result.mistakes[0]).toMatchObject({ kind: 'bolt_out_of_sequence', pass: 2, bolt: 1 });
+    expect(result.mistakes[0]!.message).toBe(
+      'Pass 2 (70 %, 21 ft-lb): bolt 1 was tightened before pass 1 (30 %, 9 ft-lb) was finished (bolt 12 was next). Finish each pass all the way round first.',
+    );
+  });
+
+  it('calls a bead seated past its limit a skipped caution, both units named, 10 points', () => {
+    const setup = practiceSetup('guided');
+    const events = attemptEvents(setup).map((e) =>
+      e.type === 'step_done' && e.payload.step === 'seat_bead'
+        ? { ...e, payload: { ...e.payload, measurement: { value: 35, unit: 'psi' as const } } }
+        : e,
+    );
+    const result = scoreAttempt(setup, events);
+    expect(result.mistakes).toHaveLength(1);
+    expect(result.mistakes[0]).toMatchObject({
+      kind: 'skipped_caution',
+      step: 'seat_bead',
+      points: 10,
+    });
+    // 1 psi = 6.894 757 kPa (NIST SP 811 App. B): 35 psi = 241.3 kPa, 30 psi = 206.8 kPa.
+    expect(result.mistakes[0]!.message).toContain(
+      "seated at 35 psi (241.3 kPa), past the tire's 30 psi (206.8 kPa) bead-seating limit",
+    );
+    expect(result.score).toBe(90);
+  });
+
   it('takes a setting within one graduation, and not one off by more (21 ft-lb on a 0.5 ft-lb wrench)', () => {
     const setup = practiceSetup('wrench_setup');
     const near = scoreAttempt(
