@@ -1,6 +1,14 @@
 import { randomUUID } from 'node:crypto';
+import { eq } from 'drizzle-orm';
 import { getDb } from '@/db';
-import { practiceClearances, users } from '@/db/schema';
+import {
+  customerReportEmails,
+  customers,
+  jobs,
+  practiceClearances,
+  recheckReminders,
+  users,
+} from '@/db/schema';
 import { createInvite } from '@/features/accounts/server/invites';
 import { createJob, getJob } from '@/features/jobs/server/jobs';
 import { createAttempt } from '@/features/practice/server/attempts';
@@ -85,6 +93,28 @@ async function freshApprentice(shop: Shop, cleared = false) {
       .insert(practiceClearances)
       .values({ shopId: shop.shopId, userId: row!.id, clearedById: shop.lead.userId });
   return row!.id;
+}
+
+/** A fresh signed-off job of shop A with its follow-up rows: the reminder scheduled, the e-mail failed. */
+async function signedOffJob(w: World) {
+  const job = await freshJob(w);
+  await getDb().update(jobs).set({ state: 'signed_off' }).where(eq(jobs.id, job.id));
+  // Another case edits this customer (without an address): give it one again.
+  await getDb()
+    .update(customers)
+    .set({ email: 'wren@example.test' })
+    .where(eq(customers.id, w.records.customer.id));
+  await getDb()
+    .insert(recheckReminders)
+    .values({ shopId: w.a.shopId, jobId: job.id, dueOn: '2099-06-01' });
+  await getDb().insert(customerReportEmails).values({
+    shopId: w.a.shopId,
+    jobId: job.id,
+    toAddress: 'wren@example.test',
+    status: 'failed',
+    lastError: 'relay refused',
+  });
+  return job;
 }
 
 const at = () => new Date().toISOString();
@@ -249,6 +279,21 @@ export const ACTION_CASES: Record<string, ActionCase> = {
         },
       ],
     }),
+    otherShop: 'not_found',
+  },
+  '/features/follow-up/actions/follow-up-actions.ts#cancelRecheckReminder': {
+    permission: 'followup.manage',
+    input: async (w) => ({ jobId: (await signedOffJob(w)).id }),
+    otherShop: 'not_found',
+  },
+  '/features/follow-up/actions/follow-up-actions.ts#rescheduleRecheckReminder': {
+    permission: 'followup.manage',
+    input: async (w) => ({ jobId: (await signedOffJob(w)).id, dueOn: '2099-07-01' }),
+    otherShop: 'not_found',
+  },
+  '/features/follow-up/actions/follow-up-actions.ts#sendCustomerEmailAgain': {
+    permission: 'followup.manage',
+    input: async (w) => ({ jobId: (await signedOffJob(w)).id }),
     otherShop: 'not_found',
   },
   '/features/specs/actions/save-spec.ts#createWheelSpec': {
