@@ -1,0 +1,25 @@
+import { publicPhotoParams } from '@/features/reports/schemas';
+import { getPublicPhoto } from '@/features/reports/server/public-report';
+import { publicNotFound } from '@/features/reports/server/public-response';
+
+/** A photo of the link's own job, its bytes proxied from the private store. */
+export async function GET(
+  _request: Request,
+  { params }: RouteContext<'/r/[token]/photos/[photoId]'>,
+) {
+  const parsed = publicPhotoParams.safeParse(await params);
+  const photo = parsed.success
+    ? await getPublicPhoto(parsed.data.token, parsed.data.photoId)
+    : null;
+  if (!photo) return publicNotFound();
+  return new Response(new Uint8Array(photo.bytes), {
+    headers: {
+      'content-type': photo.mime,
+      'content-disposition': 'inline',
+      'cache-control': 'private, max-age=300',
+      'x-content-type-options': 'nosniff',
+      'x-robots-tag': 'noindex, nofollow',
+      'referrer-policy': 'no-referrer',
+    },
+  });
+}
