@@ -152,6 +152,7 @@ describe('scoreAttempt', () => {
   });
 
   it('takes a setting within one graduation, and not one off by more (21 ft-lb on a 0.5 ft-lb wrench)', () => {
+    // One graduation either side of the target is the rule (common practice, no source).
     const setup = practiceSetup('wrench_setup');
     const near = scoreAttempt(
       setup,
