@@ -1,16 +1,20 @@
 import Link from 'next/link';
+import type { ReactNode } from 'react';
 import { ShopTime } from '@/features/ui/shop-time-zone';
 import { ROLE_LABELS } from '@/server/auth/permissions';
 import type { PendingInvite } from '../server/invites';
 import type { TeamMember } from '../server/team';
 import { RevokeInviteButton } from './revoke-invite-button';
 
+/** `standing`: a line per member from elsewhere (an apprentice's clearance), handed in by the page. */
 export function TeamList({
   members,
   invites,
+  standing = {},
 }: {
   members: TeamMember[];
   invites: PendingInvite[];
+  standing?: Record<string, ReactNode>;
 }) {
   return (
     <div className="flex flex-col gap-8">
@@ -31,6 +35,7 @@ export function TeamList({
                   <span className="text-ink-soft block text-sm">
                     Joined <ShopTime when={m.joinedAt} style="date" />
                   </span>
+                  {standing[m.id] ? <span className="block text-sm">{standing[m.id]}</span> : null}
                 </span>
                 <span className="border-ink rounded-full border-2 px-3 py-0.5 text-sm font-semibold">
                   {ROLE_LABELS[m.role]}
