@@ -99,6 +99,8 @@ export function useRunQueue(
   saveEvents: SaveEvents,
   person: QueuePerson,
   generation: string | null = null,
+  /** Where the stored events are pulled from: the wheel's, or a practice attempt's. */
+  eventsUrl = `/api/wheels/${wheelId}/events`,
 ) {
   const [saved, setSaved] = useState<ClientEvent[]>(serverEvents);
   const [pending, setPending] = useState<ClientEvent[]>([]);
@@ -260,7 +262,7 @@ export function useRunQueue(
   useEffect(() => {
     if (!online) return;
     const pull = async () => {
-      const res = await fetch(`/api/wheels/${wheelId}/events`).catch(() => null);
+      const res = await fetch(eventsUrl).catch(() => null);
       if (!res?.ok) return;
       const body = (await res.json()) as { data: { events: ClientEvent[] } };
       addSaved(body.data.events);
@@ -268,7 +270,7 @@ export function useRunQueue(
     };
     const timer = setInterval(() => void pull(), 5_000);
     return () => clearInterval(timer);
-  }, [online, wheelId, addSaved, persist]);
+  }, [online, eventsUrl, addSaved, persist]);
 
   // Back online: send what waited, without waiting for the retry timer.
   useEffect(() => {

@@ -11,6 +11,7 @@ import {
 } from '@/features/torque-plan';
 import { useRunQueue, type SaveEvents } from '../api/use-run-queue';
 import type { ClientEvent } from '../events';
+import type { RunnerPractice } from '../practice-mode';
 import { missingPhotos } from '../photo-kinds';
 import { useRunnerSettings } from '../settings-store';
 import { reduceRun, type RunnerPlan } from '../state';
@@ -65,6 +66,8 @@ export type RunnerProps = {
   rework?: { note: string; steps: string[]; at: string } | null;
   /** Who is signed in: the phone keeps each person's outbox apart and never sends one under another's name. */
   person: { id: string; name: string };
+  /** Practice mode: a simulated wheel; photos optional, Finish instead of Submit (see RunnerPractice). */
+  practice?: RunnerPractice;
 };
 
 /** The guided procedure for one wheel on a phone at the tire cart. */
@@ -80,6 +83,7 @@ export function Runner(props: RunnerProps) {
     props.saveEvents,
     person,
     props.rework?.at ?? null,
+    props.practice?.eventsUrl,
   );
   const state = useMemo(() => reduceRun(plan, events), [plan, events]);
   const [photos, setPhotos] = useState<Photo[]>(props.photos);
@@ -89,6 +93,10 @@ export function Runner(props: RunnerProps) {
   const step = plan.steps.find((s) => s.id === state.current) ?? plan.steps.at(-1)!;
   const stepNo = plan.steps.indexOf(step) + 1;
   // A photo of a damaged bolt goes up as an 'other' photo of the wheel; the flag carries its id.
+  const { practice } = props;
+  const unfinished = plan.steps
+    .filter((s) => s.id !== 'submit' && state.status[s.id] === 'todo')
+    .map((s) => s.title);
   const boltPhoto = (onAdded: (photoId: string) => void) => (
     <PhotoSlot
       wheelId={wheel.id}
@@ -122,10 +130,10 @@ export function Runner(props: RunnerProps) {
           {/* On its side the phone has little height: one line, so the ring keeps the room. */}
           <div className="flex min-w-0 flex-col landscape:flex-row landscape:items-center landscape:gap-3">
             <Link
-              href={`/jobs/${props.jobId}`}
+              href={practice?.back.href ?? `/jobs/${props.jobId}`}
               className="min-h-touch inline-flex shrink-0 items-center font-bold underline"
             >
-              ← Job #{props.jobNumber}
+              ← {practice?.back.label ?? `Job #${props.jobNumber}`}
             </Link>
             <p className="font-semibold">
               {wheel.position} · {wheel.tireSize} · {props.spec.name}
@@ -161,6 +169,12 @@ export function Runner(props: RunnerProps) {
         ) : null}
       </header>
       <main className="flex flex-1 flex-col gap-4 p-3">
+        {practice ? (
+          <div className="border-work bg-work-tint text-work-dark flex flex-wrap items-center justify-between gap-2 rounded-xl border-2 px-3 py-2">
+            <p className="font-black">Practice — nothing here touches a real wheel.</p>
+            {practice.finish({ waiting: status.waiting, unfinished, early: true })}
+          </div>
+        ) : null}
         <NeedsAttention items={attention} others={others} onDismiss={() => void dismiss()} />
         {props.rework ? (
           <ReworkNote
@@ -183,6 +197,11 @@ export function Runner(props: RunnerProps) {
               Leave the wheel as it is: it is flagged for a lead, and nothing goes back on the
               vehicle until a lead has looked at it and the parts are right.
             </p>
+            {practice ? (
+              <div className="mt-3">
+                {practice.finish({ waiting: status.waiting, unfinished, early: false })}
+              </div>
+            ) : null}
             {flaggedBolts.length ? (
               <div className="mt-3 bg-white">
                 <BoltCircle
@@ -212,7 +231,7 @@ export function Runner(props: RunnerProps) {
                 record={record}
                 specWords={props.spec.words}
                 flaggedBolts={flaggedBolts}
-                photoSlot={boltPhoto}
+                photoSlot={practice ? undefined : boltPhoto}
               />
             ) : step.id === 'torque' ? (
               <TorquePanel
@@ -226,8 +245,11 @@ export function Runner(props: RunnerProps) {
                 record={record}
                 specWords={props.spec.words}
                 flaggedBolts={flaggedBolts}
-                photoSlot={boltPhoto}
+                photoSlot={practice ? undefined : boltPhoto}
+                practice={practice ? { level: practice.level } : undefined}
               />
+            ) : step.id === 'submit' && practice ? (
+              practice.finish({ waiting: status.waiting, unfinished, early: false })
             ) : step.id === 'submit' ? (
               <SummaryPanel
                 wheelId={wheel.id}
@@ -265,7 +287,7 @@ export function Runner(props: RunnerProps) {
                     : undefined
                 }
                 blocked={
-                  step.id === 'seat_bead' && missingPhotos(photoKinds).length
+                  step.id === 'seat_bead' && !practice && missingPhotos(photoKinds).length
                     ? 'Add both bead photos first.'
                     : undefined
                 }
@@ -280,6 +302,11 @@ export function Runner(props: RunnerProps) {
                       <strong>
                         {wheel.targetPressure} {wheel.pressureUnit}
                       </strong>
+                    </p>
+                  ) : step.id === 'seat_bead' && practice ? (
+                    <p className="border-ink-soft rounded-xl border-2 border-dashed p-3">
+                      Photos are optional in practice. On a real wheel you take both bead photos
+                      here, and the wheel cannot be submitted without them.
                     </p>
                   ) : step.id === 'seat_bead' ? (
                     <PhotoCapture

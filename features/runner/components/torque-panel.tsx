@@ -12,6 +12,7 @@ import {
 import { tapCounts } from '../double-tap';
 import type { RunEvent } from '../events';
 import type { PassProgress, RunnerState } from '../state';
+import type { PassPractice } from '../practice-mode';
 import { useRunnerSettings } from '../settings-store';
 import { passWrench, type CribWrench, type WrenchRules } from '../wrench-gate';
 import { BoltProblemForm, type PhotoSlotFor } from './bolt-problem';
@@ -20,6 +21,7 @@ import { RingLayout, ringButtonClass } from './ring-layout';
 import { SettingCard } from './setting-card';
 import { SpecWordsBox, type SpecWords } from './spec-words';
 import { VerifyInline } from './verify-inline';
+import { WrenchSetupCard, type TypedSetting } from './wrench-setup-card';
 
 const big = 'min-h-16 w-full rounded-xl px-4 text-lg font-bold';
 // A little lower than elsewhere, so ring, setting and button share a 640 px screen.
@@ -64,6 +66,7 @@ export function TorquePanel({
   specWords,
   flaggedBolts = [],
   photoSlot,
+  practice,
 }: {
   state: RunnerState;
   targets: Torque[];
@@ -77,6 +80,8 @@ export function TorquePanel({
   specWords?: SpecWords;
   flaggedBolts?: readonly number[];
   photoSlot?: PhotoSlotFor;
+  /** Practice mode (a simulated wheel): see RunnerPractice. */
+  practice?: PassPractice;
 }) {
   const { speak, vibrate } = useRunnerSettings();
   // Verifications recorded on this phone since the page loaded, judged like the server's.
@@ -87,6 +92,10 @@ export function TorquePanel({
   // after a reload the card shows again, which costs one tap and misses nothing.
   const [acked, setAcked] = useState<string[]>([]);
   const [problem, setProblem] = useState(false);
+  // Practice, wrench-setup level: what the apprentice chose and typed, per pass (device-only, like `acked`).
+  const [typed, setTyped] = useState<Record<number, TypedSetting>>({});
+  const memory = practice?.level === 'from_memory';
+  const setup = practice?.level === 'wrench_setup';
   const lastTap = useRef<number | null>(null);
   const index = state.currentPass;
   const pass = index ? (state.passes[index - 1] ?? null) : null;
@@ -104,17 +113,13 @@ export function TorquePanel({
         now: new Date(),
       })
     : null;
-  const {
-    best = null,
-    suitable = [],
-    wrench = null,
-    choice = null,
-    verification = null,
-  } = gate ?? {};
+  const { best = null, suitable = [], wrench = null, choice = null } = gate ?? {};
+  // Practice records no verification (nothing touches the tool crib): its gate is not asked.
+  const verification = practice ? null : (gate?.verification ?? null);
 
   useEffect(() => {
-    if (pass?.next && speak) cue(`Bolt ${pass.next}`, speak, false);
-  }, [pass?.next, speak]);
+    if (pass?.next && speak && !memory) cue(`Bolt ${pass.next}`, speak, false);
+  }, [pass?.next, speak, memory]);
 
   if (!pass || !target) {
     return (
@@ -137,14 +142,18 @@ export function TorquePanel({
 
   const name = passName(pass, state.passes);
   const label = pass.kind === 'check' ? name.toLowerCase() : `pass ${pass.index}`;
-  const settingText = choice?.ok
-    ? `${choice.setting.value} ${UNIT_LABELS[choice.setting.unit]}`
-    : null;
+  const mine = setup ? (typed[pass.index] ?? null) : null;
+  const used = setup
+    ? mine && { wrench: wrenches.find((w) => w.id === mine.wrenchId)!, setting: mine.setting }
+    : wrench && choice?.ok
+      ? { wrench, setting: choice.setting }
+      : null;
+  const settingText = used ? `${used.setting.value} ${UNIT_LABELS[used.setting.unit]}` : null;
   const ackKey =
     wrench && choice?.ok
       ? `${pass.index}|${wrench.id}|${choice.setting.value}|${choice.setting.unit}`
       : null;
-  const word = confirmWord(wrench?.kind);
+  const word = confirmWord(used?.wrench.kind);
   const big32 = boltCount >= LIST_FROM;
 
   // `at`: the tap's own time stamp (the event's), so two taps are compared on one clock.
@@ -153,10 +162,15 @@ export function TorquePanel({
     if (!tapCounts(lastTap.current, now)) return;
     lastTap.current = now;
     // What was used, as shown at this moment: the wrench and its setting travel with the bolt.
-    const used = wrench && choice?.ok ? { wrenchId: wrench.id, setting: choice.setting } : {};
+    const withWrench = used ? { wrenchId: used.wrench.id, setting: used.setting } : {};
     void record({
       type: 'bolt_confirmed',
-      payload: { pass: pass.index, bolt, ...used, ...(turned === undefined ? {} : { turned }) },
+      payload: {
+        pass: pass.index,
+        bolt,
+        ...withWrench,
+        ...(turned === undefined ? {} : { turned }),
+      },
     });
     cue(`Bolt ${bolt} done`, false, vibrate);
     setSelected(null);
@@ -181,7 +195,29 @@ export function TorquePanel({
     );
   }
 
-  if (!wrench || !choice?.ok || !settingText) {
+  if (setup && !mine) {
+    return (
+      <div className="flex flex-col gap-4">
+        <WrenchSetupCard
+          key={pass.index}
+          passName={`${name}: ${formatTorque(target, 2)}`}
+          wrenches={wrenches}
+          chosenId={pass.wrenchId}
+          onSet={(t) => {
+            setTyped((all) => ({ ...all, [pass.index]: t }));
+            void record({
+              type: 'wrench_chosen',
+              payload: { pass: pass.index, wrenchId: t.wrenchId },
+            });
+          }}
+        />
+        {pass.index === 1 ? <SpecWordsBox words={specWords} /> : null}
+        <Caution items={cautions} />
+      </div>
+    );
+  }
+
+  if (!used || !settingText) {
     return (
       <div className="flex flex-col gap-4">
         <p className="text-lg font-bold">
@@ -194,7 +230,7 @@ export function TorquePanel({
     );
   }
 
-  if (verification && !verification.counts) {
+  if (wrench && choice?.ok && verification && !verification.counts) {
     return (
       <div className="flex flex-col gap-4">
         <p className="text-lg font-bold">
@@ -214,7 +250,7 @@ export function TorquePanel({
     );
   }
 
-  if (ackKey && !acked.includes(ackKey)) {
+  if (!setup && wrench && choice?.ok && ackKey && !acked.includes(ackKey)) {
     return (
       <div className="flex flex-col gap-4">
         <SettingCard
@@ -259,7 +295,18 @@ export function TorquePanel({
     );
   }
 
-  const other = selected && selected !== pass.next ? selected : null;
+  // From memory: no next bolt is shown; the bolt tapped is the one confirmed (right or wrong), and
+  // a tapped bolt already done is offered for undo.
+  const shownNext = memory ? null : pass.next;
+  const tapped = selected && !pass.confirmed.includes(selected) ? selected : null;
+  const bolt = memory ? tapped : pass.next;
+  const other = memory
+    ? selected && !tapped
+      ? selected
+      : null
+    : selected && selected !== pass.next
+      ? selected
+      : null;
   const question =
     word === 'Clicked'
       ? 'did it turn before the wrench clicked?'
@@ -275,13 +322,15 @@ export function TorquePanel({
           </summary>
           <Caution items={cautions} />
           <p className="py-2 text-sm">
-            Number beside the ring: the bolt. Number inside a bolt: its turn, shown for the next
-            few. Tap a bolt to undo or correct it.
+            {memory
+              ? 'Number beside the ring: the bolt. Tap the bolt you would tighten next, then confirm it.'
+              : 'Number beside the ring: the bolt. Number inside a bolt: its turn, shown for the next few. Tap a bolt to undo or correct it.'}
           </p>
         </details>
       ) : null}
       <p aria-live="polite" className="text-center text-lg">
-        {pass.confirmed.length} of {boltCount} bolts · next: bolt {pass.next}
+        {pass.confirmed.length} of {boltCount} bolts
+        {memory ? ' · tap the bolt you would do next' : ` · next: bolt ${pass.next}`}
       </p>
       <RingLayout
         ring={
@@ -291,9 +340,9 @@ export function TorquePanel({
           >
             <BoltCircle
               count={boltCount}
-              order={pass.order}
+              order={memory ? undefined : pass.order}
               done={pass.confirmed}
-              next={pass.next}
+              next={shownNext}
               passLabel={label}
               selected={selected}
               onSelect={setSelected}
@@ -307,7 +356,7 @@ export function TorquePanel({
           <BoltList
             count={boltCount}
             done={pass.confirmed}
-            next={pass.next}
+            next={shownNext}
             selected={selected}
             flagged={flaggedBolts}
             onSelect={setSelected}
@@ -358,25 +407,27 @@ export function TorquePanel({
             aria-label="Current setting"
             className="bg-work-tint text-work-dark rounded-lg px-2 py-1 text-center text-lg font-black"
           >
-            {name} · Set {wrench.label} to {settingText}
+            {name} · Set {used.wrench.label} to {settingText}
           </p>
 
-          {pass.kind === 'check' && pass.next ? (
+          {memory && !bolt ? (
+            <p className="text-center text-lg font-bold">Tap the bolt you would tighten next.</p>
+          ) : pass.kind === 'check' && bolt ? (
             <>
               <p className="text-center text-lg font-bold">
-                Bolt {pass.next}: {question}
+                Bolt {bolt}: {question}
               </p>
               <div className="grid grid-cols-2 gap-2">
                 <button
                   type="button"
-                  onClick={(e) => confirm(e.timeStamp, pass.next!, true)}
+                  onClick={(e) => confirm(e.timeStamp, bolt, true)}
                   className={`${panelButton} bg-caution! text-caution-ink!`}
                 >
                   Turned
                 </button>
                 <button
                   type="button"
-                  onClick={(e) => confirm(e.timeStamp, pass.next!, false)}
+                  onClick={(e) => confirm(e.timeStamp, bolt, false)}
                   className={panelButton}
                 >
                   Didn&apos;t turn
@@ -386,10 +437,10 @@ export function TorquePanel({
           ) : (
             <button
               type="button"
-              onClick={(e) => pass.next && confirm(e.timeStamp, pass.next)}
+              onClick={(e) => bolt && confirm(e.timeStamp, bolt)}
               className={panelButton}
             >
-              {word} — bolt {pass.next}
+              {word} — bolt {bolt}
             </button>
           )}
           <div className="grid grid-cols-2 gap-2">
