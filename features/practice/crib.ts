@@ -55,7 +55,7 @@ function wrenchFor(
   if (!fits(max)) max = t;
   const fine = graduationFor(unit, max);
   // The lowest mark about a fifth of the maximum, never above the target itself.
-  const min = clean(Math.min(Math.max(fine, Math.floor((max * 0.2) / step) * step), t / 2));
+  const min = clean(Math.min(Math.max(fine, Math.round((max * 0.2) / fine) * fine), t / 2));
   const graduation = Math.min(fine, clean(max - min));
   const kind = chance(random, 0.8) ? 'click' : pick(random, ['beam', 'dial', 'digital'] as const);
   return {
