@@ -23,14 +23,18 @@ export type ReportEmailComposer = (shopId: string, jobId: string) => Promise<Rep
 export const failureReason = (error: unknown) =>
   (error instanceof Error ? error.message : String(error)).replace(/\s+/g, ' ').slice(0, 300);
 
-/** Thrown after the row has recorded the failure, so pg-boss retries the job with its backoff. */
-export class RetryLater extends Error {}
+/**
+ * Thrown after the row has recorded the failure: pg-boss retries the job with its backoff, or,
+ * after the last attempt (the row now says `failed`), keeps it as failed.
+ */
+export class GiveUpOrRetry extends Error {}
 
 /**
  * The re-check reminder, once. The row is locked for the send: a second worker holding the same
  * job (or a duplicate job) waits, then finds it `sent` and does nothing. A row that was cancelled
  * or moved to another day (its job carries the old day) is left alone. A failed send stays
- * `scheduled` with its reason until the last attempt, which marks it `failed`.
+ * `scheduled` with its reason until the last attempt, which marks it `failed`; each failure is
+ * thrown on to pg-boss, which counts the attempts.
  */
 export async function deliverRecheckReminder(
   data: { shopId: string; jobId: string; dueOn: string },
@@ -63,7 +67,7 @@ export async function deliverRecheckReminder(
           updatedAt: new Date(),
         })
         .where(where);
-      return last ? ('skipped' as const) : new RetryLater(failureReason(error));
+      return new GiveUpOrRetry(failureReason(error));
     }
     await tx
       .update(recheckReminders)
@@ -77,7 +81,7 @@ export async function deliverRecheckReminder(
       .where(where);
     return 'sent' as const;
   });
-  if (outcome instanceof RetryLater) throw outcome;
+  if (outcome instanceof GiveUpOrRetry) throw outcome;
   return outcome;
 }
 
@@ -118,7 +122,7 @@ export async function deliverReportEmail(
           updatedAt: new Date(),
         })
         .where(where);
-      return last ? ('skipped' as const) : new RetryLater(failureReason(error));
+      return new GiveUpOrRetry(failureReason(error));
     }
     await tx
       .update(customerReportEmails)
@@ -133,6 +137,6 @@ export async function deliverReportEmail(
       .where(where);
     return 'sent' as const;
   });
-  if (outcome instanceof RetryLater) throw outcome;
+  if (outcome instanceof GiveUpOrRetry) throw outcome;
   return outcome;
 }

@@ -1,7 +1,8 @@
 import 'server-only';
 import { and, asc, eq, isNull } from 'drizzle-orm';
 import { getDb } from '@/db';
-import { customers, jobs, jobWheels, shops, users, vehicles } from '@/db/schema';
+import { customers, jobs, jobWheels, shops, users, vehicles, wheelSpecs } from '@/db/schema';
+import { tighteningSequence, type Pattern } from '@/features/torque-plan';
 import { formatShopDay } from '@/features/ui/shop-time';
 import type { OutgoingMail } from '@/server/mail/mailer';
 import { recheckReminderMail, type ReminderWheel } from '../reminder-mail';
@@ -39,26 +40,46 @@ export async function getJobContact(shopId: string, jobId: string) {
   return { ...job, email: job.email.trim(), vehicle };
 }
 
-/** Each wheel's ring as it was done: bolt count, sequence and final torque from its snapshot. */
+/**
+ * Each wheel's ring as it was done: bolt count, sequence and final torque from its snapshot (the
+ * spec as the technician was given it), or from the spec itself for a wheel recorded without one.
+ */
 async function reminderWheels(shopId: string, jobId: string): Promise<ReminderWheel[]> {
   const rows = await getDb()
-    .select({ position: jobWheels.position, snapshot: jobWheels.snapshot })
+    .select({
+      position: jobWheels.position,
+      snapshot: jobWheels.snapshot,
+      boltCount: wheelSpecs.boltCount,
+      finalTorque: wheelSpecs.finalTorque,
+      torqueUnit: wheelSpecs.torqueUnit,
+      patternKind: wheelSpecs.patternKind,
+      skipStep: wheelSpecs.skipStep,
+      makerReference: wheelSpecs.makerReference,
+    })
     .from(jobWheels)
+    .innerJoin(wheelSpecs, eq(wheelSpecs.id, jobWheels.specId))
     .where(and(eq(jobWheels.shopId, shopId), eq(jobWheels.jobId, jobId)))
     .orderBy(asc(jobWheels.position));
-  return rows.flatMap(({ position, snapshot }) =>
-    snapshot
-      ? [
-          {
-            position: POSITION_NAMES[position] ?? position,
-            boltCount: snapshot.spec.boltCount,
-            sequence: snapshot.plan.sequence,
-            finalTorque: snapshot.spec.finalTorque,
-            makerReference: snapshot.spec.makerReference,
-          },
-        ]
-      : [],
-  );
+  return rows.map((r) => {
+    const position = POSITION_NAMES[r.position] ?? r.position;
+    if (r.snapshot)
+      return {
+        position,
+        boltCount: r.snapshot.spec.boltCount,
+        sequence: r.snapshot.plan.sequence,
+        finalTorque: r.snapshot.spec.finalTorque,
+        makerReference: r.snapshot.spec.makerReference,
+      };
+    const pattern: Pattern =
+      r.patternKind === 'skip' ? { kind: 'skip', step: r.skipStep ?? 2 } : { kind: r.patternKind };
+    return {
+      position,
+      boltCount: r.boltCount,
+      sequence: tighteningSequence(r.boltCount, pattern),
+      finalTorque: { value: r.finalTorque, unit: r.torqueUnit },
+      makerReference: r.makerReference,
+    };
+  });
 }
 
 /**
