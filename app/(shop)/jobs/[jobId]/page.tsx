@@ -18,6 +18,7 @@ import { PrintButton } from '@/features/ui/print-button';
 import { requireMember } from '@/server/auth/guard';
 import { can } from '@/server/auth/permissions';
 import { orNotFound } from '@/server/errors';
+import { ReportPanel } from './_components/report-panel';
 
 export const metadata: Metadata = { title: 'Job card' };
 
@@ -69,6 +70,7 @@ export default async function JobPage({ params }: PageProps<'/jobs/[jobId]'>) {
             }
             selfReview={isSelfReview(member, job, 'sign_off', facts)}
           />
+          <ReportPanel member={member} jobId={job.id} state={job.state} />
           {job.state === 'signed_off' ? (
             <JobFollowUp
               shopId={member.shopId}
