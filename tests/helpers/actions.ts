@@ -12,6 +12,7 @@ import {
 import { createInvite } from '@/features/accounts/server/invites';
 import { createJob, getJob } from '@/features/jobs/server/jobs';
 import { createAttempt } from '@/features/practice/server/attempts';
+import { createReportLink } from '@/features/reports/server/report-links';
 import type { Permission } from '@/server/auth/permissions';
 import type { Member } from '@/server/auth/session';
 import { createTestShop, PASSWORD } from './factories';
@@ -366,6 +367,19 @@ export const ACTION_CASES: Record<string, ActionCase> = {
         jobId: job.id,
         wheels: [{ wheelId: job.wheels[0]!.id, note: 'Redo the passes at a steady pace.' }],
       };
+    },
+    otherShop: 'not_found',
+  },
+  '/features/reports/actions/report-link-actions.ts#createCustomerLink': {
+    permission: 'reports.links',
+    input: async (w) => ({ jobId: (await signedOffJob(w)).id }),
+    otherShop: 'not_found',
+  },
+  '/features/reports/actions/report-link-actions.ts#revokeCustomerLink': {
+    permission: 'reports.links',
+    input: async (w) => {
+      const job = await signedOffJob(w);
+      return { linkId: (await createReportLink(w.a.shopId, job.id, w.a.lead.userId)).id };
     },
     otherShop: 'not_found',
   },
