@@ -73,6 +73,7 @@ export const signInThenBackTo = (path: string) => `/sign-in?next=${encodeURIComp
 
 /**
  * Where a member lands after signing in when no page asked for them: a technician's phone
- * starts at their next wheel; leads (and apprentices) start at the board.
+ * starts at their next wheel, an apprentice at practice, a lead at the board.
  */
-export const homePathFor = (role: Role) => (role === 'technician' ? '/my-wheels' : '/board');
+export const homePathFor = (role: Role) =>
+  role === 'technician' ? '/my-wheels' : role === 'apprentice' ? '/practice' : '/board';

@@ -66,10 +66,9 @@ export async function inviteAndJoin(
   await joined.getByLabel('Your name').fill(name);
   await joined.getByLabel('Choose a password').fill(PASSWORD);
   await joined.getByRole('button', { name: 'Join the shop' }).click();
-  // A technician starts at their wheels; leads and apprentices at the board.
-  await expect(
-    joined.getByRole('heading', { name: role === 'Technician' ? 'My wheels' : 'Board' }),
-  ).toBeVisible();
+  // A technician starts at their wheels, an apprentice at practice, a lead at the board.
+  const home = { Technician: 'My wheels', Apprentice: 'Practice', Lead: 'Board' }[role];
+  await expect(joined.getByRole('heading', { name: home, exact: true })).toBeVisible();
   return { context, page: joined };
 }
 

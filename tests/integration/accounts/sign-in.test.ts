@@ -131,8 +131,15 @@ describe('sign-up', () => {
 });
 
 describe('sign-in', () => {
-  it('signs in with the right password; a technician lands on their wheels, a lead and an apprentice on the board', async () => {
+  it('signs in with the right password; a technician lands on their wheels, an apprentice on practice, a lead on the board', async () => {
     const shop = await createTestShop();
+    resetNextRequest();
+    await expectRedirect(
+      signIn(null, { email: shop.apprentice.email, password: PASSWORD }),
+      '/practice',
+    );
+    resetNextRequest();
+    await expectRedirect(signIn(null, { email: shop.lead.email, password: PASSWORD }), '/board');
     resetNextRequest();
     await expectRedirect(
       signIn(null, { email: shop.technician.email, password: PASSWORD }),
@@ -226,7 +233,7 @@ describe('sign-in', () => {
     const started = Date.now();
     await expectRedirect(
       signIn(null, { email: shop.apprentice.email, password: PASSWORD }),
-      '/board',
+      '/practice',
     );
     expect(Date.now() - started).toBeGreaterThanOrEqual(accountDelayMs(7) - 10);
   });
