@@ -272,5 +272,6 @@ describe('scoreAttempt on any events', () => {
       ),
       { numRuns: 150 },
     );
-  });
+    // Generous: the whole suite shares two cores.
+  }, 60_000);
 });

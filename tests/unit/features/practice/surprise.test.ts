@@ -87,7 +87,8 @@ describe('drawSurpriseSetup', () => {
       ),
       { numRuns: 300 },
     );
-  });
+    // Generous: the whole suite shares two cores.
+  }, 60_000);
 
   it('is reproducible from the same random source', () => {
     const input = {
