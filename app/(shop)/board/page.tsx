@@ -20,8 +20,11 @@ export default async function BoardPage({ searchParams }: PageProps<'/board'>) {
       <>
         <PageHeader title="Board" />
         <EmptyState title="Job cards are for leads and technicians">
-          Apprentices practise the procedure on simulated wheels; practice mode is coming to
-          Ringpass.
+          Apprentices practise the procedure on simulated wheels:{' '}
+          <Link href="/practice" className="text-work font-semibold underline">
+            go to Practice
+          </Link>
+          .
         </EmptyState>
       </>
     );

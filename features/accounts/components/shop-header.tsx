@@ -27,10 +27,8 @@ export function ShopHeader({
         </p>
         <nav aria-label="Main" className="flex flex-wrap items-center gap-1">
           {can(member, 'jobs.run') ? <NavLink href="/my-wheels">My wheels</NavLink> : null}
-          {/* An apprentice not yet cleared for real wheels has nothing to do on the board. */}
-          {member.role !== 'apprentice' || can(member, 'jobs.run') ? (
-            <NavLink href="/board">Board</NavLink>
-          ) : null}
+          {/* An apprentice has nothing to do on the board (a cleared one finds their wheels under My wheels). */}
+          {can(member, 'jobs.view') ? <NavLink href="/board">Board</NavLink> : null}
           {can(member, 'practice.run') ? <NavLink href="/practice">Practice</NavLink> : null}
           {signoff}
           {can(member.role, 'jobs.create') ? <NavLink href="/customers">Customers</NavLink> : null}
