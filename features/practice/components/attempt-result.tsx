@@ -115,7 +115,7 @@ export function AttemptResult({ setup, result }: { setup: PracticeSetup; result:
       {passesToShow.length ? (
         <section aria-labelledby="passes" className="space-y-3">
           <h3 id="passes" className="text-lg font-bold">
-            Passes with a mistake: what you did beside what was expected
+            Passes with a mistake: the order done beside the order expected
           </h3>
           {passesToShow.map((p) => (
             <PassCompare

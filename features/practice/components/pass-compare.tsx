@@ -34,11 +34,11 @@ export function PassCompare({
             mode="preview"
             passLabel={`${label}, as done`}
             marked={outOfOrder}
-            label={`${label}: the order you did`}
+            label={`${label}: the order done`}
           />
           <figcaption className="text-center text-sm">
             <span className="font-semibold">
-              What you did{outOfOrder.length ? ' (dashed: out of order)' : ''}:
+              Done{outOfOrder.length ? ' (dashed: out of order)' : ''}:
             </span>{' '}
             {pass.done.length ? pass.done.join(', ') : 'no bolts'}
           </figcaption>

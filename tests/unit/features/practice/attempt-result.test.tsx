@@ -39,7 +39,7 @@ describe('AttemptResult', () => {
     // Only pass 2 is drawn; each circle has its name and each bolt its turn in words.
     const pass = screen.getByRole('region', { name: 'pass 2 (70 %, 21 ft-lb)' });
     const done = within(pass).getByRole('group', {
-      name: 'pass 2 (70 %, 21 ft-lb): the order you did',
+      name: 'pass 2 (70 %, 21 ft-lb): the order done',
     });
     expect(
       within(done).getByRole('img', {
@@ -54,7 +54,7 @@ describe('AttemptResult', () => {
         name: 'bolt 7, pass 2 (70 %, 21 ft-lb), expected, to do, 2nd in order',
       }),
     ).toBeInTheDocument();
-    expect(pass).toHaveTextContent('What you did (dashed: out of order): 1, 4, 7, 10');
+    expect(pass).toHaveTextContent('Done (dashed: out of order): 1, 4, 7, 10');
     expect(pass).toHaveTextContent('Expected: 1, 7, 4, 10');
     expect(screen.queryByRole('region', { name: /pass 1 / })).toBeNull();
 
