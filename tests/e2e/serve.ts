@@ -9,6 +9,7 @@ import { clusterUrl, recreateDatabase, startCluster } from '@/db/cluster';
 import { migrateDatabase } from '@/db/migrate';
 import { startMailSink } from '@/server/dev/mail-sink';
 import { startUploadFake } from '@/server/dev/upload-fake';
+import { spawnWorker, stopWorker } from '@/server/dev/worker-process';
 import { E2E, ROOT } from '../helpers/test-services';
 import { builtFrom, sourceFingerprint, stampBuild } from './build-fingerprint';
 
@@ -56,10 +57,14 @@ async function main() {
   if (process.env.E2E_REBUILD || !builtFrom(E2E.distDir, fingerprint)) build();
   else console.log('[e2e] the sources are unchanged since the last e2e build: reusing .next-e2e');
   let server = start();
+  // The queue's worker: invites, notices and the customer's mail arrive through it, as in production.
+  const worker = spawnWorker(env);
   let redeploying = false;
   const onExit = (code: number | null) => {
     if (!redeploying)
-      void Promise.all([sink.close(), uploads.close()]).finally(() => process.exit(code ?? 0));
+      void stopWorker(worker)
+        .then(() => Promise.all([sink.close(), uploads.close()]))
+        .finally(() => process.exit(code ?? 0));
   };
   server.on('exit', onExit);
   process.on('SIGTERM', () => server.kill('SIGTERM'));
