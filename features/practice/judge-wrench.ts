@@ -121,8 +121,9 @@ function distinctSettings(confirms: Confirm[]): Torque[] {
 /**
  * A setting is right within one graduation of the target, in the wrench's unit (the finest step
  * the wrench can be set to; common practice, no source). A number that matches the target in
- * another unit (within a graduation or 2 %) is a unit mistake: the ft-lb figure dialled on an in-lb
- * wrench. A setting typed with another unit is converted to the wrench's unit first.
+ * another unit (within 2 %, or that figure at the wrench's nearest mark) is a unit mistake: the
+ * ft-lb figure dialled on an in-lb wrench. A setting typed with another unit is converted to the
+ * wrench's unit first.
  */
 function judgeSetting(input: {
   part: 'wrench';
@@ -146,7 +147,10 @@ function judgeSetting(input: {
   const rightBoth = torqueWords(rightSetting);
   const slip = TORQUE_UNITS.filter((u) => u !== unit).find((u) => {
     const there = convertTorque(target.value, target.unit, u);
-    return Math.abs(dialled - there) <= Math.max(wrench.graduation, 0.02 * there);
+    const atNearestMark = Math.round(there / wrench.graduation) * wrench.graduation;
+    return (
+      Math.abs(dialled - there) <= 0.02 * there + 1e-9 || Math.abs(dialled - atNearestMark) < 1e-9
+    );
   });
   if (slip) {
     return [

@@ -151,6 +151,20 @@ describe('scoreAttempt', () => {
     expect(result.score).toBe(90);
   });
 
+  it('catches the N·m figure dialled on a ft-lb wrench, and not a setting merely off', () => {
+    const setup = practiceSetup('wrench_setup');
+    const dialled = (value: number) =>
+      scoreAttempt(
+        setup,
+        attemptEvents(setup, {
+          passes: { 2: { wrenchId: BIG.id, setting: { value, unit: 'lbf-ft' } } },
+        }),
+      ).mistakes.map((m) => m.kind);
+    // 21 ft-lb is 28.47 N·m (NIST SP 811 App. B), 28.5 at the wrench's 0.5 marks.
+    expect(dialled(28.5)).toEqual(['unit_mistake']);
+    expect(dialled(25)).toEqual(['wrong_setting']);
+  });
+
   it('takes a setting within one graduation, and not one off by more (21 ft-lb on a 0.5 ft-lb wrench)', () => {
     // One graduation either side of the target is the rule (common practice, no source).
     const setup = practiceSetup('wrench_setup');
