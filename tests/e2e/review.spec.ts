@@ -4,6 +4,18 @@ import { E2E } from '../helpers/test-services';
 import { inviteAndJoin, signUp, uniqueEmail } from './helpers';
 import { confirmBolts, startAllBolts } from './runner-helpers';
 
+/**
+ * The newest mail to `to`, once it is the one with `subject`: notices go out after the change
+ * commits, so right after the screen changes the newest mail may still be an earlier one.
+ */
+async function mailAbout(to: string, subject: string) {
+  let newest = await waitForMail(E2E.sink.dir, to);
+  await expect
+    .poll(async () => (newest = await waitForMail(E2E.sink.dir, to)).subject, { timeout: 15_000 })
+    .toBe(subject);
+  return newest;
+}
+
 /** A same-origin API call with the page's session, as the app itself would make it. */
 async function api<T>(
   page: Page,
@@ -147,8 +159,7 @@ test('a wheel run too fast: the lead sees it first on the review, sends the whee
   const wheelId = job.wheels[0]!.id;
 
   await runWheelFast(tech.page, job.id, wheelId);
-  const waiting = await waitForMail(E2E.sink.dir, leadEmail);
-  expect(waiting.subject).toBe(`Job ${job.number} is waiting for sign-off`);
+  const waiting = await mailAbout(leadEmail, `Job ${job.number} is waiting for sign-off`);
   expect(waiting.text).toContain(`/jobs/${job.id}/review`);
 
   // The lead: the nav counts the job, the queue lists it, the review shows the anomaly first.
@@ -183,8 +194,7 @@ test('a wheel run too fast: the lead sees it first on the review, sends the whee
   await expect(page.getByRole('status').filter({ hasText: 'Sent back by Rae Lead' })).toContainText(
     'LF: Redo every pass: pull each bolt to the click.',
   );
-  const back = await waitForMail(E2E.sink.dir, techEmail);
-  expect(back.subject).toBe(`Job ${job.number} was sent back: LF`);
+  const back = await mailAbout(techEmail, `Job ${job.number} was sent back: LF`);
   expect(back.text).toContain(
     'LF wheel: Redo every pass: pull each bolt to the click. (redo: torque)',
   );
