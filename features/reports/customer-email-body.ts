@@ -10,7 +10,7 @@ export function customerEmailBody(view: ReportView, link: string) {
     : '';
   const recheck = view.recheck
     ? [
-        `Please bring the vehicle back for the ring bolt re-check by ${view.recheck.dueOn}:`,
+        `Ring bolt re-check due by ${view.recheck.dueOn}: please bring the vehicle back after the first ride for`,
         ...view.recheck.what.map((w) => `- ${w}`),
       ]
     : [];

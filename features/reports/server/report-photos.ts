@@ -1,5 +1,6 @@
 import 'server-only';
 import { and, eq, inArray } from 'drizzle-orm';
+import type SharpFn from 'sharp';
 import { UTApi } from 'uploadthing/server';
 import { getDb } from '@/db';
 import { wheelPhotos } from '@/db/schema';
@@ -38,9 +39,23 @@ export async function readPhotoBytes(
   }
 }
 
+let sharpModule: Promise<typeof SharpFn | null> | undefined;
+/** The image library Next ships (optional): without it, photos go in as stored when small enough. */
+const loadSharp = () =>
+  (sharpModule ??= import('sharp').then(
+    (m) => m.default,
+    () => null,
+  ));
+
 async function downscale(bytes: Buffer, mime: string): Promise<PhotoImage | null> {
+  const sharp = await loadSharp();
+  if (!sharp) {
+    if (bytes.byteLength > MAX_RAW_BYTES) return null;
+    if (mime === 'image/jpeg') return { data: bytes, format: 'jpg' };
+    if (mime === 'image/png') return { data: bytes, format: 'png' };
+    return null;
+  }
   try {
-    const { default: sharp } = await import('sharp');
     const data = await sharp(bytes)
       .rotate()
       .resize({ width: MAX_EDGE, height: MAX_EDGE, fit: 'inside', withoutEnlargement: true })
@@ -48,10 +63,7 @@ async function downscale(bytes: Buffer, mime: string): Promise<PhotoImage | null
       .toBuffer();
     return { data, format: 'jpg' };
   } catch {
-    // No image library, or bytes it cannot read: a small JPEG or PNG still goes in as stored.
-    if (bytes.byteLength > MAX_RAW_BYTES) return null;
-    if (mime === 'image/jpeg') return { data: bytes, format: 'jpg' };
-    if (mime === 'image/png') return { data: bytes, format: 'png' };
+    // Bytes that do not decode: left out (the PDF says so) rather than breaking the whole report.
     return null;
   }
 }
