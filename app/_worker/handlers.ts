@@ -1,4 +1,5 @@
 import 'server-only';
+import { deliverInvite } from '@/features/accounts/server/invites';
 import {
   deliverRecheckReminder,
   deliverReportEmail,
@@ -33,7 +34,7 @@ export function queueHandlers(deps: WorkerDeps = defaultDeps): QueueHandlers {
       });
     },
     'job-notice': (data) => deliverTransitionNotices(data, deps.send),
-    'invite-email': () => Promise.resolve(),
+    'invite-email': (data, attempt) => deliverInvite(data, attempt, deps.send),
     'wrench-overdue-sweep': () => sweepAllShops(),
   };
 }

@@ -1,5 +1,5 @@
 import { expect, test } from '@playwright/test';
-import { invite, PASSWORD, signIn, signUp, uniqueEmail } from './helpers';
+import { invite, mailArrived, PASSWORD, signIn, signUp, uniqueEmail } from './helpers';
 import { contextAs, sharedPeople } from './roles';
 
 test('a lead signs up, invites a technician by e-mail; the technician accepts, signs in and lands on their (empty) wheels; the board is one tap away', async ({
@@ -13,7 +13,8 @@ test('a lead signs up, invites a technician by e-mail; the technician accepts, s
   await invite(page, tech, 'Technician');
   await expect(page.getByRole('region', { name: /Pending invites/ }).getByText(tech)).toBeVisible();
 
-  // The invite arrives in the local sink; the Mailbox page shows it like an inbox would.
+  // The invite arrives in the local sink (from the queue); the Mailbox page shows it like an inbox would.
+  await mailArrived(tech);
   await page.goto('/mailbox');
   const mail = page.getByRole('article', {
     name: new RegExp(`Petra Lug invited you to Sandwash Tire & Wheel on Ringpass to ${tech}`),

@@ -46,6 +46,9 @@ export async function invite(
   await expect(page.getByRole('status')).toHaveText(`Invite sent to ${email}.`);
 }
 
+/** Mail goes out from the queue's worker a moment after the action: wait until the sink has it. */
+export const mailArrived = (to: string) => waitForMail(E2E.sink.dir, to.toLowerCase(), 15_000);
+
 /** Invites someone, follows the link from the Mailbox in a fresh browser and joins as `name`. */
 export async function inviteAndJoin(
   page: Page,
@@ -55,6 +58,7 @@ export async function inviteAndJoin(
   role: 'Lead' | 'Technician' | 'Apprentice',
 ) {
   await invite(page, email, role);
+  await mailArrived(email);
   await page.goto('/mailbox');
   const link = await page
     .getByRole('article', { name: new RegExp(`to ${email.replace(/[.+]/g, '\\$&')}`) })

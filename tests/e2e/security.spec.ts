@@ -1,5 +1,5 @@
 import { expect, test, type Page } from '@playwright/test';
-import { invite, signIn, signUp, uniqueEmail } from './helpers';
+import { invite, mailArrived, signIn, signUp, uniqueEmail } from './helpers';
 import { contextAs, sharedPeople } from './roles';
 
 /** Collects what Chromium reports as blocked by the Content-Security-Policy on this page. */
@@ -112,6 +112,7 @@ test('the Mailbox: signed out goes to sign-in; a technician is refused; a lead s
   await tech.context.close();
 
   // The e2e server is a production build with MAILBOX_DEMO=true: the page says it is a demo.
+  await mailArrived(invitedToA);
   await page.goto('/mailbox');
   await expect(page.getByText(/Demo server: this Mailbox is switched on/)).toBeVisible();
   await expect(

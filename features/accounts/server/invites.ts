@@ -1,13 +1,15 @@
 import 'server-only';
 import { createHash, randomBytes } from 'node:crypto';
-import { and, desc, eq, gt, isNull, ne, sql } from 'drizzle-orm';
+import { and, desc, eq, gt, isNull, like, ne, sql } from 'drizzle-orm';
 import { getDb } from '@/db';
 import { invites, shops, users, type Role } from '@/db/schema';
 import { hashPassword } from '@/server/auth/password';
 import type { Member } from '@/server/auth/session';
 import { env } from '@/server/env.mjs';
 import { DomainError, notFound } from '@/server/errors';
-import { sendMail } from '@/server/mail/mailer';
+import type { OutgoingMail } from '@/server/mail/mailer';
+import { sendJob } from '@/server/queue/boss';
+import { isLastAttempt, type JobAttempt } from '@/server/queue/jobs';
 import { getShopSettings } from '@/server/shop/settings';
 import type { AcceptInviteInput, InviteInput } from '../schemas';
 import { inviteMail } from './invite-mail';
@@ -23,89 +25,120 @@ export const INVITE_UNUSABLE =
 const usable = () =>
   and(isNull(invites.acceptedAt), isNull(invites.revokedAt), gt(invites.expiresAt, sql`now()`));
 
+/** Marks an invite whose e-mail has not gone yet: never the SHA-256 (hex) of a token. */
+const UNSENT = 'unsent:';
+
 /**
- * Creates an invite and e-mails its link. A newer invite to the same address replaces the older
- * one, but only once its e-mail is accepted by the mail server: if the mail fails, the new invite
- * is removed and the older one still works, so the person is never left without a working link.
- *
- * An address that already has an account gets the same answer as any other (the lead must not
- * learn who has an account): an invite row that no link points to, and the address's owner gets a
- * notice instead of a link.
+ * Creates an invite; its e-mail goes from the queue (`deliverInvite`), which issues the link. Until
+ * that mail is accepted by the mail server the older invite to the same address keeps working; if
+ * it never is, the new invite is withdrawn, so the person is never left without a working link.
  */
 export async function createInvite(actor: Member, input: InviteInput): Promise<PendingInvite> {
-  const db = getDb();
-  const [existing] = await db
-    .select({ shopId: users.shopId })
-    .from(users)
-    .where(eq(users.email, input.email));
-
-  const token = randomBytes(32).toString('base64url');
   const expiresAt = new Date(Date.now() + env().INVITE_TTL_HOURS * 3_600_000);
-  const [invite] = await db
+  const [invite] = await getDb()
     .insert(invites)
     .values({
       shopId: actor.shopId,
       email: input.email,
       role: input.role,
-      tokenHash: hashToken(token),
+      tokenHash: `${UNSENT}${randomBytes(16).toString('hex')}`,
       invitedById: actor.userId,
       expiresAt,
     })
     .returning({ id: invites.id });
-
-  const [[shop], { timeZone }] = await Promise.all([
-    db.select({ name: shops.name }).from(shops).where(eq(shops.id, actor.shopId)),
-    getShopSettings(actor.shopId),
-  ]);
-  const shopName = shop?.name ?? 'your shop';
-  const link = new URL(`/invite/${token}`, env().APP_URL).toString();
   try {
-    if (existing) {
-      // The notice belongs to the owner's shop, so the inviting lead's Mailbox never shows it.
-      await sendMail({
-        to: input.email,
-        shopId: existing.shopId,
-        ...inviteToExistingAccountMail({ shopName, inviterName: actor.name }),
-      });
-    } else {
-      await sendMail({
-        to: input.email,
-        shopId: actor.shopId,
-        ...inviteMail({
-          shopName,
-          inviterName: actor.name,
-          role: input.role,
-          link,
-          expiresAt,
-          timeZone,
-        }),
-      });
-    }
+    await sendJob('invite-email', {
+      shopId: actor.shopId,
+      inviteId: invite!.id,
+      inviterName: actor.name,
+    });
   } catch (error) {
-    console.error('[invite] mail failed', error);
-    await db.delete(invites).where(eq(invites.id, invite!.id));
+    console.error('[invite] could not be queued', error);
+    await getDb().delete(invites).where(eq(invites.id, invite!.id));
     throw new DomainError(
       'invalid',
       'The invite e-mail could not be sent, so no invite was created. Try again in a moment.',
     );
   }
-  await db
-    .update(invites)
-    .set({ revokedAt: new Date() })
-    .where(
-      and(
-        eq(invites.shopId, actor.shopId),
-        eq(invites.email, input.email),
-        ne(invites.id, invite!.id),
-        usable(),
-      ),
-    );
   return {
     id: invite!.id,
     email: input.email,
     role: input.role,
     expiresAt: expiresAt.toISOString(),
   };
+}
+
+/**
+ * The queue's side of an invite, once: under a lock on the invite row, an unsent invite gets its
+ * token, the e-mail goes, and only then does the row take the token's hash and the older invites
+ * to the address stop working. An address that already has an account gets a notice instead of a
+ * link (the lead must not learn who has an account). A failed send is retried by the queue; after
+ * the last try the invite is withdrawn and the older one still works.
+ */
+export async function deliverInvite(
+  data: { shopId: string; inviteId: string; inviterName: string },
+  attempt: JobAttempt,
+  send: (mail: OutgoingMail) => Promise<void>,
+): Promise<void> {
+  const failed = await getDb().transaction(async (tx) => {
+    const mine = and(eq(invites.shopId, data.shopId), eq(invites.id, data.inviteId));
+    const [invite] = await tx
+      .select({ email: invites.email, role: invites.role, expiresAt: invites.expiresAt })
+      .from(invites)
+      .where(and(mine, like(invites.tokenHash, `${UNSENT}%`), usable()))
+      .for('update');
+    if (!invite) return null; // sent already, revoked, used or expired
+    const [[existing], [shop], { timeZone }] = await Promise.all([
+      tx.select({ shopId: users.shopId }).from(users).where(eq(users.email, invite.email)),
+      tx.select({ name: shops.name }).from(shops).where(eq(shops.id, data.shopId)),
+      getShopSettings(data.shopId),
+    ]);
+    const shopName = shop?.name ?? 'your shop';
+    const token = randomBytes(32).toString('base64url');
+    try {
+      await send(
+        existing
+          ? {
+              // The notice belongs to the owner's shop, so the inviting lead's Mailbox never shows it.
+              to: invite.email,
+              shopId: existing.shopId,
+              ...inviteToExistingAccountMail({ shopName, inviterName: data.inviterName }),
+            }
+          : {
+              to: invite.email,
+              shopId: data.shopId,
+              ...inviteMail({
+                shopName,
+                inviterName: data.inviterName,
+                role: invite.role,
+                link: new URL(`/invite/${token}`, env().APP_URL).toString(),
+                expiresAt: invite.expiresAt,
+                timeZone,
+              }),
+            },
+      );
+    } catch (error) {
+      if (isLastAttempt(attempt)) await tx.delete(invites).where(mine);
+      return error;
+    }
+    await tx
+      .update(invites)
+      .set({ tokenHash: hashToken(token) })
+      .where(mine);
+    await tx
+      .update(invites)
+      .set({ revokedAt: new Date() })
+      .where(
+        and(
+          eq(invites.shopId, data.shopId),
+          eq(invites.email, invite.email),
+          ne(invites.id, data.inviteId),
+          usable(),
+        ),
+      );
+    return null;
+  });
+  if (failed) throw failed;
 }
 
 export async function listPendingInvites(shopId: string): Promise<PendingInvite[]> {

@@ -12,8 +12,12 @@ import { removeMember } from '@/features/accounts/server/team';
 import { createSessionCookie, validateSessionId } from '@/server/auth/session';
 import { createTestShop } from '@/tests/helpers/factories';
 import { inviteToken, waitForMail } from '@/tests/helpers/mailbox';
+import { runQueueWorker } from '@/tests/helpers/queue';
 import { actAs, resetNextRequest } from '@/tests/helpers/next-request';
 import { INTEGRATION_SINK } from '@/tests/helpers/test-services';
+
+// Invite e-mails go out from the queue: a worker runs for this file, as `npm run worker` would.
+runQueueWorker();
 
 describe('invites', () => {
   it('a lead invites by e-mail; the link works once and creates a member with that role', async () => {

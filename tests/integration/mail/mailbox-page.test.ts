@@ -5,6 +5,7 @@ import { inviteMember } from '@/features/accounts/actions/invite-member';
 import type { SinkMessage } from '@/server/mail/mailbox';
 import { createTestShop } from '@/tests/helpers/factories';
 import { waitForMail } from '@/tests/helpers/mailbox';
+import { runQueueWorker } from '@/tests/helpers/queue';
 import { actAs, resetNextRequest } from '@/tests/helpers/next-request';
 import { INTEGRATION_SINK } from '@/tests/helpers/test-services';
 
@@ -17,6 +18,9 @@ async function mailboxAs(userId: string) {
   expect(isValidElement(page)).toBe(true);
   return page.props;
 }
+
+// Invite e-mails go out from the queue: a worker runs for this file, as `npm run worker` would.
+runQueueWorker();
 
 describe('the Mailbox page (local mail sink on, not production)', () => {
   it('sends a signed-out visitor to sign-in, and back to the Mailbox afterwards', async () => {
