@@ -5,6 +5,7 @@ import {
   deliverReportEmail,
   type ReportEmailComposer,
 } from '@/features/follow-up/server/deliver';
+import { composeCustomerReportEmail } from '@/features/reports/server/customer-email';
 import { sweepAllShops } from '@/features/tool-crib/server/wrenches';
 import { deliverTransitionNotices } from '@/server/mail/job-notices';
 import { sendMail, type OutgoingMail } from '@/server/mail/mailer';
@@ -16,11 +17,10 @@ export type WorkerDeps = {
   composeReportEmail: ReportEmailComposer;
 };
 
-// Until the reports feature's composer is wired here, the customer e-mail is refused with a reason.
-const noComposer: ReportEmailComposer = () =>
-  Promise.reject(new Error('The completion report e-mail is not available on this server yet.'));
-
-export const defaultDeps: WorkerDeps = { send: sendMail, composeReportEmail: noComposer };
+export const defaultDeps: WorkerDeps = {
+  send: sendMail,
+  composeReportEmail: composeCustomerReportEmail,
+};
 
 export function queueHandlers(deps: WorkerDeps = defaultDeps): QueueHandlers {
   return {

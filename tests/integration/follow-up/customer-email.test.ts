@@ -128,4 +128,16 @@ describe('the customer’s completion e-mail', () => {
     expect(sent.filter((m) => m.shopId === shop.shopId)).toHaveLength(1);
     expect(await emailRow(jobId)).toMatchObject({ status: 'sent', lastError: null });
   });
+
+  it('with the reports feature’s own composer: the PDF attached and the customer’s link inside', async () => {
+    const { shop, jobId } = await signedOff();
+    const sent: OutgoingMail[] = [];
+    await drainQueues({ send: async (m) => void sent.push(m) }, EMAILS);
+    const [mail] = sent.filter((m) => m.shopId === shop.shopId);
+    expect(mail?.to).toBe('wren@example.test');
+    expect(mail?.text).toMatch(/\/r\/[A-Za-z0-9_-]{20,}/);
+    expect(mail?.attachments?.[0]?.contentType).toBe('application/pdf');
+    expect(mail?.attachments?.[0]?.content.subarray(0, 5).toString()).toBe('%PDF-');
+    expect(await emailRow(jobId)).toMatchObject({ status: 'sent' });
+  }, 30_000);
 });
