@@ -188,19 +188,6 @@ export function BoltCircle({
                 strokeWidth={2}
                 aria-hidden
               />
-            ) : n && mode !== 'hand-start' && (mode === 'preview' || turnShown(n)) ? (
-              <text
-                x={x}
-                y={y}
-                dy="0.35em"
-                textAnchor="middle"
-                fontSize={size * 0.95}
-                fontWeight={700}
-                fill={isNext ? '#ffffff' : '#101317'}
-                aria-hidden
-              >
-                {n}
-              </text>
             ) : null}
             {flagged?.includes(b) ? (
               <g data-flagged aria-hidden>
@@ -226,6 +213,33 @@ export function BoltCircle({
           </g>
         );
       })}
+      {/* Turn numbers are drawn on the bolts but outside their buttons, so a bolt button's only
+          visible text is its own number, which its name starts with: a voice-control user says
+          the number they see (WCAG 2.5.3). Taps pass through to the bolt underneath. */}
+      <g aria-hidden pointerEvents="none">
+        {bolts.map((b) => {
+          const n = step.get(b);
+          const state = stateOf(b);
+          if (!n || mode === 'hand-start' || state === 'done' || state === 'started') return null;
+          if (mode !== 'preview' && !turnShown(n)) return null;
+          const { x, y } = boltPosition(b, count, R);
+          return (
+            <text
+              key={b}
+              x={x}
+              y={y}
+              dy="0.35em"
+              textAnchor="middle"
+              fontSize={size * 0.95}
+              fontWeight={700}
+              fill={state === 'next' ? '#ffffff' : '#101317'}
+              data-turn={b}
+            >
+              {n}
+            </text>
+          );
+        })}
+      </g>
       {next && mode === 'pass' ? (
         <text y={6} textAnchor="middle" fontSize={26} fontWeight={800} fill="#101317" aria-hidden>
           {next}

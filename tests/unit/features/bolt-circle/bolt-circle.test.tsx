@@ -101,3 +101,59 @@ describe('bolt positions', () => {
     expect(boltPosition(8, 8, 100).x).toBeCloseTo(-one.x, 9);
   });
 });
+
+describe('BoltCircle for voice control (WCAG 2.5.3, label in name)', () => {
+  /** The words drawn inside an element (hidden from screen readers or not), in document order. */
+  const drawnWords = (el: Element) =>
+    [...el.querySelectorAll('text')].flatMap((t) => (t.textContent ?? '').split(/\s+/));
+  const words = (name: string) =>
+    name
+      .toLowerCase()
+      .split(/[^a-z0-9]+/)
+      .filter(Boolean);
+  const containsInOrder = (name: string[], drawn: string[]) =>
+    name.some((_, i) => drawn.every((w, j) => name[i + j] === w));
+
+  it.each([
+    ['a pass with turn numbers shown on the next bolts', { done: [1], next: 5 }],
+    ['a pass at its start', { done: [], next: 1 }],
+  ])('%s: each bolt button shows only words its name holds, in order', (_, { done, next }) => {
+    render(
+      <BoltCircle
+        count={8}
+        order={tighteningSequence(8, { kind: 'cross' })}
+        done={done}
+        next={next}
+        passLabel="pass 1"
+        label="Pass 1"
+        onSelect={() => {}}
+      />,
+    );
+    const bolts = screen.getAllByRole('button');
+    expect(bolts).toHaveLength(8);
+    for (const bolt of bolts) {
+      const name = bolt.getAttribute('aria-label') ?? '';
+      expect(drawnWords(bolt), name).toEqual([/bolt (\d+)/.exec(name)![1]]);
+      expect(containsInOrder(words(name), drawnWords(bolt)), name).toBe(true);
+    }
+    // The turn numbers are still drawn, on the ring, for the next few bolts.
+    expect(document.querySelectorAll('[data-turn]').length).toBeGreaterThan(0);
+  });
+
+  it('hand-start: each bolt button shows its own number, which its name holds', () => {
+    render(
+      <BoltCircle
+        count={8}
+        done={[1, 2]}
+        next={3}
+        mode="hand-start"
+        label="Hand-start"
+        onSelect={() => {}}
+      />,
+    );
+    for (const bolt of screen.getAllByRole('button')) {
+      const name = bolt.getAttribute('aria-label') ?? '';
+      expect(containsInOrder(words(name), drawnWords(bolt)), name).toBe(true);
+    }
+  });
+});
