@@ -1,96 +1,44 @@
 'use client';
 
-import { get, keys, set } from 'idb-keyval';
-import { useCallback, useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'react';
+import { useMutation } from '@tanstack/react-query';
 import { unstable_isUnrecognizedActionError } from 'next/navigation';
-import type { ActionResult, FailureCode } from '@/server/action';
-import type { ClientEvent, EventRefusal, RunEvent } from '../events';
+import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import type { ClientEvent, RunEvent } from '../events';
 import { deviceId } from './device-id';
+import { useWheelEvents } from './get-wheel-events';
+import { useOnline } from './online';
+import {
+  outboxKey,
+  readOutbox,
+  writeOutbox,
+  type AttentionItem,
+  type OthersWaiting,
+  type QueuePerson,
+} from './outbox-store';
+import {
+  KeptForRetry,
+  keepsAndRetries,
+  refusalMessage,
+  reloadForNewBuild,
+  retryDelay,
+  type SaveEvents,
+} from './send-outcome';
+
+export { outboxKey, othersWaiting } from './outbox-store';
+export type { AttentionItem, OthersWaiting, QueuePerson } from './outbox-store';
+export { refusalMessage } from './send-outcome';
+export type { SaveEvents } from './send-outcome';
 
 // `ready` stays false until this phone's own queue is read: before that "saved" would be a guess.
 // `signedOut`: the session ended; what waits is kept and goes once the person signs in again.
 type Status = { waiting: number; error: string | null; ready: boolean; signedOut: boolean };
-
-/** The person signed in on this phone; their outbox is theirs alone. */
-export type QueuePerson = { id: string; name: string };
-/** An event the server refused for good, kept on the phone with the reason until dismissed. */
-export type AttentionItem = { event: ClientEvent; reason: string };
-/** Another person's events waiting on this phone for this wheel: never sent under this person's name. */
-export type OthersWaiting = { ownerName: string; waiting: number };
-
-/**
- * What the phone keeps per person and wheel. `generation`: the lead's latest send-back of the
- * wheel (its time), so a phone drops its copy of events the send-back superseded.
- */
-type Held = {
-  owner: QueuePerson;
-  pending: ClientEvent[];
-  saved: ClientEvent[];
-  attention: AttentionItem[];
-  generation: string | null;
-};
-
-const PREFIX = 'ringpass:run:';
-/** The outbox key: person and wheel, so one person's waiting events are never sent in another's session. */
-export const outboxKey = (personId: string, wheelId: string) => `${PREFIX}${personId}:${wheelId}`;
-
-/** Other people's waiting events for this wheel, from the phone's stored outboxes (pure, for the screen and tests). */
-export function othersWaiting(
-  entries: readonly [string, unknown][],
-  person: QueuePerson,
-  wheelId: string,
-): OthersWaiting[] {
-  return entries.flatMap(([k, value]) => {
-    if (k === outboxKey(person.id, wheelId)) return [];
-    const legacy = k === `${PREFIX}${wheelId}`;
-    if (!legacy && !(k.startsWith(PREFIX) && k.endsWith(`:${wheelId}`))) return [];
-    const held = value as Partial<Held> | undefined;
-    const waiting = held?.pending?.length ?? 0;
-    // Stored before outboxes were kept per person: whose they are is unknown, so they are not sent.
-    return waiting
-      ? [{ ownerName: held?.owner?.name ?? 'someone (from before an update)', waiting }]
-      : [];
-  });
-}
-
-function subscribeOnline(change: () => void) {
-  window.addEventListener('online', change);
-  window.addEventListener('offline', change);
-  return () => {
-    window.removeEventListener('online', change);
-    window.removeEventListener('offline', change);
-  };
-}
-
-/** The server action that stores a batch (passed down from the runner page). */
-export type SaveEvents = (
-  prev: unknown,
-  input: { wheelId: string; events: ClientEvent[] },
-) => Promise<ActionResult<{ saved: number; duplicates: number; refused?: EventRefusal[] }>>;
-
-// Refusals that may pass: a session that ended (sign in again), a rate limit, our own failure.
-const KEEP_AND_RETRY = new Set<FailureCode>(['unauthenticated', 'rate_limited', 'internal']);
-
-/** What the technician reads when the server set some confirmations aside. */
-export function refusalMessage(refused: EventRefusal[]): string | null {
-  if (refused.length === 0) return null;
-  const what =
-    refused.length === 1 ? 'One confirmation was' : `${refused.length} confirmations were`;
-  return `${what} not saved and set aside: ${refused[0]!.message} Everything else was saved; redo that step if it still needs doing.`;
-}
-
-const RELOADED_AT = 'ringpass:reloaded-for-new-build';
-function reloadForNewBuild(): boolean {
-  const last = Number(sessionStorage.getItem(RELOADED_AT) ?? 0);
-  if (Date.now() - last < 60_000) return false;
-  sessionStorage.setItem(RELOADED_AT, String(Date.now()));
-  location.reload();
-  return true;
-}
+/** One send: the batch taken from the head of the queue and the server's answer (null: nothing sent). */
+type Sent = { batch: ClientEvent[]; result: Awaited<ReturnType<SaveEvents>> } | null;
 
 /**
  * The runner's durable outbox. Every confirmation becomes an event with its own id, is applied at
- * once, kept in IndexedDB until the server has it, and sent in order when the network allows.
+ * once, written to IndexedDB before any network, and leaves "waiting" only on the server's answer.
+ * Sending is a Query mutation: it pauses offline, resumes on reconnect and retries with backoff.
  * The server stores each id once, so sending again after a drop or a reload is always safe.
  */
 export function useRunQueue(
@@ -112,32 +60,34 @@ export function useRunQueue(
     ready: false,
     signedOut: false,
   });
-  const attentionRef = useRef<AttentionItem[]>([]);
   const key = outboxKey(person.id, wheelId);
-  const online = useSyncExternalStore(
-    subscribeOnline,
-    () => navigator.onLine,
-    () => true,
-  );
-  const flushRef = useRef<() => Promise<void>>(async () => {});
+  const online = useOnline();
+  // Refs mirror the state for the send, which reads the queue as it is when it runs.
   const pendingRef = useRef<ClientEvent[]>([]);
-  const loaded = useRef(false); // status.ready, readable inside the send callback without re-creating it
-  const sending = useRef(false);
-  const retry = useRef<ReturnType<typeof setTimeout> | null>(null);
-  const attempt = useRef(0);
-
   const savedRef = useRef<ClientEvent[]>(serverEvents);
+  const attentionRef = useRef<AttentionItem[]>([]);
+  const loaded = useRef(false); // status.ready, readable inside callbacks without re-creating them
+  const sending = useRef(false); // one send at a time keeps the queue's order
+  const mounted = useRef(true);
+  const flushRef = useRef<() => void>(() => {});
+  useEffect(() => {
+    mounted.current = true;
+    return () => {
+      mounted.current = false;
+    };
+  }, []);
+
   // The device keeps both what waits and what the server already has, so a reload while offline
   // (the page then comes from the service worker's copy) still shows every confirmation.
   const persist = useCallback(
     () =>
-      set(key, {
+      writeOutbox(key, {
         owner: person,
         pending: pendingRef.current,
         saved: savedRef.current,
         attention: attentionRef.current,
         generation,
-      } satisfies Held),
+      }),
     [key, person, generation],
   );
 
@@ -158,29 +108,56 @@ export function useRunQueue(
     [persist],
   );
 
+  /** Adds the server's events to the saved copy; says whether any were new. */
   const addSaved = useCallback((more: ClientEvent[]) => {
     const ids = new Set(savedRef.current.map((e) => e.clientId));
-    savedRef.current = [...savedRef.current, ...more.filter((e) => !ids.has(e.clientId))];
+    const fresh = more.filter((e) => !ids.has(e.clientId));
+    if (!fresh.length) return false;
+    savedRef.current = [...savedRef.current, ...fresh];
     setSaved(savedRef.current);
+    return true;
   }, []);
 
-  const flush = useCallback(async () => {
-    if (sending.current || !loaded.current) return;
-    const batch = pendingRef.current.slice(0, 100);
-    if (batch.length === 0) return;
-    if (typeof navigator !== 'undefined' && !navigator.onLine) return;
-    sending.current = true;
-    const sent = new Set(batch.map((e) => e.clientId));
-    const backOff = () => {
-      attempt.current += 1;
-      const wait = Math.min(30_000, 1000 * 2 ** attempt.current);
-      if (retry.current) clearTimeout(retry.current);
-      retry.current = setTimeout(() => void flushRef.current(), wait);
-    };
-    try {
-      const result = await saveEvents(null, { wheelId, events: batch });
+  const { mutateAsync } = useMutation<Sent, Error>({
+    mutationKey: ['runner', 'outbox', key],
+    // Offline the send waits (paused) and goes on reconnect; Query's onlineManager follows the
+    // browser (./online). Every failure that may pass is retried, 2 s doubling to 30 s, for as
+    // long as the runner is open: the events are on the phone, so waiting costs nothing.
+    networkMode: 'online',
+    retry: () => mounted.current,
+    retryDelay,
+    mutationFn: async () => {
+      // Each attempt takes the head of the queue as it is now, so a retry carries what was added.
+      const batch = pendingRef.current.slice(0, 100);
+      if (!batch.length || !mounted.current) return null;
+      let result: Awaited<ReturnType<SaveEvents>>;
+      try {
+        result = await saveEvents(null, { wheelId, events: batch });
+      } catch (error) {
+        // A deploy replaced the build this page came from, so its action id is gone: reload into
+        // the new build, which sends what waits from IndexedDB. Once a minute at most, then retry.
+        if (unstable_isUnrecognizedActionError(error) && reloadForNewBuild()) return null;
+        throw error;
+      }
+      if (!result.ok && keepsAndRetries(result.code)) {
+        const signedOut = result.code === 'unauthenticated';
+        setStatus((s) => ({
+          ...s,
+          signedOut,
+          error: signedOut
+            ? 'Your session has ended. Everything waiting stays on this phone.'
+            : result.message,
+        }));
+        throw new KeptForRetry(result.message, signedOut);
+      }
+      return { batch, result };
+    },
+    // Settled before the send counts as done, so the queue on the phone never lags the answer.
+    onSuccess: async (sent) => {
+      if (!sent) return;
+      const { batch, result } = sent;
+      const sentIds = new Set(batch.map((e) => e.clientId));
       if (result.ok) {
-        attempt.current = 0;
         // The server judged each event alone: the ones it refused for good leave the queue (with
         // a message), everything else in the batch was stored.
         const refusals = result.data.refused ?? [];
@@ -191,39 +168,30 @@ export function useRunQueue(
           ),
         );
         addSaved(batch.filter((e) => !refused.has(e.clientId)));
-        await store(pendingRef.current.filter((e) => !sent.has(e.clientId)));
-        setStatus((s) => ({
-          ...s,
-          error: refusalMessage(result.data.refused ?? []),
-          signedOut: false,
-        }));
-      } else if (KEEP_AND_RETRY.has(result.code)) {
-        const signedOut = result.code === 'unauthenticated';
-        setStatus((s) => ({
-          ...s,
-          signedOut,
-          error: signedOut
-            ? 'Your session has ended. Everything waiting stays on this phone.'
-            : result.message,
-        }));
-        backOff();
+        await store(pendingRef.current.filter((e) => !sentIds.has(e.clientId)));
+        setStatus((s) => ({ ...s, error: refusalMessage(refusals), signedOut: false }));
       } else {
         // The server refused these for good (bad data, no permission): keep them out of the queue
         // so the rest can go, list them under "Needs attention", and say so.
         setAside(batch.map((event) => ({ event, reason: result.message })));
-        await store(pendingRef.current.filter((e) => !sent.has(e.clientId)));
+        await store(pendingRef.current.filter((e) => !sentIds.has(e.clientId)));
         setStatus((s) => ({ ...s, error: result.message }));
       }
-    } catch (error) {
-      // A deploy replaced the build this page came from, so its action id is gone: reload into the
-      // new build, which sends what waits from IndexedDB. Once a minute at most, then keep retrying.
-      if (unstable_isUnrecognizedActionError(error) && reloadForNewBuild()) return;
-      backOff();
-    } finally {
-      sending.current = false;
-    }
-    if (pendingRef.current.length && attempt.current === 0) void flushRef.current();
-  }, [wheelId, store, addSaved, saveEvents, setAside]);
+    },
+  });
+
+  /** Sends the head of the queue unless a send is under way; then the next batch, until empty. */
+  const flush = useCallback(() => {
+    if (sending.current || !loaded.current || !pendingRef.current.length) return;
+    sending.current = true;
+    void mutateAsync()
+      .then((sent) => sent !== null)
+      .catch(() => false) // given up only when the runner closed; the phone keeps the events
+      .then((more) => {
+        sending.current = false;
+        if (more && mounted.current) flushRef.current();
+      });
+  }, [mutateAsync]);
   useEffect(() => {
     flushRef.current = flush;
   }, [flush]);
@@ -232,17 +200,9 @@ export function useRunQueue(
   useEffect(() => {
     let cancelled = false;
     void (async () => {
-      const held = await get<Held>(key);
-      const all = await keys().then((ks) =>
-        Promise.all(
-          ks
-            .map(String)
-            .filter((k) => k.startsWith(PREFIX) && k.endsWith(wheelId))
-            .map(async (k) => [k, await get(k)] as [string, unknown]),
-        ),
-      );
+      const { held, others: theirs } = await readOutbox(person, wheelId);
       if (cancelled) return;
-      setOthers(othersWaiting(all, person, wheelId));
+      setOthers(theirs);
       loaded.current = true;
       attentionRef.current = held?.attention ?? [];
       setAttention(attentionRef.current);
@@ -251,39 +211,18 @@ export function useRunQueue(
       const known = new Set(savedRef.current.map((e) => e.clientId));
       await store((held?.pending ?? []).filter((e) => !known.has(e.clientId)));
       setStatus((s) => ({ ...s, ready: true }));
-      void flush();
+      flush();
     })();
     return () => {
       cancelled = true;
     };
-  }, [key, wheelId, person, generation, store, flush, addSaved]);
+  }, [wheelId, person, generation, store, flush, addSaved]);
 
-  // Another device on the same wheel: pull the server's events now and then, so both converge.
+  // Other phones' events on this wheel, pulled by Query every few seconds (paused offline).
+  const { data: remote } = useWheelEvents(eventsUrl, status.ready);
   useEffect(() => {
-    if (!online) return;
-    const pull = async () => {
-      const res = await fetch(eventsUrl).catch(() => null);
-      if (!res?.ok) return;
-      const body = (await res.json()) as { data: { events: ClientEvent[] } };
-      addSaved(body.data.events);
-      await persist();
-    };
-    const timer = setInterval(() => void pull(), 5_000);
-    return () => clearInterval(timer);
-  }, [online, eventsUrl, addSaved, persist]);
-
-  // Back online: send what waited, without waiting for the retry timer.
-  useEffect(() => {
-    if (!online) return;
-    attempt.current = 0;
-    void flush();
-  }, [online, flush]);
-  useEffect(
-    () => () => {
-      if (retry.current) clearTimeout(retry.current);
-    },
-    [],
-  );
+    if (remote && addSaved(remote)) void persist();
+  }, [remote, addSaved, persist]);
 
   const record = useCallback(
     async (event: RunEvent) => {
@@ -295,7 +234,7 @@ export function useRunQueue(
         deviceId: deviceId(),
       } as ClientEvent;
       await store([...pendingRef.current, full]);
-      void flush();
+      flush();
     },
     [store, flush],
   );

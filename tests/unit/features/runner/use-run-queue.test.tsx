@@ -1,6 +1,11 @@
 // @vitest-environment jsdom
+// The device's IndexedDB in memory (fake-indexeddb), under the real idb-keyval the runner uses.
+import 'fake-indexeddb/auto';
+import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { act, renderHook, waitFor } from '@testing-library/react';
+import { clear, get, set } from 'idb-keyval';
 import { UnrecognizedActionError } from 'next/dist/client/components/unrecognized-action-error';
+import type { ReactNode } from 'react';
 import { beforeEach, describe, expect, it, vi } from 'vitest';
 import {
   outboxKey,
@@ -9,14 +14,6 @@ import {
   type SaveEvents,
 } from '@/features/runner/api/use-run-queue';
 
-// The device's IndexedDB, in memory.
-const idb = new Map<string, unknown>();
-vi.mock('idb-keyval', () => ({
-  get: async (key: string) => idb.get(key),
-  set: async (key: string, value: unknown) => void idb.set(key, structuredClone(value)),
-  keys: async () => [...idb.keys()],
-}));
-
 const WHEEL = '6d3a0f7e-1c1b-4c55-9f3e-2a7d1f0c9b11';
 const confirm = { type: 'bolt_confirmed', payload: { pass: 1, bolt: 1 } } as const;
 const saved = { ok: true as const, data: { saved: 1, duplicates: 0 } };
@@ -24,15 +21,26 @@ const THEO: QueuePerson = { id: '0b6f9a52-56a4-4c6e-8a39-8d3c3f1e0a01', name: 'T
 const LENA: QueuePerson = { id: '7c1e2d33-9f0a-4b1e-b2c4-5a6d7e8f9a02', name: 'Lena Lead' };
 const KEY = outboxKey(THEO.id, WHEEL);
 
+// The runner's page gives it the app's QueryClient (the runner layout); each test its own.
+function withQuery() {
+  const client = new QueryClient();
+  return function WithQuery({ children }: { children: ReactNode }) {
+    return <QueryClientProvider client={client}>{children}</QueryClientProvider>;
+  };
+}
+
 function setUp(save: SaveEvents, person = THEO) {
   const action = vi.fn(save);
-  const hook = renderHook(() => useRunQueue(WHEEL, [], action, person));
+  const hook = renderHook(() => useRunQueue(WHEEL, [], action, person), { wrapper: withQuery() });
   return { action, hook };
 }
 
+// The outbox as the phone holds it.
+const held = async () => (await get(KEY)) as Record<string, unknown> & { pending: unknown[] };
+
 describe('the runner outbox', () => {
-  beforeEach(() => {
-    idb.clear();
+  beforeEach(async () => {
+    await clear();
     sessionStorage.clear();
     vi.useRealTimers();
   });
@@ -64,7 +72,7 @@ describe('the runner outbox', () => {
     expect(hook.result.current.status.signedOut).toBe(true);
     expect(hook.result.current.status.waiting).toBe(1);
     expect(action).toHaveBeenCalledTimes(1);
-    expect((idb.get(KEY) as { pending: unknown[] }).pending).toHaveLength(1);
+    expect((await held()).pending).toHaveLength(1);
   });
 
   it('a refusal for good (bad data) leaves the queue, so what follows can go, and says why', async () => {
@@ -89,7 +97,7 @@ describe('the runner outbox', () => {
       clientId: crypto.randomUUID(),
       clientAt: at,
     }));
-    idb.set(KEY, { pending: queued, saved: [] });
+    await set(KEY, { pending: queued, saved: [] });
     const { action, hook } = setUp(async () => ({
       ok: true,
       data: {
@@ -117,7 +125,7 @@ describe('the runner outbox', () => {
     ]);
     await new Promise((r) => setTimeout(r, 50));
     expect(action).toHaveBeenCalledTimes(1);
-    expect(idb.get(KEY)).toMatchObject({
+    expect(await held()).toMatchObject({
       pending: [],
       saved: [
         expect.objectContaining({ clientId: queued[0]!.clientId }),
@@ -135,7 +143,7 @@ describe('the runner outbox', () => {
     await waitFor(() => expect(hook.result.current.status.ready).toBe(true));
     await act(() => hook.result.current.record(confirm));
     await waitFor(() => expect(reload).toHaveBeenCalledTimes(1));
-    expect((idb.get(KEY) as { pending: unknown[] }).pending).toHaveLength(1);
+    expect((await held()).pending).toHaveLength(1);
     // Reloaded a moment ago and still refused: no reload loop, the queue waits and retries.
     await act(() => hook.result.current.record(confirm));
     await new Promise((r) => setTimeout(r, 50));
@@ -154,7 +162,7 @@ describe('the runner outbox', () => {
     await act(() => ended.hook.result.current.record(confirm));
     await waitFor(() => expect(ended.hook.result.current.status.signedOut).toBe(true));
     ended.hook.unmount();
-    const theosEvent = (idb.get(KEY) as { pending: { clientId: string }[] }).pending[0]!;
+    const theosEvent = (await held()).pending[0] as { clientId: string };
 
     const lena = setUp(async () => saved, LENA);
     await waitFor(() => expect(lena.hook.result.current.status.ready).toBe(true));
@@ -170,6 +178,8 @@ describe('the runner outbox', () => {
     lena.hook.unmount();
 
     const theo = setUp(async () => saved);
+    // "0 waiting" means something only once the phone's outbox is read.
+    await waitFor(() => expect(theo.hook.result.current.status.ready).toBe(true));
     await waitFor(() => expect(theo.hook.result.current.status.waiting).toBe(0));
     expect(theo.action).toHaveBeenCalledWith(null, {
       wheelId: WHEEL,
@@ -203,15 +213,18 @@ describe('the runner outbox', () => {
         },
       ]),
     );
-    expect(idb.get(KEY)).toMatchObject({
-      owner: THEO,
-      attention: [
-        expect.objectContaining({ reason: 'This wheel was submitted; its record is closed.' }),
-      ],
-    });
+    // Written to IndexedDB right after the screen shows it.
+    await waitFor(async () =>
+      expect(await held()).toMatchObject({
+        owner: THEO,
+        attention: [
+          expect.objectContaining({ reason: 'This wheel was submitted; its record is closed.' }),
+        ],
+      }),
+    );
     await act(() => hook.result.current.dismiss());
     expect(hook.result.current.attention).toEqual([]);
-    expect(idb.get(KEY)).toMatchObject({ attention: [] });
+    expect(await held()).toMatchObject({ attention: [] });
   });
 
   it("after a lead's send-back the phone drops its copy of the superseded events, keeping what still waits", async () => {
@@ -222,7 +235,7 @@ describe('the runner outbox', () => {
       clientAt: '2026-01-01T09:00:00.000Z',
     };
     const waiting = { ...old, clientId: crypto.randomUUID(), clientAt: '2026-01-01T09:05:00.000Z' };
-    idb.set(KEY, {
+    await set(KEY, {
       owner: THEO,
       pending: [waiting],
       saved: [old],
@@ -230,11 +243,14 @@ describe('the runner outbox', () => {
       generation: null,
     });
     const action = vi.fn<SaveEvents>(async () => saved);
-    const hook = renderHook(() => useRunQueue(WHEEL, [], action, THEO, '2026-01-02T10:00:00.000Z'));
+    const hook = renderHook(
+      () => useRunQueue(WHEEL, [], action, THEO, '2026-01-02T10:00:00.000Z'),
+      { wrapper: withQuery() },
+    );
     await waitFor(() => expect(action).toHaveBeenCalledTimes(1));
     await waitFor(() => expect(hook.result.current.status.waiting).toBe(0));
     expect(hook.result.current.events.map((e) => e.clientId)).toEqual([waiting.clientId]);
-    expect(idb.get(KEY)).toMatchObject({ generation: '2026-01-02T10:00:00.000Z' });
+    expect(await held()).toMatchObject({ generation: '2026-01-02T10:00:00.000Z' });
   });
 
   it('every event it makes names this phone: the same id each time, kept in the browser for the next session', async () => {

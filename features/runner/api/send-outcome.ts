@@ -1,0 +1,46 @@
+import type { ActionResult, FailureCode } from '@/server/action';
+import type { ClientEvent, EventRefusal } from '../events';
+
+/** The server action that stores a batch (passed down from the runner page). */
+export type SaveEvents = (
+  prev: unknown,
+  input: { wheelId: string; events: ClientEvent[] },
+) => Promise<ActionResult<{ saved: number; duplicates: number; refused?: EventRefusal[] }>>;
+
+// Refusals that may pass: a session that ended (sign in again), a rate limit, our own failure.
+const KEEP_AND_RETRY = new Set<FailureCode>(['unauthenticated', 'rate_limited', 'internal']);
+
+/** A whole-batch failure that may pass: the events stay on the phone and the send is retried. */
+export class KeptForRetry extends Error {
+  constructor(
+    message: string,
+    readonly signedOut: boolean,
+  ) {
+    super(message);
+    this.name = 'KeptForRetry';
+  }
+}
+
+/** Whether a failed answer means "keep the events and try again" rather than "refused for good". */
+export const keepsAndRetries = (code: FailureCode) => KEEP_AND_RETRY.has(code);
+
+/** Waits between sends after a failure: 2 s, 4 s, 8 s … at most 30 s (the server is not hammered). */
+export const retryDelay = (failures: number) => Math.min(30_000, 1000 * 2 ** failures);
+
+/** What the technician reads when the server set some confirmations aside. */
+export function refusalMessage(refused: EventRefusal[]): string | null {
+  if (refused.length === 0) return null;
+  const what =
+    refused.length === 1 ? 'One confirmation was' : `${refused.length} confirmations were`;
+  return `${what} not saved and set aside: ${refused[0]!.message} Everything else was saved; redo that step if it still needs doing.`;
+}
+
+const RELOADED_AT = 'ringpass:reloaded-for-new-build';
+/** Reloads into the new build after a deploy, once a minute at most (no reload loop). */
+export function reloadForNewBuild(): boolean {
+  const last = Number(sessionStorage.getItem(RELOADED_AT) ?? 0);
+  if (Date.now() - last < 60_000) return false;
+  sessionStorage.setItem(RELOADED_AT, String(Date.now()));
+  location.reload();
+  return true;
+}
