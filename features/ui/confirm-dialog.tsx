@@ -17,6 +17,8 @@ type Props = {
   confirmLabel: string;
   /** Runs once per confirmation; the server action behind it still checks everything itself. */
   onConfirm: () => void;
+  /** The safe choice, "Cancel" unless that word is in the action ("Keep the reminder"). */
+  cancelLabel?: string;
   disabled?: boolean;
 };
 
@@ -32,6 +34,7 @@ export function ConfirmDialog({
   description,
   confirmLabel,
   onConfirm,
+  cancelLabel = 'Cancel',
   disabled,
 }: Props) {
   const [open, setOpen] = useState(false);
@@ -60,7 +63,7 @@ export function ConfirmDialog({
           <Dialog.Description className="text-base">{description}</Dialog.Description>
           <div className="flex flex-wrap justify-end gap-3">
             <Dialog.Close ref={cancelRef} className={buttonClass('secondary')}>
-              Cancel
+              {cancelLabel}
             </Dialog.Close>
             <button
               type="button"
