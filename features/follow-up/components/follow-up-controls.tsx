@@ -1,6 +1,8 @@
 'use client';
 
+import { useRef } from 'react';
 import { Button } from '@/features/ui/button';
+import { ConfirmDialog } from '@/features/ui/confirm-dialog';
 import { TextField } from '@/features/ui/field';
 import { FormMessage } from '@/features/ui/form-message';
 import { useFormAction } from '@/features/ui/use-form-action';
@@ -25,6 +27,7 @@ export function RecheckControls({
 }) {
   const move = useFormAction(rescheduleRecheckReminder);
   const cancel = useFormAction(cancelRecheckReminder);
+  const cancelForm = useRef<HTMLFormElement>(null);
   return (
     <div className="flex flex-col gap-3">
       <form action={move.formAction} noValidate className="flex flex-col gap-2">
@@ -42,12 +45,18 @@ export function RecheckControls({
         </Button>
       </form>
       {canCancel ? (
-        <form action={cancel.formAction}>
+        <form ref={cancelForm} action={cancel.formAction}>
           <FormMessage state={shown(cancel.state)} />
           <input type="hidden" name="jobId" value={jobId} />
-          <Button variant="danger" disabled={cancel.pending}>
-            Cancel reminder
-          </Button>
+          <ConfirmDialog
+            triggerLabel="Cancel reminder"
+            title="Cancel the re-check reminder?"
+            description="The customer will not be reminded to have the ring bolts re-checked after the first ride. Reschedule instead if only the day is wrong."
+            confirmLabel="Cancel the reminder"
+            cancelLabel="Keep the reminder"
+            onConfirm={() => cancelForm.current?.requestSubmit()}
+            disabled={cancel.pending}
+          />
         </form>
       ) : null}
     </div>

@@ -34,6 +34,8 @@ describe('FollowUpPanel', () => {
     expect(recheck).toHaveTextContent('Scheduled · due Dec 8, 2026');
     expect(within(recheck).getByLabelText('Re-check due on')).toHaveValue('2026-12-08');
     await userEvent.click(within(recheck).getByRole('button', { name: 'Cancel reminder' }));
+    expect(cancel).not.toHaveBeenCalled(); // asked first
+    await userEvent.click(screen.getByRole('button', { name: 'Cancel the reminder' }));
     expect(await screen.findByText('Re-check reminder cancelled.')).toBeVisible();
     expect((cancel.mock.calls[0]![1] as FormData).get('jobId')).toBe('j1');
   });
