@@ -1,6 +1,8 @@
 'use client';
 
+import { useRef } from 'react';
 import { Button } from '@/features/ui/button';
+import { ConfirmDialog } from '@/features/ui/confirm-dialog';
 import { FormMessage } from '@/features/ui/form-message';
 import { useFormAction } from '@/features/ui/use-form-action';
 import { clearForRealWheels, revokeRealWheelsClearance } from '../actions/clearance-actions';
@@ -17,13 +19,20 @@ export function ClearanceForm({
 }) {
   const clear = useFormAction(clearForRealWheels);
   const revoke = useFormAction(revokeRealWheelsClearance);
+  const revokeForm = useRef<HTMLFormElement>(null);
   if (cleared) {
     return (
-      <form action={revoke.formAction} className="flex flex-col gap-2">
+      <form ref={revokeForm} action={revoke.formAction} className="flex flex-col gap-2">
         <input type="hidden" name="userId" value={userId} />
-        <Button variant="secondary" disabled={revoke.pending}>
-          Revoke {name}&rsquo;s clearance
-        </Button>
+        <ConfirmDialog
+          triggerLabel={`Revoke ${name}’s clearance`}
+          triggerVariant="secondary"
+          title={`Revoke ${name}’s clearance for real wheels?`}
+          description="They go back to practice only: real wheels are refused to them until you clear them again."
+          confirmLabel={`Revoke ${name}’s clearance`}
+          onConfirm={() => revokeForm.current?.requestSubmit()}
+          disabled={revoke.pending}
+        />
         <FormMessage state={revoke.state} />
       </form>
     );
