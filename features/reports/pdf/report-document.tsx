@@ -14,6 +14,9 @@ export function ReportDocument({
   return (
     <Document title={title} author={view.shop.name} creator="Ringpass" producer="Ringpass">
       <Page size="LETTER" style={styles.page}>
+        <Text style={styles.footerLeft} fixed>
+          {view.shop.name} · Job {view.jobNumber} · {view.customer}
+        </Text>
         <Text style={styles.title}>{view.shop.name}</Text>
         <Text style={styles.subtitle}>
           {title}
@@ -58,8 +61,9 @@ export function ReportDocument({
             ))}
           </View>
         ) : null}
-        {view.wheels.map((w) => (
-          <WheelSection key={w.position} wheel={w} images={images} />
+        {view.wheels.map((w, i) => (
+          // One wheel per page after the first: a wheel's record is never split from its drawing.
+          <WheelSection key={w.position} wheel={w} images={images} newPage={i > 0} />
         ))}
         {view.acknowledgements.length ? (
           <View wrap={false}>
@@ -79,12 +83,6 @@ export function ReportDocument({
             </Text>
           ))}
           <Text style={{ ...styles.bold, marginTop: 8 }}>{view.makerFirst}</Text>
-        </View>
-        <View style={styles.footer} fixed>
-          <Text>
-            {view.shop.name} · Job {view.jobNumber} · {view.customer}
-          </Text>
-          <Text render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`} />
         </View>
       </Page>
     </Document>

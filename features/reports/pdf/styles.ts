@@ -22,14 +22,5 @@ export const styles = StyleSheet.create({
   tr: { flexDirection: 'row', borderBottomWidth: 1, borderBottomColor: RULE, paddingVertical: 2 },
   td: { flexGrow: 1, flexBasis: 0, paddingRight: 4 },
   photo: { width: 150, height: 112, objectFit: 'cover', marginRight: 6, marginBottom: 2 },
-  footer: {
-    position: 'absolute',
-    bottom: 18,
-    left: 36,
-    right: 36,
-    fontSize: 7,
-    color: MUTED,
-    flexDirection: 'row',
-    justifyContent: 'space-between',
-  },
+  footerLeft: { position: 'absolute', bottom: 18, left: 36, fontSize: 7, color: MUTED },
 });

@@ -17,13 +17,15 @@ function Field({ label, value }: { label: string; value: string }) {
 export function WheelSection({
   wheel,
   images,
+  newPage,
 }: {
   wheel: WheelView;
   images: Record<string, PhotoImage | null>;
+  newPage: boolean;
 }) {
   const spec = wheel.spec;
   return (
-    <View style={styles.box}>
+    <View style={styles.box} break={newPage}>
       <Text style={styles.h2}>
         {wheel.position} · {wheel.positionName} wheel
       </Text>

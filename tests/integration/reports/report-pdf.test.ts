@@ -6,14 +6,16 @@ import { apiRequest, cookieFor, createTestShop, params } from '@/tests/helpers/f
 import { createRecords } from '@/tests/helpers/records';
 import { signedOffJob } from '@/tests/helpers/report-work';
 
-async function textOf(pdf: Buffer | Uint8Array): Promise<string> {
+async function readPdf(pdf: Buffer | Uint8Array) {
   const parser = new PDFParse({ data: new Uint8Array(pdf) });
   try {
-    return (await parser.getText()).text.replace(/\s+/g, ' ');
+    const { text, total } = await parser.getText();
+    return { text: text.replace(/\s+/g, ' '), pages: total };
   } finally {
     await parser.destroy();
   }
 }
+const textOf = async (pdf: Buffer | Uint8Array) => (await readPdf(pdf)).text;
 
 const count = (text: string, part: string) => text.split(part).length - 1;
 // The shop's default zone is UTC and its re-check days 7 (the shop_settings column defaults).
@@ -25,7 +27,7 @@ describe("the job's completion report (PDF)", () => {
     const { pdf, filename } = await renderJobReport(shop.shopId, job.id);
     expect(filename).toBe(`job-${job.number}-report.pdf`);
     expect(pdf.subarray(0, 5).toString()).toBe('%PDF-');
-    const text = await textOf(pdf);
+    const { text, pages } = await readPdf(pdf);
 
     expect(text).toContain('Wren Halloway');
     expect(text).toContain('2022 Talonworks Ridgeback');
@@ -52,6 +54,8 @@ describe("the job's completion report (PDF)", () => {
       "The wheel and tire maker's specifications, local codes and licensed practice always come first",
     );
     expect(text).toContain('VALVE');
+    // One wheel per page after the summary: a wheel's record never splits from its drawing.
+    expect(pages).toBe(4);
   });
 
   it('names the wrench by serial and its last verification before the sign-off', async () => {
