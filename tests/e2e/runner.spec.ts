@@ -72,15 +72,18 @@ test('at 360×640 a wheel runs through its steps; offline, 10 bolts are confirme
     contentType: 'image/png',
   });
   await page.setViewportSize({ width: 360, height: 640 });
+  // Pass 1's "Wrench set" recorded the wrench chosen; it reached the server before the Wi-Fi drops.
+  await expect(page.getByRole('status').filter({ hasText: 'Saved' })).toBeVisible();
 
   await context.setOffline(true);
   await confirmBolts(page, 10);
-  await expect(page.getByRole('status').filter({ hasText: '10 waiting · offline' })).toBeVisible();
+  // 10 bolts and pass 2's "Wrench set" (the wrench chosen for the pass): 11 events wait.
+  await expect(page.getByRole('status').filter({ hasText: '11 waiting · offline' })).toBeVisible();
   await page.reload();
   await expect(page.getByText('Set Blue click 20–200 in-lb to 101 in-lb')).toBeVisible(); // pass 2, resumed
   await page.getByRole('button', { name: 'Wrench set' }).click();
   await expect(page.getByText('2 of 8 bolts · next: bolt 3')).toBeVisible();
-  await expect(page.getByRole('status').filter({ hasText: '10 waiting' })).toBeVisible();
+  await expect(page.getByRole('status').filter({ hasText: '11 waiting' })).toBeVisible(); // the wrench is not chosen twice
 
   await context.setOffline(false);
   await expect(page.getByRole('status').filter({ hasText: 'Saved' })).toBeVisible({

@@ -260,6 +260,13 @@ export function TorquePanel({
           warnings={choice.warnings}
           onSet={() => {
             setAcked((a) => [...a, ackKey]);
+            // The wrench in hand is recorded once per pass (a later "Wrench set" after a reload
+            // finds it chosen): the save path then takes this pass's bolts on its quick path.
+            if (pass.wrenchId !== wrench.id)
+              void record({
+                type: 'wrench_chosen',
+                payload: { pass: pass.index, wrenchId: wrench.id },
+              });
             // Bring the ring up under the header: ring, setting and button on one screen.
             setTimeout(() => {
               document.getElementById('pass-ring')?.scrollIntoView?.({ block: 'start' });

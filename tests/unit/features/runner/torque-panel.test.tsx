@@ -117,6 +117,24 @@ describe('the torque pass screen', () => {
     });
   });
 
+  it('"Wrench set" records the wrench in hand for the pass, once: after a reload the card asks again but records nothing new', () => {
+    const onRecord = vi.fn();
+    const first = render(<Harness onRecord={onRecord} />);
+    fireEvent.click(screen.getByRole('button', { name: 'Wrench set' }));
+    const chosen = { type: 'wrench_chosen', payload: { pass: 1, wrenchId: CLICK.id } };
+    expect(onRecord).toHaveBeenCalledWith(chosen);
+    first.unmount();
+
+    const afterReload = vi.fn();
+    const held = [
+      { ...chosen, clientId: crypto.randomUUID(), clientAt: '2026-01-01T07:59:00.000Z' },
+    ];
+    render(<Harness onRecord={afterReload} initial={held as ClientEvent[]} />);
+    fireEvent.click(screen.getByRole('button', { name: 'Wrench set' }));
+    expect(afterReload).not.toHaveBeenCalled();
+    expect(screen.getByRole('button', { name: 'Clicked — bolt 1' })).toBeInTheDocument();
+  });
+
   it('shows the card again when the next pass changes the setting', () => {
     render(<Harness onRecord={() => {}} initial={done(1, [1, 3, 2])} />);
     fireEvent.click(screen.getByRole('button', { name: 'Wrench set' }));
@@ -133,6 +151,7 @@ describe('the torque pass screen', () => {
     const onRecord = vi.fn();
     render(<Harness onRecord={onRecord} />);
     fireEvent.click(screen.getByRole('button', { name: 'Wrench set' }));
+    onRecord.mockClear(); // the wrench chosen; only the taps count below
     fireEvent.click(screen.getByRole('button', { name: 'Clicked — bolt 1' }));
     vi.setSystemTime(new Date('2026-01-01T08:00:00.150Z'));
     fireEvent.click(screen.getByRole('button', { name: 'Clicked — bolt 3' }));
