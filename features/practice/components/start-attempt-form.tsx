@@ -19,7 +19,7 @@ const LEVELS: Record<PracticeLevel, { name: string; sentence: string }> = {
   guided: {
     name: 'Guided',
     sentence:
-      'The runner shows the tightening sequence and the wrench setting, as on a real wheel.',
+      'The runner shows the tightening sequence and the wrench setting, as it does on the job.',
   },
   from_memory: {
     name: 'From memory',
