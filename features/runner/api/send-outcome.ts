@@ -24,8 +24,12 @@ export class KeptForRetry extends Error {
 /** Whether a failed answer means "keep the events and try again" rather than "refused for good". */
 export const keepsAndRetries = (code: FailureCode) => KEEP_AND_RETRY.has(code);
 
-/** Waits between sends after a failure: 2 s, 4 s, 8 s … at most 30 s (the server is not hammered). */
-export const retryDelay = (failures: number) => Math.min(30_000, 1000 * 2 ** failures);
+/**
+ * Waits between sends after a failure: 2 s, 4 s, 8 s … at most 30 s (the server is not hammered).
+ * Query passes the failures before this one (0 at the first).
+ */
+export const retryDelay = (failuresBefore: number) =>
+  Math.min(30_000, 1000 * 2 ** (failuresBefore + 1));
 
 /** What the technician reads when the server set some confirmations aside. */
 export function refusalMessage(refused: EventRefusal[]): string | null {
