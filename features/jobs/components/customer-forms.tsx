@@ -11,6 +11,7 @@ import type { Customer } from '../server/customers';
 export function CustomerForm({ customer }: { customer?: Customer }) {
   const { state, formAction, pending, errors, value } = useFormAction(
     customer ? editCustomer : addCustomer,
+    { leaves: customer ? undefined : 'Customer added.' },
   );
   const initial = (k: keyof Customer) => value(k) ?? customer?.[k] ?? '';
   return (

@@ -36,7 +36,9 @@ export function JobForm({
   canAcceptVin,
   pressureUnit,
 }: Props) {
-  const { state, formAction, pending, errors } = useFormAction(createJobCard);
+  const { state, formAction, pending, errors } = useFormAction(createJobCard, {
+    leaves: 'Job card created.',
+  });
   const clock = useShopTime();
   const [customerMode, setCustomerMode] = useState<'existing' | 'new'>(
     customers.length ? 'existing' : 'new',

@@ -87,6 +87,7 @@ export function SpecForm({
 }) {
   const { state, formAction, pending, errors, value } = useFormAction(
     spec ? updateWheelSpec : createWheelSpec,
+    { leaves: spec ? undefined : 'Spec saved.' },
   );
   const [live, setLive] = useState<Live>({});
   const initial = (name: keyof Spec, fallback = '') =>

@@ -21,6 +21,7 @@ export function WrenchForm({
   | { wrench?: undefined; defaultUnit: TorqueUnit }) {
   const { state, formAction, pending, errors, value } = useFormAction(
     wrench ? editWrench : addWrench,
+    { leaves: wrench ? undefined : 'Wrench added to the tool crib.' },
   );
   const initial = (name: keyof CribWrenchDto, fallback = '') =>
     value(name) ?? (wrench?.[name] == null ? fallback : String(wrench[name]));
