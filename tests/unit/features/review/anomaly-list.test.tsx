@@ -97,6 +97,9 @@ describe('DecidePanel', () => {
     );
     await userEvent.click(screen.getByLabelText('Torque passes'));
     await userEvent.click(screen.getByRole('button', { name: 'Send back' }));
+    expect(sendBack).not.toHaveBeenCalled(); // the dialog asks first, naming the wheel
+    await userEvent.click(screen.getByRole('button', { name: 'Send back the LF wheel' }));
+    expect(sendBack).toHaveBeenCalledTimes(1);
     expect(sendBack).toHaveBeenCalledWith(null, {
       jobId: 'j1',
       wheels: [{ wheelId: 'w1', note: 'Redo pass 2 at a steady pace.', steps: ['torque'] }],
