@@ -7,17 +7,16 @@ const RUNNER =
 
 /** Reads the drawing back: every module the SVG's dark path paints, as a size × size grid. */
 function paintedModules(svg: string): { size: number; dark: boolean[] } {
-  const box = /viewBox="0 0 (\d+) (\d+)"/.exec(svg);
-  const path = /<path stroke="#000000" d="([^"]+)"/.exec(svg);
-  if (!box || !path) throw new Error('not a QR drawing');
-  const total = Number(box[1]);
+  const total = Number(/viewBox="0 0 (\d+) \d+"/.exec(svg)?.[1]);
+  const path = /<path stroke="#000000" d="([^"]+)"/.exec(svg)?.[1];
+  if (!total || !path) throw new Error('not a QR drawing');
   const margin = 4;
   const size = total - 2 * margin;
   const dark = new Array<boolean>(size * size).fill(false);
   let x = 0;
   let y = 0;
   // The path uses only M (absolute move), m (relative move) and h (horizontal line) commands.
-  for (const [, cmd, a, b] of path[1].matchAll(/([Mmh])(-?[\d.]+)(?: (-?[\d.]+))?/g)) {
+  for (const [, cmd, a, b] of path.matchAll(/([Mmh])(-?[\d.]+)(?: (-?[\d.]+))?/g)) {
     const n = Number(a);
     if (cmd === 'M') [x, y] = [n, Number(b)];
     else if (cmd === 'm') [x, y] = [x + n, y + Number(b)];
