@@ -76,9 +76,12 @@ export function reportView(data: ReportData): ReportView {
     workedBy,
     summary:
       `${wheels.length} wheel${wheels.length === 1 ? '' : 's'} (${positions}) ` +
-      `${data.job.dismount ? 'had new tires mounted' : 'were serviced'} on the beadlock rings, ` +
-      `with the ring bolts torqued in staged passes to ${torques.join(' and ') || 'the spec'} ` +
-      'and checked until no bolt turned; the beads were seated and the pressures set.',
+      `${data.job.dismount ? (wheels.length === 1 ? 'had a new tire mounted' : 'had new tires mounted') : wheels.length === 1 ? 'was serviced' : 'were serviced'} on the beadlock rings, ` +
+      `with the ring bolts torqued in staged passes to ${torques.join(' and ') || 'the spec'}` +
+      (wheels.some((w) => w.passes.some((p) => p.kind.startsWith('Check')))
+        ? ' and checked until no bolt turned; '
+        : '; ') +
+      'the beads were seated and the pressures set.',
     wheels,
     acknowledgements: data.acknowledgements.map((a) => ({
       wheel: a.wheelId ? (positionOf.get(a.wheelId) ?? 'Wheel') : 'Job',

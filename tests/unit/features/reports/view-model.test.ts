@@ -214,6 +214,12 @@ describe('the report view model', () => {
     );
   });
 
+  it('says what was done in one sentence, the check pass only when there was one', () => {
+    expect(reportView(data()).summary).toBe(
+      '1 wheel (RF) had a new tire mounted on the beadlock rings, with the ring bolts torqued in staged passes to 12 ft-lb (16.3 N·m) and checked until no bolt turned; the beads were seated and the pressures set.',
+    );
+  });
+
   it('has no re-check day before a sign-off', () => {
     expect(recheckDay(data({ signOff: null }))).toBeNull();
   });
