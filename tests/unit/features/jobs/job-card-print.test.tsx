@@ -123,7 +123,11 @@ describe('printed job card', () => {
     const rf = within(screen.getByRole('article', { name: 'RF · Right front' }));
     expect(rf.getByText('16 × 5/16-18, skip 5 pattern')).toBeInTheDocument();
     expect(rf.getByText('20 N·m')).toBeInTheDocument();
-    expect(rf.getByText(/directional: Right side: .* clockwise/)).toBeInTheDocument();
+    expect(
+      rf.getByText(
+        '30x10R14 · directional: seen from outside, the arrow turns clockwise (right side)',
+      ),
+    ).toBeInTheDocument();
     expect(rf.getByText(/Not stated in this spec/)).toBeInTheDocument();
     expect(rf.getByText('100 kPa target')).toBeInTheDocument();
 
