@@ -19,10 +19,13 @@ export function ToastRegion({ children }: { children: ReactNode }) {
         closeButton={false}
         toastOptions={{
           unstyled: true,
+          // The shape on every toast, the colours by type only: two colour classes on one
+          // element would be settled by stylesheet order, not by which type it is.
           classNames: {
-            toast: `${BASE} border-ink bg-paper text-ink`,
-            success: `${BASE} border-ok bg-ok-tint text-ok`,
-            error: `${BASE} border-danger bg-danger-tint text-danger`,
+            toast: BASE,
+            default: 'border-ink bg-paper text-ink',
+            success: 'border-ok bg-ok-tint text-ok',
+            error: 'border-danger bg-danger-tint text-danger',
           },
         }}
       />
