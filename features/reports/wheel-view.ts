@@ -17,6 +17,7 @@ import type { ReportEvent, ReportWheelData, ReportWrench } from './types';
 
 export type WrenchUseView = {
   label: string;
+  /** "serial CW-0042", or "no serial on record". */
   serial: string;
   /** In the wrench's own unit first, then the spec's: "104 in-lb (8.7 ft-lb)". */
   setting: string;
@@ -129,7 +130,7 @@ function wrenchUses(
     const key = `${id ?? '-'}|${settingText}`;
     const use = uses.get(key) ?? {
       label: wrench?.label ?? 'Wrench not recorded',
-      serial: wrench?.serial || 'no serial on record',
+      serial: wrench?.serial ? `serial ${wrench.serial}` : 'no serial on record',
       setting: settingText,
       lastVerification: verificationText(wrench, timeZone),
       bolts: 0,

@@ -39,7 +39,7 @@ function WheelCard({ wheel, base }: { wheel: WheelView; base: string }) {
             <span className="font-medium">{p.kind}</span>, target {p.target}
             {p.wrenches.map((w) => (
               <span key={`${w.label}${w.setting}`} className="block text-slate-700">
-                {w.label} set to {w.setting}, last verified {w.lastVerification}
+                {w.label} ({w.serial}) set to {w.setting}, last verified {w.lastVerification}
               </span>
             ))}
           </li>

@@ -8,7 +8,7 @@ export const ACCENT = '#b35c00';
 
 export const styles = StyleSheet.create({
   page: { fontFamily: REPORT_FONT, fontSize: 9, color: INK, padding: 36, lineHeight: 1.35 },
-  title: { fontSize: 16, fontWeight: 700, marginBottom: 2 },
+  title: { fontSize: 16, fontWeight: 700, marginBottom: 4, lineHeight: 1.2 },
   subtitle: { fontSize: 10, color: MUTED, marginBottom: 10 },
   h2: { fontSize: 12, fontWeight: 700, marginTop: 12, marginBottom: 4 },
   h3: { fontSize: 10, fontWeight: 700, marginTop: 6, marginBottom: 2 },

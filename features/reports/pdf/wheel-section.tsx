@@ -79,7 +79,7 @@ export function WheelSection({
               {p.wrenches.length ? (
                 p.wrenches.map((w) => (
                   <Text key={`${w.label}${w.setting}`}>
-                    {w.label} (serial {w.serial}) set to {w.setting}, {w.bolts} bolts; last verified{' '}
+                    {w.label} ({w.serial}) set to {w.setting}, {w.bolts} bolts; last verified{' '}
                     {w.lastVerification}
                   </Text>
                 ))

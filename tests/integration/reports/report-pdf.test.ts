@@ -61,7 +61,7 @@ describe("the job's completion report (PDF)", () => {
   it('names the wrench by serial and its last verification before the sign-off', async () => {
     const { shop, job } = await signedOffJob(SIGNED);
     const text = await textOf((await renderJobReport(shop.shopId, job.id)).pdf);
-    expect(text).toContain('Test click 20–200 in-lb (serial no serial on record)');
+    expect(text).toContain('Test click 20–200 in-lb (no serial on record)');
     expect(text).toContain('last verified Mar 10, 2026 at 40 in-lb, within tolerance');
   });
 });

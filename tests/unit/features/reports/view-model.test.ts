@@ -164,7 +164,7 @@ describe('the report view model', () => {
       wrenches: [
         {
           label: 'Click 20–200 in-lb',
-          serial: 'CW-0042',
+          serial: 'serial CW-0042',
           setting: '43 in-lb (3.6 ft-lb)',
           lastVerification: 'Mar 9, 2026 at 40 in-lb, within tolerance',
           bolts: 8,
