@@ -28,11 +28,18 @@ export default async function JobPage({ params }: PageProps<'/jobs/[jobId]'>) {
   if (!id.success) notFound();
   const job = await orNotFound(getJob(member.shopId, id.data));
   const editable = can(member.role, 'jobs.edit') && job.state !== 'signed_off';
-  const [photos, facts, printedWheels] = await Promise.all([
+  const [photos, facts, printedWheels, assignees] = await Promise.all([
     listJobPhotos(member.shopId, job.id),
     getWorkFacts(member.shopId, job.id),
     getPrintedWheels(member.shopId, job.id),
+    editable ? listAssignees(member.shopId) : [],
   ]);
+  // An apprentice whose clearance was revoked (or someone who left) still holds the card: the
+  // runner refuses them, so the lead is told to hand it on rather than finding out at the wheel.
+  const heldByUnassignable =
+    editable && job.assignee && !assignees.some((a) => a.id === job.assignee?.id)
+      ? job.assignee.name
+      : null;
   return (
     <>
       <Link href="/board" className="text-work font-semibold underline">
@@ -78,9 +85,16 @@ export default async function JobPage({ params }: PageProps<'/jobs/[jobId]'>) {
               canManage={can(member.role, 'followup.manage')}
             />
           ) : null}
-          {editable ? (
-            <JobEditForm job={job} assignees={await listAssignees(member.shopId)} />
+          {heldByUnassignable ? (
+            <p
+              role="note"
+              className="border-caution bg-caution-tint text-caution-ink rounded-lg border-2 p-3 font-semibold"
+            >
+              {heldByUnassignable} can no longer run real wheels (not cleared for real wheels, or no
+              longer on the team): the runner refuses them. Assign this job card to someone else.
+            </p>
           ) : null}
+          {editable ? <JobEditForm job={job} assignees={assignees} /> : null}
         </div>
       </div>
       <JobCardPrint job={job} wheels={printedWheels} />
