@@ -1,5 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { beforeAll, describe, expect, it } from 'vitest';
+import { saveWheelEvents } from '@/app/(runner)/jobs/[jobId]/wheels/[wheelId]/run/actions';
 import { POST as createJobApi } from '@/app/api/jobs/route';
 import { PATCH as patchJob } from '@/app/api/jobs/[jobId]/route';
 import { GET as wheelEvents } from '@/app/api/wheels/[wheelId]/events/route';
@@ -66,6 +67,21 @@ const runnerReads = async (wheelId: string) => {
   );
   return { status: res.status, body: (await res.json()) as { error?: { message: string } } };
 };
+// The runner's own save path, as the apprentice's phone sends a confirmation.
+const runAsApprentice = async (wheelId: string) => {
+  await actAs(a.apprentice.userId);
+  return saveWheelEvents(null, {
+    wheelId,
+    events: [
+      {
+        type: 'step_done',
+        payload: { step: 'safety', checklist: [] },
+        clientId: randomUUID(),
+        clientAt: new Date().toISOString(),
+      },
+    ],
+  });
+};
 const asLead = async <T>(call: () => Promise<T>) => {
   await actAs(a.lead.userId);
   return call();
@@ -103,6 +119,7 @@ describe('clearing an apprentice gates real work', () => {
     expect((await listAssignees(a.shopId)).map((p) => p.id)).toContain(a.apprentice.userId);
     expect((await assign(unassigned.id, a.apprentice.userId)).status).toBe(200);
     expect((await runnerReads(unassigned.wheels[0]!.id)).status).toBe(200);
+    expect(await runAsApprentice(unassigned.wheels[0]!.id)).toMatchObject({ ok: true });
     // Still only their own wheels: the technician's job stays closed to them.
     const techJob = await getJob(a.shopId, records.job.id);
     expect((await runnerReads(techJob.wheels[0]!.id)).status).toBe(403);
@@ -114,6 +131,10 @@ describe('clearing an apprentice gates real work', () => {
     ).toMatchObject({ ok: true });
     const afterRevoke = await runnerReads(unassigned.wheels[0]!.id);
     expect(afterRevoke.status).toBe(403);
+    expect(await runAsApprentice(unassigned.wheels[0]!.id)).toMatchObject({
+      ok: false,
+      code: 'forbidden',
+    });
     expect((await newJob(a.apprentice.userId)).body.error?.fields?.assigneeId).toEqual([refusal]);
     const [standing] = await listApprenticeStanding(a.shopId, { userId: a.apprentice.userId });
     expect(standing).toMatchObject({ cleared: false, unfinishedJobs: 1 });
