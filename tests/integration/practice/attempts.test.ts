@@ -165,6 +165,21 @@ describe('practice attempts: start, read, save once, finish', () => {
     expect(res.body.data.refused[0].message).toContain(`${boltCount}-bolt ring`);
   });
 
+  it('a phone clock days behind is pulled into the server’s window; the phone’s own time is kept', async () => {
+    const { body } = await startAs('apprentice', { source: 'surprise', level: 'guided' });
+    const phoneAt = new Date(Date.now() - 3 * 86_400_000).toISOString();
+    const e = { ...event('hand_started', { bolt: 1 }), clientAt: phoneAt };
+    const before = Date.now();
+    expect((await postEvents('apprentice', body.data.id, [e])).body.data.saved).toBe(1);
+    const [row] = await getDb()
+      .select({ clientAt: practiceEvents.clientAt, deviceAt: practiceEvents.deviceAt })
+      .from(practiceEvents)
+      .where(eq(practiceEvents.clientId, e.clientId));
+    // At most a day behind the server (CLOCK_WINDOW, as on a real wheel).
+    expect(row!.clientAt.getTime()).toBeGreaterThanOrEqual(before - 86_400_000);
+    expect(row!.deviceAt?.toISOString()).toBe(phoneAt);
+  });
+
   it('an event id used by another attempt is refused there, never moved', async () => {
     const one = (await startAs('apprentice', { source: 'surprise', level: 'guided' })).body.data;
     const two = (await startAs('apprentice', { source: 'surprise', level: 'guided' })).body.data;
