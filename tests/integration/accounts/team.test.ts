@@ -11,6 +11,7 @@ import { findUsableInvite } from '@/features/accounts/server/invites';
 import { removeMember } from '@/features/accounts/server/team';
 import { createSessionCookie, validateSessionId } from '@/server/auth/session';
 import { createTestShop } from '@/tests/helpers/factories';
+import { deliveredInvite } from '@/tests/helpers/invite-link';
 import { inviteToken, waitForMail } from '@/tests/helpers/mailbox';
 import { runQueueWorker } from '@/tests/helpers/queue';
 import { actAs, resetNextRequest } from '@/tests/helpers/next-request';
@@ -29,9 +30,8 @@ describe('invites', () => {
       data: { email: 'new.tech@example.test', role: 'technician' },
     });
 
-    const mail = await waitForMail(INTEGRATION_SINK.dir, 'new.tech@example.test');
+    const { mail, token } = await deliveredInvite('new.tech@example.test');
     expect(mail.subject).toBe('Lena Lead invited you to Invite Shop on Ringpass');
-    const token = inviteToken(mail);
     expect(await findUsableInvite(token)).toMatchObject({
       email: 'new.tech@example.test',
       shopName: 'Invite Shop',
@@ -61,7 +61,7 @@ describe('invites', () => {
     const shop = await createTestShop();
     await actAs(shop.lead.userId);
     await inviteMember(null, { email: 'late@example.test', role: 'apprentice' });
-    const token = inviteToken(await waitForMail(INTEGRATION_SINK.dir, 'late@example.test'));
+    const { token } = await deliveredInvite('late@example.test');
     await getDb()
       .update(invites)
       .set({ expiresAt: new Date(Date.now() - 1000) })
@@ -73,7 +73,7 @@ describe('invites', () => {
 
     await actAs(shop.lead.userId);
     const second = await inviteMember(null, { email: 'gone@example.test', role: 'apprentice' });
-    const secondToken = inviteToken(await waitForMail(INTEGRATION_SINK.dir, 'gone@example.test'));
+    const { token: secondToken } = await deliveredInvite('gone@example.test');
     expect(
       await revokeTeamInvite(null, { inviteId: second.ok ? second.data.id : '' }),
     ).toMatchObject({ ok: true });
@@ -227,9 +227,7 @@ describe('roles and removal', () => {
     expect(
       await inviteMember(null, { email: 'sent-by-leaver@example.test', role: 'lead' }),
     ).toMatchObject({ ok: true });
-    const token = inviteToken(
-      await waitForMail(INTEGRATION_SINK.dir, 'sent-by-leaver@example.test'),
-    );
+    const { token } = await deliveredInvite('sent-by-leaver@example.test');
     expect(await findUsableInvite(token)).not.toBeNull();
 
     await actAs(shop.lead.userId);
@@ -248,9 +246,7 @@ describe('roles and removal', () => {
     await getDb().update(users).set({ role: 'lead' }).where(eq(users.id, shop.technician.userId));
     await actAs(shop.technician.userId);
     await inviteMember(null, { email: 'sent-before-demotion@example.test', role: 'lead' });
-    const token = inviteToken(
-      await waitForMail(INTEGRATION_SINK.dir, 'sent-before-demotion@example.test'),
-    );
+    const { token } = await deliveredInvite('sent-before-demotion@example.test');
     await actAs(shop.lead.userId);
     expect(
       await changeMemberRole(null, { memberId: shop.technician.userId, role: 'technician' }),
