@@ -11,14 +11,9 @@ import {
 } from 'drizzle-orm/pg-core';
 import { users } from './auth';
 import { jobs } from './records';
-import { shops } from './shops';
+import { createdAt, shopId } from './columns';
 
-/** What a signed-off job sends the customer: the report link, the e-mail, the re-check reminder. */
-const shopId = () =>
-  uuid()
-    .notNull()
-    .references(() => shops.id, { onDelete: 'cascade' });
-const createdAt = () => timestamp({ withTimezone: true }).notNull().defaultNow();
+// What a signed-off job sends the customer: the report link, the e-mail, the re-check reminder.
 
 /** `/r/<token>`: the customer's view of one job's report, without an account. */
 export const reportLinks = pgTable(

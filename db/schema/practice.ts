@@ -12,7 +12,7 @@ import {
 } from 'drizzle-orm/pg-core';
 import { users } from './auth';
 import { wheelSpecs } from './records';
-import { shops } from './shops';
+import { createdAt, shopId } from './columns';
 
 /**
  * Practice lives in its own tables, keyed by shop and person: nothing here is reachable through a
@@ -24,12 +24,6 @@ export const practiceLevelEnum = pgEnum('practice_level', [
   'wrench_setup',
 ]);
 export const practiceSourceEnum = pgEnum('practice_source', ['spec', 'surprise']);
-
-const shopId = () =>
-  uuid()
-    .notNull()
-    .references(() => shops.id, { onDelete: 'cascade' });
-const createdAt = () => timestamp({ withTimezone: true }).notNull().defaultNow();
 
 /** One go at a simulated wheel. `setup` is fixed when it starts; `result` when it is finished. */
 export const practiceAttempts = pgTable(

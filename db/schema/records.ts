@@ -13,7 +13,7 @@ import {
   uuid,
 } from 'drizzle-orm/pg-core';
 import { users } from './auth';
-import { shops } from './shops';
+import { createdAt, shopId } from './columns';
 
 export const torqueUnitEnum = pgEnum('torque_unit', ['lbf-ft', 'lbf-in', 'Nm']);
 export const pressureUnitEnum = pgEnum('pressure_unit', ['psi', 'kPa', 'bar']);
@@ -35,12 +35,6 @@ export const threadConditionEnum = pgEnum('thread_condition', [
   'thread_locker',
 ]);
 export const wheelPositionEnum = pgEnum('wheel_position', ['LF', 'RF', 'LR', 'RR', 'spare']);
-
-const shopId = () =>
-  uuid()
-    .notNull()
-    .references(() => shops.id, { onDelete: 'cascade' });
-const createdAt = () => timestamp({ withTimezone: true }).notNull().defaultNow();
 
 /** A wheel spec: how one kind of beadlock wheel is torqued and inflated. */
 export const wheelSpecs = pgTable(

@@ -4,6 +4,7 @@ import { waitForMail } from '../helpers/mailbox';
 import { E2E } from '../helpers/test-services';
 import { invite, inviteAndJoin, PASSWORD, signUp, uniqueEmail } from './helpers';
 import { confirmBolts, startAllBolts } from './runner-helpers';
+import { api, stockShop } from './runner-shop';
 
 /**
  * No serious or critical axe violation on the page as it is now. A failure lists each rule with
@@ -51,16 +52,6 @@ async function visit(page: Page, path: string, heading: string | RegExp) {
   await expectAccessible(page, path);
 }
 
-async function api<T>(page: Page, method: 'GET' | 'POST', path: string, body?: unknown) {
-  const res = await page.request.fetch(path, {
-    method,
-    data: body,
-    headers: { origin: new URL(page.url()).origin, 'content-type': 'application/json' },
-  });
-  expect(res.ok(), `${method} ${path}: ${await res.text()}`).toBe(true);
-  return ((await res.json()) as { data: T }).data;
-}
-
 /** Sign-up through the pages, axe on each: the form, its answer, the link's page. */
 async function signUpChecked(page: Page, shopName: string, name: string) {
   const email = uniqueEmail('lead');
@@ -83,58 +74,8 @@ async function signUpChecked(page: Page, shopName: string, name: string) {
 
 /** A verified wrench, an 8-bolt spec and a one-wheel job (directional tire) for `assigneeId`. */
 async function setUpJob(page: Page, assigneeId: string) {
-  const calibrationDueOn = new Date(Date.now() + 200 * 86_400_000).toISOString().slice(0, 10);
-  const wrench = await api<{ id: string }>(page, 'POST', '/api/wrenches', {
-    label: 'Blue click 20–200 in-lb',
-    kind: 'click',
-    min: 20,
-    max: 200,
-    unit: 'lbf-in',
-    graduation: 1,
-    calibrationDueOn,
-  });
-  for (const referenceValue of [43, 101, 144])
-    await api(page, 'POST', `/api/wrenches/${wrench.id}/verifications`, {
-      referenceValue,
-      readingValue: referenceValue,
-      unit: 'lbf-in',
-    });
-  const spec = await api<{ id: string }>(page, 'POST', '/api/specs', {
-    name: '8-bolt test ring',
-    boltCount: 8,
-    boltThread: 'M8×1.25',
-    finalTorque: 12,
-    torqueUnit: 'lbf-ft',
-    passPercents: [30, 70, 100],
-    patternKind: 'cross',
-    checkPass: true,
-    maxBeadSeatPressure: 30,
-    runningPressure: 14,
-    pressureUnit: 'psi',
-  });
-  const job = await api<{ id: string; wheels: { id: string }[]; customer: { id: string } }>(
-    page,
-    'POST',
-    '/api/jobs',
-    {
-      customer: { name: 'Ada Offroad', phone: '', email: '' },
-      vehicle: { make: 'Boreal', model: 'Scout', description: '' },
-      wheels: [
-        {
-          position: 'LF',
-          specId: spec.id,
-          tireSize: '26x9-14',
-          directional: true,
-          targetPressure: 8,
-          pressureUnit: 'psi',
-        },
-      ],
-      dismount: false,
-      reinstall: false,
-      assigneeId,
-    },
-  );
-  return { wrenchId: wrench.id, specId: spec.id, job, wheelId: job.wheels[0]!.id };
+  const { wrenchIds, specId, job, wheelId } = await stockShop(page, { assigneeId });
+  return { wrenchId: wrenchIds[0]!, specId, job, wheelId };
 }
 
 async function withTechnician(page: Page, browser: Browser) {

@@ -3,6 +3,7 @@ import { waitForMail } from '../helpers/mailbox';
 import { E2E } from '../helpers/test-services';
 import { inviteAndJoin, signUp, uniqueEmail } from './helpers';
 import { confirmBolts, startAllBolts } from './runner-helpers';
+import { api, stockShop } from './runner-shop';
 
 /**
  * The newest mail to `to`, once it is the one with `subject`: notices go out after the change
@@ -14,23 +15,6 @@ async function mailAbout(to: string, subject: string) {
     .poll(async () => (newest = await waitForMail(E2E.sink.dir, to)).subject, { timeout: 15_000 })
     .toBe(subject);
   return newest;
-}
-
-/** A same-origin API call with the page's session, as the app itself would make it. */
-async function api<T>(
-  page: Page,
-  method: 'GET' | 'POST',
-  path: string,
-  body?: unknown,
-): Promise<T> {
-  const origin = new URL(page.url()).origin;
-  const res = await page.request.fetch(path, {
-    method,
-    data: body,
-    headers: { origin, 'content-type': 'application/json' },
-  });
-  expect(res.ok(), `${method} ${path}: ${await res.text()}`).toBe(true);
-  return ((await res.json()) as { data: T }).data;
 }
 
 /** The passes as fast as the runner lets a finger go (just past its double-tap guard): far quicker than a click wrench can be pulled to its click. */
@@ -105,58 +89,7 @@ test('a wheel run too fast: the lead sees it first on the review, sends the whee
   )!.id;
 
   // A wrench verified near each working point (the shop's default: ±25 % of the setting), an 8-bolt spec, a one-wheel job for the technician.
-  const calibrationDueOn = new Date(Date.now() + 200 * 86_400_000).toISOString().slice(0, 10);
-  const wrench = await api<{ id: string }>(page, 'POST', '/api/wrenches', {
-    label: 'Blue click 20–200 in-lb',
-    kind: 'click',
-    min: 20,
-    max: 200,
-    unit: 'lbf-in',
-    graduation: 1,
-    calibrationDueOn,
-  });
-  for (const referenceValue of [43, 101, 144])
-    await api(page, 'POST', `/api/wrenches/${wrench.id}/verifications`, {
-      referenceValue,
-      readingValue: referenceValue,
-      unit: 'lbf-in',
-    });
-  const spec = await api<{ id: string }>(page, 'POST', '/api/specs', {
-    name: '8-bolt test ring',
-    boltCount: 8,
-    boltThread: 'M8×1.25',
-    finalTorque: 12,
-    torqueUnit: 'lbf-ft',
-    passPercents: [30, 70, 100],
-    patternKind: 'cross',
-    checkPass: true,
-    maxBeadSeatPressure: 30,
-    runningPressure: 14,
-    pressureUnit: 'psi',
-  });
-  const job = await api<{ id: string; number: number; wheels: { id: string }[] }>(
-    page,
-    'POST',
-    '/api/jobs',
-    {
-      customer: { name: 'Ada Offroad', phone: '', email: '' },
-      vehicle: { make: 'Boreal', model: 'Scout', description: '' },
-      wheels: [
-        {
-          position: 'LF',
-          specId: spec.id,
-          tireSize: '26x9-14',
-          directional: false,
-          targetPressure: 8,
-          pressureUnit: 'psi',
-        },
-      ],
-      dismount: false,
-      reinstall: false,
-      assigneeId: techId,
-    },
-  );
-  const wheelId = job.wheels[0]!.id;
+  const { job, wheelId } = await stockShop(page, { assigneeId: techId, directional: false });
 
   await runWheelFast(tech.page, job.id, wheelId);
   const waiting = await mailAbout(leadEmail, `Job ${job.number} is waiting for sign-off`);

@@ -28,26 +28,32 @@ export const BLUE = {
 };
 
 /**
- * A shop with a wrench (verified today unless `unverified`), an 8-bolt spec and a one-wheel job
- * assigned to its lead. A verification counts only near the setting it is used at (the shop's
- * default: ±25 %), so the wrench is checked at each working point: 43, 101 and 144 in-lb.
+ * Stocks the signed-in lead's shop: wrenches (verified today unless `unverified`), an 8-bolt spec
+ * and a one-wheel job for `assigneeId`. A verification counts only near the setting it is used at
+ * (the shop's default: ±25 %), so each wrench is checked at each working point: 43, 101 and 144 in-lb.
  */
-export async function setUpWheel(
+export async function stockShop(
   page: Page,
   {
+    assigneeId,
     wrenches = [BLUE],
     unverified = false,
-  }: { wrenches?: (typeof BLUE)[]; unverified?: boolean } = {},
+    directional = true,
+  }: {
+    assigneeId: string;
+    wrenches?: (typeof BLUE)[];
+    unverified?: boolean;
+    directional?: boolean;
+  },
 ) {
-  const email = uniqueEmail('runner');
-  await signUp(page, 'Offline Rim Shop', 'Lou Bead', email);
-  const me = (await api<{ id: string }[]>(page, 'GET', '/api/team/members'))[0]!;
   const calibrationDueOn = new Date(Date.now() + 200 * 86_400_000).toISOString().slice(0, 10);
+  const wrenchIds: string[] = [];
   for (const body of wrenches) {
     const wrench = await api<{ id: string }>(page, 'POST', '/api/wrenches', {
       ...body,
       calibrationDueOn,
     });
+    wrenchIds.push(wrench.id);
     if (unverified) continue;
     for (const referenceValue of [43, 101, 144]) {
       await api(page, 'POST', `/api/wrenches/${wrench.id}/verifications`, {
@@ -70,7 +76,12 @@ export async function setUpWheel(
     runningPressure: 14,
     pressureUnit: 'psi',
   });
-  const job = await api<{ id: string; wheels: { id: string }[] }>(page, 'POST', '/api/jobs', {
+  const job = await api<{
+    id: string;
+    number: number;
+    wheels: { id: string }[];
+    customer: { id: string };
+  }>(page, 'POST', '/api/jobs', {
     customer: { name: 'Ada Offroad', phone: '', email: '' },
     vehicle: { make: 'Boreal', model: 'Scout', description: '' },
     wheels: [
@@ -78,15 +89,26 @@ export async function setUpWheel(
         position: 'LF',
         specId: spec.id,
         tireSize: '26x9-14',
-        directional: true,
+        directional,
         targetPressure: 8,
         pressureUnit: 'psi',
       },
     ],
     dismount: false,
     reinstall: false,
-    assigneeId: me.id,
+    assigneeId,
   });
+  return { wrenchIds, specId: spec.id, job, wheelId: job.wheels[0]!.id };
+}
 
-  return { job, wheelId: job.wheels[0]!.id, email };
+/** A new shop whose lead has one wheel of their own to run (see `stockShop`). */
+export async function setUpWheel(
+  page: Page,
+  options: { wrenches?: (typeof BLUE)[]; unverified?: boolean } = {},
+) {
+  const email = uniqueEmail('runner');
+  await signUp(page, 'Offline Rim Shop', 'Lou Bead', email);
+  const me = (await api<{ id: string }[]>(page, 'GET', '/api/team/members'))[0]!;
+  const { job, wheelId } = await stockShop(page, { ...options, assigneeId: me.id });
+  return { job, wheelId, email };
 }
