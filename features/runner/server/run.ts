@@ -76,7 +76,7 @@ export function flaggedSpecMessage(
  * Who may run this wheel: the assignee (technician, or an apprentice a lead has cleared for real
  * wheels) or any lead. A revoked clearance stops the apprentice's next request, assigned or not.
  */
-export function assertMayRun(member: Member, ctx: Pick<RunContext, 'job'>) {
+export function assertMayRun(member: Member, ctx: { job: Pick<RunContext['job'], 'assigneeId'> }) {
   if (member.role === 'apprentice' && !can(member, 'jobs.run'))
     throw new DomainError(
       'forbidden',

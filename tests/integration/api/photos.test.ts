@@ -10,7 +10,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import * as photoRoute from '@/app/api/photos/[photoId]/route';
 import * as uploadRoute from '@/app/api/uploadthing/route';
 import { getDb } from '@/db';
-import { jobWheels, wheelPhotos } from '@/db/schema';
+import { jobs, jobWheels, practiceClearances, users, wheelPhotos } from '@/db/schema';
 import { getJob } from '@/features/jobs/server/jobs';
 import { startUploadFake, type UploadFake } from '@/server/dev/upload-fake';
 import { apiRequest, cookieFor, createTestShop, params } from '@/tests/helpers/factories';
@@ -161,6 +161,50 @@ describe('photos are private: served only through the app, to its own shop', () 
     expect((await getPhoto(photoId)).status).toBe(401);
     expect((await getPhoto(photoId, await cookieFor(shop.apprentice.userId))).status).toBe(403);
     expect((await getPhoto(photoId, await cookieFor(other.lead.userId))).status).toBe(404);
+  });
+
+  it("GET /api/photos/:id for a cleared apprentice: their own wheel's photo 200, someone else's wheel 403, uncleared 403", async () => {
+    const [second] = await getDb()
+      .insert(users)
+      .values({
+        shopId: shop.shopId,
+        role: 'apprentice',
+        name: 'Rue Apprentice',
+        email: `rue-${photoId}@shop.test`,
+        passwordHash: 'x',
+      })
+      .returning({ id: users.id });
+    const clear = (userId: string) =>
+      getDb()
+        .insert(practiceClearances)
+        .values({ shopId: shop.shopId, userId, clearedById: shop.lead.userId });
+    await clear(shop.apprentice.userId);
+    await clear(second!.id);
+    const [photo] = await getDb()
+      .select({ jobId: wheelPhotos.jobId })
+      .from(wheelPhotos)
+      .where(eq(wheelPhotos.id, photoId));
+    const assign = (userId: string) =>
+      getDb().update(jobs).set({ assigneeId: userId }).where(eq(jobs.id, photo!.jobId));
+    try {
+      await assign(shop.apprentice.userId);
+      const own = await getPhoto(photoId, await cookieFor(shop.apprentice.userId));
+      expect(own.status).toBe(200);
+      expect(new Uint8Array(await own.arrayBuffer())).toEqual(JPEG);
+      // Cleared too, but the wheel is not theirs.
+      expect((await getPhoto(photoId, await cookieFor(second!.id))).status).toBe(403);
+      // A lead revokes the clearance: the next request is refused, assigned or not.
+      await getDb()
+        .update(practiceClearances)
+        .set({ revokedAt: new Date(), revokedById: shop.lead.userId })
+        .where(eq(practiceClearances.userId, shop.apprentice.userId));
+      expect((await getPhoto(photoId, await cookieFor(shop.apprentice.userId))).status).toBe(403);
+      expect((await getPhoto(photoId, await cookieFor(other.lead.userId))).status).toBe(404);
+      // The technician sees it still, though the job is no longer theirs.
+      expect((await getPhoto(photoId, tech)).status).toBe(200);
+    } finally {
+      await assign(shop.technician.userId);
+    }
   });
 
   it('an upload request without this app as its Origin is refused before the SDK sees it', async () => {

@@ -4,7 +4,11 @@ import { apiRoute } from '@/server/http/handler';
 
 const params = z.object({ photoId: z.uuid() });
 
-/** A wheel photo, for people who may see the shop's job cards (thumbnails, the runner's summary). */
-export const GET = apiRoute({ permission: 'jobs.view', params }, ({ member, params }) =>
-  streamPhoto(member.shopId, params.photoId),
+/**
+ * A wheel photo: for people who may see the shop's job cards (thumbnails, the review), and for
+ * the person running the photo's wheel (a cleared apprentice's runner). The guard only requires
+ * a member of the shop; streamPhoto decides per photo, so neither group is held to the other's rule.
+ */
+export const GET = apiRoute({ permission: 'board.view', params }, ({ member, params }) =>
+  streamPhoto(member, params.photoId),
 );
