@@ -68,6 +68,11 @@ export function useRunQueue(
   const attentionRef = useRef<AttentionItem[]>([]);
   const loaded = useRef(false); // status.ready, readable inside callbacks without re-creating them
   const sending = useRef(false); // one send at a time keeps the queue's order
+  const again = useRef(false); // asked to send during a send: look once more when it ends
+  // The ids of the queue as IndexedDB last committed it. The send takes only these: the screen
+  // shows a tap at once, but no event reaches the network before it is on the phone.
+  const written = useRef<Set<string>>(new Set());
+  const writes = useRef({ started: 0, committed: 0 }); // a slower older write never wins
   const mounted = useRef(true);
   const flushRef = useRef<() => void>(() => {});
   useEffect(() => {
@@ -79,17 +84,20 @@ export function useRunQueue(
 
   // The device keeps both what waits and what the server already has, so a reload while offline
   // (the page then comes from the service worker's copy) still shows every confirmation.
-  const persist = useCallback(
-    () =>
-      writeOutbox(key, {
-        owner: person,
-        pending: pendingRef.current,
-        saved: savedRef.current,
-        attention: attentionRef.current,
-        generation,
-      }),
-    [key, person, generation],
-  );
+  const persist = useCallback(async () => {
+    const pendingNow = pendingRef.current;
+    const order = ++writes.current.started;
+    await writeOutbox(key, {
+      owner: person,
+      pending: pendingNow,
+      saved: savedRef.current,
+      attention: attentionRef.current,
+      generation,
+    });
+    if (order < writes.current.committed) return;
+    writes.current.committed = order;
+    written.current = new Set(pendingNow.map((e) => e.clientId));
+  }, [key, person, generation]);
 
   /** Sets events aside for good: out of the queue, into "Needs attention" with the reason. */
   const setAside = useCallback((items: AttentionItem[]) => {
@@ -127,8 +135,9 @@ export function useRunQueue(
     retry: () => mounted.current,
     retryDelay,
     mutationFn: async () => {
-      // Each attempt takes the head of the queue as it is now, so a retry carries what was added.
-      const batch = pendingRef.current.slice(0, 100);
+      // Each attempt takes the head of the queue as it is now, so a retry carries what was added,
+      // but only what IndexedDB already holds: a tap whose write is under way waits for the next.
+      const batch = pendingRef.current.filter((e) => written.current.has(e.clientId)).slice(0, 100);
       if (!batch.length || !mounted.current) return null;
       let result: Awaited<ReturnType<SaveEvents>>;
       try {
@@ -182,14 +191,21 @@ export function useRunQueue(
 
   /** Sends the head of the queue unless a send is under way; then the next batch, until empty. */
   const flush = useCallback(() => {
-    if (sending.current || !loaded.current || !pendingRef.current.length) return;
+    if (!loaded.current || !pendingRef.current.length) return;
+    if (sending.current) {
+      again.current = true; // e.g. a write committed after this send took its batch
+      return;
+    }
     sending.current = true;
+    again.current = false;
     void mutateAsync()
       .then((sent) => sent !== null)
       .catch(() => false) // given up only when the runner closed; the phone keeps the events
       .then((more) => {
         sending.current = false;
-        if (more && mounted.current) flushRef.current();
+        const next = more || again.current;
+        again.current = false;
+        if (next && mounted.current) flushRef.current();
       });
   }, [mutateAsync]);
   useEffect(() => {
