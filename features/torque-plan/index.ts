@@ -29,6 +29,7 @@ export { DEFAULT_FRACTIONS, passPlan, type PlannedPass } from './pass-plan';
 export {
   chooseWrench,
   assertWrench,
+  CYCLE_LIMIT,
   tolerancePct,
   verifyReading,
   type Wrench,

@@ -68,6 +68,9 @@ export function tolerancePct(wrench: Pick<Wrench, 'max' | 'unit'>): number {
   return convertTorque(wrench.max, wrench.unit, 'Nm') <= 10 + 1e-9 ? 6 : 4;
 }
 
+/** Recalibration after this many cycles (ISO 6789, secondary sources), unless the shop says otherwise. */
+export const CYCLE_LIMIT = 5000;
+
 const EPS = 1e-9;
 
 /** The graduation step nearest to `value`, kept inside the wrench's marked range. */

@@ -5,12 +5,14 @@ import {
   jobs,
   jobWheels,
   refusedRunEvents,
+  shopSettings,
   wheelPhotos,
   wheelRunEvents,
   wheelSpecs,
   wrenches,
   type WheelSnapshot,
 } from '@/db/schema';
+import { CYCLE_LIMIT } from '@/features/torque-plan';
 import type { Member } from '@/server/auth/session';
 import { DomainError } from '@/server/errors';
 import { clampClientAt } from '../clock-window';
@@ -73,11 +75,17 @@ async function insertIfAllowed(member: Member, wheelId: string, events: Timed[])
       select ev.*, w.id as wheel_id, w.job_id, w.snapshot from ev cross join w
       where (ev.bolt is null or ev.bolt <= w.bolt_count) and (ev.pass is null or ev.pass <= w.passes)
         -- A bolt naming a wrench takes this path only when that wrench was chosen, and so judged, for
-        -- its pass; otherwise the full path judges the wrench on the bolt itself.
-        and (ev.type <> 'bolt_confirmed' or ev.payload->>'wrenchId' is null or exists (
+        -- its pass, and is still usable now (in service, calibration not past due on the shop's day,
+        -- under the cycle limit: it may have reached it mid-pass); otherwise the full path judges it.
+        and (ev.type <> 'bolt_confirmed' or ev.payload->>'wrenchId' is null or (exists (
           select 1 from ${wheelRunEvents} c
           where c.wheel_id = w.id and c.type = 'wrench_chosen' and c.superseded_at is null
-            and (c.payload->>'pass')::int = ev.pass and c.payload->>'wrenchId' = ev.payload->>'wrenchId'))
+            and (c.payload->>'pass')::int = ev.pass and c.payload->>'wrenchId' = ev.payload->>'wrenchId')
+          and exists (
+          select 1 from ${wrenches} k join ${shopSettings} st on st.shop_id = k.shop_id
+          where k.shop_id = ${member.shopId} and k.id::text = ev.payload->>'wrenchId' and k.status = 'in_service'
+            and k.calibration_due_on >= (ev.client_at at time zone st.time_zone)::date
+            and coalesce(k.cycles_since_calibration, 0) < ${CYCLE_LIMIT})))
     ),
     ins as (
       insert into ${wheelRunEvents} (shop_id, job_id, wheel_id, client_id, type, payload, by_id, client_at, device_at, device_id)

@@ -2,6 +2,7 @@ import 'server-only';
 import { and, eq, gte, inArray } from 'drizzle-orm';
 import type { getDb } from '@/db';
 import { wrenches, wrenchVerifications, type WheelSnapshot } from '@/db/schema';
+import { CYCLE_LIMIT } from '@/features/torque-plan';
 import { shopDay } from '@/features/ui/shop-time';
 import { getShopSettings } from '@/server/shop/settings';
 import type { ClientEvent, EventRefusal } from '../events';
@@ -46,7 +47,7 @@ function usesOf(events: readonly ClientEvent[]): WrenchUse[] {
 /**
  * Why each `wrench_chosen` of a batch — and each bolt confirmation naming a wrench, since the
  * phone's default wrench is used without a choice — may not be stored, by event id: a wrench that is not this
- * shop's, is out of service or overdue for calibration, does not suit the pass, or has no
+ * shop's, is out of service, overdue for calibration or at its cycle limit, does not suit the pass, or has no
  * verification the shop's policy accepts at that pass's setting at the time it was chosen. The
  * same engine rules as the phone's wrench gate (`passWrench`), judged again here.
  */
@@ -76,6 +77,7 @@ export async function wrenchRefusals(
         status: wrenches.status,
         statusReason: wrenches.statusReason,
         calibrationDueOn: wrenches.calibrationDueOn,
+        cyclesSinceCalibration: wrenches.cyclesSinceCalibration,
       })
       .from(wrenches)
       .where(and(eq(wrenches.shopId, shopId), inArray(wrenches.id, ids))),
@@ -121,6 +123,17 @@ export async function wrenchRefusals(
         e.clientId,
         refusal(
           `${w.label} is overdue for calibration (due ${w.calibrationDueOn}); it cannot be used for a pass.`,
+        ),
+      );
+      continue;
+    }
+    // The hourly sweep takes it out of service later; until then the count itself says no.
+    const cycles = w.cyclesSinceCalibration ?? 0;
+    if (cycles >= CYCLE_LIMIT) {
+      out.set(
+        e.clientId,
+        refusal(
+          `${w.label} has reached ${cycles} cycles since calibration (limit ${CYCLE_LIMIT}); it cannot be used for a pass.`,
         ),
       );
       continue;

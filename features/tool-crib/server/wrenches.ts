@@ -10,6 +10,7 @@ import {
 } from '@/db/schema';
 import {
   assertWrench,
+  CYCLE_LIMIT,
   TorquePlanError,
   verifyReading,
   type RecordedVerification,
@@ -20,9 +21,6 @@ import type { Member } from '@/server/auth/session';
 import { DomainError, notFound } from '@/server/errors';
 import { getShopSettings } from '@/server/shop/settings';
 import type { VerificationInput, WrenchInput } from '../schemas';
-
-/** Recalibration after this many cycles (ISO 6789, secondary sources), unless the shop says otherwise. */
-export const CYCLE_LIMIT = 5000;
 
 export type CribWrenchDto = Omit<WrenchRow, 'shopId' | 'createdAt'>;
 
@@ -169,6 +167,8 @@ export async function createWrench(actor: Member, input: WrenchInput): Promise<C
       shopId: actor.shopId,
     })
     .returning({ id: wrenches.id });
+  // Entered already overdue (date or cycles): out of service now, not at the next hourly sweep.
+  await sweepOverdue(actor.shopId);
   return getWrench(actor.shopId, row!.id);
 }
 
@@ -184,6 +184,8 @@ export async function updateWrench(
     .where(and(eq(wrenches.shopId, actor.shopId), eq(wrenches.id, wrenchId)))
     .returning({ id: wrenches.id });
   if (!row) throw notFound('That wrench');
+  // A lead's edit that makes it overdue takes effect at once, not at the next hourly sweep.
+  await sweepOverdue(actor.shopId);
   return getWrench(actor.shopId, wrenchId);
 }
 

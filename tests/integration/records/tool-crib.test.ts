@@ -1,13 +1,14 @@
 import { eq } from 'drizzle-orm';
 import { describe, expect, it } from 'vitest';
 import { getDb } from '@/db';
-import { wrenches } from '@/db/schema';
+import { wrenches, wrenchStatusEvents } from '@/db/schema';
 import { putBackInService, verifyWrench } from '@/features/tool-crib/actions/wrench-actions';
 import { wrenchSchema } from '@/features/tool-crib/schemas';
 import {
   createWrench,
   getWrench,
   listWrenches,
+  updateWrench,
   wrenchesForEngine,
   wrenchHistory,
 } from '@/features/tool-crib/server/wrenches';
@@ -115,6 +116,39 @@ describe('tool crib', () => {
     expect(
       await putBackInService(null, { wrenchId: w.id, reason: 'Looks fine to me' }),
     ).toMatchObject({ ok: false, message: expect.stringMatching(/calibration is overdue/) });
+  });
+
+  it("a lead's edit that reaches 5,000 cycles puts the wrench out of service at once, with an event, not at the next hourly sweep", async () => {
+    const shop = await createTestShop();
+    const stored = async (id: string) => {
+      const [row] = await getDb()
+        .select({ status: wrenches.status, reason: wrenches.statusReason })
+        .from(wrenches)
+        .where(eq(wrenches.id, id));
+      const events = await getDb()
+        .select({ reason: wrenchStatusEvents.reason })
+        .from(wrenchStatusEvents)
+        .where(eq(wrenchStatusEvents.wrenchId, id));
+      return { ...row, events: events.map((e) => e.reason) };
+    };
+    const created = await createWrench(
+      shop.lead,
+      wrenchSchema.parse({ ...wrenchBody, label: 'Worn', cyclesSinceCalibration: 5000 }),
+    );
+    const reason = 'Cycle count reached 5000: recalibrate';
+    expect(await stored(created.id)).toEqual({
+      status: 'out_of_service',
+      reason,
+      events: [reason],
+    });
+    const w = await createWrench(shop.lead, wrenchSchema.parse(wrenchBody));
+    expect(await stored(w.id)).toEqual({ status: 'in_service', reason: '', events: [] });
+    await updateWrench(
+      shop.lead,
+      w.id,
+      wrenchSchema.parse({ ...wrenchBody, cyclesSinceCalibration: 5000 }),
+    );
+    expect(await stored(w.id)).toEqual({ status: 'out_of_service', reason, events: [reason] });
   });
 
   it('a wrench the engine refuses cannot be saved', async () => {
