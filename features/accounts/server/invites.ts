@@ -1,6 +1,6 @@
 import 'server-only';
 import { createHash, randomBytes } from 'node:crypto';
-import { and, desc, eq, gt, isNull, like, ne, sql } from 'drizzle-orm';
+import { and, desc, eq, gt, isNull, like, lt, sql } from 'drizzle-orm';
 import { getDb } from '@/db';
 import { invites, shops, users, type Role } from '@/db/schema';
 import { hashPassword } from '@/server/auth/password';
@@ -71,7 +71,7 @@ export async function createInvite(actor: Member, input: InviteInput): Promise<P
 /**
  * The queue's side of an invite, once: under a lock on the invite row, an unsent invite gets its
  * token, the e-mail goes, and only then does the row take the token's hash and the older invites
- * to the address stop working. An address that already has an account gets a notice instead of a
+ * to the address stop working. An invite with a newer one to the same address is withdrawn unsent. An address that already has an account gets a notice instead of a
  * link (the lead must not learn who has an account). A failed send is retried by the queue; after
  * the last try the invite is withdrawn and the older one still works.
  */
@@ -83,11 +83,32 @@ export async function deliverInvite(
   const failed = await getDb().transaction(async (tx) => {
     const mine = and(eq(invites.shopId, data.shopId), eq(invites.id, data.inviteId));
     const [invite] = await tx
-      .select({ email: invites.email, role: invites.role, expiresAt: invites.expiresAt })
+      .select({
+        email: invites.email,
+        role: invites.role,
+        expiresAt: invites.expiresAt,
+      })
       .from(invites)
       .where(and(mine, like(invites.tokenHash, `${UNSENT}%`), usable()))
       .for('update');
     if (!invite) return null; // sent already, revoked, used or expired
+    const sameAddress = and(eq(invites.shopId, data.shopId), eq(invites.email, invite.email));
+    // Compared in SQL: a JS Date would drop the microseconds and find this very row newer.
+    const myCreatedAt = sql`(${tx
+      .select({ createdAt: invites.createdAt })
+      .from(invites)
+      .where(eq(invites.id, data.inviteId))})`;
+    // A lead who re-invited (say, with a corrected role) meant the newer invite: this one is
+    // withdrawn unsent, so the wrong role never reaches the person.
+    const [newer] = await tx
+      .select({ id: invites.id })
+      .from(invites)
+      .where(and(sameAddress, gt(invites.createdAt, myCreatedAt), usable()))
+      .limit(1);
+    if (newer) {
+      await tx.update(invites).set({ revokedAt: new Date() }).where(mine);
+      return null;
+    }
     const [[existing], [shop], { timeZone }] = await Promise.all([
       tx.select({ shopId: users.shopId }).from(users).where(eq(users.email, invite.email)),
       tx.select({ name: shops.name }).from(shops).where(eq(shops.id, data.shopId)),
@@ -128,14 +149,7 @@ export async function deliverInvite(
     await tx
       .update(invites)
       .set({ revokedAt: new Date() })
-      .where(
-        and(
-          eq(invites.shopId, data.shopId),
-          eq(invites.email, invite.email),
-          ne(invites.id, data.inviteId),
-          usable(),
-        ),
-      );
+      .where(and(sameAddress, lt(invites.createdAt, myCreatedAt), usable()));
     return null;
   });
   if (failed) throw failed;
