@@ -1,25 +1,36 @@
 'use client';
 
-import { useState, useTransition } from 'react';
+import { useRef, useState, useTransition } from 'react';
 import { buttonClass } from '@/features/ui/button';
+import { ConfirmDialog } from '@/features/ui/confirm-dialog';
 import { createCustomerLink, revokeCustomerLink } from '../actions/report-link-actions';
 
 export type LinkRow = { id: string; created: string; expires: string };
+type CopyState = 'idle' | 'copied' | 'failed';
+
+/** Each link's name for Revoke, by when it was made; two made the same minute also get a number. */
+function linkName(link: LinkRow, links: LinkRow[]): string {
+  const same = links.filter((o) => o.created === link.created);
+  const nth = same.length > 1 ? ` (${same.indexOf(link) + 1} of ${same.length})` : '';
+  return `the link made ${link.created}${nth}`;
+}
 
 /**
- * A lead's customer links for a signed-off job: the active ones, Revoke, and New customer link,
- * whose URL is shown once (only its hash is kept), for a customer without an e-mail address.
+ * A lead's customer links for a signed-off job: the active ones, Revoke (asked first: the customer
+ * loses the report), and New customer link, whose URL is shown once (only its hash is kept), for a
+ * customer without an e-mail address.
  */
 export function CustomerLinks({ jobId, links }: { jobId: string; links: LinkRow[] }) {
   const [pending, start] = useTransition();
   const [fresh, setFresh] = useState<string | null>(null);
   const [message, setMessage] = useState<string | null>(null);
-  const [copied, setCopied] = useState(false);
+  const [copy, setCopy] = useState<CopyState>('idle');
+  const urlField = useRef<HTMLInputElement>(null);
 
   const create = () =>
     start(async () => {
       const result = await createCustomerLink(null, { jobId });
-      setCopied(false);
+      setCopy('idle');
       if (result.ok) {
         setFresh(result.data.url);
         setMessage(null);
@@ -30,10 +41,17 @@ export function CustomerLinks({ jobId, links }: { jobId: string; links: LinkRow[
       const result = await revokeCustomerLink(null, { linkId });
       setMessage(result.ok ? 'Link revoked: it no longer opens the report.' : result.message);
     });
-  const copy = async () => {
+  // "Copied" only once the clipboard took it: a lead who believes it and sends nothing leaves the
+  // customer without the report (the link is shown only this once).
+  const copyLink = async () => {
     if (!fresh) return;
-    await navigator.clipboard.writeText(fresh).catch(() => undefined);
-    setCopied(true);
+    try {
+      await navigator.clipboard.writeText(fresh);
+      setCopy('copied');
+    } catch {
+      setCopy('failed');
+      urlField.current?.focus(); // selects it (onFocus), ready to copy by hand
+    }
   };
 
   return (
@@ -46,14 +64,15 @@ export function CustomerLinks({ jobId, links }: { jobId: string; links: LinkRow[
               <span>
                 Made {l.created}, works until {l.expires}
               </span>
-              <button
-                type="button"
+              <ConfirmDialog
+                triggerLabel="Revoke"
+                triggerAriaLabel={`Revoke ${linkName(l, links)}`}
+                title="Revoke this customer link?"
+                description={`The link made ${l.created} stops opening the report at once. If the customer still needs it, make a new link and give them that.`}
+                confirmLabel={`Revoke ${linkName(l, links)}`}
+                onConfirm={() => revoke(l.id)}
                 disabled={pending}
-                onClick={() => revoke(l.id)}
-                className="text-danger font-semibold underline"
-              >
-                Revoke
-              </button>
+              />
             </li>
           ))}
         </ul>
@@ -72,15 +91,21 @@ export function CustomerLinks({ jobId, links }: { jobId: string; links: LinkRow[
         <div className="border-ink flex flex-col gap-2 rounded-lg border-2 p-3" role="status">
           <p className="text-sm">Give this to the customer now; it is shown only this once.</p>
           <input
+            ref={urlField}
             readOnly
             value={fresh}
             aria-label="Customer link"
             className="w-full rounded border px-2 py-1 font-mono text-sm"
             onFocus={(e) => e.currentTarget.select()}
           />
-          <button type="button" onClick={copy} className={buttonClass('primary')}>
-            {copied ? 'Copied' : 'Copy link'}
+          <button type="button" onClick={copyLink} className={buttonClass('primary')}>
+            {copy === 'copied' ? 'Copied' : 'Copy link'}
           </button>
+          {copy === 'failed' ? (
+            <p className="text-danger text-sm font-semibold">
+              Copy failed — select the link and copy it.
+            </p>
+          ) : null}
         </div>
       ) : null}
       {message ? (
