@@ -10,6 +10,7 @@ import {
   type WheelPosition,
 } from '@/features/torque-plan';
 import { useRunQueue, type SaveEvents } from '../api/use-run-queue';
+import type { BackLink } from '../back-link';
 import type { ClientEvent } from '../events';
 import type { RunnerPractice } from '../practice-mode';
 import { missingPhotos } from '../photo-kinds';
@@ -66,6 +67,10 @@ export type RunnerProps = {
   rework?: { note: string; steps: string[]; at: string } | null;
   /** Who is signed in: the phone keeps each person's outbox apart and never sends one under another's name. */
   person: { id: string; name: string };
+  /** The header's "←" (runnerBackLink): the job card, or My wheels for someone who may not open it. */
+  back?: BackLink;
+  /** Whether this person may record a wrench verification on the spot (verifications.record). */
+  mayRecordVerifications?: boolean;
   /** Practice mode: a simulated wheel; photos optional, Finish instead of Submit (see RunnerPractice). */
   practice?: RunnerPractice;
 };
@@ -94,6 +99,8 @@ export function Runner(props: RunnerProps) {
   const stepNo = plan.steps.indexOf(step) + 1;
   // A photo of a damaged bolt goes up as an 'other' photo of the wheel; the flag carries its id.
   const { practice } = props;
+  const back = practice?.back ??
+    props.back ?? { href: `/jobs/${props.jobId}`, label: `Job #${props.jobNumber}` };
   const unfinished = plan.steps
     .filter((s) => s.id !== 'submit' && state.status[s.id] === 'todo')
     .map((s) => s.title);
@@ -130,10 +137,10 @@ export function Runner(props: RunnerProps) {
           {/* On its side the phone has little height: one line, so the ring keeps the room. */}
           <div className="flex min-w-0 flex-col landscape:flex-row landscape:items-center landscape:gap-3">
             <Link
-              href={practice?.back.href ?? `/jobs/${props.jobId}`}
+              href={back.href}
               className="min-h-touch inline-flex shrink-0 items-center font-bold underline"
             >
-              ← {practice?.back.label ?? `Job #${props.jobNumber}`}
+              ← {back.label}
             </Link>
             <p className="font-semibold">
               {wheel.position} · {wheel.tireSize} · {props.spec.name}
@@ -240,6 +247,7 @@ export function Runner(props: RunnerProps) {
                 wrenches={props.wrenches}
                 verifications={props.verifications}
                 rules={props.rules}
+                mayRecordVerifications={props.mayRecordVerifications === true}
                 cautions={step.cautions}
                 boltCount={plan.boltCount}
                 record={record}

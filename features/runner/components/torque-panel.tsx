@@ -20,7 +20,7 @@ import { Caution } from './caution';
 import { RingLayout, ringButtonClass } from './ring-layout';
 import { SettingCard } from './setting-card';
 import { SpecWordsBox, type SpecWords } from './spec-words';
-import { VerifyInline } from './verify-inline';
+import { VerifyAskOthers, VerifyInline } from './verify-inline';
 import { WrenchSetupCard, type TypedSetting } from './wrench-setup-card';
 
 const big = 'min-h-16 w-full rounded-xl px-4 text-lg font-bold';
@@ -60,6 +60,7 @@ export function TorquePanel({
   wrenches,
   verifications,
   rules,
+  mayRecordVerifications = false,
   cautions,
   boltCount,
   record,
@@ -73,6 +74,8 @@ export function TorquePanel({
   wrenches: CribWrench[];
   verifications: RecordedVerification[];
   rules: WrenchRules;
+  /** Lead and technician only: anyone else is told to ask one of them (deny by default). */
+  mayRecordVerifications?: boolean;
   cautions: string[];
   boltCount: number;
   record: (e: RunEvent) => Promise<void>;
@@ -236,16 +239,20 @@ export function TorquePanel({
         <p className="text-lg font-bold">
           {name}: {formatTorque(target, 2)} · {wrench.label} at {settingText}
         </p>
-        <VerifyInline
-          wrench={wrench}
-          setting={choice.setting}
-          why={verification.reason}
-          onResult={(recorded) =>
-            recorded.withinTolerance
-              ? setFresh((v) => [recorded, ...v])
-              : setFailed((f) => [...f, wrench.id])
-          }
-        />
+        {mayRecordVerifications ? (
+          <VerifyInline
+            wrench={wrench}
+            setting={choice.setting}
+            why={verification.reason}
+            onResult={(recorded) =>
+              recorded.withinTolerance
+                ? setFresh((v) => [recorded, ...v])
+                : setFailed((f) => [...f, wrench.id])
+            }
+          />
+        ) : (
+          <VerifyAskOthers wrench={wrench} why={verification.reason} />
+        )}
       </div>
     );
   }

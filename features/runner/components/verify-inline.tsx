@@ -140,3 +140,24 @@ export function VerifyInline({
     </section>
   );
 }
+
+/**
+ * The same stop for someone who may not record a verification (an apprentice): the pass waits
+ * for a lead or technician to check the wrench; once the check is recorded, reload to go on.
+ */
+export function VerifyAskOthers({ wrench, why }: { wrench: { label: string }; why: string }) {
+  return (
+    <section
+      aria-label="Verify the wrench"
+      className="border-caution flex flex-col gap-2 rounded-xl border-2 p-3"
+    >
+      <p role="alert" className="font-bold">
+        This wrench needs a check before this pass — ask a lead or technician to verify it.
+      </p>
+      <p>
+        {wrench.label}: {why} Don&apos;t pull on a bolt with it until the check is recorded; then
+        reload this page to carry on.
+      </p>
+    </section>
+  );
+}

@@ -1,6 +1,7 @@
 import type { Metadata } from 'next';
 import { forbidden, notFound } from 'next/navigation';
 import { ids } from '@/features/jobs/schemas';
+import { runnerBackLink } from '@/features/runner/back-link';
 import { Runner } from '@/features/runner/components/runner';
 import { listPhotos } from '@/features/runner/server/photo-router';
 import { RunnerBlocked } from '@/features/runner/components/runner-blocked';
@@ -18,6 +19,7 @@ import {
 } from '@/features/tool-crib/server/wrenches';
 import { formatTorque, threadConditionText } from '@/features/torque-plan';
 import { requireMember } from '@/server/auth/guard';
+import { can } from '@/server/auth/permissions';
 import { signInThenBackTo } from '@/server/auth/return-path';
 import { DomainError, orNotFound } from '@/server/errors';
 import { getShopSettings } from '@/server/shop/settings';
@@ -113,6 +115,8 @@ export default async function RunPage({ params }: PageProps<'/jobs/[jobId]/wheel
           : null
       }
       person={{ id: member.userId, name: member.name }}
+      back={runnerBackLink(member, ctx.job)}
+      mayRecordVerifications={can(member, 'verifications.record')}
     />
   );
 }

@@ -1,0 +1,67 @@
+// @vitest-environment jsdom
+import { render, screen } from '@testing-library/react';
+import { describe, expect, it } from 'vitest';
+import { TorquePanel } from '@/features/runner/components/torque-panel';
+import { reduceRun, type RunnerPlan } from '@/features/runner/state';
+import { stepsFor } from '@/features/runner/steps';
+import type { CribWrench, WrenchRules } from '@/features/runner/wrench-gate';
+
+const CLICK: CribWrench = {
+  id: '11111111-1111-4111-8111-111111111111',
+  label: 'TW-1',
+  min: 20,
+  max: 150,
+  unit: 'lbf-ft',
+  graduation: 1,
+  kind: 'click',
+};
+const plan: RunnerPlan = {
+  steps: stepsFor({ dismount: false, reinstall: false }),
+  boltCount: 4,
+  passes: [{ index: 1, kind: 'staged', order: [1, 3, 2, 4] }],
+};
+// The shop wants a check today; the wrench has none, so the pass waits for one.
+const rules: WrenchRules = {
+  minFractionOfMax: 0.2,
+  verification: { recency: 'same_day', days: 1, nearPercent: 0 },
+  timeZone: 'UTC',
+};
+
+function renderPass(mayRecordVerifications: boolean) {
+  return render(
+    <TorquePanel
+      state={reduceRun(plan, [])}
+      targets={[{ value: 50, unit: 'lbf-ft' }]}
+      wrenches={[CLICK]}
+      verifications={[]}
+      rules={rules}
+      mayRecordVerifications={mayRecordVerifications}
+      cautions={[]}
+      boltCount={4}
+      record={async () => {}}
+    />,
+  );
+}
+
+describe('a pass whose wrench needs a verification on the spot', () => {
+  it('tells someone who may not record one (a cleared apprentice) to ask a lead or technician, with no form to fill', () => {
+    renderPass(false);
+    expect(screen.getByRole('alert')).toHaveTextContent(
+      'This wrench needs a check before this pass — ask a lead or technician to verify it',
+    );
+    expect(screen.getByRole('region', { name: 'Verify the wrench' })).toHaveTextContent(
+      'TW-1: No passing verification',
+    );
+    expect(screen.queryByRole('button', { name: 'Record verification' })).toBeNull();
+    expect(screen.queryByLabelText(/Reading/)).toBeNull();
+    // The pass does not start either: no bolt to confirm.
+    expect(screen.queryByRole('button', { name: /Wrench set/ })).toBeNull();
+  });
+
+  it('gives a lead or technician the inline form, as before', () => {
+    renderPass(true);
+    expect(screen.getByRole('button', { name: 'Record verification' })).toBeInTheDocument();
+    expect(screen.getByLabelText('Reading (ft-lb)')).toBeInTheDocument();
+    expect(screen.queryByText(/ask a lead or technician/)).toBeNull();
+  });
+});
