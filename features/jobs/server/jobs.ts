@@ -309,7 +309,11 @@ export async function updateJob(
     patch.assigneeId !== undefined && patch.assigneeId !== (job.assignee?.id ?? null);
   if (reassigning && job.state === 'awaiting_signoff')
     throw new DomainError('conflict', ASSIGNEE_LOCKED, { assigneeId: [ASSIGNEE_LOCKED] });
-  if (patch.assigneeId !== undefined) await assertAssignee(actor, patch.assigneeId);
+  // Only a new assignee is checked: editing notes or the due date of a card held by an apprentice
+  // whose clearance was revoked must not wait for the lead to reassign it first.
+  if (reassigning) await assertAssignee(actor, patch.assigneeId);
+  // An unchanged assignee is not written, so a reassignment that lands meanwhile is not undone.
+  const { assigneeId, ...rest } = patch;
   // Not signed off at the moment of writing: a sign-off that lands first keeps the record whole;
   // a reassignment only while the job is not awaiting sign-off then either.
   const lockedStates: JobStateName[] = reassigning
@@ -317,7 +321,7 @@ export async function updateJob(
     : ['signed_off'];
   const edited = await getDb()
     .update(jobs)
-    .set({ ...patch, updatedAt: new Date() })
+    .set({ ...rest, ...(reassigning ? { assigneeId } : {}), updatedAt: new Date() })
     .where(
       and(eq(jobs.shopId, actor.shopId), eq(jobs.id, jobId), notInArray(jobs.state, lockedStates)),
     )

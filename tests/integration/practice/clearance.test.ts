@@ -169,6 +169,40 @@ describe('clearing an apprentice gates real work', () => {
     });
   });
 
+  it('a card held by an apprentice whose clearance was revoked can still have its notes and due date edited; only a new assignee is checked', async () => {
+    const [standing] = await listApprenticeStanding(a.shopId, { userId: a.apprentice.userId });
+    if (!standing!.cleared)
+      await asLead(() => clearForRealWheels(null, { userId: a.apprentice.userId }));
+    const held = (await newJob(a.apprentice.userId)).body.data!;
+    await asLead(() => revokeRealWheelsClearance(null, { userId: a.apprentice.userId }));
+    const edit = async (body: Record<string, unknown>) => {
+      const res = await patchJob(
+        apiRequest(`/api/jobs/${held.id}`, { method: 'PATCH', cookie: leadCookie, body }),
+        params({ jobId: held.id }),
+      );
+      return { status: res.status, body: (await res.json()) as { error?: { message: string } } };
+    };
+    // The job form sends the assignee it shows along with the edit.
+    const dueAt = new Date(Date.now() + 2 * 86_400_000).toISOString();
+    expect(
+      await edit({
+        assigneeId: a.apprentice.userId,
+        notes: 'Customer waits in the lounge.',
+        dueAt,
+      }),
+    ).toMatchObject({ status: 200 });
+    expect((await edit({ notes: 'Customer left a phone number.' })).status).toBe(200);
+    const job = await getJob(a.shopId, held.id);
+    expect(job).toMatchObject({
+      assignee: { id: a.apprentice.userId },
+      notes: 'Customer left a phone number.',
+      dueAt,
+    });
+    // Handing it back to the apprentice after a reassignment is a new assignee: refused.
+    expect((await assign(held.id, a.technician.userId)).status).toBe(200);
+    expect((await assign(held.id, a.apprentice.userId)).body.error?.message).toBe(refusal);
+  });
+
   it("another shop's lead cannot clear this shop's apprentice, nor see them", async () => {
     await actAs(b.lead.userId);
     expect(await clearForRealWheels(null, { userId: a.apprentice.userId })).toMatchObject({
