@@ -4,8 +4,12 @@ import {
   deliverRecheckReminder,
   deliverReportEmail,
   type ReportEmailComposer,
+  type ReportLinkWithdrawer,
 } from '@/features/follow-up/server/deliver';
-import { composeCustomerReportEmail } from '@/features/reports/server/customer-email';
+import {
+  composeCustomerReportEmail,
+  withdrawUnsentReportLink,
+} from '@/features/reports/server/customer-email';
 import { sweepAllShops } from '@/features/tool-crib/server/wrenches';
 import { deliverTransitionNotices } from '@/server/mail/job-notices';
 import { sendMail, type OutgoingMail } from '@/server/mail/mailer';
@@ -15,11 +19,13 @@ import type { QueueHandlers } from '@/server/queue/jobs';
 export type WorkerDeps = {
   send: (mail: OutgoingMail) => Promise<void>;
   composeReportEmail: ReportEmailComposer;
+  withdrawReportLink: ReportLinkWithdrawer;
 };
 
 export const defaultDeps: WorkerDeps = {
   send: sendMail,
   composeReportEmail: composeCustomerReportEmail,
+  withdrawReportLink: withdrawUnsentReportLink,
 };
 
 export function queueHandlers(deps: WorkerDeps = defaultDeps): QueueHandlers {
@@ -31,6 +37,7 @@ export function queueHandlers(deps: WorkerDeps = defaultDeps): QueueHandlers {
       await deliverReportEmail(data, attempt, {
         compose: deps.composeReportEmail,
         send: deps.send,
+        withdrawLink: deps.withdrawReportLink,
       });
     },
     'job-notice': (data) => deliverTransitionNotices(data, deps.send),

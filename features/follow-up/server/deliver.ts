@@ -16,8 +16,12 @@ export type ReportEmail = {
   html: string;
   text: string;
   attachments: { filename: string; content: Buffer; contentType: string }[];
+  /** The customer link made for this attempt; withdrawn when the send fails. */
+  linkId?: string;
 };
 export type ReportEmailComposer = (shopId: string, jobId: string) => Promise<ReportEmail | null>;
+/** Withdraws the customer link an unsent e-mail carried (made by the reports feature). */
+export type ReportLinkWithdrawer = (shopId: string, linkId: string) => Promise<void>;
 
 /** Why a send failed, short enough for the job card. */
 export const failureReason = (error: unknown) =>
@@ -92,7 +96,7 @@ export async function deliverRecheckReminder(
 export async function deliverReportEmail(
   data: { shopId: string; jobId: string },
   attempt: JobAttempt,
-  deps: { compose: ReportEmailComposer; send: MailSender },
+  deps: { compose: ReportEmailComposer; send: MailSender; withdrawLink: ReportLinkWithdrawer },
 ): Promise<'sent' | 'skipped'> {
   const outcome = await getDb().transaction(async (tx) => {
     const where = and(
@@ -106,12 +110,19 @@ export async function deliverReportEmail(
       .for('update');
     if (!row || row.status !== 'queued') return 'skipped' as const;
     let to: string;
+    let linkId: string | undefined;
     try {
       const mail = await deps.compose(data.shopId, data.jobId);
       if (!mail) throw new Error('The customer has no e-mail address.');
-      to = mail.to;
-      await deps.send({ ...mail, shopId: data.shopId });
+      ({ to, linkId } = mail);
+      const { subject, html, text, attachments } = mail;
+      await deps.send({ to, subject, html, text, attachments, shopId: data.shopId });
     } catch (error) {
+      // Each attempt makes a fresh link; one nobody received must not stay open for 90 days.
+      if (linkId)
+        await deps
+          .withdrawLink(data.shopId, linkId)
+          .catch((e) => console.error('[follow-up] could not withdraw an unsent link', e));
       const last = isLastAttempt(attempt);
       await tx
         .update(customerReportEmails)

@@ -6,6 +6,7 @@ import { getDb } from '@/db';
 import { customerReportEmails, customers } from '@/db/schema';
 import { sendCustomerEmailAgain } from '@/features/follow-up/actions/follow-up-actions';
 import type { ReportEmailComposer } from '@/features/follow-up/server/deliver';
+import { listActiveReportLinks } from '@/features/reports/server/report-links';
 import type { OutgoingMail } from '@/server/mail/mailer';
 import { apiRequest, cookieFor, createTestShop, params } from '@/tests/helpers/factories';
 import { actAs } from '@/tests/helpers/next-request';
@@ -140,4 +141,14 @@ describe('the customer’s completion e-mail', () => {
     expect(mail?.attachments?.[0]?.content.subarray(0, 5).toString()).toBe('%PDF-');
     expect(await emailRow(jobId)).toMatchObject({ status: 'sent' });
   }, 30_000);
+
+  it('leaves no customer link open for an attempt whose e-mail the mail server refused', async () => {
+    const { shop, jobId } = await signedOff();
+    const refuse = async () => {
+      throw new Error('451 4.3.0 mail server busy, try again later');
+    };
+    while (await drainQueues({ send: refuse }, EMAILS));
+    expect(await emailRow(jobId)).toMatchObject({ status: 'failed' });
+    expect(await listActiveReportLinks(shop.shopId, jobId)).toEqual([]);
+  }, 60_000);
 });
