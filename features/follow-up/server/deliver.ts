@@ -57,9 +57,9 @@ export async function deliverRecheckReminder(
       .for('update');
     if (!row || row.status !== 'scheduled' || row.dueOn !== data.dueOn) return 'skipped' as const;
     try {
-      const mails = await composeRecheckReminder(data.shopId, data.jobId, data.dueOn);
-      if (!mails) throw new Error('Nobody to send it to: no customer address and no lead.');
-      for (const mail of mails) await send(mail);
+      const mail = await composeRecheckReminder(data.shopId, data.jobId, data.dueOn);
+      if (!mail) throw new Error('Nobody to send it to: no customer address and no lead.');
+      await send(mail);
     } catch (error) {
       const last = isLastAttempt(attempt);
       await tx

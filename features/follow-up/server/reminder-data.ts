@@ -84,13 +84,15 @@ async function reminderWheels(shopId: string, jobId: string): Promise<ReminderWh
 
 /**
  * The reminder for one job, to the customer, or to the shop's leads when the customer has no
- * address (so someone calls). Null when the job is gone or nobody could receive it.
+ * address (so someone calls). Null when the job is gone or nobody could receive it. The leads get
+ * one message with all of them as recipients: a retry after a refused send then repeats nothing
+ * anyone already has.
  */
 export async function composeRecheckReminder(
   shopId: string,
   jobId: string,
   dueOn: string,
-): Promise<OutgoingMail[] | null> {
+): Promise<OutgoingMail | null> {
   const job = await getJobContact(shopId, jobId);
   if (!job) return null;
   const recipients = job.email
@@ -112,5 +114,5 @@ export async function composeRecheckReminder(
     wheels: await reminderWheels(shopId, jobId),
     forShop: !job.email,
   });
-  return recipients.map((to) => ({ to, shopId, ...mail }));
+  return { to: recipients.join(', '), shopId, ...mail };
 }

@@ -2,9 +2,9 @@ import { and, eq, sql } from 'drizzle-orm';
 import { describe, expect, it } from 'vitest';
 import { approveReviewed } from '@/app/(shop)/jobs/[jobId]/review/actions';
 import * as jobItem from '@/app/api/jobs/[jobId]/route';
-import { queueHandlers } from '@/app/_worker/handlers';
+import { defaultDeps, queueHandlers } from '@/app/_worker/handlers';
 import { getDb } from '@/db';
-import { recheckReminders, shopSettings } from '@/db/schema';
+import { customers, jobs, recheckReminders, shopSettings, users } from '@/db/schema';
 import {
   cancelRecheckReminder,
   rescheduleRecheckReminder,
@@ -131,7 +131,11 @@ describe('the re-check reminder', () => {
       { shopId: shop.shopId, jobId, dueOn },
       { startAfter: new Date(Date.now() + 2000), singletonKey: `${jobId}:soon` },
     );
-    const handlers = queueHandlers({ send: mail.send, composeReportEmail: async () => null });
+    const handlers = queueHandlers({
+      ...defaultDeps,
+      send: mail.send,
+      composeReportEmail: async () => null,
+    });
     const first = await startWorker(handlers, { pollingIntervalSeconds: 0.5 });
     await first.stop();
     const [again, second] = await Promise.all([
@@ -195,6 +199,32 @@ describe('the re-check reminder', () => {
       lastError: '554 5.7.1 relay refused',
     });
     expect((await queuedReminders(jobId)).map((j) => j.state)).toEqual(['failed']);
+  });
+
+  it('for a customer without an address reaches each lead once, also when the first try was refused', async () => {
+    const { shop, jobId } = await signedOff();
+    const [job] = await getDb()
+      .select({ customerId: jobs.customerId })
+      .from(jobs)
+      .where(eq(jobs.id, jobId));
+    await getDb().update(customers).set({ email: '' }).where(eq(customers.id, job!.customerId));
+    const secondLead = shop.technician;
+    await getDb().update(users).set({ role: 'lead' }).where(eq(users.id, secondLead.userId));
+    // The mail server refuses the first message naming the second lead, then takes everything.
+    let refused = false;
+    const received: string[] = [];
+    const send = async (m: OutgoingMail) => {
+      if (m.shopId !== shop.shopId) return;
+      if (!refused && m.to.includes(secondLead.email)) {
+        refused = true;
+        throw new Error('452 4.2.2 mailbox full, try again later');
+      }
+      received.push(...m.to.split(',').map((to) => to.trim()));
+    };
+    while (await drainQueues({ send }, REMINDERS));
+    expect(refused).toBe(true);
+    expect(received.sort()).toEqual([shop.lead.email, secondLead.email].sort());
+    expect(await reminderRow(jobId)).toMatchObject({ status: 'sent', attempts: 2 });
   });
 });
 
