@@ -7,7 +7,7 @@ import type { Member } from '@/server/auth/session';
 import { DomainError, notFound } from '@/server/errors';
 import { getShopSettings } from '@/server/shop/settings';
 import { getJobContact } from './reminder-data';
-import { queueRecheckReminder, queueReportEmail } from './schedule';
+import { queueRecheckOrMarkFailed, queueReportEmail } from './schedule';
 import { getFollowUp } from './status';
 
 const reminderOf = (shopId: string, jobId: string) =>
@@ -37,7 +37,8 @@ export async function cancelRecheck(actor: Member, jobId: string) {
 
 /**
  * A lead moves the reminder to another shop day (today or later), also to send it again after it
- * was sent, failed or cancelled. The old queued job carries the old day and will skip itself.
+ * was sent, failed or cancelled. The old queued job carries the old day and will skip itself. If
+ * the queue cannot take the new job, the row says `failed` with the reason.
  */
 export async function rescheduleRecheck(actor: Member, jobId: string, dueOn: string) {
   const job = await requireJob(actor.shopId, jobId);
@@ -64,7 +65,8 @@ export async function rescheduleRecheck(actor: Member, jobId: string, dueOn: str
       },
       setWhere: eq(recheckReminders.shopId, actor.shopId),
     });
-  await queueRecheckReminder(actor.shopId, jobId, dueOn, timeZone);
+  // A queue that refuses leaves the row `failed` with the reason, shown to the lead here.
+  await queueRecheckOrMarkFailed(actor.shopId, jobId, dueOn, timeZone);
   return getFollowUp(actor.shopId, jobId);
 }
 

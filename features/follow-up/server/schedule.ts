@@ -22,6 +22,21 @@ export async function queueRecheckReminder(
   );
 }
 
+/**
+ * Queues the reminder, or, when the queue cannot take it, marks the row `failed` with the reason
+ * (a row saying `scheduled` with no job behind it would never send and never say so).
+ */
+export async function queueRecheckOrMarkFailed(
+  shopId: string,
+  jobId: string,
+  dueOn: string,
+  timeZone: string,
+) {
+  await guard(recheckFailed(shopId, jobId), () =>
+    queueRecheckReminder(shopId, jobId, dueOn, timeZone),
+  );
+}
+
 export async function queueReportEmail(shopId: string, jobId: string) {
   await sendJob('customer-report-email', { shopId, jobId }, { singletonKey: jobId });
 }
@@ -51,10 +66,7 @@ export async function scheduleFollowUp(
       .values({ shopId, jobId, dueOn })
       .onConflictDoNothing()
       .returning({ dueOn: recheckReminders.dueOn });
-    if (reminder)
-      await guard(recheckFailed(shopId, jobId), () =>
-        queueRecheckReminder(shopId, jobId, dueOn, timeZone),
-      );
+    if (reminder) await queueRecheckOrMarkFailed(shopId, jobId, dueOn, timeZone);
     if (!job.email) return;
     const [email] = await db
       .insert(customerReportEmails)
