@@ -21,7 +21,13 @@ export const rescheduleRecheckReminder = memberAction(
   async ({ jobId, dueOn }, member) => {
     const followUp = await rescheduleRecheck(member, jobId, dueOn);
     refresh(jobId);
-    return { followUp, message: 'Re-check reminder rescheduled.' };
+    const failed = followUp.recheck?.status === 'failed';
+    return {
+      followUp,
+      message: failed
+        ? `The reminder could not be queued (${followUp.recheck?.lastError ?? 'no reason given'}); try again shortly.`
+        : 'Re-check reminder rescheduled.',
+    };
   },
 );
 
@@ -30,6 +36,12 @@ export const sendCustomerEmailAgain = memberAction(
   async ({ jobId }, member) => {
     const followUp = await resendReportEmail(member, jobId);
     refresh(jobId);
-    return { followUp, message: 'The customer e-mail is on its way again.' };
+    const failed = followUp.customerEmail?.status === 'failed';
+    return {
+      followUp,
+      message: failed
+        ? `The e-mail could not be queued (${followUp.customerEmail?.lastError ?? 'no reason given'}); try again shortly.`
+        : 'The customer e-mail is on its way again.',
+    };
   },
 );

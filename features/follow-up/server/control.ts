@@ -7,7 +7,7 @@ import type { Member } from '@/server/auth/session';
 import { DomainError, notFound } from '@/server/errors';
 import { getShopSettings } from '@/server/shop/settings';
 import { getJobContact } from './reminder-data';
-import { queueRecheckOrMarkFailed, queueReportEmail } from './schedule';
+import { queueRecheckOrMarkFailed, queueReportEmailOrMarkFailed } from './schedule';
 import { getFollowUp } from './status';
 
 const reminderOf = (shopId: string, jobId: string) =>
@@ -102,6 +102,6 @@ export async function resendReportEmail(actor: Member, jobId: string) {
     .returning({ jobId: customerReportEmails.jobId });
   if (!requeued.length)
     throw new DomainError('conflict', 'The e-mail is already waiting to be sent.');
-  await queueReportEmail(actor.shopId, jobId);
+  await queueReportEmailOrMarkFailed(actor.shopId, jobId);
   return getFollowUp(actor.shopId, jobId);
 }

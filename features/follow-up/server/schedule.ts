@@ -41,6 +41,11 @@ export async function queueReportEmail(shopId: string, jobId: string) {
   await sendJob('customer-report-email', { shopId, jobId }, { singletonKey: jobId });
 }
 
+/** Queues the customer e-mail; a queue that refuses leaves the row `failed` with the reason, never `queued` with nothing behind it. */
+export async function queueReportEmailOrMarkFailed(shopId: string, jobId: string) {
+  await guard(emailFailed(shopId, jobId), () => queueReportEmail(shopId, jobId));
+}
+
 /**
  * What a sign-off owes the customer, called after it commits: the re-check reminder (the shop's
  * re-check days after the sign-off's shop day) and, when the customer has an address, the
@@ -73,7 +78,7 @@ export async function scheduleFollowUp(
       .values({ shopId, jobId, toAddress: job.email })
       .onConflictDoNothing()
       .returning({ jobId: customerReportEmails.jobId });
-    if (email) await guard(emailFailed(shopId, jobId), () => queueReportEmail(shopId, jobId));
+    if (email) await queueReportEmailOrMarkFailed(shopId, jobId);
   } catch (error) {
     console.error('[follow-up] could not schedule the reminder or the customer e-mail', error);
   }
