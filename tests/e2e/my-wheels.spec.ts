@@ -83,6 +83,8 @@ test('a technician signs in on a phone and lands on My wheels: the sent-back whe
 
   // Signed out and back in, the technician lands on My wheels.
   await tech.page.getByRole('button', { name: 'Sign out' }).click();
+  // The session is gone once the sign-in page shows; going there sooner can cut the sign-out short.
+  await expect(tech.page.getByRole('heading', { name: 'Sign in' })).toBeVisible();
   await signIn(tech.page, techEmail);
   await expect(tech.page).toHaveURL(/\/my-wheels$/);
   await expect(tech.page.getByRole('heading', { name: 'My wheels' })).toBeVisible();

@@ -22,15 +22,24 @@ const checkoutA = path.join(base, 'a');
 const checkoutB = path.join(base, 'b');
 for (const dir of [checkoutA, checkoutB]) mkdirSync(dir, { mode: 0o755 });
 
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
+function canListen(port: number): Promise<boolean> {
+  return new Promise((resolve) => {
     const server = net.createServer();
-    server.once('error', reject);
-    server.listen(0, '127.0.0.1', () => {
-      const { port } = server.address() as net.AddressInfo;
-      server.close(() => resolve(port));
-    });
+    server.once('error', () => resolve(false));
+    server.listen(port, '127.0.0.1', () => server.close(() => resolve(true)));
   });
+}
+
+/**
+ * A port whose neighbour is free too (checkout B moves on to the next one), below the kernel's
+ * ephemeral range: a port from that range can be taken at any moment by another test's outgoing
+ * connection or `listen(0)`, between this check and PostgreSQL binding it.
+ */
+async function freePort(): Promise<number> {
+  for (;;) {
+    const port = 20_000 + Math.floor(Math.random() * 12_000);
+    if ((await canListen(port)) && (await canListen(port + 1))) return port;
+  }
 }
 
 async function dataDirectoryAt(url: string) {
