@@ -1,6 +1,8 @@
+import path from 'node:path';
 import { expect, test, type Page } from '@playwright/test';
 import { PDFParse } from 'pdf-parse';
 import { toString as renderQr } from 'qrcode';
+import { ROOT } from '../helpers/test-services';
 import { inviteAndJoin, PASSWORD, signUp, uniqueEmail } from './helpers';
 
 /** A same-origin API call with the page's session, as the app itself would make it. */
@@ -23,6 +25,9 @@ async function qrPathFor(url: string) {
   const svg = await renderQr(url, { type: 'svg', errorCorrectionLevel: 'M' });
   return /<path stroke="#000000" d="([^"]+)"/.exec(svg)![1];
 }
+
+/** jsQR's global, as its browser build defines it. */
+type JsQr = (data: Uint8ClampedArray, width: number, height: number) => { data: string } | null;
 
 async function pagesOf(pdf: Buffer) {
   const parser = new PDFParse({ data: new Uint8Array(pdf) });
@@ -111,6 +116,34 @@ test('the printed job card shows each wheel with its spec and a QR code; scanned
     const url = `${baseURL}/jobs/${job.id}/wheels/${wheel.id}/run`;
     expect(await code.locator('svg path[stroke]').getAttribute('d')).toBe(await qrPathFor(url));
     runnerUrls.set(position, url);
+  }
+
+  // Scanned for real: each printed symbol, drawn to a canvas as a camera would see it, decodes to
+  // its own wheel's runner address.
+  await page.addScriptTag({ path: path.join(ROOT, 'node_modules', 'jsqr', 'dist', 'jsQR.js') });
+  for (const [position, label] of Object.entries(POSITIONS)) {
+    const svg = printed
+      .getByRole('article', { name: `${position} · ${label}` })
+      .getByRole('img', { name: /^QR code:/ })
+      .locator('svg');
+    const decoded = await svg.evaluate(async (el) => {
+      const scale = 4;
+      const box = el.getBoundingClientRect();
+      const image = new Image();
+      image.src = `data:image/svg+xml;charset=utf-8,${encodeURIComponent(new XMLSerializer().serializeToString(el))}`;
+      await image.decode();
+      const canvas = document.createElement('canvas');
+      canvas.width = Math.ceil(box.width * scale);
+      canvas.height = Math.ceil(box.height * scale);
+      const g = canvas.getContext('2d')!;
+      g.fillStyle = '#fff';
+      g.fillRect(0, 0, canvas.width, canvas.height);
+      g.drawImage(image, 0, 0, canvas.width, canvas.height);
+      const { data, width, height } = g.getImageData(0, 0, canvas.width, canvas.height);
+      const jsQR = (window as unknown as { jsQR: JsQr }).jsQR;
+      return jsQR(data, width, height)?.data ?? null;
+    });
+    expect(decoded, `${position} QR`).toBe(runnerUrls.get(position));
   }
 
   // Four wheels fit one sheet of either paper; each page's text holds whole cards.

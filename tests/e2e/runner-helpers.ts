@@ -53,3 +53,62 @@ export async function confirmBolts(page: Page, bolts = Infinity) {
     n++;
   }
 }
+
+/** The passes as fast as the runner lets a finger go (just past its double-tap guard): far quicker than a click wrench can be pulled to its click. */
+export const tapThroughPasses = async (page: Page) => {
+  await confirmBolts(page);
+  await page.getByRole('button', { name: 'Torque passes done' }).click();
+};
+
+/** Runs a whole wheel as fast as the runner lets a finger go, through to submitting it for sign-off. */
+export async function runWheelFast(page: Page, jobId: string, wheelId: string) {
+  await page.goto(`/jobs/${jobId}/wheels/${wheelId}/run`);
+  const tickAndDone = async (heading: RegExp) => {
+    await expect(page.getByRole('heading', { name: heading })).toBeVisible();
+    for (const box of await page.locator('main input[type=checkbox]').all()) await box.check();
+    await page.getByRole('button', { name: 'Step done' }).click();
+  };
+  await tickAndDone(/Safety gate/);
+  await tickAndDone(/Clean/);
+  await tickAndDone(/Inspect rim/);
+  await tickAndDone(/Mount the tire/);
+  await tickAndDone(/Index the ring/);
+  await startAllBolts(page);
+  await tapThroughPasses(page);
+
+  await expect(page.getByRole('heading', { name: /Seat the bead/ })).toBeVisible();
+  const jpeg = await page.evaluate(async () => {
+    const c = document.createElement('canvas');
+    c.width = 1200;
+    c.height = 800;
+    const g = c.getContext('2d')!;
+    g.fillStyle = '#333';
+    g.fillRect(0, 0, c.width, c.height);
+    const blob = await new Promise<Blob>((r) => c.toBlob((b) => r(b!), 'image/jpeg', 0.9));
+    return Array.from(new Uint8Array(await blob.arrayBuffer()));
+  });
+  const photo = { name: 'bead.jpg', mimeType: 'image/jpeg', buffer: Buffer.from(jpeg) };
+  await page
+    .getByLabel('Take or choose a photo — Seated bead, outer face (required)')
+    .setInputFiles(photo);
+  await expect(page.getByRole('img', { name: 'Seated bead, outer face' })).toBeVisible({
+    timeout: 20_000,
+  });
+  await page
+    .getByLabel('Take or choose a photo — Seated bead, inner face (required)')
+    .setInputFiles(photo);
+  await expect(page.getByRole('img', { name: 'Seated bead, inner face' })).toBeVisible({
+    timeout: 20_000,
+  });
+  for (const box of await page.locator('main input[type=checkbox]').all()) await box.check();
+  await page.getByLabel('Highest pressure used to seat the bead').fill('22');
+  await page.getByRole('button', { name: 'Step done' }).click();
+  await expect(page.getByRole('heading', { name: /Leak check/ })).toBeVisible();
+  for (const box of await page.locator('main input[type=checkbox]').all()) await box.check();
+  await page.getByLabel('Pressure set').fill('8');
+  await page.getByRole('button', { name: 'Step done' }).click();
+  await page.getByRole('button', { name: 'Submit the wheel' }).click();
+  await expect(
+    page.getByRole('status').filter({ hasText: 'the job card went to sign-off' }),
+  ).toBeVisible();
+}

@@ -39,11 +39,14 @@ export async function stockShop(
     wrenches = [BLUE],
     unverified = false,
     directional = true,
+    customerEmail = '',
   }: {
     assigneeId: string;
     wrenches?: (typeof BLUE)[];
     unverified?: boolean;
     directional?: boolean;
+    /** The customer's address: the signed-off report goes there. */
+    customerEmail?: string;
   },
 ) {
   const calibrationDueOn = new Date(Date.now() + 200 * 86_400_000).toISOString().slice(0, 10);
@@ -82,7 +85,7 @@ export async function stockShop(
     wheels: { id: string }[];
     customer: { id: string };
   }>(page, 'POST', '/api/jobs', {
-    customer: { name: 'Ada Offroad', phone: '', email: '' },
+    customer: { name: 'Ada Offroad', phone: '', email: customerEmail },
     vehicle: { make: 'Boreal', model: 'Scout', description: '' },
     wheels: [
       {
