@@ -45,6 +45,12 @@ export async function startMailSink(options: {
             subject: mail.subject ?? '',
             text: mail.text ?? '',
             shopId: shopOf(mail.headers.get(SHOP_HEADER)),
+            // What is attached, not the bytes: enough to see the customer's report went with its mail.
+            attachments: mail.attachments.map((a) => ({
+              filename: a.filename ?? '',
+              contentType: a.contentType,
+              size: a.size,
+            })),
           };
           // Name sorts by time so the Mailbox can list newest first without reading every file.
           const name = `${receivedAt.replace(/[:.]/g, '-')}-${id}.json`;

@@ -13,6 +13,8 @@ export type SinkMessage = {
   text: string;
   /** The shop the app tied the mail to (its X-Ringpass-Shop header); null when none. */
   shopId: string | null;
+  /** Attached files' names, types and sizes (absent in mail stored before the sink kept them). */
+  attachments?: { filename: string; contentType: string; size: number }[];
 };
 
 /**

@@ -44,8 +44,15 @@ test('signed off, the customer gets the e-mail with the report link; opened on a
   expect(mail.subject).toBe(
     `Your completion report: job ${job.number}, Boreal Scout (Paperwork Beadlocks)`,
   );
-  // The sink records the text only, not the attachments: the PDF is checked through the link below.
   expect(mail.text).toContain('is attached, and online for 90 days at:');
+  expect(mail.attachments).toEqual([
+    expect.objectContaining({
+      filename: `job-${job.number}-report.pdf`,
+      contentType: 'application/pdf',
+      size: expect.any(Number),
+    }),
+  ]);
+  expect(mail.attachments![0]!.size).toBeGreaterThan(5_000);
   const link = /https?:\/\/\S+\/r\/[A-Za-z0-9_-]{43}/.exec(mail.text)?.[0];
   expect(link, mail.text).toBeTruthy();
   const path = new URL(link!).pathname;
