@@ -1,5 +1,6 @@
 import 'server-only';
 import { and, eq, sql } from 'drizzle-orm';
+import type { AnyPgColumn } from 'drizzle-orm/pg-core';
 import { getDb } from '@/db';
 import { customerReportEmails, recheckReminders } from '@/db/schema';
 import type { OutgoingMail } from '@/server/mail/mailer';
@@ -34,6 +35,23 @@ export const failureReason = (error: unknown) =>
 export class GiveUpOrRetry extends Error {}
 
 /**
+ * A delivery row's fields after one attempt: `sent`, or back to `waiting` with the reason
+ * (`failed` after the last attempt). Both rows (reminder, customer e-mail) count attempts alike.
+ */
+function afterAttempt<W extends string>(
+  attempts: AnyPgColumn,
+  waiting: W,
+  attempt: JobAttempt,
+  error?: unknown,
+) {
+  const counted = { attempts: sql<number>`${attempts} + 1`, updatedAt: new Date() };
+  if (error === undefined)
+    return { ...counted, status: 'sent' as const, sentAt: new Date(), lastError: null };
+  const status = isLastAttempt(attempt) ? ('failed' as const) : waiting;
+  return { ...counted, status, lastError: failureReason(error) };
+}
+
+/**
  * The re-check reminder, once. The row is locked for the send: a second worker holding the same
  * job (or a duplicate job) waits, then finds it `sent` and does nothing. A row that was cancelled
  * or moved to another day (its job carries the old day) is left alone. A failed send stays
@@ -61,27 +79,15 @@ export async function deliverRecheckReminder(
       if (!mail) throw new Error('Nobody to send it to: no customer address and no lead.');
       await send(mail);
     } catch (error) {
-      const last = isLastAttempt(attempt);
       await tx
         .update(recheckReminders)
-        .set({
-          status: last ? 'failed' : 'scheduled',
-          attempts: sql`${recheckReminders.attempts} + 1`,
-          lastError: failureReason(error),
-          updatedAt: new Date(),
-        })
+        .set(afterAttempt(recheckReminders.attempts, 'scheduled', attempt, error))
         .where(where);
       return new GiveUpOrRetry(failureReason(error));
     }
     await tx
       .update(recheckReminders)
-      .set({
-        status: 'sent',
-        sentAt: new Date(),
-        attempts: sql`${recheckReminders.attempts} + 1`,
-        lastError: null,
-        updatedAt: new Date(),
-      })
+      .set(afterAttempt(recheckReminders.attempts, 'scheduled', attempt))
       .where(where);
     return 'sent' as const;
   });
@@ -123,28 +129,15 @@ export async function deliverReportEmail(
         await deps
           .withdrawLink(data.shopId, linkId)
           .catch((e) => console.error('[follow-up] could not withdraw an unsent link', e));
-      const last = isLastAttempt(attempt);
       await tx
         .update(customerReportEmails)
-        .set({
-          status: last ? 'failed' : 'queued',
-          attempts: sql`${customerReportEmails.attempts} + 1`,
-          lastError: failureReason(error),
-          updatedAt: new Date(),
-        })
+        .set(afterAttempt(customerReportEmails.attempts, 'queued', attempt, error))
         .where(where);
       return new GiveUpOrRetry(failureReason(error));
     }
     await tx
       .update(customerReportEmails)
-      .set({
-        status: 'sent',
-        toAddress: to,
-        sentAt: new Date(),
-        attempts: sql`${customerReportEmails.attempts} + 1`,
-        lastError: null,
-        updatedAt: new Date(),
-      })
+      .set({ ...afterAttempt(customerReportEmails.attempts, 'queued', attempt), toAddress: to })
       .where(where);
     return 'sent' as const;
   });
