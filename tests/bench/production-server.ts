@@ -22,9 +22,13 @@ export async function startProductionServer(port: number, databaseUrl: string) {
     COOKIE_SECURE: 'false',
   };
   const next = path.join(ROOT, 'node_modules', '.bin', 'next');
-  console.log('[bench] building the app (next build)…');
-  if (spawnSync(next, ['build'], { cwd: ROOT, env, stdio: 'ignore' }).status !== 0)
-    throw new Error('next build failed');
+  // BENCH_REUSE_BUILD=1 serves the last .next-bench as it is (repeat runs of unchanged sources).
+  if (process.env.BENCH_REUSE_BUILD === '1') console.log('[bench] reusing .next-bench');
+  else {
+    console.log('[bench] building the app (next build)…');
+    if (spawnSync(next, ['build'], { cwd: ROOT, env, stdio: 'ignore' }).status !== 0)
+      throw new Error('next build failed');
+  }
   const server = spawn(next, ['start', '-H', '127.0.0.1', '-p', String(port)], {
     cwd: ROOT,
     env,
