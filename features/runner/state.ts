@@ -85,6 +85,19 @@ export function orderEvents<E extends Pick<ClientEvent, 'clientAt' | 'clientId'>
  * out of the planned order is kept but listed as an anomaly.
  */
 export function reduceRun(plan: RunnerPlan, events: readonly ClientEvent[]): RunnerState {
+  const run = startRun(plan);
+  for (const e of orderEvents(events)) run.apply(e);
+  return run.state();
+}
+
+/**
+ * `reduceRun`'s running totals: `apply` takes events in `orderEvents` order (a duplicate id is
+ * skipped), `state` reads the progress so far as a fresh object. Lets the runner add a tap to
+ * what it already reduced (./run-tracker.ts) instead of reducing the whole log again.
+ */
+export type RunAccumulator = { apply: (e: ClientEvent) => void; state: () => RunnerState };
+
+export function startRun(plan: RunnerPlan): RunAccumulator {
   const status: RunnerState['status'] = Object.fromEntries(plan.steps.map((s) => [s.id, 'todo']));
   const skipReasons: RunnerState['skipReasons'] = {};
   const measurements: RunnerState['measurements'] = {};
@@ -126,8 +139,10 @@ export function reduceRun(plan: RunnerPlan, events: readonly ClientEvent[]): Run
     return true;
   };
 
-  for (const e of orderEvents(events)) {
-    if (seen.has(e.clientId)) continue;
+  const handOrder = safeHandStartOrder(plan.boltCount);
+
+  const apply = (e: ClientEvent) => {
+    if (seen.has(e.clientId)) return;
     seen.add(e.clientId);
     switch (e.type) {
       case 'step_done':
@@ -195,42 +210,46 @@ export function reduceRun(plan: RunnerPlan, events: readonly ClientEvent[]): Run
         break;
       }
     }
-  }
-
-  const count = activeCount();
-  const passes: PassProgress[] = Array.from({ length: count }, (_, p) => ({
-    ...passAt(p),
-    confirmed: orderDone[p]!,
-    next: nextOf(p),
-    complete: confirmed[p]!.size === plan.boltCount,
-    wrenchId: wrench[p]!,
-    added: p >= planCount,
-    turned: [...turned[p]!].sort((a, b) => a - b),
-  }));
-  const cp = currentPassIndex();
-  const checkPassLimitReached =
-    passCount > planCount && count === passCount && turned[passCount - 1]!.size > 0;
-  const current = flagged
-    ? null
-    : ((plan.steps.find((s) => s.id !== 'submit' && status[s.id] === 'todo')?.id ??
-        null) as StepId | null);
-  const nextHandStart = safeHandStartOrder(plan.boltCount).find((b) => !started.has(b)) ?? null;
-  return {
-    status,
-    skipReasons,
-    measurements,
-    current,
-    flagged,
-    flaggedBolts,
-    handStarted: [...started].sort((a, b) => a - b),
-    nextHandStart,
-    passes,
-    currentPass: cp === -1 ? null : cp + 1,
-    checkPassLimitReached,
-    anomalies,
-    doneAt,
-    eventCount: seen.size,
   };
+
+  // Copies of everything `apply` goes on changing: a state handed out never changes under React.
+  const state = (): RunnerState => {
+    const count = activeCount();
+    const passes: PassProgress[] = Array.from({ length: count }, (_, p) => ({
+      ...passAt(p),
+      confirmed: [...orderDone[p]!],
+      next: nextOf(p),
+      complete: confirmed[p]!.size === plan.boltCount,
+      wrenchId: wrench[p]!,
+      added: p >= planCount,
+      turned: [...turned[p]!].sort((a, b) => a - b),
+    }));
+    const cp = currentPassIndex();
+    const checkPassLimitReached =
+      passCount > planCount && count === passCount && turned[passCount - 1]!.size > 0;
+    const current = flagged
+      ? null
+      : ((plan.steps.find((s) => s.id !== 'submit' && status[s.id] === 'todo')?.id ??
+          null) as StepId | null);
+    const nextHandStart = handOrder.find((b) => !started.has(b)) ?? null;
+    return {
+      status: { ...status },
+      skipReasons: { ...skipReasons },
+      measurements: { ...measurements },
+      current,
+      flagged,
+      flaggedBolts: [...flaggedBolts],
+      handStarted: [...started].sort((a, b) => a - b),
+      nextHandStart,
+      passes,
+      currentPass: cp === -1 ? null : cp + 1,
+      checkPassLimitReached,
+      anomalies: [...anomalies],
+      doneAt: { ...doneAt },
+      eventCount: seen.size,
+    };
+  };
+  return { apply, state };
 }
 
 /** What still stands between this wheel and submit; empty when it may be submitted. */
