@@ -1,6 +1,7 @@
 'use client';
 
-import { useMemo, useRef, useState, type KeyboardEvent } from 'react';
+import { useCallback, useLayoutEffect, useMemo, useRef, useState, type KeyboardEvent } from 'react';
+import { Bolt, R } from './bolt';
 import { boltLabel, boltPosition, type BoltState } from './geometry';
 
 type Props = {
@@ -29,8 +30,6 @@ export const TURNS_SHOWN = 4;
 
 /** From this many bolts the circle's tap targets fall under 44 px on a 360 px phone: a list takes the taps. */
 export const LIST_FROM = 32;
-
-const R = 88;
 
 /**
  * The ring seen from outside: the valve notch at the top, bolts numbered clockwise from it. Each
@@ -73,28 +72,40 @@ export function BoltCircle({
           ? 'next'
           : 'pending';
 
-  function move(e: KeyboardEvent<SVGGElement>, b: number) {
-    const keys: Record<string, number> = {
-      ArrowRight: 1,
-      ArrowDown: 1,
-      ArrowLeft: -1,
-      ArrowUp: -1,
-    };
-    if (e.key in keys) {
-      e.preventDefault();
-      const to = ((b - 1 + keys[e.key]! + count) % count) + 1;
-      setFocus(to);
-      refs.current[to]?.focus();
-    } else if (e.key === 'Home' || e.key === 'End') {
-      e.preventDefault();
-      const to = e.key === 'Home' ? 1 : count;
-      setFocus(to);
-      refs.current[to]?.focus();
-    } else if ((e.key === 'Enter' || e.key === ' ') && onSelect) {
-      e.preventDefault();
-      onSelect(b);
-    }
-  }
+  // The latest onSelect behind one function that never changes, so the bolts' memo holds.
+  const onSelectRef = useRef(onSelect);
+  useLayoutEffect(() => {
+    onSelectRef.current = onSelect;
+  });
+  const select = useCallback((b: number) => onSelectRef.current?.(b), []);
+  const register = useCallback((b: number, el: SVGGElement | null) => {
+    refs.current[b] = el;
+  }, []);
+  const move = useCallback(
+    (e: KeyboardEvent<SVGGElement>, b: number) => {
+      const keys: Record<string, number> = {
+        ArrowRight: 1,
+        ArrowDown: 1,
+        ArrowLeft: -1,
+        ArrowUp: -1,
+      };
+      if (e.key in keys) {
+        e.preventDefault();
+        const to = ((b - 1 + keys[e.key]! + count) % count) + 1;
+        setFocus(to);
+        refs.current[to]?.focus();
+      } else if (e.key === 'Home' || e.key === 'End') {
+        e.preventDefault();
+        const to = e.key === 'Home' ? 1 : count;
+        setFocus(to);
+        refs.current[to]?.focus();
+      } else if ((e.key === 'Enter' || e.key === ' ') && onSelectRef.current) {
+        e.preventDefault();
+        select(b);
+      }
+    },
+    [count, select],
+  );
 
   return (
     <svg
@@ -119,98 +130,30 @@ export function BoltCircle({
         </text>
       </g>
       {bolts.map((b) => {
-        const { x, y } = boltPosition(b, count, R);
-        const out = boltPosition(b, count, R + size + 8);
         const state = stateOf(b);
-        const isDone = state === 'done' || state === 'started';
-        const isNext = state === 'next';
         // Hand-start: the suggested next bolt gets the highlight ring, its state stays in words.
         const suggested = mode === 'hand-start' && b === next;
-        const n = step.get(b);
+        const isMarked = marked?.includes(b) ?? false;
+        const isFlagged = flagged?.includes(b) ?? false;
         return (
-          <g
+          <Bolt
             key={b}
-            ref={(el) => {
-              refs.current[b] = el;
-            }}
-            role={interactive ? 'button' : 'img'}
-            aria-label={`${boltLabel(b, state, passLabel, n)}${marked?.includes(b) ? ', out of order' : ''}${suggested ? ', start this one next' : ''}${flagged?.includes(b) ? ', problem flagged' : ''}`}
-            aria-pressed={interactive ? selected === b : undefined}
-            tabIndex={interactive ? (b === focus ? 0 : -1) : undefined}
-            onClick={interactive ? () => onSelect?.(b) : undefined}
-            onKeyDown={interactive ? (e) => move(e, b) : undefined}
-            onFocus={() => setFocus(b)}
-            className={
-              interactive
-                ? 'cursor-pointer outline-none [&:focus-visible>.focus]:stroke-[#0a4f8a]'
-                : undefined
-            }
-            data-state={state}
-          >
-            <circle
-              className="focus"
-              cx={x}
-              cy={y}
-              r={size + 5}
-              fill="none"
-              stroke={selected === b ? '#101317' : 'transparent'}
-              strokeWidth={2.5}
-              strokeDasharray={selected === b ? '3 2' : undefined}
-            />
-            {isNext || suggested ? (
-              <circle cx={x} cy={y} r={size + 3} fill="none" stroke="#0a4f8a" strokeWidth={3} />
-            ) : null}
-            {marked?.includes(b) ? (
-              <circle
-                cx={x}
-                cy={y}
-                r={size + 4}
-                fill="none"
-                stroke="#b3261e"
-                strokeWidth={3}
-                strokeDasharray="4 2"
-                data-marked
-              />
-            ) : null}
-            <circle
-              cx={x}
-              cy={y}
-              r={size}
-              fill={isDone ? '#1d6b36' : isNext ? '#0a4f8a' : '#ffffff'}
-              stroke="#101317"
-              strokeWidth={1.5}
-            />
-            {isDone ? (
-              <path
-                d={`M ${x - size / 2} ${y} l ${size / 3} ${size / 3} l ${size / 1.6} ${-size / 1.4}`}
-                fill="none"
-                stroke="#ffffff"
-                strokeWidth={2}
-                aria-hidden
-              />
-            ) : null}
-            {flagged?.includes(b) ? (
-              <g data-flagged aria-hidden>
-                <circle cx={x} cy={y} r={size + 4} fill="none" stroke="#b3261e" strokeWidth={3.5} />
-                <path
-                  d={`M ${x - size} ${y - size} L ${x + size} ${y + size} M ${x + size} ${y - size} L ${x - size} ${y + size}`}
-                  stroke="#b3261e"
-                  strokeWidth={3}
-                />
-              </g>
-            ) : null}
-            <text
-              x={out.x}
-              y={out.y}
-              dy="0.35em"
-              textAnchor="middle"
-              fontSize={size * 0.8}
-              fill="#3b424b"
-              aria-hidden
-            >
-              {b}
-            </text>
-          </g>
+            bolt={b}
+            count={count}
+            size={size}
+            state={state}
+            label={`${boltLabel(b, state, passLabel, step.get(b))}${isMarked ? ', out of order' : ''}${suggested ? ', start this one next' : ''}${isFlagged ? ', problem flagged' : ''}`}
+            interactive={interactive}
+            tabbable={b === focus}
+            selected={selected === b}
+            highlighted={state === 'next' || suggested}
+            marked={isMarked}
+            flagged={isFlagged}
+            onSelect={select}
+            onKey={move}
+            onFocus={setFocus}
+            register={register}
+          />
         );
       })}
       {/* Turn numbers are drawn on the bolts but outside their buttons, so a bolt button's only
