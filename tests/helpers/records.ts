@@ -42,8 +42,12 @@ export const fourWheels = (specId: string, size = '30x10R14') =>
   }));
 
 /** A spec, a wrench, a customer with a vehicle and a four-wheel job assigned to the technician. */
-export async function createRecords(lead: Member, technicianId: string) {
-  const spec = await createSpec(lead, specSchema.parse(specBody));
+export async function createRecords(
+  lead: Member,
+  technicianId: string,
+  spec: Partial<typeof specBody> = {},
+) {
+  const specRow = await createSpec(lead, specSchema.parse({ ...specBody, ...spec }));
   const wrench = await createWrench(lead, wrenchSchema.parse(wrenchBody));
   const customer = await createCustomer(lead, {
     name: 'Wren Halloway',
@@ -60,14 +64,14 @@ export async function createRecords(lead: Member, technicianId: string) {
   const job = await createJob(lead, {
     customerId: customer.id,
     vehicleId: vehicle.id,
-    wheels: fourWheels(spec.id),
+    wheels: fourWheels(specRow.id),
     dismount: true,
     reinstall: true,
     assigneeId: technicianId,
     notes: '',
     acceptAxleMismatch: false,
   });
-  return { spec, wrench, customer, vehicle, job };
+  return { spec: specRow, wrench, customer, vehicle, job };
 }
 
 /**
