@@ -1,24 +1,24 @@
 import { z } from 'zod';
 import { PRESSURE_UNITS, TORQUE_UNITS } from '@/features/torque-plan';
 import { cleanString, isoDateTime } from '@/features/ui/bounded';
+import { BOLT_PROBLEMS, MAX_CHECK_PASSES } from './event-constants';
 import { STEP_IDS } from './steps';
+
+export {
+  BOLT_PROBLEMS,
+  boltFlagReason,
+  MAX_CHECK_PASSES,
+  type BoltProblem,
+} from './event-constants';
 
 const step = z.enum(STEP_IDS);
 const bolt = z.number().int().min(1).max(64);
-/**
- * The most check passes a wheel may have in all: the plan's one, then one more each time a bolt of
- * the check pass before turned (see `reduceRun`). Past this the wheel goes to a lead.
- */
-export const MAX_CHECK_PASSES = 10;
 // A plan has at most 8 staged passes and one check pass; added check passes follow it.
 const pass = z
   .number()
   .int()
   .min(1)
   .max(8 + MAX_CHECK_PASSES);
-/** What a technician can report about one bolt when they stop the wheel. */
-export const BOLT_PROBLEMS = ['stripped', 'snapped', 'cross_threaded', 'spins', 'other'] as const;
-export type BoltProblem = (typeof BOLT_PROBLEMS)[number];
 const torque = z.object({ value: z.number().positive().max(100_000), unit: z.enum(TORQUE_UNITS) });
 
 /** Every kind of event the runner sends; the server validates each against this. */
@@ -103,25 +103,6 @@ export const eventBatchSchema = z.object({
 
 export type RunEvent = z.infer<typeof runEventSchema>;
 
-const PROBLEM_WORDS: Record<BoltProblem, string> = {
-  stripped: 'stripped thread',
-  snapped: 'snapped head',
-  cross_threaded: 'cross-threaded',
-  spins: 'bolt spins',
-  other: 'other problem',
-};
-
-/** The words a flagged bolt leaves on the wheel for the lead (the reducer and the save path agree on them). */
-export function boltFlagReason(payload: {
-  bolt: number;
-  pass?: number | undefined;
-  problem: BoltProblem;
-  note?: string | undefined;
-}): string {
-  const where = payload.pass ? `pass ${payload.pass}` : 'hand-start';
-  const note = payload.note?.trim();
-  return `Bolt ${payload.bolt} (${where}): ${PROBLEM_WORDS[payload.problem]}${note ? ` — ${note}` : ''}`;
-}
 export type ClientEvent = z.infer<typeof clientEventSchema>;
 
 /** One event the server would not take, by its place in the batch the phone sent. */

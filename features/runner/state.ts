@@ -1,5 +1,6 @@
 import { handStartOrder } from '@/features/torque-plan';
-import { boltFlagReason, MAX_CHECK_PASSES, type BoltProblem, type ClientEvent } from './events';
+import { boltFlagReason, MAX_CHECK_PASSES, type BoltProblem } from './event-constants';
+import type { ClientEvent } from './events';
 import { missingPhotos, PHOTO_KIND_INFO } from './photo-kinds';
 import type { Step, StepId } from './steps';
 

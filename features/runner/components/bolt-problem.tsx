@@ -1,7 +1,8 @@
 'use client';
 
 import { useState, type ReactNode } from 'react';
-import { BOLT_PROBLEMS, type BoltProblem, type RunEvent } from '../events';
+import { BOLT_PROBLEMS, type BoltProblem } from '../event-constants';
+import type { RunEvent } from '../events';
 
 const WORDS: Record<BoltProblem, string> = {
   stripped: 'Stripped thread',
