@@ -4,6 +4,7 @@ import { useMutation } from '@tanstack/react-query';
 import { unstable_isUnrecognizedActionError } from 'next/navigation';
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import type { ClientEvent, RunEvent } from '../events';
+import { afterPaint } from './after-paint';
 import { deviceId } from './device-id';
 import { useWheelEvents } from './get-wheel-events';
 import { useOnline } from './online';
@@ -106,14 +107,18 @@ export function useRunQueue(
     setAttention(attentionRef.current);
   }, []);
 
+  /** The queue on screen now; `persist` puts it on the phone. */
+  const show = useCallback((next: ClientEvent[]) => {
+    pendingRef.current = next;
+    setPending(next);
+    setStatus((s) => ({ ...s, waiting: next.length }));
+  }, []);
   const store = useCallback(
     async (next: ClientEvent[]) => {
-      pendingRef.current = next;
-      setPending(next);
-      setStatus((s) => ({ ...s, waiting: next.length }));
+      show(next);
       await persist();
     },
-    [persist],
+    [show, persist],
   );
 
   /** Adds the server's events to the saved copy; says whether any were new. */
@@ -249,10 +254,14 @@ export function useRunQueue(
         clientAt: new Date().toISOString(),
         deviceId: deviceId(),
       } as ClientEvent;
-      await store([...pendingRef.current, full]);
+      show([...pendingRef.current, full]);
+      // The tap is drawn first: the write (IndexedDB clones the whole outbox) waits until that
+      // frame is painted. The send still waits for the write (it takes only what is written).
+      await afterPaint();
+      await persist();
       flush();
     },
-    [store, flush],
+    [show, persist, flush],
   );
 
   const events = useMemo(() => {
