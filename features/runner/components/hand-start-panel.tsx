@@ -4,8 +4,9 @@ import { useState } from 'react';
 import { BoltCircle, LIST_FROM } from '@/features/bolt-circle/bolt-circle';
 import { BoltList } from '@/features/bolt-circle/bolt-list';
 import type { RunEvent } from '../events';
-import { BoltProblemForm, type PhotoSlotFor } from './bolt-problem';
+import type { PhotoSlotFor } from './bolt-problem';
 import { Caution } from './caution';
+import { BoltProblemForm } from './lazy-parts';
 import { RingLayout, ringButtonClass } from './ring-layout';
 import { SpecWordsBox, type SpecWords } from './spec-words';
 

@@ -12,15 +12,15 @@ import type { RunnerState } from '../state';
 import type { PassPractice } from '../practice-mode';
 import { useRunnerSettings } from '../settings-store';
 import { passWrench, type CribWrench, type WrenchRules } from '../wrench-gate';
-import { BoltProblemForm, type PhotoSlotFor } from './bolt-problem';
+import type { PhotoSlotFor } from './bolt-problem';
 import { Caution } from './caution';
+import { BoltProblemForm, VerifyAskOthers, VerifyInline, WrenchSetupCard } from './lazy-parts';
 import { PassRing } from './pass-ring';
 import { PassSetting } from './pass-setting';
 import { confirmWord, passName } from './pass-words';
 import { SpecWordsBox, type SpecWords } from './spec-words';
 import { cue, useConfirmBolt } from './use-confirm-bolt';
-import { VerifyAskOthers, VerifyInline } from './verify-inline';
-import { WrenchSetupCard, type TypedSetting } from './wrench-setup-card';
+import type { TypedSetting } from './wrench-setup-card';
 
 const big = 'min-h-16 w-full rounded-xl px-4 text-lg font-bold';
 

@@ -110,10 +110,10 @@ describe('the torque pass screen in practice', () => {
     });
   });
 
-  it('wrench setup: no setting shown; the wrench picked and the setting typed go with each bolt', () => {
+  it('wrench setup: no setting shown; the wrench picked and the setting typed go with each bolt', async () => {
     const onRecord = vi.fn();
     render(<Harness practice={{ level: 'wrench_setup' }} onRecord={onRecord} />);
-    const card = screen.getByRole('region', { name: 'Wrench setting' });
+    const card = await screen.findByRole('region', { name: 'Wrench setting' });
     expect(card).not.toHaveTextContent('Set 20–150');
     expect(screen.getByRole('button', { name: 'Wrench set' })).toBeDisabled();
     // The in-lb wrench and 720 in-lb (60 ft-lb × 12 in per ft, NIST SP 811: 1 ft = 12 in) — past

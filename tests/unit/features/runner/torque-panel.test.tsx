@@ -183,12 +183,13 @@ describe('the torque pass screen', () => {
     expect(onRecord).toHaveBeenCalledWith({ type: 'bolt_undone', payload: { pass: 1, bolt: 3 } });
   });
 
-  it('"Problem with this bolt" sends bolt_flagged and the wheel stops with the bolt named', () => {
+  it('"Problem with this bolt" sends bolt_flagged and the wheel stops with the bolt named', async () => {
     const onRecord = vi.fn();
     render(<Harness onRecord={onRecord} initial={done(1, [1])} />);
     fireEvent.click(screen.getByRole('button', { name: 'Wrench set' }));
     fireEvent.click(screen.getByRole('button', { name: 'Problem with this bolt' }));
-    const stop = screen.getByRole('button', { name: 'Stop the wheel and flag it' });
+    // The form loads when it is asked for (not part of the runner's first load).
+    const stop = await screen.findByRole('button', { name: 'Stop the wheel and flag it' });
     expect(stop).toBeDisabled();
     fireEvent.click(screen.getByRole('radio', { name: 'Stripped thread' }));
     fireEvent.change(screen.getByLabelText(/^Note/), {
@@ -237,13 +238,13 @@ describe('the torque pass screen', () => {
 });
 
 describe('hand-start', () => {
-  it('suggests the cross order and flags a bolt from there too', () => {
+  it('suggests the cross order and flags a bolt from there too', async () => {
     const record = vi.fn(async () => {});
     render(<HandStartPanel boltCount={8} started={[1]} next={5} cautions={[]} record={record} />);
     expect(screen.getByText('Press the ring down to start the next bolt.')).toBeInTheDocument();
     expect(screen.getByRole('button', { name: 'Bolt 5 started by hand' })).toBeInTheDocument();
     fireEvent.click(screen.getByRole('button', { name: 'Problem with this bolt' }));
-    fireEvent.click(screen.getByRole('radio', { name: 'Cross-threaded' }));
+    fireEvent.click(await screen.findByRole('radio', { name: 'Cross-threaded' }));
     fireEvent.click(screen.getByRole('button', { name: 'Stop the wheel and flag it' }));
     expect(record).toHaveBeenCalledWith({
       type: 'bolt_flagged',
