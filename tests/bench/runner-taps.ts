@@ -50,8 +50,16 @@ export async function reachTorquePass(page: Page, runnerUrl: string) {
   await page.getByRole('button', { name: 'All bolts started — step done' }).click();
 }
 
-/** `taps` measured confirmations (plus the passes' last bolts, tapped and not counted). */
-export async function runnerTaps(page: Page, taps: number, boltCount: number): Promise<TapRun> {
+/**
+ * `taps` measured confirmations (plus the passes' last bolts, tapped and not counted);
+ * `beforeEach` runs before each measured one (the floor's tap).
+ */
+export async function runnerTaps(
+  page: Page,
+  taps: number,
+  boltCount: number,
+  beforeEach: () => Promise<void>,
+): Promise<TapRun> {
   const confirm = page.getByRole('button', { name: /^Clicked — bolt \d+$/ });
   const wrenchSet = page.getByRole('button', { name: 'Wrench set' });
   await wrenchSet.or(confirm).first().waitFor();
@@ -68,6 +76,7 @@ export async function runnerTaps(page: Page, taps: number, boltCount: number): P
     const counter = await page.getByText(/^\d+ of \d+ bolts/).textContent();
     const lastOfPass = Number(/^(\d+)/.exec(counter ?? '')?.[1]) === boltCount - 1;
     const gone = page.getByRole('button', { name, exact: true });
+    if (!lastOfPass) await beforeEach();
     const at = await tapOnce(
       page,
       confirm,

@@ -131,8 +131,11 @@ export const FLOOR_HTML = `<!doctype html><html><head><meta charset="utf-8">
 <script>let n = 0; const b = document.getElementById('tap'); b.onclick = () => { b.textContent = 'Tapped ' + ++n; };</script>
 </body></html>`;
 
-/** 48 taps on the floor page, measured like the runner's. */
-export async function floorTaps(page: Page, url: string, taps: number): Promise<TapRun> {
+/**
+ * The floor page, tapped one tap at a time: the bench takes a floor tap before each runner tap,
+ * so both see the same load from whatever else this machine is doing.
+ */
+export async function openFloor(page: Page, url = 'http://tap-floor.test/') {
   await page.route(url, (route) =>
     route.fulfill({ status: 200, contentType: 'text/html', body: FLOOR_HTML }),
   );
@@ -141,13 +144,19 @@ export async function floorTaps(page: Page, url: string, taps: number): Promise<
   const button = page.locator('#tap');
   const lastAt = { at: 0 };
   const starts: TapStart[] = [];
-  for (let i = 1; i <= taps; i++) {
-    const at = await tapOnce(page, button, () => button.getByText(`Tapped ${i}`).waitFor(), lastAt);
-    starts.push({ at, measured: true });
-  }
-  const run = await collect(page, starts);
-  await page.unroute(url);
-  return run;
+  return {
+    tap: async () => {
+      const n = starts.length + 1;
+      const at = await tapOnce(
+        page,
+        button,
+        () => button.getByText(`Tapped ${n}`).waitFor(),
+        lastAt,
+      );
+      starts.push({ at, measured: true });
+    },
+    result: () => collect(page, starts),
+  };
 }
 
 export function tapLine(name: string, run: TapRun): string {
