@@ -8,7 +8,7 @@
  * Serves the production build through tests/e2e/serve.ts (own database and mail sink, port 3100).
  */
 import { spawn } from 'node:child_process';
-import { openSync } from 'node:fs';
+import { mkdirSync, openSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { chromium, type CDPSession, type Page } from 'playwright-core';
 import { E2E, ROOT } from '../helpers/test-services';
@@ -81,6 +81,7 @@ async function measure(page: Page, cdp: CDPSession, path: string) {
 
 async function main() {
   // The build's and server's output, for when the server does not come up.
+  mkdirSync(path.join(ROOT, '.data'), { recursive: true });
   const log = path.join(ROOT, '.data', 'bench-pages-serve.log');
   const server = spawn(
     'node_modules/.bin/tsx',
@@ -178,7 +179,14 @@ async function main() {
       await floorPage.context().newCDPSession(floorPage)
     ).send('Emulation.setCPUThrottlingRate', { rate: 4 });
     const floorTaps = await openFloor(floorPage);
+    // BENCH_TAP_PROFILE=<file>: a CPU profile of the runner's page over the taps (the sampling
+    // slows them: figures from such a run are for finding where the time goes, not for reporting).
+    const profile = process.env.BENCH_TAP_PROFILE;
+    if (profile) await cdp.send('Profiler.enable');
+    if (profile) await cdp.send('Profiler.setSamplingInterval', { interval: 200 });
+    if (profile) await cdp.send('Profiler.start');
     const taps = await runnerTaps(page, TAPS, RING, floorTaps.tap);
+    if (profile) writeFileSync(profile, JSON.stringify((await cdp.send('Profiler.stop')).profile));
     const floor = await floorTaps.result();
     await floorBrowser.close();
     await browser.close();
