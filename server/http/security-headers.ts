@@ -54,7 +54,8 @@ export function contentSecurityPolicy({ nonce, dev, https, uploads }: CspOptions
     `img-src 'self' blob: data: ${uploads.img.join(' ')}`,
     "font-src 'self'",
     `connect-src 'self' ${uploads.connect.join(' ')}`,
-    // The runner's service worker (public/runner-sw.js) is this origin's own file.
+    // The runner's service worker (/runner-sw/sw.js, app/runner-sw/[path]/route.ts) is this
+    // origin's own file.
     "worker-src 'self'",
     "manifest-src 'self'",
     "object-src 'none'",

@@ -1,14 +1,13 @@
 'use client';
 
 import { useEffect } from 'react';
-
-/** The service worker's cache of runner pages (public/runner-sw.js, `PAGES`): keep the two names equal. */
-export const RUNNER_PAGES_CACHE = 'ringpass-runner-pages-v1';
+import { RUNNER_PAGES_CACHE } from '../service-worker/cache-names';
 
 /**
  * Mounted on the sign-in page, where signing out and an ended session both land: the runner pages
  * kept for offline reloads were rendered for the last person, so the next one must not get them.
- * Only the page copies go; the outbox in IndexedDB stays, kept per person.
+ * Only the page copies go; the build's files stay precached, and the outbox in IndexedDB stays,
+ * kept per person.
  */
 export function ForgetRunnerPages() {
   useEffect(() => {

@@ -1,7 +1,7 @@
 'use client';
 
 import Link from 'next/link';
-import { useEffect, useMemo, useState } from 'react';
+import { useMemo, useState } from 'react';
 import {
   arrowDirection,
   type PressureUnit,
@@ -18,6 +18,7 @@ import { useRunnerSettings } from '../settings-store';
 import { reduceRun, type RunnerPlan } from '../state';
 import type { CribWrench, WrenchRules } from '../wrench-gate';
 import { HandStartPanel } from './hand-start-panel';
+import { KeepRunnerOffline } from './keep-runner-offline';
 import { PhotoCapture, PhotoSlot, type Photo } from './photo-capture';
 import { NeedsAttention } from './needs-attention';
 import { ReinstallPanel } from './reinstall-panel';
@@ -117,21 +118,9 @@ export function Runner(props: RunnerProps) {
   );
   const flaggedBolts = useMemo(() => state.flaggedBolts.map((f) => f.bolt), [state.flaggedBolts]);
 
-  // The service worker keeps a copy of this page so it reloads without Wi-Fi.
-  useEffect(() => {
-    if (!('serviceWorker' in navigator)) return;
-    void navigator.serviceWorker
-      .register('/runner-sw.js')
-      .then(() => navigator.serviceWorker.ready)
-      .then((reg) => {
-        const assets = performance.getEntriesByType('resource').map((r) => r.name);
-        reg.active?.postMessage({ type: 'cache-runner', page: location.pathname, assets });
-      })
-      .catch(() => {});
-  }, []);
-
   return (
     <div className="mx-auto flex min-h-dvh max-w-xl flex-col">
+      <KeepRunnerOffline />
       <header className="bg-ink sticky top-0 z-10 px-3 py-2 text-white landscape:py-1">
         <div className="flex items-center justify-between gap-2">
           {/* On its side the phone has little height: one line, so the ring keeps the room. */}
