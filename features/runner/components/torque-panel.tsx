@@ -7,6 +7,7 @@ import {
   type RecordedVerification,
   type Torque,
 } from '@/features/torque-plan';
+import { afterPaint } from '../api/after-paint';
 import type { RunEvent } from '../events';
 import type { RunnerState } from '../state';
 import type { PassPractice } from '../practice-mode';
@@ -95,8 +96,14 @@ export function TorquePanel({
   // Practice records no verification (nothing touches the tool crib): its gate is not asked.
   const verification = practice ? null : (gate?.verification ?? null);
 
+  // Spoken once the new bolt is on screen: starting speech in the tap's frame delays the drawing.
   useEffect(() => {
-    if (pass?.next && speak && !memory) cue(`Bolt ${pass.next}`, speak, false);
+    if (!pass?.next || !speak || memory) return;
+    let current = true;
+    void afterPaint().then(() => current && cue(`Bolt ${pass.next}`, speak, false));
+    return () => {
+      current = false;
+    };
   }, [pass?.next, speak, memory]);
 
   if (!pass || !target) {
