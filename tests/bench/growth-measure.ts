@@ -65,11 +65,17 @@ const stepDone = (): ClientEvent => ({
   payload: { step: 'safety', checklist: [] },
 });
 
-const confirmation = (k: number, wrenchId: string): ClientEvent => ({
+// Without a wrench (as older phones sent it) the statement updates no wrench row, so parallel saves
+// measure the database's inserts and commits rather than one shared wrench's row lock.
+const confirmation = (k: number, wrenchId?: string): ClientEvent => ({
   clientId: randomUUID(),
   clientAt: new Date().toISOString(),
   type: 'bolt_confirmed',
-  payload: { pass: 1, bolt: 1 + (k % 32), wrenchId, setting: { value: 9, unit: 'lbf-ft' } },
+  payload: {
+    pass: 1,
+    bolt: 1 + (k % 32),
+    ...(wrenchId ? { wrenchId, setting: { value: 9, unit: 'lbf-ft' as const } } : {}),
+  },
 });
 
 async function save(member: Member, wheelId: string, event: ClientEvent) {
@@ -110,6 +116,23 @@ export async function measure(db: CapturingDb, n: number) {
     });
   }
   return out;
+}
+
+/** Confirmations per second with `parallel` saves in flight for `seconds` (no wrench named). */
+export async function throughput(db: CapturingDb, seconds: number, parallel: number) {
+  const s = await setup(db);
+  db.use();
+  const end = performance.now() + seconds * 1000;
+  let done = 0;
+  await Promise.all(
+    Array.from({ length: parallel }, async (_, worker) => {
+      for (let k = 0; performance.now() < end; k++) {
+        await save(s.member, s.saves[(worker + k) % s.saves.length]!, confirmation(k));
+        done++;
+      }
+    }),
+  );
+  return done / seconds;
 }
 
 /** The statements one operation sends, for EXPLAIN. */

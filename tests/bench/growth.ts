@@ -70,11 +70,18 @@ async function main() {
       add('big', await measure(big, PER_ROUND));
       console.log(`[growth] round ${round} of ${ROUNDS} done`);
     }
-    for (const [label, db] of [
+    const sizes = [
       ['10,000 rows', small],
       ['10 million rows', big],
-    ] as const)
-      await printPlans(label, db);
+    ] as const;
+    const { throughput } = await import('./growth-measure');
+    for (const [label, db] of sizes) {
+      const perSecond = await throughput(db, 10, 8);
+      console.log(
+        `[growth] ${label}: ${perSecond.toFixed(0)} confirmations/s in-process, 8 at once for 10 s (no wrench named)`,
+      );
+    }
+    for (const [label, db] of sizes) await printPlans(label, db);
     await printDiskUse(big);
     for (const [op, t] of Object.entries(times)) {
       console.log(
