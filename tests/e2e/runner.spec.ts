@@ -1,5 +1,6 @@
 import { expect, test } from '@playwright/test';
 import { expectNoSideScroll, PASSWORD } from './helpers';
+import { waitUntilKeptOffline } from './offline-helpers';
 import { confirmBolts, startAllBolts } from './runner-helpers';
 import { api, BLUE, setUpWheel } from './runner-shop';
 
@@ -39,15 +40,7 @@ test('at 360×640 a wheel runs through its steps; offline, 10 bolts are confirme
   await expect(page.getByText('Set Blue click 20–200 in-lb to 43 in-lb')).toBeVisible();
   await expect(page.getByRole('status').filter({ hasText: 'Saved' })).toBeVisible();
   // Offline reload works once the service worker holds this page and the scripts it runs on.
-  await page.waitForFunction(async () => {
-    const copy = await caches.match(location.pathname, { cacheName: 'ringpass-runner-pages-v1' });
-    const assets = await caches.open('ringpass-runner-assets-v1');
-    const scripts = [...document.scripts]
-      .map((s) => s.src)
-      .filter((src) => src && new URL(src).pathname.startsWith('/_next/static/'));
-    const held = await Promise.all(scripts.map((src) => assets.match(src)));
-    return Boolean(copy) && held.every(Boolean);
-  });
+  await waitUntilKeptOffline(page);
   await expectNoSideScroll(page);
   await testInfo.attach('a pass', { body: await page.screenshot(), contentType: 'image/png' });
   await page.getByRole('button', { name: 'Wrench set' }).click();
