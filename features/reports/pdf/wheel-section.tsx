@@ -17,15 +17,13 @@ function Field({ label, value }: { label: string; value: string }) {
 export function WheelSection({
   wheel,
   images,
-  newPage,
 }: {
   wheel: WheelView;
   images: Record<string, PhotoImage | null>;
-  newPage: boolean;
 }) {
   const spec = wheel.spec;
   return (
-    <View style={styles.box} break={newPage}>
+    <View style={styles.box}>
       <Text style={styles.h2}>
         {wheel.position} · {wheel.positionName} wheel
       </Text>
@@ -99,9 +97,11 @@ export function WheelSection({
               return (
                 <View key={p.id} style={{ width: 156 }}>
                   {image ? (
-                    // A PDF image has no alt text; the caption below says what it shows.
+                    // A PDF image has no alt text; the caption below says what it shows. The
+                    // bytes go in as they are: given `{ data, format }`, the PDF library keys its
+                    // image cache by the whole image in base64 and keeps the last 30 for ever.
                     // eslint-disable-next-line jsx-a11y/alt-text
-                    <Image src={image} style={styles.photo} />
+                    <Image src={image.data} style={styles.photo} />
                   ) : (
                     <Text style={styles.label}>(photo not available)</Text>
                   )}
