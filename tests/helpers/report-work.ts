@@ -13,9 +13,12 @@ import { awaitingSignoff } from './review-work';
  * spec frozen on it, each pass chosen and every bolt confirmed at the wrench's setting (the target
  * in in-lb, rounded to its 1 in-lb graduation), bead-seating and set pressures recorded, one
  * anomaly acknowledged with its reason. Straight to the tables; the runner's path is tested elsewhere.
- * The ring is the test spec's 24 bolts unless `ring.boltCount` says otherwise (the report bench: 32).
+ * The ring is the test spec's 24 bolts unless `ring` says otherwise (the report bench: 32).
  */
-export async function signedOffJob(at = new Date(), ring: { boltCount?: number } = {}) {
+export async function signedOffJob(
+  at = new Date(),
+  ring: { boltCount?: number; name?: string } = {},
+) {
   const shop = await createTestShop('Dustline Test Tires');
   const records = await createRecords(shop.lead, shop.technician.userId, ring);
   const { job, wrench } = records;
