@@ -1,5 +1,5 @@
 import 'server-only';
-import { and, eq, inArray, isNull } from 'drizzle-orm';
+import { and, eq, inArray, isNull, sql, type SQL } from 'drizzle-orm';
 import { getDb } from '@/db';
 import { practiceClearances } from '@/db/schema';
 
@@ -36,6 +36,14 @@ export async function clearedAmong(
     .from(practiceClearances)
     .where(standing(shopId, userIds));
   return new Set(rows.map((r) => r.userId));
+}
+
+/**
+ * The same rule inside one statement (the runner's one-statement save): a standing clearance for
+ * the person whose shop and user id the caller's SQL names.
+ */
+export function standingClearanceSql(shopId: SQL, userId: SQL): SQL {
+  return sql`exists (select 1 from ${practiceClearances} pc where pc.shop_id = ${shopId} and pc.user_id = ${userId} and pc.revoked_at is null)`;
 }
 
 function standing(shopId: string, userIds: readonly string[]) {

@@ -1,11 +1,12 @@
 import 'server-only';
-import { and, eq, lt, or } from 'drizzle-orm';
+import { and, eq, lt, or, sql, type SQL } from 'drizzle-orm';
 import { cookies } from 'next/headers';
 import { cache } from 'react';
 import { getDb } from '@/db';
-import { sessions, users, type Role } from '@/db/schema';
+import { roleEnum, sessions, users, type Role } from '@/db/schema';
 import { env } from '@/server/env.mjs';
-import { isClearedForRealWheels } from './clearance';
+import { isClearedForRealWheels, standingClearanceSql } from './clearance';
+import { can, type Permission } from './permissions';
 import {
   blankCookie,
   generateSessionToken,
@@ -122,6 +123,38 @@ export const getCurrentMember = cache(async (): Promise<Member | null> => {
   const result = await validateSessionId((await cookies()).get(SESSION_COOKIE)?.value);
   return result?.member ?? null;
 });
+
+/** This request's session id (its cookie's hash) without asking the database; null when none. */
+export async function currentSessionId(): Promise<string | null> {
+  const token = (await cookies()).get(SESSION_COOKIE)?.value;
+  return token ? sessionIdOf(token) : null;
+}
+
+/**
+ * The member behind a session id as a subquery of one statement — `(user_id, shop_id, role)` —
+ * holding every check validateSessionId and can() make: the session live (idle and absolute end),
+ * the person not removed, the role granted `permission` (an apprentice only with a standing
+ * clearance). A session due for renewal gives no row: the caller then goes the ordinary way, so
+ * the renewing write stays in validateSessionId (once per six hours of use), never in a save.
+ */
+export function liveMemberSql(sessionId: string, permission: Permission, now = Date.now()): SQL {
+  const roles = roleEnum.enumValues.filter((role) => can(role, permission));
+  const granted = [
+    ...roles.map((role) => sql`u.role = ${role}`),
+    ...(!roles.includes('apprentice') &&
+    can({ role: 'apprentice', clearedForRealWheels: true }, permission)
+      ? [sql`(u.role = 'apprentice' and ${standingClearanceSql(sql`u.shop_id`, sql`u.id`)})`]
+      : []),
+  ];
+  if (!granted.length)
+    return sql`select null::uuid as user_id, null::uuid as shop_id, null::text as role where false`;
+  return sql`select u.id as user_id, u.shop_id, u.role::text as role
+    from ${sessions} s join ${users} u on u.id = s.user_id
+    where s.id = ${sessionId} and u.removed_at is null
+      and s.expires_at >= ${new Date(now + IDLE_MS / 2).toISOString()}::timestamptz
+      and s.absolute_expires_at > ${new Date(now).toISOString()}::timestamptz
+      and (${sql.join(granted, sql` or `)})`;
+}
 
 export async function endSession(sessionId: string) {
   await getDb().delete(sessions).where(eq(sessions.id, sessionId));

@@ -22,6 +22,7 @@
  */
 import { execFileSync } from 'node:child_process';
 import { randomUUID } from 'node:crypto';
+import { readFileSync } from 'node:fs';
 import http from 'node:http';
 import path from 'node:path';
 import postgres from 'postgres';
@@ -141,7 +142,7 @@ function post(
  * action's id from the build, arguments encoded as React encodes plain JSON (prev state, input).
  */
 let actionId = '';
-async function confirm(t: Tech, events = confirmEvents(t)): Promise<number> {
+async function confirm(t: Tech, events: unknown[] = confirmEvents(t)): Promise<number> {
   const started = performance.now();
   const body = JSON.stringify([null, { wheelId: t.wheelId, events }]);
   const headers = {
@@ -226,18 +227,31 @@ function listenerPid(port: number): number {
   return Number(pid);
 }
 
-type DbCounts = { xact: number; inserted: number; updated: number; deleted: number };
+/** CPU time (ms) a process has used so far, user and system (Linux /proc; clock ticks of 10 ms). */
+function cpuMs(pid: number): number {
+  const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1]!.split(' ');
+  return (Number(fields[11]) + Number(fields[12])) * 10;
+}
+
+type DbCounts = {
+  xact: number;
+  inserted: number;
+  updated: number;
+  deleted: number;
+  activeMs: number;
+};
 async function dbCounts(sql: postgres.Sql): Promise<DbCounts> {
   // Backends flush their statistics at most once a second and, when idle, within 10 s.
   await new Promise((r) => setTimeout(r, 11_000));
   const [row] = await sql`
-    select xact_commit + xact_rollback as xact, tup_inserted as inserted, tup_updated as updated, tup_deleted as deleted
+    select xact_commit + xact_rollback as xact, tup_inserted as inserted, tup_updated as updated, tup_deleted as deleted, active_time as active_ms
     from pg_stat_database where datname = current_database()`;
   return {
     xact: Number(row!.xact),
     inserted: Number(row!.inserted),
     updated: Number(row!.updated),
     deleted: Number(row!.deleted),
+    activeMs: Number(row!.active_ms),
   };
 }
 
@@ -246,13 +260,20 @@ async function dbCounts(sql: postgres.Sql): Promise<DbCounts> {
  * on the quick path the database's transaction count is its statement count (a transaction block,
  * BEGIN to COMMIT, counts once whatever it holds). The generator's own reads add one or two in 200.
  */
-async function countPerConfirmation(sql: postgres.Sql, techs: Tech[], n = 200) {
+async function countPerConfirmation(sql: postgres.Sql, techs: Tech[], serverPid: number, n = 200) {
   const before = await dbCounts(sql);
-  for (let i = 0; i < n; i++) await confirm(techs[i % TECHS]!);
+  const cpuBefore = cpuMs(serverPid);
+  const times: number[] = [];
+  for (let i = 0; i < n; i++) times.push(await confirm(techs[i % TECHS]!));
+  const cpu = (cpuMs(serverPid) - cpuBefore) / n;
   const after = await dbCounts(sql);
   const per = (k: keyof DbCounts) => ((after[k] - before[k]) / n).toFixed(2);
   console.log(
     `[bench] (c) per confirmation: ${per('xact')} statements (transactions), rows inserted ${per('inserted')}, updated ${per('updated')}, deleted ${per('deleted')}`,
+  );
+  // CPU and database time barely depend on what else the machine runs; latency does.
+  console.log(
+    `[bench] (c) one at a time: p50 ${pct(times, 50).toFixed(2)} ms; Next server CPU ${cpu.toFixed(2)} ms, database active ${per('activeMs')} ms per confirmation`,
   );
 }
 
@@ -267,8 +288,9 @@ async function main() {
   // "Wrench set" for each pass on every wheel (this also takes each wheel's snapshot); fails loudly
   // when the action path is wrong or a wrench is refused.
   for (const t of techs) await confirm(t, WITH_WRENCH ? wrenchChosenEvents(t) : confirmEvents(t));
+  const serverPid = listenerPid(PORT);
   if (PIN) {
-    pin(listenerPid(PORT), 0);
+    pin(serverPid, 0);
     pin(process.pid, 1);
   }
   console.log(
@@ -276,7 +298,7 @@ async function main() {
   );
   try {
     await load(25, 4, (i) => confirm(techs[i % TECHS]!)); // warm-up
-    await countPerConfirmation(sql, techs);
+    await countPerConfirmation(sql, techs, serverPid);
 
     // (a) 50 technicians at one bolt every 2 s each, beside raw inserts at the same rate.
     const rate = TECHS / 2;

@@ -2,33 +2,32 @@ import 'server-only';
 import { and, eq, inArray, isNull, sql } from 'drizzle-orm';
 import { getDb } from '@/db';
 import {
-  jobs,
   jobWheels,
   refusedRunEvents,
-  shopSettings,
   wheelPhotos,
   wheelRunEvents,
-  wheelSpecs,
   wrenches,
   type WheelSnapshot,
 } from '@/db/schema';
-import { CYCLE_LIMIT } from '@/features/torque-plan';
 import type { Member } from '@/server/auth/session';
 import { DomainError } from '@/server/errors';
-import { clampClientAt } from '../clock-window';
-import { boltFlagReason, partitionEvents, type ClientEvent, type EventRefusal } from '../events';
+import { boltFlagReason, type ClientEvent, type EventRefusal } from '../events';
 import { maxPassIndex, plannedPassOf } from '../state';
 import { takeSnapshot } from '../snapshot';
+import {
+  insertIfAllowed,
+  knownMember,
+  prepareBatch,
+  type SaveResult,
+  type Timed,
+} from './one-statement-save';
 import { assertMayRun, flaggedSpecMessage, loadWheel } from './run';
 import { wrenchRefusals } from './wrench-check';
 
 export type Tx = Parameters<Parameters<ReturnType<typeof getDb>['transaction']>[0]>[0];
 /** Starts an open or sent-back job card inside the save's transaction (composed in app/ from the jobs feature). */
 export type StartJob = (jobId: string, tx: Tx) => Promise<unknown>;
-export type SaveResult = { saved: number; duplicates: number; refused: EventRefusal[] };
-
-/** An event with its stored time (clamped to the server's clock) and the phone's own when they differ. */
-type Timed = ClientEvent & { deviceAt: string | null };
+export type { SaveResult } from './one-statement-save';
 
 // Lone UTF-16 halves and NUL cannot be stored in jsonb; the refusal keeps the rest of the event.
 const UNSTORABLE = /\u0000|[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/g;
@@ -46,65 +45,6 @@ function storableRaw(raw: unknown): unknown {
 }
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
-const num = (payload: object, key: 'bolt' | 'pass') =>
-  key in payload ? (payload as Record<string, number>)[key]! : null;
-
-/**
- * The common case in one statement, without a transaction: insert the batch only if this member
- * may write to this wheel now (shop, in-progress job, assignee or lead, started and not submitted,
- * spec not flagged, not sent back for named steps) and every bolt and pass is on the wheel's snapshot — all or nothing. Each
- * bolt confirmation gets its pass's target from the snapshot. Answers how many rows were new;
- * fewer than the batch (a replay, a refusal, a first event) sends the caller to the full path.
- */
-async function insertIfAllowed(member: Member, wheelId: string, events: Timed[]): Promise<number> {
-  const rows = events.map(
-    (e) =>
-      sql`(${e.clientId}::uuid, ${e.type}, ${JSON.stringify(e.payload)}::jsonb, ${e.clientAt}::timestamptz, ${e.deviceAt}::timestamptz, ${e.deviceId ?? null}::uuid, ${num(e.payload, 'bolt')}::int, ${num(e.payload, 'pass')}::int)`,
-  );
-  const inserted = await getDb().execute(sql`
-    with ev (client_id, type, payload, client_at, device_at, device_id, bolt, pass) as (values ${sql.join(rows, sql`, `)}),
-    w as (
-      select w.id, w.job_id, w.snapshot, (w.snapshot->'spec'->>'boltCount')::int as bolt_count, jsonb_array_length(w.snapshot->'plan'->'passes') as passes
-      from ${jobWheels} w join ${jobs} j on j.id = w.job_id join ${wheelSpecs} s on s.id = w.spec_id
-      where w.id = ${wheelId} and w.shop_id = ${member.shopId} and j.state = 'in_progress' and w.submitted_at is null
-        and w.snapshot is not null and s.plausibility_flag is null
-        and (w.rework is null or jsonb_array_length(w.rework->'steps') = 0)
-        and (${member.role} = 'lead' or j.assignee_id = ${member.userId})
-    ),
-    ok as (
-      select ev.*, w.id as wheel_id, w.job_id, w.snapshot from ev cross join w
-      where (ev.bolt is null or ev.bolt <= w.bolt_count) and (ev.pass is null or ev.pass <= w.passes)
-        -- A bolt naming a wrench takes this path only when that wrench was chosen, and so judged, for
-        -- its pass, and is still usable now (in service, calibration not past due on the shop's day,
-        -- under the cycle limit: it may have reached it mid-pass); otherwise the full path judges it.
-        and (ev.type <> 'bolt_confirmed' or ev.payload->>'wrenchId' is null or (exists (
-          select 1 from ${wheelRunEvents} c
-          where c.wheel_id = w.id and c.type = 'wrench_chosen' and c.superseded_at is null
-            and (c.payload->>'pass')::int = ev.pass and c.payload->>'wrenchId' = ev.payload->>'wrenchId')
-          and exists (
-          select 1 from ${wrenches} k join ${shopSettings} st on st.shop_id = k.shop_id
-          where k.shop_id = ${member.shopId} and k.id::text = ev.payload->>'wrenchId' and k.status = 'in_service'
-            and k.calibration_due_on >= (ev.client_at at time zone st.time_zone)::date
-            and coalesce(k.cycles_since_calibration, 0) < ${CYCLE_LIMIT})))
-    ),
-    ins as (
-      insert into ${wheelRunEvents} (shop_id, job_id, wheel_id, client_id, type, payload, by_id, client_at, device_at, device_id)
-      select ${member.shopId}, ok.job_id, ok.wheel_id, ok.client_id, ok.type,
-        case when ok.type = 'bolt_confirmed' then ok.payload || jsonb_build_object('target', ok.snapshot->'plan'->'passes'->(ok.pass - 1)->'target') else ok.payload end,
-        ${member.userId}, ok.client_at, ok.device_at, ok.device_id
-      from ok where (select count(*) from ok) = ${events.length}
-      on conflict (client_id) do nothing
-      returning client_id, type, payload
-    ),
-    -- One wrench cycle per newly stored bolt confirmation (a replayed id inserts nothing, so counts nothing).
-    cycles as (
-      update ${wrenches} set cycles_since_calibration = coalesce(${wrenches}.cycles_since_calibration, 0) + c.n
-      from (select (payload->>'wrenchId')::uuid as wrench_id, count(*)::int as n from ins where type = 'bolt_confirmed' and payload ? 'wrenchId' group by 1) c
-      where ${wrenches}.id = c.wrench_id and ${wrenches}.shop_id = ${member.shopId}
-    )
-    select client_id from ins`);
-  return inserted.length;
-}
 
 /**
  * A bolt or pass the wheel's snapshot does not have, or null. A check pass past the plan's (the
@@ -262,20 +202,10 @@ export async function saveWheelBatch(
   startJob: StartJob,
   now = new Date(),
 ): Promise<SaveResult> {
-  const parsed = partitionEvents(raw);
-  const events: Timed[] = parsed.events.map(
-    (e) => ({ ...e, ...clampClientAt(e.clientAt, now) }) as Timed,
-  );
+  const { parsed, events, simple } = prepareBatch(raw, now);
   let fast = 0;
-  const simple =
-    !parsed.refused.length &&
-    new Set(events.map((e) => e.clientId)).size === events.length &&
-    !events.some(
-      (e) =>
-        e.type === 'inspection_failed' || e.type === 'wrench_chosen' || e.type === 'bolt_flagged',
-    );
-  if (simple && events.length) {
-    fast = await insertIfAllowed(member, wheelId, events);
+  if (simple) {
+    fast = await insertIfAllowed(knownMember(member), wheelId, events);
     if (fast === events.length) return { saved: fast, duplicates: 0, refused: [] };
   }
   const indexOf = new Map(

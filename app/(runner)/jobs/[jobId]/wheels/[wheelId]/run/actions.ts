@@ -3,6 +3,7 @@
 import { ids } from '@/features/jobs/schemas';
 import { transitionJob } from '@/features/jobs/server/transitions';
 import { looseEventBatchSchema } from '@/features/runner/events';
+import { saveWheelBatchForSession } from '@/features/runner/server/one-statement-save';
 import { saveWheelBatch } from '@/features/runner/server/save-events';
 import { memberAction } from '@/server/action';
 
@@ -15,7 +16,12 @@ import { memberAction } from '@/server/action';
  * queued events before a deploy calls the new build's action id after its reload.
  */
 export const saveWheelEvents = memberAction(
-  { permission: 'jobs.run', schema: looseEventBatchSchema.extend({ wheelId: ids.wheel }) },
+  {
+    permission: 'jobs.run',
+    schema: looseEventBatchSchema.extend({ wheelId: ids.wheel }),
+    // A plain bolt confirmation: session, role, wheel, wrench and plan in one statement.
+    quick: ({ wheelId, events }, sessionId) => saveWheelBatchForSession(sessionId, wheelId, events),
+  },
   async ({ wheelId, events }, member) =>
     saveWheelBatch(member, wheelId, events, (jobId, tx) =>
       transitionJob(member, jobId, 'start', '', { tx }),
