@@ -2,7 +2,7 @@
 
 import { useMemo, useState } from 'react';
 import { useRunQueue } from '../api/use-run-queue';
-import { reduceRun } from '../state';
+import { useRunState } from './use-run-state';
 import { CurrentStep } from './current-step';
 import { KeepRunnerOffline } from './keep-runner-offline';
 import { PhotoSlot } from './lazy-parts';
@@ -31,7 +31,7 @@ export function Runner(props: RunnerProps) {
     props.rework?.at ?? null,
     practice?.eventsUrl,
   );
-  const state = useMemo(() => reduceRun(plan, events), [plan, events]);
+  const state = useRunState(plan, events);
   const [photos, setPhotos] = useState<Photo[]>(props.photos);
   const addPhoto = (p: Photo) => setPhotos((all) => [...all, p]);
   const step = plan.steps.find((s) => s.id === state.current) ?? plan.steps.at(-1)!;
