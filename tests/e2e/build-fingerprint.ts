@@ -3,7 +3,7 @@
  * developer's run of one spec) does not spend minutes building what is already built.
  */
 import { createHash } from 'node:crypto';
-import { readdirSync, readFileSync, statSync, writeFileSync } from 'node:fs';
+import { existsSync, readdirSync, readFileSync, statSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 
 // What the app is built from; tests, reports and generated folders are not part of the build.
@@ -20,6 +20,8 @@ const FILES = [
 const STAMP = 'ringpass-sources.sha256';
 
 function* walk(dir: string): Generator<string> {
+  // A source folder may be absent (git keeps no empty folder: public/ went with its last file).
+  if (!existsSync(dir)) return;
   for (const entry of readdirSync(dir, { withFileTypes: true })) {
     const full = path.join(dir, entry.name);
     if (entry.isDirectory()) yield* walk(full);
