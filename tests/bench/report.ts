@@ -4,9 +4,12 @@
  * the in-lb wrench), two bead photos per wheel stored as phone pictures (3000×4000 JPEGs) in the
  * local upload fake, run in its own process so its buffers are not counted here. Then the PDF is
  * built through `renderJobReport`, what `GET /api/jobs/:id/report` calls, 1 + BENCH_BUILDS times
- * (default 10) in this process, and per build: wall time, and peak RSS from the kernel's
- * high-water mark (VmHWM, reset before each build through /proc/self/clear_refs).
- * Last line: `report build p95 X s, peak RSS Y MB (4 wheels, 32 bolts, 8 photos)`.
+ * (default 10) in this process, and per build: wall time, CPU time, and peak RSS from the
+ * kernel's high-water mark (VmHWM, reset before each build through /proc/self/clear_refs); the
+ * V8 heap is sampled every 2 ms (a lower bound: the layout runs without yielding).
+ * Last line: `report build p95 X s, peak RSS Y MB, at most +Z MB over the process before a build
+ * (4 wheels, 32 bolts, 8 photos)`. With MALLOC_ARENA_MAX=2 the image library's threads leave
+ * about 70 MB less behind (glibc's per-thread arenas).
  */
 import { spawn, spawnSync } from 'node:child_process';
 import { readFileSync, rmSync, writeFileSync } from 'node:fs';
@@ -145,8 +148,10 @@ async function main() {
     console.log(
       `[bench] ${BUILDS} builds: p50 ${(pct(ms, 50) / 1000).toFixed(2)} s, p95 ${(pct(ms, 95) / 1000).toFixed(2)} s, max ${(Math.max(...ms) / 1000).toFixed(2)} s; CPU p50 ${(pct(cpuMs, 50) / 1000).toFixed(2)} s; load average ${os.loadavg()[0]!.toFixed(1)}; V8 heap used peak ≥ ${(Math.max(...runs.map((r) => r.heapPeak)) / MB).toFixed(0)} MB (sampled)`,
     );
+    // The process's own weight before a build (modules under tsx, the parsed fonts) is most of it.
+    const growth = Math.max(...runs.map((r) => r.rss - r.before));
     console.log(
-      `report build p95 ${(pct(ms, 95) / 1000).toFixed(2)} s, peak RSS ${(rss / MB).toFixed(0)} MB (4 wheels, ${BOLTS} bolts, ${photos.length} photos)`,
+      `report build p95 ${(pct(ms, 95) / 1000).toFixed(2)} s, peak RSS ${(rss / MB).toFixed(0)} MB, at most +${(growth / MB).toFixed(0)} MB over the process before a build (4 wheels, ${BOLTS} bolts, ${photos.length} photos)`,
     );
   } finally {
     fake.stop();
