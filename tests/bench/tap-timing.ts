@@ -33,7 +33,8 @@ export async function observeTaps(page: Page) {
     const w = window as unknown as { __taps: Collected };
     w.__taps = { events: [], longTasks: [], mutations: [] };
     new PerformanceObserver((list) => {
-      for (const e of list.getEntries() as PerformanceEventTiming[]) {
+      // interactionId is in the Event Timing spec and Chromium, not in TypeScript 5.9's DOM types.
+      for (const e of list.getEntries() as (PerformanceEventTiming & { interactionId: number })[]) {
         if (e.interactionId)
           w.__taps.events.push({
             id: e.interactionId,
