@@ -204,7 +204,10 @@ async function load(rate: number, seconds: number, run: (i: number) => Promise<n
     inflight.push(
       run(i).then(
         (ms) => void times.push(ms),
-        () => void errors++,
+        (error: unknown) => {
+          // The first failure of a phase is printed: a refusal and a dropped socket differ.
+          if (!errors++) console.log(`[bench] first error: ${String(error).slice(0, 300)}`);
+        },
       ),
     );
   }
