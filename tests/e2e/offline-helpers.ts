@@ -7,16 +7,28 @@ import { BUILD_QUERY } from '../../features/runner/service-worker/routes';
  * a copy of the page, and every script and style the page has loaded is in a cache.
  */
 export async function waitUntilKeptOffline(page: Page) {
-  await page.waitForFunction(async (pagesCache) => {
-    if (!navigator.serviceWorker.controller) return false;
-    const copy = await caches.match(location.pathname, { cacheName: pagesCache });
-    const code = [
-      ...[...document.scripts].map((s) => s.src),
-      ...[...document.querySelectorAll<HTMLLinkElement>('link[rel=stylesheet]')].map((l) => l.href),
-    ].filter((src) => src && new URL(src).pathname.startsWith('/_next/static/'));
-    const held = await Promise.all(code.map((src) => caches.match(src)));
-    return Boolean(copy) && code.length > 0 && held.every(Boolean);
-  }, RUNNER_PAGES_CACHE);
+  // expect.poll, not page.waitForFunction: that one takes a predicate's Promise as its truthy
+  // answer and stops waiting at once.
+  await expect
+    .poll(
+      () =>
+        page.evaluate(async (pagesCache) => {
+          if (!navigator.serviceWorker.controller) return 'no worker in control';
+          if (!(await caches.match(location.pathname, { cacheName: pagesCache })))
+            return 'no copy of the page';
+          const code = [
+            ...[...document.scripts].map((s) => s.src),
+            ...[...document.querySelectorAll<HTMLLinkElement>('link[rel=stylesheet]')].map(
+              (l) => l.href,
+            ),
+          ].filter((src) => src && new URL(src).pathname.startsWith('/_next/static/'));
+          const held = await Promise.all(code.map((src) => caches.match(src)));
+          const missing = code.filter((_, i) => !held[i]);
+          return code.length && !missing.length ? 'kept' : `not cached: ${missing.join(' ')}`;
+        }, RUNNER_PAGES_CACHE),
+      { timeout: 30_000 },
+    )
+    .toBe('kept');
 }
 
 /** When the service worker now in charge was built (each deploy's worker answers differently). */

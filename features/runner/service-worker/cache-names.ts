@@ -7,8 +7,8 @@
 /** The last good copy of each runner page this phone opened, for an offline reload. */
 export const RUNNER_PAGES_CACHE = 'ringpass-runner-pages-v1';
 
-/** Serwist's cache id: the build's precache is `ringpass-runner-precache-v2-<scope>`. */
-export const RUNNER_CACHE_ID = 'ringpass-runner';
+/** The build's files the runner runs on (Serwist's precache; one cache, its entries per build). */
+export const RUNNER_PRECACHE = 'ringpass-runner-precache-v1';
 
 /** Every cache this app's service workers ever made starts with this. */
-export const RUNNER_CACHE_PREFIX = `${RUNNER_CACHE_ID}-`;
+export const RUNNER_CACHE_PREFIX = 'ringpass-runner-';

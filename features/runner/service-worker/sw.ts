@@ -11,7 +11,7 @@
  * Nothing else is touched: API calls, actions, customer links, photos and other pages pass by.
  */
 import { NetworkFirst, Serwist, type PrecacheEntry } from 'serwist';
-import { RUNNER_CACHE_ID, RUNNER_PAGES_CACHE } from './cache-names';
+import { RUNNER_PAGES_CACHE, RUNNER_PRECACHE } from './cache-names';
 import { pageCopyStillWorks } from './page-copies';
 import {
   isBuildQuery,
@@ -41,8 +41,8 @@ const runnerPages = new NetworkFirst({
 
 const serwist = new Serwist({
   precacheEntries: self.__SW_MANIFEST,
-  precacheOptions: { cleanupOutdatedCaches: true },
-  cacheId: RUNNER_CACHE_ID,
+  // Named here: Serwist's `cacheId` does not reach the precache's name (it is read first).
+  precacheOptions: { cacheName: RUNNER_PRECACHE, cleanupOutdatedCaches: true },
   // A new build takes over at once: the page it serves next is the new build's.
   skipWaiting: true,
   clientsClaim: true,

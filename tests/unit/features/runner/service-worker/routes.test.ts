@@ -8,7 +8,7 @@ import {
   pageCopyKey,
   runnerPageFromMessage,
 } from '@/features/runner/service-worker/routes';
-import { RUNNER_PAGES_CACHE } from '@/features/runner/service-worker/cache-names';
+import { RUNNER_PAGES_CACHE, RUNNER_PRECACHE } from '@/features/runner/service-worker/cache-names';
 
 const origin = 'https://shop.example';
 const runner = '/jobs/7f0c/wheels/91ab/run';
@@ -88,7 +88,7 @@ describe('which responses are kept', () => {
 });
 
 describe('caches removed when a new service worker takes over', () => {
-  const precache = `ringpass-runner-precache-v2-${origin}/`;
+  const precache = RUNNER_PRECACHE;
   it('the earlier design’s asset cache goes; the page copies and this build’s precache stay', () => {
     expect(
       outdatedCaches(
