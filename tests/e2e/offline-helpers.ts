@@ -1,31 +1,32 @@
 import { expect, type Page } from '@playwright/test';
 import { RUNNER_PAGES_CACHE } from '../../features/runner/service-worker/cache-names';
+import { buildCodeIn } from '../../features/runner/service-worker/page-copies';
 import { BUILD_QUERY } from '../../features/runner/service-worker/routes';
 
 /**
- * Waits until this runner page would reload without Wi-Fi: the service worker controls it, holds
- * a copy of the page, and every script and style the page has loaded is in a cache.
+ * Waits until this runner page would reload without Wi-Fi: a service worker controls it and
+ * holds a copy of the page and every script and style that copy names. (Scripts an earlier page
+ * loaded before the app's router moved here are not needed by a reload, and not asked for.)
  */
 export async function waitUntilKeptOffline(page: Page) {
   // expect.poll, not page.waitForFunction: that one takes a predicate's Promise as its truthy
   // answer and stops waiting at once.
   await expect
     .poll(
-      () =>
-        page.evaluate(async (pagesCache) => {
-          if (!navigator.serviceWorker.controller) return 'no worker in control';
-          if (!(await caches.match(location.pathname, { cacheName: pagesCache })))
-            return 'no copy of the page';
-          const code = [
-            ...[...document.scripts].map((s) => s.src),
-            ...[...document.querySelectorAll<HTMLLinkElement>('link[rel=stylesheet]')].map(
-              (l) => l.href,
-            ),
-          ].filter((src) => src && new URL(src).pathname.startsWith('/_next/static/'));
-          const held = await Promise.all(code.map((src) => caches.match(src)));
-          const missing = code.filter((_, i) => !held[i]);
-          return code.length && !missing.length ? 'kept' : `not cached: ${missing.join(' ')}`;
-        }, RUNNER_PAGES_CACHE),
+      async () => {
+        const copy = await page.evaluate(async (pagesCache) => {
+          if (!navigator.serviceWorker.controller) return null;
+          const kept = await caches.match(location.pathname, { cacheName: pagesCache });
+          return kept ? kept.text() : null;
+        }, RUNNER_PAGES_CACHE);
+        if (copy === null) return 'no copy of the page under a worker in control';
+        const code = buildCodeIn(copy);
+        const missing = await page.evaluate(async (paths) => {
+          const held = await Promise.all(paths.map((p) => caches.match(p)));
+          return paths.filter((_, i) => !held[i]);
+        }, code);
+        return code.length && !missing.length ? 'kept' : `not cached: ${missing.join(' ')}`;
+      },
       { timeout: 30_000 },
     )
     .toBe('kept');
