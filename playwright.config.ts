@@ -44,13 +44,13 @@ export default defineConfig({
       name: 'desktop',
       use: desktop,
       dependencies: ['setup'],
-      testIgnore: /(mobile|my-wheels|runner|runner-procedure|redeploy)\.spec/,
+      testIgnore: /(mobile|my-wheels|runner|runner-procedure|offline|redeploy)\.spec/,
     },
     {
       name: 'phone',
       use: phone,
       dependencies: ['setup'],
-      testMatch: /(mobile|my-wheels|runner|runner-procedure)\.spec/,
+      testMatch: /(mobile|my-wheels|runner|runner-procedure|offline)\.spec/,
     },
     // Stops the server and builds the app again mid-test: alone, after every other test.
     {
