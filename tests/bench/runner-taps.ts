@@ -5,7 +5,7 @@
  * is tapped but not counted; "Wrench set" is tapped between passes.
  */
 import type { Page } from 'playwright-core';
-import { collect, observeTaps, tapOnce, type TapRun, type TapStart } from './tap-timing';
+import { collect, gone, observeTaps, tapOnce, type TapRun, type TapStart } from './tap-timing';
 
 const BLUE = {
   label: 'Blue click 20–200 in-lb',
@@ -75,14 +75,8 @@ export async function runnerTaps(
     const name = (await confirm.textContent()) ?? '';
     const counter = await page.getByText(/^\d+ of \d+ bolts/).textContent();
     const lastOfPass = Number(/^(\d+)/.exec(counter ?? '')?.[1]) === boltCount - 1;
-    const gone = page.getByRole('button', { name, exact: true });
     if (!lastOfPass) await beforeEach();
-    const at = await tapOnce(
-      page,
-      confirm,
-      () => gone.waitFor({ state: 'detached', timeout: 30_000 }),
-      lastAt,
-    );
+    const at = await tapOnce(page, confirm, () => gone(page, name), lastAt);
     starts.push({ at, measured: !lastOfPass });
   }
   return collect(page, starts);

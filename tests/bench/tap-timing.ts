@@ -79,6 +79,19 @@ export async function tapOnce(
   return start;
 }
 
+/**
+ * Waits until no button says `label` any more. A plain check every 50 ms: Playwright's own
+ * locators poll on every animation frame with accessibility queries, which on the runner's page
+ * cost more main-thread time than the tap being measured.
+ */
+export async function gone(page: Page, label: string) {
+  await page.waitForFunction(
+    (text) => ![...document.querySelectorAll('button')].some((b) => b.textContent === text),
+    label,
+    { polling: 50, timeout: 30_000 },
+  );
+}
+
 /** When each tap began (page clock); a tap not `measured` only bounds the one before it. */
 export type TapStart = { at: number; measured: boolean };
 
@@ -148,12 +161,7 @@ export async function openFloor(page: Page, url = 'http://tap-floor.test/') {
   return {
     tap: async () => {
       const n = starts.length + 1;
-      const at = await tapOnce(
-        page,
-        button,
-        () => button.getByText(`Tapped ${n}`).waitFor(),
-        lastAt,
-      );
+      const at = await tapOnce(page, button, () => gone(page, `Tapped ${n - 1}`), lastAt);
       starts.push({ at, measured: true });
     },
     result: () => collect(page, starts),
