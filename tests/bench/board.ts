@@ -2,8 +2,9 @@
  * `npm run bench:board`: one shop with 10,000 job cards (40,000 wheels) beside 9 other shops of
  * the same size; times the board's first page (state = in progress, sorted by due) through the
  * route handler of the production build over loopback, the server-rendered board page's first
- * byte (TTFB, no JavaScript, signed in as the lead), and the same SQL straight on PostgreSQL.
- * `BENCH_EXPLAIN=1` prints the board query's plan. Last lines:
+ * byte (TTFB, no JavaScript, signed in as the lead), and the same SQL straight on PostgreSQL,
+ * prepared as the app prepares it. The three take turns request by request over one kept-alive
+ * client, so they share the machine's load. `BENCH_EXPLAIN=1` prints the board query's plan. Last lines:
  * `board p95 X ms, raw p95 Y ms, ratio Z` and `ttfb p95 X ms, raw p95 Y ms, ratio Z`.
  */
 import http from 'node:http';
@@ -62,22 +63,26 @@ async function seed(sql: postgres.Sql) {
 // milliseconds of the generator's own CPU per request on this machine.
 const agent = new http.Agent({ keepAlive: true, maxSockets: 4 });
 
-/** Time to the first byte of the page's body, and the whole HTML. */
-function getPage(url: string, cookie: string): Promise<{ ttfb: number; html: string }> {
+/** Time to the first byte of the body, the whole body, and the time to its last byte. */
+function get(
+  url: string,
+  cookie: string,
+  accept: string,
+): Promise<{ ttfb: number; total: number; body: string }> {
   const started = performance.now();
   return new Promise((resolve, reject) => {
     http
-      .get(url, { agent, headers: { cookie, accept: 'text/html' } }, (res) => {
+      .get(url, { agent, headers: { cookie, accept } }, (res) => {
         let ttfb = 0;
-        let html = '';
+        let body = '';
         res.setEncoding('utf8');
         res.on('data', (chunk: string) => {
           ttfb ||= performance.now() - started;
-          html += chunk;
+          body += chunk;
         });
         res.on('end', () =>
           res.statusCode === 200
-            ? resolve({ ttfb, html })
+            ? resolve({ ttfb, total: performance.now() - started, body })
             : reject(new Error(`${url} answered ${res.statusCode}`)),
         );
       })
@@ -100,33 +105,22 @@ async function main() {
 
   const server = await startProductionServer(PORT, clusterUrl(DB));
   try {
+    const cookie = `ringpass_session=${session.token}`;
     const url = `http://127.0.0.1:${PORT}/api/jobs?${FILTER}`;
-    const headers = { cookie: `ringpass_session=${session.token}` };
-    const first = (await (await fetch(url, { headers })).json()) as {
+    const page = `http://127.0.0.1:${PORT}/board?${FILTER}`;
+    const first = JSON.parse((await get(url, cookie, 'application/json')).body) as {
       total: number;
-      data: unknown[];
+      data: { number: number }[];
     };
     console.log(`[bench] board answers ${first.data.length} rows of ${first.total} in progress`);
 
     // The board page's first HTML must already hold the first card (server-rendered).
-    const page = `http://127.0.0.1:${PORT}/board?${FILTER}`;
-    const { html } = await getPage(page, headers.cookie);
-    const firstNumber = (first.data[0] as { number: number } | undefined)?.number;
-    if (!firstNumber || !html.includes(String(firstNumber)))
+    const firstNumber = first.data[0]?.number;
+    if (!firstNumber || !(await get(page, cookie, 'text/html')).body.includes(String(firstNumber)))
       throw new Error(`the board page's HTML lacks job ${firstNumber}`);
-    for (let i = 0; i < 30; i++) await getPage(page, headers.cookie);
-    const ttfb: number[] = [];
-    for (let i = 0; i < RUNS; i++) ttfb.push((await getPage(page, headers.cookie)).ttfb);
 
-    for (let i = 0; i < 30; i++) await (await fetch(url, { headers })).arrayBuffer();
-    const api: number[] = [];
-    for (let i = 0; i < RUNS; i++) {
-      const t = performance.now();
-      await (await fetch(url, { headers })).arrayBuffer();
-      api.push(performance.now() - t);
-    }
-
-    // The very SQL the handler runs (drizzle's own text), straight through postgres.js.
+    // The very SQL the handler runs (drizzle's own text), prepared as the app's client prepares
+    // every statement (db/prepared-statements.ts), straight through postgres.js.
     Object.assign(process.env, {
       DATABASE_URL: server.env.DATABASE_URL,
       SMTP_URL: server.env.SMTP_URL,
@@ -146,12 +140,22 @@ async function main() {
       boardQuerySchema.parse(Object.fromEntries(new URLSearchParams(FILTER))),
       { timeZone: 'UTC', now: new Date() },
     ).toSQL();
-    for (let i = 0; i < 30; i++) await sql.unsafe(query.sql, query.params as never[]);
+    const rawQuery = () => sql.unsafe(query.sql, query.params as never[], { prepare: true });
+
+    // Page, API and raw SQL take turns, so the load other work puts on the machine falls on all
+    // three alike and each ratio compares like with like.
+    const ttfb: number[] = [];
+    const api: number[] = [];
     const raw: number[] = [];
-    for (let i = 0; i < RUNS; i++) {
+    for (let i = 0; i < 30 + RUNS; i++) {
+      const p = await get(page, cookie, 'text/html');
+      const a = await get(url, cookie, 'application/json');
       const t = performance.now();
-      await sql.unsafe(query.sql, query.params as never[]);
+      await rawQuery();
+      if (i < 30) continue;
       raw.push(performance.now() - t);
+      ttfb.push(p.ttfb);
+      api.push(a.total);
     }
     if (process.env.BENCH_EXPLAIN) {
       const plan = await sql.unsafe(
