@@ -181,4 +181,29 @@ describe('the board', () => {
       'start',
     ]);
   });
+
+  it('the pager counts every matching card of the shop, beyond the page shown and through a search', async () => {
+    const shop = await createTestShop();
+    const other = await createTestShop('Other');
+    const records = await createRecords(shop.lead, shop.technician.userId);
+    const otherRecords = await createRecords(other.lead, other.technician.userId);
+    const create = async (userId: string, specId: string) => {
+      await actAs(userId);
+      await expect(createJobCard(null, newCustomerJob(specId))).rejects.toMatchObject({
+        digest: expect.stringContaining('/jobs/'),
+      });
+    };
+    await create(shop.lead.userId, records.spec.id);
+    await create(shop.lead.userId, records.spec.id);
+    await create(other.lead.userId, otherRecords.spec.id);
+    const q = (o: Record<string, string>) =>
+      listBoard(shop.lead, boardQuerySchema.parse({ sort: 'number', pageSize: '1', ...o }));
+    const second = await q({ page: '2' });
+    expect(second.data.map((r) => r.number)).toEqual([1002]);
+    expect(second.total).toBe(3);
+    // The other shop's Nell Orchard is neither shown nor counted.
+    const orchard = await q({ q: 'orchard' });
+    expect(orchard.data.map((r) => [r.number, r.customer])).toEqual([[1002, 'Nell Orchard']]);
+    expect(orchard.total).toBe(2);
+  });
 });
