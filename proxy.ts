@@ -37,7 +37,7 @@ export const config = {
   matcher: [
     {
       // Pages only: not the JSON API, build assets, images or the service worker script.
-      source: '/((?!api/|_next/static|_next/image|favicon.ico|icon.svg|runner-sw/).*)',
+      source: '/((?!api/|_next/static|_next/image|favicon.ico|icon.svg|runner-sw).*)',
       // A prefetch renders no HTML, so it needs no nonce (Next's guide leaves them out too).
       missing: [
         { type: 'header', key: 'next-router-prefetch' },
