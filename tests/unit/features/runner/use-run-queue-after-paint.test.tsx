@@ -71,11 +71,32 @@ describe('the runner writes a tap to the phone after the frame that shows it', (
     expect(action).toHaveBeenCalledTimes(1);
   });
 
-  it('a page that paints nothing (the phone locked) still writes within a tenth of a second', async () => {
+  it('a visible page that paints no frame still writes within a tenth of a second', async () => {
     holdFrames();
     const started = performance.now();
     await afterPaint();
     expect(performance.now() - started).toBeLessThan(1000);
     expect(performance.now() - started).toBeGreaterThanOrEqual(90);
+  });
+
+  it('a hidden page (the phone locked, the app switched) writes at once', async () => {
+    holdFrames();
+    vi.spyOn(document, 'visibilityState', 'get').mockReturnValue('hidden');
+    let resolved = false;
+    void afterPaint().then(() => (resolved = true));
+    await Promise.resolve();
+    expect(resolved).toBe(true);
+    vi.restoreAllMocks();
+  });
+
+  it('a page being hidden or closed while the tap waits for its frame writes at once', async () => {
+    holdFrames();
+    let resolved = false;
+    void afterPaint(10_000).then(() => (resolved = true));
+    await Promise.resolve();
+    expect(resolved).toBe(false);
+    window.dispatchEvent(new Event('pagehide'));
+    await Promise.resolve();
+    expect(resolved).toBe(true);
   });
 });
