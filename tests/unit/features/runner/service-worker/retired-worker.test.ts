@@ -54,11 +54,11 @@ describe('the retired runner service worker', () => {
     expect(result.skippedWaiting).toBe(true);
   });
 
-  it("leaves the registration to the runner's current worker when it is already installing", async () => {
-    const result = await activateRetiredWorker(['ringpass-runner-assets-v1'], {
+  it("touches nothing while the runner's current worker is installing in the same registration", async () => {
+    const result = await activateRetiredWorker(['ringpass-runner-precache-v1'], {
       scriptURL: 'https://shop.example/runner-sw/sw.js',
     });
-    expect(result.kept).toEqual([]);
+    expect(result.kept).toEqual(['ringpass-runner-precache-v1']);
     expect(result.unregistered).toBe(false);
   });
 });
