@@ -53,9 +53,11 @@ export async function insertIfAllowed(who: SQL, wheelId: string, events: Timed[]
         -- its pass, and is still usable now (in service, calibration not past due on the shop's day,
         -- under the cycle limit: it may have reached it mid-pass); otherwise the full path judges it.
         and (ev.type <> 'bolt_confirmed' or ev.payload->>'wrenchId' is null or (exists (
-          select 1 from ${wheelRunEvents} c
+          select 1 from ${wheelRunEvents} c join ${shopSettings} cs on cs.shop_id = c.shop_id
           where c.wheel_id = w.id and c.type = 'wrench_chosen' and c.superseded_at is null
-            and (c.payload->>'pass')::int = ev.pass and c.payload->>'wrenchId' = ev.payload->>'wrenchId')
+            and (c.payload->>'pass')::int = ev.pass and c.payload->>'wrenchId' = ev.payload->>'wrenchId'
+            -- Chosen the same shop day: a verification counted for the choice may not count a day later.
+            and (c.client_at at time zone cs.time_zone)::date = (ev.client_at at time zone cs.time_zone)::date)
           and exists (
           select 1 from ${wrenches} k join ${shopSettings} st on st.shop_id = k.shop_id
           where k.shop_id = w.shop_id and k.id::text = ev.payload->>'wrenchId' and k.status = 'in_service'
