@@ -2,7 +2,6 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { redirect } from 'next/navigation';
 import { SignInForm } from '@/features/accounts/components/sign-in-form';
-import { ForgetRunnerPages } from '@/features/runner/components/forget-runner-pages';
 import { homePathFor, returnPath } from '@/server/auth/return-path';
 import { getCurrentMember } from '@/server/auth/session';
 
@@ -14,7 +13,6 @@ export default async function SignInPage({ searchParams }: PageProps<'/sign-in'>
   if (member) redirect(next ?? homePathFor(member.role));
   return (
     <>
-      <ForgetRunnerPages />
       <h1 className="text-2xl font-bold">Sign in</h1>
       {next ? (
         <p className="font-semibold">
