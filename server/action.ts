@@ -105,7 +105,8 @@ export function memberAction<S extends z.ZodType, T>(
     /**
      * An optional first try for a hot path: the valid input and the cookie's session id, for a
      * single statement that checks the session, the permission and the rows itself
-     * (`liveMemberSql`). Null, having written nothing, sends the call the ordinary way.
+     * (`liveMemberSql`). Null sends the call the ordinary way, which answers for the whole batch (a
+     * race may have let the quick step store part of it; ids are stored once, so nothing doubles).
      */
     quick?: (input: z.output<S>, sessionId: string) => Promise<T | null>;
   },

@@ -46,8 +46,17 @@ export function isBuildQuery(data: unknown): boolean {
 export function runnerPageFromMessage(data: unknown): string | null {
   if (typeof data !== 'object' || data === null) return null;
   const { type, page } = data as Record<string, unknown>;
-  if (type !== 'cache-runner-page' || typeof page !== 'string') return null;
-  return isRunnerPagePath(page) ? page : null;
+  if (type !== 'cache-runner-page' || typeof page !== 'string' || !page.startsWith('/'))
+    return null;
+  // Judged as the browser will read it (`..`, `?`, `#`, `//` resolved), and kept in that form.
+  let url: URL;
+  try {
+    url = new URL(page, 'https://runner.invalid');
+  } catch {
+    return null;
+  }
+  if (url.origin !== 'https://runner.invalid' || url.search || url.hash) return null;
+  return isRunnerPagePath(url.pathname) ? url.pathname : null;
 }
 
 /**

@@ -4,7 +4,7 @@
  * Built by Serwist inside `next build` (app/runner-sw/[path]/route.ts); served at
  * /runner-sw/sw.js with scope `/`.
  * - The build's files the runner runs on are precached at install, chunks loaded later by
- *   next/dynamic included (the manifest: features/runner/server/sw-precache.ts).
+ *   next/dynamic included (the manifest: precache-manifest.ts and runner-files.ts).
  * - Runner pages: network first, the last good copy offline (routes.ts).
  * - On activation the previous build's files go (Serwist), as do our other caches and page
  *   copies the new build cannot run (page-copies.ts).

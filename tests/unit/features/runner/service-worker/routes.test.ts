@@ -72,6 +72,16 @@ describe('messages from the runner page', () => {
     expect(runnerPageFromMessage(null)).toBe(null);
     expect(runnerPageFromMessage('cache-runner-page')).toBe(null);
   });
+
+  it('judges the address as the browser reads it, not as written', () => {
+    const asked = (page: string) => runnerPageFromMessage({ type: 'cache-runner-page', page });
+    expect(asked('/jobs/../wheels/../run')).toBe(null);
+    expect(asked('/jobs/a/wheels/b?/run')).toBe(null);
+    expect(asked('/jobs/a/wheels/b#/run')).toBe(null);
+    expect(asked('//elsewhere.example/jobs/a/wheels/b/run')).toBe(null);
+    expect(asked('jobs/a/wheels/b/run')).toBe(null);
+    expect(asked('/jobs/x/../7f0c/wheels/91ab/run')).toBe(runner);
+  });
 });
 
 describe('which responses are kept', () => {
