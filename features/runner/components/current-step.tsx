@@ -1,6 +1,6 @@
 'use client';
 
-import type { ReactNode } from 'react';
+import { memo, useMemo, type ReactNode } from 'react';
 import { arrowDirection } from '@/features/torque-plan';
 import type { RunEvent } from '../events';
 import { missingPhotos } from '../photo-kinds';
@@ -17,9 +17,10 @@ import { TorquePanel } from './torque-panel';
 /**
  * The screen of the step the wheel is at. Hand-start and the torque passes (the bolt circle and
  * the big button) and the checklist steps come with the page; the photos, re-install and the
- * summary load when their step opens.
+ * summary load when their step opens. Memoised: the runner hands it stable props, so only a
+ * change of progress (a tap) redraws it, not a save's answer.
  */
-export function CurrentStep({
+export const CurrentStep = memo(function CurrentStep({
   run,
   step,
   state,
@@ -45,6 +46,9 @@ export function CurrentStep({
   flaggedBolts: readonly number[];
 }) {
   const { plan, wheel, practice } = run;
+  // One object for as long as the level holds, so the torque panel's memo holds between taps.
+  const level = practice?.level;
+  const passPractice = useMemo(() => (level ? { level } : undefined), [level]);
   const photoKinds = photos.map((p) => p.kind);
   if (step.id === 'hand_start')
     return (
@@ -74,7 +78,7 @@ export function CurrentStep({
         specWords={run.spec.words}
         flaggedBolts={flaggedBolts}
         photoSlot={practice ? undefined : boltPhoto}
-        practice={practice ? { level: practice.level } : undefined}
+        practice={passPractice}
       />
     );
   if (step.id === 'submit' && practice)
@@ -127,7 +131,7 @@ export function CurrentStep({
       extra={stepExtra(run, step, photos, onPhotoAdded)}
     />
   );
-}
+});
 
 /** What a checklist step shows above its list: the arrow's direction, the target, the photos. */
 function stepExtra(

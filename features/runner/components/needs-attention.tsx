@@ -1,3 +1,4 @@
+import { memo } from 'react';
 import type { AttentionItem, OthersWaiting } from '../api/use-run-queue';
 import type { ClientEvent } from '../events';
 
@@ -28,7 +29,7 @@ function describe(e: ClientEvent): string {
  * Events the server refused for good, kept on this phone with the reason (the lead sees the same
  * list on the review), and other people's confirmations waiting on this phone for their owner.
  */
-export function NeedsAttention({
+export const NeedsAttention = memo(function NeedsAttention({
   items,
   others,
   onDismiss,
@@ -71,4 +72,4 @@ export function NeedsAttention({
       ) : null}
     </section>
   );
-}
+});

@@ -1,5 +1,6 @@
 'use client';
 
+import { memo } from 'react';
 import { BoltCircle, LIST_FROM } from '@/features/bolt-circle/bolt-circle';
 import { BoltList } from '@/features/bolt-circle/bolt-list';
 import type { PassProgress } from '../state';
@@ -13,9 +14,10 @@ const panelButton = ringButtonClass.replace('min-h-24', 'min-h-20');
 /**
  * A pass under way: the ring, the setting in a line that stays in view, and one big button for
  * the highlighted bolt (two on a check pass: it turned, or it did not). From memory (practice) no
- * next bolt is shown: the bolt tapped is the one confirmed, right or wrong.
+ * next bolt is shown: the bolt tapped is the one confirmed, right or wrong. Memoised, with
+ * handlers the torque panel keeps stable: a tap redraws this and the bolts that changed.
  */
-export function PassRing({
+export const PassRing = memo(function PassRing({
   pass,
   name,
   boltCount,
@@ -67,21 +69,7 @@ export function PassRing({
       : 'did it turn before the wrench reached the setting?';
   return (
     <div className="flex flex-col gap-3">
-      {/* Above the ring, so the sticky panel is the last thing on the page and never scrolls away;
-          folded, since the card before the pass showed it in full and the ring needs the room. */}
-      {cautions.length ? (
-        <details className="border-caution bg-caution-tint text-caution-ink rounded-xl border-l-8 px-3">
-          <summary className="min-h-touch flex cursor-pointer items-center font-black">
-            ⚠ Cautions, and reading the ring
-          </summary>
-          <Caution items={cautions} />
-          <p className="py-2 text-sm">
-            {memory
-              ? 'Number beside the ring: the bolt. Tap the bolt you would tighten next, then confirm it.'
-              : 'Number beside the ring: the bolt. Number inside a bolt: its turn, shown for the next few. Tap a bolt to undo or correct it.'}
-          </p>
-        </details>
-      ) : null}
+      <PassCautions cautions={cautions} memory={memory} />
       <p aria-live="polite" className="text-center text-lg">
         {pass.confirmed.length} of {boltCount} bolts
         {memory ? ' · tap the bolt you would do next' : ` · next: bolt ${pass.next}`}
@@ -190,4 +178,31 @@ export function PassRing({
       </RingLayout>
     </div>
   );
-}
+});
+
+/**
+ * Above the ring, so the sticky panel is the last thing on the page and never scrolls away;
+ * folded, since the card before the pass showed it in full and the ring needs the room. The same
+ * for the whole pass: memoised, a tap never redraws it.
+ */
+const PassCautions = memo(function PassCautions({
+  cautions,
+  memory,
+}: {
+  cautions: string[];
+  memory: boolean;
+}) {
+  return cautions.length ? (
+    <details className="border-caution bg-caution-tint text-caution-ink rounded-xl border-l-8 px-3">
+      <summary className="min-h-touch flex cursor-pointer items-center font-black">
+        ⚠ Cautions, and reading the ring
+      </summary>
+      <Caution items={cautions} />
+      <p className="py-2 text-sm">
+        {memory
+          ? 'Number beside the ring: the bolt. Tap the bolt you would tighten next, then confirm it.'
+          : 'Number beside the ring: the bolt. Number inside a bolt: its turn, shown for the next few. Tap a bolt to undo or correct it.'}
+      </p>
+    </details>
+  ) : null;
+});

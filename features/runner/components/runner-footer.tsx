@@ -1,10 +1,14 @@
 'use client';
 
+import { memo } from 'react';
 import { useRunnerSettings } from '../settings-store';
 import { useWakeLock } from './use-wake-lock';
 
-/** This phone's own choices (spoken bolt numbers, a buzz per bolt) and whether the screen stays on. */
-export function RunnerFooter() {
+/**
+ * This phone's own choices (spoken bolt numbers, a buzz per bolt) and whether the screen stays on.
+ * No props: memoised, it redraws only when those choices or the wake lock change, never on a tap.
+ */
+export const RunnerFooter = memo(function RunnerFooter() {
   const settings = useRunnerSettings();
   const wake = useWakeLock();
   return (
@@ -36,4 +40,4 @@ export function RunnerFooter() {
       </span>
     </footer>
   );
-}
+});

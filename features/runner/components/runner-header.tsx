@@ -1,25 +1,33 @@
 'use client';
 
 import Link from 'next/link';
-import type { useRunQueue } from '../api/use-run-queue';
+import { memo } from 'react';
 import type { BackLink } from '../back-link';
-
-type QueueStatus = ReturnType<typeof useRunQueue>['status'];
 
 /**
  * The runner's sticky header: the way back, which wheel this is, and what this phone still holds
  * ("Saved", "3 waiting · offline"); when saving stopped, why, with "Sign in again" if the session ended.
+ * Memoised on plain values: a save's answer redraws this header and nothing else.
  */
-export function RunnerHeader({
+export const RunnerHeader = memo(function RunnerHeader({
   back,
   title,
-  status,
+  waiting,
+  ready,
+  online,
+  error,
+  signedOut,
   signInHref,
 }: {
   back: BackLink;
   /** "LF · 30x10R14 · Dune 16". */
   title: string;
-  status: QueueStatus;
+  /** The outbox's status (useRunQueue): events still on the phone, whether its queue was read yet. */
+  waiting: number;
+  ready: boolean;
+  online: boolean;
+  error: string | null;
+  signedOut: boolean;
   signInHref: string;
 }) {
   return (
@@ -38,19 +46,19 @@ export function RunnerHeader({
         <p
           role="status"
           aria-live="polite"
-          className={`shrink-0 rounded-full px-3 py-1 text-sm font-bold ${!status.ready ? 'text-ink bg-white' : status.waiting ? 'bg-caution text-caution-ink' : 'bg-ok text-white'}`}
+          className={`shrink-0 rounded-full px-3 py-1 text-sm font-bold ${!ready ? 'text-ink bg-white' : waiting ? 'bg-caution text-caution-ink' : 'bg-ok text-white'}`}
         >
-          {!status.ready
+          {!ready
             ? 'Checking this phone…'
-            : status.waiting
-              ? `${status.waiting} waiting${status.online ? '' : ' · offline'}`
+            : waiting
+              ? `${waiting} waiting${online ? '' : ' · offline'}`
               : 'Saved'}
         </p>
       </div>
-      {status.error ? (
+      {error ? (
         <p role="alert" className="bg-danger mt-1 rounded px-2 py-1 text-sm font-bold">
-          {status.error}
-          {status.signedOut ? (
+          {error}
+          {signedOut ? (
             <>
               {' '}
               <a href={signInHref} className="min-h-touch inline-flex items-center underline">
@@ -62,4 +70,4 @@ export function RunnerHeader({
       ) : null}
     </header>
   );
-}
+});

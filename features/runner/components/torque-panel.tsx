@@ -1,6 +1,6 @@
 'use client';
 
-import { useEffect, useMemo, useState } from 'react';
+import { memo, useCallback, useEffect, useMemo, useState } from 'react';
 import {
   formatTorque,
   UNIT_LABELS,
@@ -20,7 +20,8 @@ import { PassRing } from './pass-ring';
 import { PassSetting } from './pass-setting';
 import { confirmWord, passName } from './pass-words';
 import { SpecWordsBox, type SpecWords } from './spec-words';
-import { cue, useConfirmBolt } from './use-confirm-bolt';
+import { cue } from './use-confirm-bolt';
+import { useRingTaps } from './use-ring-taps';
 import type { TypedSetting } from './wrench-setup-card';
 
 const big = 'min-h-16 w-full rounded-xl px-4 text-lg font-bold';
@@ -29,8 +30,9 @@ const big = 'min-h-16 w-full rounded-xl px-4 text-lg font-bold';
  * One pass at a time. A full-width card says which wrench to set to what, and must be
  * acknowledged before the first bolt; then the ring, the setting in a line that stays in view,
  * and one big button for the highlighted bolt (two on a check pass: it turned, or it did not).
+ * Memoised: it redraws on a tap (new progress), not on a save's answer.
  */
-export function TorquePanel({
+export const TorquePanel = memo(function TorquePanel({
   state,
   targets,
   wrenches,
@@ -62,7 +64,7 @@ export function TorquePanel({
   /** Practice mode (a simulated wheel): see RunnerPractice. */
   practice?: PassPractice;
 }) {
-  const { speak } = useRunnerSettings();
+  const speak = useRunnerSettings((s) => s.speak);
   // Verifications recorded on this phone since the page loaded, judged like the server's.
   const [fresh, setFresh] = useState<RecordedVerification[]>([]);
   const [failed, setFailed] = useState<string[]>([]);
@@ -75,26 +77,54 @@ export function TorquePanel({
   const [typed, setTyped] = useState<Record<number, TypedSetting>>({});
   const memory = practice?.level === 'from_memory';
   const setup = practice?.level === 'wrench_setup';
-  const confirmBolt = useConfirmBolt(record, () => setSelected(null));
   const index = state.currentPass;
   const pass = index ? (state.passes[index - 1] ?? null) : null;
   // A check pass added because a bolt turned is at the final target, like the plan's last pass.
   const target = index ? (targets[index - 1] ?? targets.at(-1) ?? null) : null;
   const allVerifications = useMemo(() => [...fresh, ...verifications], [fresh, verifications]);
-  const gate = target
-    ? passWrench({
-        target,
-        wrenches,
-        failed,
-        chosenId: pass?.wrenchId,
-        rules,
-        verifications: allVerifications,
-        now: new Date(),
-      })
-    : null;
+  // The engine's wrench choice and the verification check (shop-day recency) depend on the pass,
+  // not on each bolt: worked out again when the pass, the wrenches or the verifications change,
+  // and at most a minute late for the clock (recency is counted in the shop's days).
+  const minute = Math.floor(Date.now() / 60_000);
+  const chosenId = pass?.wrenchId;
+  const gate = useMemo(
+    () =>
+      target
+        ? passWrench({
+            target,
+            wrenches,
+            failed,
+            chosenId,
+            rules,
+            verifications: allVerifications,
+            now: new Date(),
+          })
+        : null,
+    // eslint-disable-next-line react-hooks/exhaustive-deps -- `minute` stands for `new Date()`
+    [target, wrenches, failed, chosenId, rules, allVerifications, minute],
+  );
   const { best = null, suitable = [], wrench = null, choice = null } = gate ?? {};
   // Practice records no verification (nothing touches the tool crib): its gate is not asked.
   const verification = practice ? null : (gate?.verification ?? null);
+
+  const mine = setup && pass ? (typed[pass.index] ?? null) : null;
+  const used = setup
+    ? mine && { wrench: wrenches.find((w) => w.id === mine.wrenchId)!, setting: mine.setting }
+    : wrench && choice?.ok
+      ? { wrench, setting: choice.setting }
+      : null;
+  const clearSelected = useCallback(() => setSelected(null), []);
+  const { confirm, undo } = useRingTaps(record, clearSelected, { pass: pass?.index ?? 0, used });
+  const openProblem = useCallback(() => setProblem(true), []);
+  // The last bolt confirmed: in this pass, or the pass before when this one has none yet.
+  const previous = pass ? state.passes[pass.index - 2] : undefined;
+  const lastOf = pass?.confirmed.length ? pass : previous?.confirmed.length ? previous : null;
+  const lastPass = lastOf?.index ?? 0;
+  const lastBolt = lastOf?.confirmed.at(-1) ?? 0;
+  const last = useMemo(
+    () => (lastBolt ? { pass: lastPass, bolt: lastBolt } : null),
+    [lastPass, lastBolt],
+  );
 
   // Spoken once the new bolt is on screen: starting speech in the tap's frame delays the drawing.
   useEffect(() => {
@@ -126,26 +156,12 @@ export function TorquePanel({
   }
 
   const name = passName(pass, state.passes);
-  const mine = setup ? (typed[pass.index] ?? null) : null;
-  const used = setup
-    ? mine && { wrench: wrenches.find((w) => w.id === mine.wrenchId)!, setting: mine.setting }
-    : wrench && choice?.ok
-      ? { wrench, setting: choice.setting }
-      : null;
   const settingText = used ? `${used.setting.value} ${UNIT_LABELS[used.setting.unit]}` : null;
   const ackKey =
     wrench && choice?.ok
       ? `${pass.index}|${wrench.id}|${choice.setting.value}|${choice.setting.unit}`
       : null;
   const word = confirmWord(used?.wrench.kind);
-
-  // The last bolt confirmed: in this pass, or the pass before when this one has none yet.
-  const previous = state.passes[pass.index - 2];
-  const last = pass.confirmed.length
-    ? { pass: pass.index, bolt: pass.confirmed.at(-1)! }
-    : previous?.confirmed.length
-      ? { pass: previous.index, bolt: previous.confirmed.at(-1)! }
-      : null;
 
   if (problem) {
     return (
@@ -263,10 +279,10 @@ export function TorquePanel({
       settingLine={`Set ${used.wrench.label} to ${settingText}`}
       selected={selected}
       onSelect={setSelected}
-      confirm={(at, bolt, turned) => confirmBolt(at, { pass: pass.index, bolt, turned }, used)}
-      undo={(tap) => void record({ type: 'bolt_undone', payload: tap })}
+      confirm={confirm}
+      undo={undo}
       last={last}
-      onProblem={() => setProblem(true)}
+      onProblem={openProblem}
     />
   );
-}
+});
