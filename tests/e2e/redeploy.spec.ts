@@ -82,6 +82,13 @@ test('a confirmation queued before a deploy is delivered to the new build, whose
   await expect
     .poll(() => workerBuild(page), { timeout: 30_000 })
     .not.toMatch(new RegExp(`^(${workerBefore}|no answer)$`));
+  // It answers while still activating: its clean-up is done once it is 'activated'.
+  await expect
+    .poll(
+      () => page.evaluate(async () => (await navigator.serviceWorker.ready).active?.state ?? null),
+      { timeout: 30_000 },
+    )
+    .toBe('activated');
   await waitUntilKeptOffline(page);
   const kept = await cacheContents(page);
   expect(Object.keys(kept)).not.toContain('ringpass-runner-assets-v1');
