@@ -1,16 +1,19 @@
 /**
  * The growth bench's operations, each through the product's own code against one database:
  * `read` (what GET /api/wheels/:id/events does: loadWheel, assertMayRun, listEvents, reduceRun),
- * `confirm` (a new bolt confirmation naming its wrench, through saveWheelBatch) and `replay` (the
+ * `confirm` (a new bolt confirmation naming its wrench, as the runner's action saves it: the quick
+ * statement with the session, else saveWheelBatch) and `replay` (the
  * same confirmation sent again, as a phone does when an answer was lost: the save path's full
  * transaction).
  */
 import { randomUUID } from 'node:crypto';
 import type { ClientEvent } from '@/features/runner/events';
+import { saveWheelBatchForSession } from '@/features/runner/server/one-statement-save';
 import { saveWheelBatch } from '@/features/runner/server/save-events';
 import { assertMayRun, listEvents, loadWheel, planFor } from '@/features/runner/server/run';
 import { reduceRun } from '@/features/runner/state';
 import type { Member } from '@/server/auth/session';
+import { newSessionToken } from '../helpers/session-row';
 import type { CapturingDb } from './growth-db';
 import { MEASURED_WHEELS } from './growth-seed';
 
@@ -33,13 +36,18 @@ async function setup(db: CapturingDb): Promise<Setup> {
   await db.sql`
     insert into wrench_verifications (shop_id, wrench_id, reference_value, reading_value, unit, deviation_pct, tolerance_pct, within_tolerance, recorded_by_id)
     values (${who!.shop_id as string}, ${who!.wrench_id as string}, 9, 9.1, 'lbf-ft', 1.1, 4, true, ${who!.id as string})`;
+  // A live session, so a confirmation takes the action's quick statement, session check included.
+  const session = newSessionToken();
+  await db.sql`
+    insert into sessions (id, user_id, expires_at, absolute_expires_at)
+    values (${session.id}, ${who!.id as string}, now() + interval '1 day', now() + interval '1 day')`;
   const member: Member = {
     userId: who!.id as string,
     shopId: who!.shop_id as string,
     role: 'technician',
     name: 'Person 2',
     email: '',
-    sessionId: 'bench',
+    sessionId: session.id,
   };
   const ids = wheels.map((w) => w.wheel_id as string);
   db.use();
@@ -78,8 +86,11 @@ const confirmation = (k: number, wrenchId?: string): ClientEvent => ({
   },
 });
 
+/** What the runner's action does: the quick statement first, the full path when it stores nothing. */
 async function save(member: Member, wheelId: string, event: ClientEvent) {
-  const result = await saveWheelBatch(member, wheelId, [event], noStart);
+  const result =
+    (await saveWheelBatchForSession(member.sessionId, wheelId, [event])) ??
+    (await saveWheelBatch(member, wheelId, [event], noStart));
   if (result.refused.length) throw new Error(`refused: ${result.refused[0]!.message}`);
   return result;
 }

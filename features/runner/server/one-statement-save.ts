@@ -3,7 +3,7 @@ import { sql, type SQL } from 'drizzle-orm';
 import { getDb } from '@/db';
 import { jobs, jobWheels, shopSettings, wheelRunEvents, wheelSpecs, wrenches } from '@/db/schema';
 import { CYCLE_LIMIT } from '@/features/torque-plan';
-import { liveMemberSql, type Member } from '@/server/auth/session';
+import { liveMemberSql } from '@/server/auth/session';
 import { clampClientAt } from '../clock-window';
 import { partitionEvents, type ClientEvent, type EventRefusal } from '../events';
 
@@ -15,20 +15,16 @@ export type Timed = ClientEvent & { deviceAt: string | null };
 const num = (payload: object, key: 'bolt' | 'pass') =>
   key in payload ? (payload as Record<string, number>)[key]! : null;
 
-/** A member already known (the ordinary path) as the `(user_id, shop_id, role)` the statement reads. */
-export const knownMember = (member: Member) =>
-  sql`select ${member.userId}::uuid as user_id, ${member.shopId}::uuid as shop_id, ${member.role}::text as role`;
-
 /**
  * The common case in one statement, without a transaction: insert the batch only if the member
- * (`who`: known, or the session's own checks from server/auth) may write to this wheel now (shop,
+ * (`who`: the session's own checks, server/auth's `liveMemberSql`) may write to this wheel now (shop,
  * in-progress job, assignee or lead, started and not submitted, spec not flagged, not sent back
  * for named steps), every bolt and pass is on the wheel's snapshot and no id is stored already —
  * all or nothing. Each bolt confirmation gets its pass's target from the snapshot. Answers how
  * many rows were new; fewer than the batch (a replay, a refusal, a first event, no live member)
  * sends the caller on to the full path.
  */
-export async function insertIfAllowed(who: SQL, wheelId: string, events: Timed[]): Promise<number> {
+async function insertIfAllowed(who: SQL, wheelId: string, events: Timed[]): Promise<number> {
   const rows = events.map(
     (e) =>
       sql`(${e.clientId}::uuid, ${e.type}, ${JSON.stringify(e.payload)}::jsonb, ${e.clientAt}::timestamptz, ${e.deviceAt}::timestamptz, ${e.deviceId ?? null}::uuid, ${num(e.payload, 'bolt')}::int, ${num(e.payload, 'pass')}::int)`,

@@ -12,13 +12,7 @@ import type { Member } from '@/server/auth/session';
 import { DomainError } from '@/server/errors';
 import { boltFlagReason, type ClientEvent, type EventRefusal } from '../events';
 import { takeSnapshot } from '../snapshot';
-import {
-  insertIfAllowed,
-  knownMember,
-  prepareBatch,
-  type SaveResult,
-  type Timed,
-} from './one-statement-save';
+import { prepareBatch, type SaveResult, type Timed } from './one-statement-save';
 import { assertMayRun, flaggedSpecMessage, loadWheel } from './run';
 import { wrenchRefusals } from './wrench-check';
 import {
@@ -54,12 +48,9 @@ export async function saveWheelBatch(
   startJob: StartJob,
   now = new Date(),
 ): Promise<SaveResult> {
-  const { parsed, events, simple } = prepareBatch(raw, now);
-  let fast = 0;
-  if (simple) {
-    fast = await insertIfAllowed(knownMember(member), wheelId, events);
-    if (fast === events.length) return { saved: fast, duplicates: 0, refused: [] };
-  }
+  // The plain bolt confirmation was already tried in one statement by the action's quick step
+  // (saveWheelBatchForSession); what reaches here is judged in full.
+  const { parsed, events } = prepareBatch(raw, now);
   const indexOf = new Map(
     raw.map((e, i) => [(e as { clientId?: unknown })?.clientId, i] as const).reverse(),
   );
@@ -156,14 +147,11 @@ export async function saveWheelBatch(
         )
         .onConflictDoNothing();
     }
-    // Accepted ids neither new now nor in the fast path's insert, nor refused as another wheel's: replays.
+    // Accepted ids not new now, nor refused as another wheel's: replays.
     const elsewhere = refused.filter((r) => r.message === ID_ELSEWHERE).length;
     return {
-      saved: stored + fast,
-      duplicates: Math.max(
-        0,
-        new Set(accepted.map((e) => e.clientId)).size - stored - fast - elsewhere,
-      ),
+      saved: stored,
+      duplicates: Math.max(0, new Set(accepted.map((e) => e.clientId)).size - stored - elsewhere),
       refused: refused
         .map((r) => ({
           index: r.index,
