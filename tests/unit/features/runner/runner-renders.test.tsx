@@ -11,7 +11,7 @@ import { Runner, type RunnerProps } from '@/features/runner/components/runner';
 import type { ClientEvent, RunEvent } from '@/features/runner/events';
 import { reduceRun, type RunnerPlan } from '@/features/runner/state';
 import { stepsFor } from '@/features/runner/steps';
-import type { CribWrench } from '@/features/runner/wrench-gate';
+import { CLICK_WRENCH } from '@/tests/helpers/runner-fixtures';
 
 // Render counters. Each counted part is the real component under the same memo (React's default
 // prop comparison), so it redraws exactly when the real one would; a part that is not memoised
@@ -59,15 +59,6 @@ vi.mock(
 );
 
 const WHEEL = '6d3a0f7e-1c1b-4c55-9f3e-2a7d1f0c9b11';
-const TW1: CribWrench = {
-  id: '11111111-1111-4111-8111-111111111111',
-  label: 'TW-1',
-  min: 20,
-  max: 150,
-  unit: 'lbf-ft',
-  graduation: 1,
-  kind: 'click',
-};
 const plan: RunnerPlan = {
   steps: stepsFor({ dismount: false, reinstall: false }),
   boltCount: 8,
@@ -87,7 +78,7 @@ function upToTorque(): ClientEvent[] {
         out.push({ type: 'hand_started', payload: { bolt } });
     out.push({ type: 'step_done', payload: { step: step.id, checklist: [] } });
   }
-  out.push({ type: 'wrench_chosen', payload: { pass: 1, wrenchId: TW1.id } });
+  out.push({ type: 'wrench_chosen', payload: { pass: 1, wrenchId: CLICK_WRENCH.id } });
   return out.map(
     (e, i) =>
       ({
@@ -116,11 +107,11 @@ function props(saveEvents: SaveEvents): RunnerProps {
       { value: 50, unit: 'lbf-ft' },
       { value: 50, unit: 'lbf-ft' },
     ],
-    wrenches: [TW1],
+    wrenches: [CLICK_WRENCH],
     // Verified today at a point the shop's rule accepts: the pass opens without a verification.
     verifications: [
       {
-        wrenchId: TW1.id,
+        wrenchId: CLICK_WRENCH.id,
         recordedAt: new Date().toISOString(),
         referenceValue: 50,
         unit: 'lbf-ft',

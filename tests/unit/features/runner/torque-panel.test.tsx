@@ -9,16 +9,8 @@ import { reduceRun, type RunnerPlan } from '@/features/runner/state';
 import { stepsFor } from '@/features/runner/steps';
 import type { CribWrench, WrenchRules } from '@/features/runner/wrench-gate';
 import type { Torque } from '@/features/torque-plan';
+import { CLICK_WRENCH } from '@/tests/helpers/runner-fixtures';
 
-const CLICK: CribWrench = {
-  id: '11111111-1111-4111-8111-111111111111',
-  label: 'TW-1',
-  min: 20,
-  max: 150,
-  unit: 'lbf-ft',
-  graduation: 1,
-  kind: 'click',
-};
 const plan: RunnerPlan = {
   steps: stepsFor({ dismount: false, reinstall: false }),
   boltCount: 4,
@@ -42,7 +34,7 @@ const rules: WrenchRules = {
 
 let n = 0;
 function Harness({
-  wrench = CLICK,
+  wrench = CLICK_WRENCH,
   initial = [],
   onRecord,
 }: {
@@ -113,7 +105,12 @@ describe('the torque pass screen', () => {
     fireEvent.click(screen.getByRole('button', { name: 'Clicked — bolt 1' }));
     expect(onRecord).toHaveBeenCalledWith({
       type: 'bolt_confirmed',
-      payload: { pass: 1, bolt: 1, wrenchId: CLICK.id, setting: { value: 50, unit: 'lbf-ft' } },
+      payload: {
+        pass: 1,
+        bolt: 1,
+        wrenchId: CLICK_WRENCH.id,
+        setting: { value: 50, unit: 'lbf-ft' },
+      },
     });
   });
 
@@ -121,7 +118,7 @@ describe('the torque pass screen', () => {
     const onRecord = vi.fn();
     const first = render(<Harness onRecord={onRecord} />);
     fireEvent.click(screen.getByRole('button', { name: 'Wrench set' }));
-    const chosen = { type: 'wrench_chosen', payload: { pass: 1, wrenchId: CLICK.id } };
+    const chosen = { type: 'wrench_chosen', payload: { pass: 1, wrenchId: CLICK_WRENCH.id } };
     expect(onRecord).toHaveBeenCalledWith(chosen);
     first.unmount();
 
@@ -170,7 +167,7 @@ describe('the torque pass screen', () => {
     ['dial', 'Reached — bolt 1'],
     ['digital', 'Reached — bolt 1'],
   ] as const)('a %s wrench: the button says "%s"', (kind, words) => {
-    render(<Harness onRecord={() => {}} wrench={{ ...CLICK, kind }} />);
+    render(<Harness onRecord={() => {}} wrench={{ ...CLICK_WRENCH, kind }} />);
     fireEvent.click(screen.getByRole('button', { name: 'Wrench set' }));
     expect(screen.getByRole('button', { name: words })).toBeInTheDocument();
   });

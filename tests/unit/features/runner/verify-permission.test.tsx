@@ -4,17 +4,9 @@ import { describe, expect, it } from 'vitest';
 import { TorquePanel } from '@/features/runner/components/torque-panel';
 import { reduceRun, type RunnerPlan } from '@/features/runner/state';
 import { stepsFor } from '@/features/runner/steps';
-import type { CribWrench, WrenchRules } from '@/features/runner/wrench-gate';
+import type { WrenchRules } from '@/features/runner/wrench-gate';
+import { CLICK_WRENCH } from '@/tests/helpers/runner-fixtures';
 
-const CLICK: CribWrench = {
-  id: '11111111-1111-4111-8111-111111111111',
-  label: 'TW-1',
-  min: 20,
-  max: 150,
-  unit: 'lbf-ft',
-  graduation: 1,
-  kind: 'click',
-};
 const plan: RunnerPlan = {
   steps: stepsFor({ dismount: false, reinstall: false }),
   boltCount: 4,
@@ -32,7 +24,7 @@ function renderPass(mayRecordVerifications: boolean) {
     <TorquePanel
       state={reduceRun(plan, [])}
       targets={[{ value: 50, unit: 'lbf-ft' }]}
-      wrenches={[CLICK]}
+      wrenches={[CLICK_WRENCH]}
       verifications={[]}
       rules={rules}
       mayRecordVerifications={mayRecordVerifications}
