@@ -3,6 +3,7 @@
 import { useMutation } from '@tanstack/react-query';
 import { unstable_isUnrecognizedActionError } from 'next/navigation';
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { newEventId } from '../event-id';
 import type { ClientEvent, RunEvent } from '../events';
 import { afterPaint } from './after-paint';
 import { deviceId } from './device-id';
@@ -250,7 +251,8 @@ export function useRunQueue(
       // `deviceId`: which phone confirmed it, for the lead's review (a shared phone and a second phone both show).
       const full = {
         ...event,
-        clientId: crypto.randomUUID(),
+        // Time-ordered, so the server's event index takes it in its newest page (event-id.ts).
+        clientId: newEventId(),
         clientAt: new Date().toISOString(),
         deviceId: deviceId(),
       } as ClientEvent;
