@@ -2,22 +2,24 @@
  * `npm run bench:report`: the completion report's build time and memory. A signed-off job of four
  * wheels on a 32-bolt ring (passes at 30, 70 and 100 % and a check pass, every bolt confirmed with
  * the in-lb wrench), two bead photos per wheel stored as phone pictures (3000×4000 JPEGs) in the
- * local upload fake, run in its own process so its buffers are not counted here. Then the PDF is
- * built through `renderJobReport`, what `GET /api/jobs/:id/report` calls, 1 + BENCH_BUILDS times
- * (default 10) in this process, and per build: wall time, CPU time, and peak RSS from the
- * kernel's high-water mark (VmHWM, reset before each build through /proc/self/clear_refs); the
- * V8 heap is sampled every 2 ms (a lower bound: the layout runs without yielding).
- * Last line: `report build p95 X s, peak RSS Y MB, at most +Z MB over the process before a build
- * (4 wheels, 32 bolts, 8 photos)`. With MALLOC_ARENA_MAX=2 the image library's threads leave
- * about 70 MB less behind (glibc's per-thread arenas).
+ * local upload fake, run in its own process so its buffers are not counted.
+ *
+ * Reports are built in two kinds of process: the Next server (`GET /api/jobs/:id/report`,
+ * `/r/<token>/report.pdf`) and the queue's worker (the customer e-mail's PDF, `npm run worker` and
+ * beside `npm start`). The builds here run in a child of the worker's shape (report-builder.ts: tsx
+ * with the server-only hook, the worker's modules loaded first, the environment the start scripts
+ * give it), through `renderJobReport`, 1 + BENCH_BUILDS times (default 10). Per build: wall time,
+ * CPU time of the whole process (the image library's threads included) and peak RSS from the
+ * kernel's high-water mark (VmHWM, reset before each build through /proc/self/clear_refs).
+ * Last line: build p95, CPU p50, and the process's RSS before its first build, its peak during the
+ * builds and the difference (what building reports costs the process that builds them).
  */
 import { spawn, spawnSync } from 'node:child_process';
-import { readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { rmSync } from 'node:fs';
 import net from 'node:net';
 import path from 'node:path';
 import { createInterface } from 'node:readline';
 import os from 'node:os';
-import v8 from 'node:v8';
 import { clusterUrl, recreateDatabase, startCluster } from '@/db/cluster';
 import { migrateDatabase } from '@/db/migrate';
 import { ROOT } from '../helpers/test-services';
@@ -55,10 +57,14 @@ async function startFakeProcess() {
   return { env: JSON.parse(line) as Record<string, string>, stop: () => child.kill('SIGTERM') };
 }
 
-/** Peak RSS of this process since the last reset, from the kernel (Linux). */
-const resetPeak = () => writeFileSync('/proc/self/clear_refs', '5');
-const peakRss = () =>
-  Number(/VmHWM:\s+(\d+) kB/.exec(readFileSync('/proc/self/status', 'utf8'))?.[1] ?? NaN) * 1024;
+type Build = { ms: number; cpuMs: number; peak: number };
+type BuilderResult = {
+  baseline: number;
+  first: Build;
+  runs: Build[];
+  end: number;
+  arenaMax: string | null;
+};
 
 async function main() {
   await startCluster();
@@ -70,11 +76,11 @@ async function main() {
     DATABASE_URL: clusterUrl(DB),
     SMTP_URL: 'smtp://127.0.0.1:2599',
   });
+  const builderEnv = { ...process.env, NODE_ENV: 'production' };
   const { signedOffJob } = await import('../helpers/report-work');
   const { getDb, closeDb } = await import('@/db');
   const { wheelPhotos } = await import('@/db/schema');
   const { eq } = await import('drizzle-orm');
-  const { renderJobReport } = await import('@/features/reports/server/render-report');
 
   try {
     const { shop, job } = await signedOffJob(new Date(), {
@@ -95,63 +101,35 @@ async function main() {
       `[bench] ${photos.length} photos stored, 3000×4000 JPEG, ${made.stdout.trim()} MB each`,
     );
 
-    const build = async () => {
-      const before = process.memoryUsage().rss;
-      resetPeak();
-      let heapPeak = process.memoryUsage().heapUsed;
-      // A lower bound: the layout runs synchronously, and no timer fires during it.
-      const sampler = setInterval(
-        () => (heapPeak = Math.max(heapPeak, process.memoryUsage().heapUsed)),
-        2,
-      );
-      const cpuBefore = process.cpuUsage();
-      const started = performance.now();
-      const { pdf } = await renderJobReport(shop.shopId, job.id);
-      const ms = performance.now() - started;
-      const cpu = process.cpuUsage(cpuBefore);
-      clearInterval(sampler);
-      heapPeak = Math.max(heapPeak, process.memoryUsage().heapUsed);
-      // Every photo must be in the PDF: a build that left them out would measure nothing.
-      const images = pdf.toString('latin1').split('/Subtype /Image').length - 1;
-      if (images !== photos.length)
-        throw new Error(`the PDF holds ${images} of ${photos.length} photos`);
-      return {
-        ms,
-        // This process's CPU, the image library's threads included: steadier than wall time on
-        // a shared machine (the upload fake runs in its own process).
-        cpuMs: (cpu.user + cpu.system) / 1000,
-        pages: pdf.toString('latin1').match(/\/Type \/Page\b/g)?.length ?? 0,
-        before,
-        rss: peakRss(),
-        heapPeak,
-        heapSize: v8.getHeapStatistics().total_heap_size,
-        kb: pdf.byteLength / 1024,
-      };
-    };
-
+    // The builds run in a process of the worker's shape (report-builder.ts): what a report costs
+    // is measured in a process that holds only what the worker holds, not this bench's own modules.
     console.log(`[bench] load average ${os.loadavg()[0]!.toFixed(1)} (2 cores shared)`);
-    const warm = await build();
-    console.log(
-      `[bench] warm-up build ${warm.ms.toFixed(0)} ms (fonts parsed, modules loaded), peak RSS ${(warm.rss / MB).toFixed(0)} MB`,
+    const child = spawnSync(
+      TSX,
+      [
+        '--import',
+        './app/_worker/server-only-hook.mjs',
+        'tests/bench/report-builder.ts',
+        shop.shopId,
+        job.id,
+        String(photos.length),
+        String(BUILDS),
+      ],
+      { cwd: ROOT, env: builderEnv, encoding: 'utf8', stdio: ['ignore', 'pipe', 'inherit'] },
     );
-    const runs = [];
-    for (let i = 0; i < BUILDS; i++) {
-      const r = await build();
-      runs.push(r);
-      console.log(
-        `[bench] build ${i + 1}: ${r.ms.toFixed(0)} ms (CPU ${r.cpuMs.toFixed(0)} ms), ${r.pages} pages, ${r.kb.toFixed(0)} kB, peak RSS ${(r.rss / MB).toFixed(0)} MB (${(r.before / MB).toFixed(0)} MB before), V8 heap used ≥ ${(r.heapPeak / MB).toFixed(0)} MB of ${(r.heapSize / MB).toFixed(0)} MB`,
-      );
-    }
+    const out = child.stdout.trim().split('\n');
+    if (child.status !== 0) throw new Error(`the report builder failed: ${out.join('\n')}`);
+    const result = JSON.parse(out.pop()!) as BuilderResult;
+    for (const l of out) console.log(l);
+    const runs = result.runs;
     const ms = runs.map((r) => r.ms);
     const cpuMs = runs.map((r) => r.cpuMs);
-    const rss = Math.max(...runs.map((r) => r.rss));
+    const peak = Math.max(result.first.peak, ...runs.map((r) => r.peak));
     console.log(
-      `[bench] ${BUILDS} builds: p50 ${(pct(ms, 50) / 1000).toFixed(2)} s, p95 ${(pct(ms, 95) / 1000).toFixed(2)} s, max ${(Math.max(...ms) / 1000).toFixed(2)} s; CPU p50 ${(pct(cpuMs, 50) / 1000).toFixed(2)} s; load average ${os.loadavg()[0]!.toFixed(1)}; V8 heap used peak ≥ ${(Math.max(...runs.map((r) => r.heapPeak)) / MB).toFixed(0)} MB (sampled)`,
+      `[bench] ${BUILDS} builds: p50 ${(pct(ms, 50) / 1000).toFixed(2)} s, p95 ${(pct(ms, 95) / 1000).toFixed(2)} s, max ${(Math.max(...ms) / 1000).toFixed(2)} s; CPU p50 ${(pct(cpuMs, 50) / 1000).toFixed(2)} s, p95 ${(pct(cpuMs, 95) / 1000).toFixed(2)} s; RSS after the last build ${(result.end / MB).toFixed(0)} MB; load average ${os.loadavg()[0]!.toFixed(1)}`,
     );
-    // The process's own weight before a build (modules under tsx, the parsed fonts) is most of it.
-    const growth = Math.max(...runs.map((r) => r.rss - r.before));
     console.log(
-      `report build p95 ${(pct(ms, 95) / 1000).toFixed(2)} s, peak RSS ${(rss / MB).toFixed(0)} MB, at most +${(growth / MB).toFixed(0)} MB over the process before a build (4 wheels, ${BOLTS} bolts, ${photos.length} photos)`,
+      `report build p95 ${(pct(ms, 95) / 1000).toFixed(2)} s, CPU p50 ${(pct(cpuMs, 50) / 1000).toFixed(2)} s; worker-shaped process RSS ${(result.baseline / MB).toFixed(0)} MB before the first build, peak ${(peak / MB).toFixed(0)} MB during ${BUILDS + 1} builds (+${((peak - result.baseline) / MB).toFixed(0)} MB) (4 wheels, ${BOLTS} bolts, ${photos.length} photos; MALLOC_ARENA_MAX=${result.arenaMax ?? 'unset'})`,
     );
   } finally {
     fake.stop();

@@ -1,0 +1,81 @@
+/**
+ * The process that builds reports in `npm run bench:report`, shaped as the queue's worker
+ * (`npm run worker`, which builds the customer e-mail's PDF): the same tsx flags and server-only
+ * hook (server/dev/worker-process.ts), the same modules loaded before any job arrives
+ * (app/_worker/run.ts's imports), the same environment. Only then is anything measured, so its
+ * baseline is the worker's own and a build's cost is what a build adds to it.
+ *
+ * `tsx --import ./app/_worker/server-only-hook.mjs tests/bench/report-builder.ts <shopId> <jobId>
+ * <photos> <builds>`; prints `[bench]` lines and, last, one JSON line of figures for the parent.
+ */
+import { readFileSync, writeFileSync } from 'node:fs';
+import v8 from 'node:v8';
+import '@/app/_worker/handlers';
+import '@/server/queue/worker';
+
+const MB = 1024 * 1024;
+const [shopId, jobId, photoCount, builds] = process.argv.slice(2);
+
+/** A field of /proc/self/status in bytes: VmRSS now, VmHWM the peak since the last reset. */
+const status = (field: 'VmRSS' | 'VmHWM') =>
+  Number(
+    new RegExp(`${field}:\\s+(\\d+) kB`).exec(readFileSync('/proc/self/status', 'utf8'))?.[1],
+  ) * 1024;
+/** Resets the kernel's peak RSS to the current RSS (Linux). */
+const resetPeak = () => writeFileSync('/proc/self/clear_refs', '5');
+
+async function main() {
+  // The worker's modules are loaded (static imports above); this is the process a job finds.
+  const baseline = status('VmRSS');
+  const { renderJobReport } = await import('@/features/reports/server/render-report');
+  const { closeDb } = await import('@/db');
+
+  const build = async () => {
+    const before = status('VmRSS');
+    resetPeak();
+    const cpuBefore = process.cpuUsage();
+    const started = performance.now();
+    const { pdf } = await renderJobReport(shopId!, jobId!);
+    const ms = performance.now() - started;
+    const cpu = process.cpuUsage(cpuBefore);
+    // Every photo must be in the PDF: a build that left them out would measure nothing.
+    const images = pdf.toString('latin1').split('/Subtype /Image').length - 1;
+    if (images !== Number(photoCount))
+      throw new Error(`the PDF holds ${images} of ${photoCount} photos`);
+    return {
+      ms,
+      // The whole process's CPU, the image library's threads included: steadier than wall time.
+      cpuMs: (cpu.user + cpu.system) / 1000,
+      pages: pdf.toString('latin1').match(/\/Type \/Page\b/g)?.length ?? 0,
+      kb: pdf.byteLength / 1024,
+      before,
+      peak: status('VmHWM'),
+      heap: v8.getHeapStatistics().total_heap_size,
+    };
+  };
+
+  const line = (label: string, r: Awaited<ReturnType<typeof build>>) =>
+    console.log(
+      `[bench] ${label}: ${r.ms.toFixed(0)} ms (CPU ${r.cpuMs.toFixed(0)} ms), ${r.pages} pages, ${r.kb.toFixed(0)} kB, peak RSS ${(r.peak / MB).toFixed(0)} MB (${(r.before / MB).toFixed(0)} MB before), V8 heap ${(r.heap / MB).toFixed(0)} MB`,
+    );
+  console.log(
+    `[bench] worker-shaped process ${process.pid} (MALLOC_ARENA_MAX=${process.env.MALLOC_ARENA_MAX ?? 'unset'}): RSS ${(baseline / MB).toFixed(0)} MB with the worker's modules loaded, before any build`,
+  );
+  const first = await build();
+  line('first build (report modules loaded, fonts parsed)', first);
+  const runs = [];
+  for (let i = 0; i < Number(builds); i++) {
+    const r = await build();
+    runs.push(r);
+    line(`build ${i + 1}`, r);
+  }
+  await closeDb();
+  process.stdout.write(
+    `${JSON.stringify({ baseline, first, runs, end: status('VmRSS'), arenaMax: process.env.MALLOC_ARENA_MAX ?? null })}\n`,
+  );
+}
+
+main().catch((error: unknown) => {
+  console.error(error);
+  process.exit(1);
+});
