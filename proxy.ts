@@ -38,10 +38,14 @@ export const config = {
     {
       // Pages only: not the JSON API, build assets, images or the service worker script.
       source: '/((?!api/|_next/static|_next/image|favicon.ico|icon.svg|runner-sw).*)',
-      // A prefetch renders no HTML, so it needs no nonce (Next's guide leaves them out too).
+      // A prefetch renders no HTML, so it needs no nonce (Next's guide leaves them out too); nor
+      // does a server action called from a page (its Next-Action header): it answers React's
+      // payload, never HTML, and the page that calls it came with its own nonce and HSTS. A form
+      // posted without JavaScript sends no such header and gets an HTML page, so it keeps both.
       missing: [
         { type: 'header', key: 'next-router-prefetch' },
         { type: 'header', key: 'purpose', value: 'prefetch' },
+        { type: 'header', key: 'next-action' },
       ],
     },
   ],

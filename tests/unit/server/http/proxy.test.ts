@@ -1,3 +1,4 @@
+import { unstable_doesMiddlewareMatch } from 'next/experimental/testing/server';
 import { NextRequest } from 'next/server';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 
@@ -38,5 +39,28 @@ describe('proxy: per-response security headers', () => {
     const response = proxy(new NextRequest('https://ringpass.example.com/board'));
     expect(response.headers.get('strict-transport-security')).toBe('max-age=63072000');
     expect(response.headers.get('content-security-policy')).toContain('upgrade-insecure-requests');
+  });
+});
+
+describe('proxy: which requests it runs on', () => {
+  const runsOn = async (url: string, headers: Record<string, string> = {}) => {
+    const { config } = await import('@/proxy');
+    return unstable_doesMiddlewareMatch({ config, url, headers });
+  };
+
+  it('every page, and a form posted without JavaScript (an HTML answer that needs its nonce)', async () => {
+    expect(await runsOn('/board')).toBe(true);
+    expect(await runsOn('/jobs/j1/wheels/w1/run')).toBe(true);
+    expect(await runsOn('/sign-in', { 'content-type': 'multipart/form-data; boundary=x' })).toBe(
+      true,
+    );
+  });
+
+  it('not a server action called from a page, the JSON API, prefetches or build files', async () => {
+    expect(await runsOn('/jobs/j1/wheels/w1/run', { 'next-action': 'abc123' })).toBe(false);
+    expect(await runsOn('/api/wheels/w1/events')).toBe(false);
+    expect(await runsOn('/board', { 'next-router-prefetch': '1' })).toBe(false);
+    expect(await runsOn('/_next/static/chunks/app.js')).toBe(false);
+    expect(await runsOn('/runner-sw/sw.js')).toBe(false);
   });
 });
