@@ -50,16 +50,18 @@ export const practiceAttempts = pgTable(
   (t) => [index('practice_attempts_person_idx').on(t.shopId, t.userId, t.startedAt)],
 );
 
-/** What the apprentice did, in the runner's event shape; a replayed event (same client id) is stored once. */
+/**
+ * What the apprentice did, in the runner's event shape; a replayed event (same client id) is stored
+ * once. Keyed by the device's time-ordered id, as wheel_run_events is.
+ */
 export const practiceEvents = pgTable(
   'practice_events',
   {
-    id: uuid().primaryKey().defaultRandom(),
     shopId: shopId(),
     attemptId: uuid()
       .notNull()
       .references(() => practiceAttempts.id, { onDelete: 'cascade' }),
-    clientId: uuid().notNull(),
+    clientId: uuid().primaryKey(),
     type: text().notNull(),
     payload: jsonb().$type<Record<string, unknown>>().notNull(),
     byId: uuid()
@@ -70,10 +72,7 @@ export const practiceEvents = pgTable(
     deviceId: uuid(),
     receivedAt: createdAt(),
   },
-  (t) => [
-    uniqueIndex('practice_events_client_key').on(t.clientId),
-    index('practice_events_attempt_idx').on(t.attemptId, t.clientAt),
-  ],
+  (t) => [index('practice_events_attempt_idx').on(t.attemptId, t.clientAt)],
 );
 
 /**

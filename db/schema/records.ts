@@ -333,11 +333,13 @@ export const jobEvents = pgTable(
 /**
  * What the technician confirmed in the runner, one row per event, each with the id the device
  * gave it: a replayed event is stored once. The wheel's progress is derived from these.
+ * The device's id is the key (no surrogate id: nothing refers to a row but by it). Phones make it
+ * time-ordered (features/runner/event-id.ts), so with millions of rows an insert still touches
+ * only the newest pages of the key's index.
  */
 export const wheelRunEvents = pgTable(
   'wheel_run_events',
   {
-    id: uuid().primaryKey().defaultRandom(),
     shopId: shopId(),
     jobId: uuid()
       .notNull()
@@ -345,7 +347,7 @@ export const wheelRunEvents = pgTable(
     wheelId: uuid()
       .notNull()
       .references(() => jobWheels.id, { onDelete: 'cascade' }),
-    clientId: uuid().notNull(),
+    clientId: uuid().primaryKey(),
     type: text().notNull(),
     payload: jsonb().$type<Record<string, unknown>>().notNull(),
     byId: uuid()
@@ -364,10 +366,7 @@ export const wheelRunEvents = pgTable(
      */
     supersededAt: timestamp({ withTimezone: true }),
   },
-  (t) => [
-    uniqueIndex('wheel_run_events_client_key').on(t.clientId),
-    index('wheel_run_events_wheel_idx').on(t.wheelId, t.clientAt),
-  ],
+  (t) => [index('wheel_run_events_wheel_idx').on(t.wheelId, t.clientAt)],
 );
 
 export const photoKindEnum = pgEnum('photo_kind', ['bead_outer', 'bead_inner', 'other']);

@@ -177,7 +177,7 @@ describe('flagged specs (stored before the rules)', () => {
     expect(await save(wheel.id, [confirm(1)])).toMatchObject({ ok: false, code: 'conflict' });
     expect(
       await getDb()
-        .select({ id: wheelRunEvents.id })
+        .select({ clientId: wheelRunEvents.clientId })
         .from(wheelRunEvents)
         .where(eq(wheelRunEvents.wheelId, wheel.id)),
     ).toEqual([]);

@@ -277,7 +277,7 @@ describe('send back per wheel', () => {
     expect(await current(lr!)).toEqual(['step_done']);
     expect(
       await getDb()
-        .select({ id: wheelRunEvents.id })
+        .select({ clientId: wheelRunEvents.clientId })
         .from(wheelRunEvents)
         .where(eq(wheelRunEvents.wheelId, lf!)),
     ).toHaveLength(1);
