@@ -4,9 +4,9 @@
  * `confirm` (a new bolt confirmation naming its wrench, as the runner's action saves it: the quick
  * statement with the session, else saveWheelBatch) and `replay` (the
  * same confirmation sent again, as a phone does when an answer was lost: the save path's full
- * transaction).
+ * transaction). Event ids are made as the phone makes them (UUIDv7, features/runner/event-id.ts).
  */
-import { randomUUID } from 'node:crypto';
+import { newEventId } from '@/features/runner/event-id';
 import type { ClientEvent } from '@/features/runner/events';
 import { saveWheelBatchForSession } from '@/features/runner/server/one-statement-save';
 import { saveWheelBatch } from '@/features/runner/server/save-events';
@@ -67,7 +67,7 @@ async function setup(db: CapturingDb): Promise<Setup> {
 }
 
 const stepDone = (): ClientEvent => ({
-  clientId: randomUUID(),
+  clientId: newEventId(),
   clientAt: new Date().toISOString(),
   type: 'step_done',
   payload: { step: 'safety', checklist: [] },
@@ -76,7 +76,7 @@ const stepDone = (): ClientEvent => ({
 // Without a wrench (as older phones sent it) the statement updates no wrench row, so parallel saves
 // measure the database's inserts and commits rather than one shared wrench's row lock.
 const confirmation = (k: number, wrenchId?: string): ClientEvent => ({
-  clientId: randomUUID(),
+  clientId: newEventId(),
   clientAt: new Date().toISOString(),
   type: 'bolt_confirmed',
   payload: {

@@ -4,6 +4,10 @@
  * the runner's own (steps, a wrench chosen per pass, bolts confirmed with wrench, setting and
  * target). Nothing the product relies on is switched off: every foreign key, index and the
  * unique event id are checked on every row.
+ * History looks as the phones make it: each event's id is a UUIDv7 of its own time (as
+ * features/runner/event-id.ts makes it on the phone, random bits from gen_random_uuid), wheels start
+ * spread over their shop day, and rows go in day by day in time order, so the phones of a day
+ * interleave in the key's index as they do in a real shop.
  */
 import { spawnSync } from 'node:child_process';
 import type postgres from 'postgres';
@@ -53,18 +57,35 @@ export async function seedShops(sql: postgres.Sql) {
     select row_number() over (order by sh.name, j.number, w.position) as ord, w.id as wheel_id, w.job_id, w.shop_id,
       j.assignee_id as by_id, md5(j.assignee_id::text)::uuid as device_id, k.id as wrench_id,
       100 + (row_number() over (order by sh.name, j.number, w.position) * 37) % 101 as events,
-      now() - interval '2 days' - (j.number % 365) * interval '1 day' as base_at
+      -- Each wheel starts somewhere in its shop's ten-hour day (not all a day's phones at once).
+      now() - interval '2 days' - (j.number % 365) * interval '1 day'
+        + ((row_number() over (order by sh.name, j.number, w.position) * 7919) % 36000) * interval '1 s' as base_at
     from job_wheels w join jobs j on j.id = w.job_id join shops sh on sh.id = w.shop_id
       join wrenches k on k.shop_id = w.shop_id`;
   await sql`create unique index on bench_wheels (ord)`;
+  // The order wheels are filled in: the measured wheels first (the 10,000-row database holds only
+  // the first few dozen), then the oldest day first, as history accumulates.
+  await sql`alter table bench_wheels add column fill_ord bigint`;
+  await sql`
+    update bench_wheels b set fill_ord = o.n from (
+      select ord, row_number() over (order by ord > ${MEASURED_WHEELS}, base_at, ord) as n from bench_wheels) o
+    where o.ord = b.ord`;
+  await sql`create unique index on bench_wheels (fill_ord)`;
+  // A UUIDv7 (RFC 9562 §5.7) for a given time: its 48-bit ms timestamp over a random v4's first six
+  // octets, then the version nibble 0100 → 0111 (bits 52, 53 of octet 6); the variant stays 10.
+  await sql`
+    create function bench_uuid7(at timestamptz) returns uuid language sql volatile as $$
+      select encode(set_bit(set_bit(overlay(uuid_send(gen_random_uuid())
+        placing substring(int8send(floor(extract(epoch from at) * 1000)::bigint) from 3) from 1 for 6),
+        52, 1), 53, 1), 'hex')::uuid $$`;
   await sql`analyze`;
 }
 
-/** Inserts the events of wheels `from`..`to` (by `ord`); answers how many rows were written. */
+/** Inserts the events of wheels `from`..`to` (by `fill_ord`) in time order; answers how many rows were written. */
 async function fillWheels(sql: postgres.Sql, from: number, to: number): Promise<number> {
   const result = await sql`
     insert into wheel_run_events (shop_id, job_id, wheel_id, client_id, type, payload, by_id, client_at, device_id, received_at)
-    select w.shop_id, w.job_id, w.wheel_id, gen_random_uuid(),
+    select w.shop_id, w.job_id, w.wheel_id, bench_uuid7(w.base_at + i * interval '5 s'),
       case when i <= 10 then 'step_done' when (i - 11) % 33 = 0 then 'wrench_chosen' else 'bolt_confirmed' end,
       case when i <= 10 then jsonb_build_object('step', (${STEP_IDS as unknown as string[]}::text[])[i], 'checklist', '[]'::jsonb)
         when (i - 11) % 33 = 0 then jsonb_build_object('pass', 1 + ((i - 11) / 33) % 3, 'wrenchId', w.wrench_id)
@@ -73,7 +94,8 @@ async function fillWheels(sql: postgres.Sql, from: number, to: number): Promise<
       end,
       w.by_id, w.base_at + i * interval '5 s', w.device_id, w.base_at + i * interval '5 s' + interval '1 s'
     from bench_wheels w cross join lateral generate_series(1, w.events) i
-    where w.ord between ${from} and ${to}`;
+    where w.fill_ord between ${from} and ${to}
+    order by w.base_at + i * interval '5 s'`;
   return result.count;
 }
 
@@ -82,10 +104,13 @@ export async function fillEvents(sql: postgres.Sql, target: number, label: strin
   const [{ wheels }] = (await sql`select count(*)::int as wheels from bench_wheels`) as [
     { wheels: number },
   ];
-  const chunk = target <= 100_000 ? Math.ceil(target / 150) : 2_000;
+  // A small table a wheel at a time, so it stops just past its target (wheels differ in size).
+  const chunk = target <= 100_000 ? 1 : 2_000;
   // The generating backend yields the shared cores to everyone else's work (best effort).
   const [{ pid }] = (await sql`select pg_backend_pid() as pid`) as [{ pid: number }];
   spawnSync('renice', ['-n', '19', '-p', String(pid)], { stdio: 'ignore' });
+  // This generating session only: a chunk's rows are sorted by time in memory, not on disk.
+  await sql`set work_mem = '256MB'`;
   const started = performance.now();
   let rows = 0;
   for (let from = 1; rows < target && from <= wheels; from += chunk) {
