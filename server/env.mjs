@@ -30,6 +30,10 @@ const schema = z.object({
   // service (the local fake in development and tests, the hosted service by default).
   UPLOADTHING_INGEST_URL: z.url().optional(),
   UPLOADTHING_UFS_HOST: z.string().min(1).optional(),
+  // Also read by the report's photo reader, which signs the store's URLs without loading the SDK
+  // (features/reports/server/store-url.ts); checked there, as the SDK checks them.
+  UPLOADTHING_TOKEN: z.string().optional(),
+  UPLOADTHING_UFS_APP_ID_LOCATION: z.string().optional(),
   COOKIE_SECURE: bool.optional(),
   SESSION_ABSOLUTE_HOURS: z.coerce
     .number()

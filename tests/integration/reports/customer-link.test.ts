@@ -19,13 +19,10 @@ import { apiRequest, params } from '@/tests/helpers/factories';
 import { signedOffJob } from '@/tests/helpers/report-work';
 
 // The photo store, as the upload service would answer a signed URL: a real 1600×1200 JPEG.
+// (The report signs its URLs itself; store-url.test.ts holds them equal to the SDK's.)
 let JPEG: Buffer;
-vi.mock('uploadthing/server', () => ({
-  UTApi: class {
-    generateSignedURL() {
-      return Promise.resolve({ ufsUrl: `data:image/jpeg;base64,${JPEG.toString('base64')}` });
-    }
-  },
+vi.mock('@/features/reports/server/store-url', () => ({
+  signedFileUrl: () => `data:image/jpeg;base64,${JPEG.toString('base64')}`,
 }));
 beforeAll(async () => {
   JPEG = await sharp({

@@ -1,0 +1,54 @@
+import { UTApi } from 'uploadthing/server';
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { signedFileUrl, type StoreConfig } from '@/features/reports/server/store-url';
+
+const token = (apiKey: string, appId: string) =>
+  Buffer.from(JSON.stringify({ apiKey, appId, regions: ['sea1'] })).toString('base64');
+const KEY = 'Vx3kq9Pz0LbRtYw2MnCd5EfGhJ7aSuQ1iOpZlKxTcVbN8mW4';
+
+/** The SDK's own signed URL for `key`, read from the same variables, at the same instant. */
+async function sdkUrl(config: StoreConfig, now: number) {
+  vi.stubEnv('UPLOADTHING_TOKEN', token(config.apiKey, config.appId));
+  vi.stubEnv('UPLOADTHING_UFS_HOST', config.ufsHost);
+  vi.stubEnv('UPLOADTHING_UFS_APP_ID_LOCATION', config.appIdLocation);
+  vi.stubEnv('UPLOADTHING_LOG_LEVEL', 'Error');
+  vi.useFakeTimers({ now, toFake: ['Date'] });
+  return (await new UTApi().generateSignedURL(KEY, { expiresIn: 60 })).ufsUrl;
+}
+
+afterEach(() => {
+  vi.useRealTimers();
+  vi.unstubAllEnvs();
+});
+
+describe("the report's signed photo URLs", () => {
+  const now = Date.UTC(2026, 11, 2, 10, 30);
+  it.each<StoreConfig>([
+    { apiKey: 'sk_live_4f1e9a', appId: 'k2p9zx1q', ufsHost: 'ufs.sh', appIdLocation: 'subdomain' },
+    {
+      apiKey: 'sk_test_local',
+      appId: 'ringpass-local',
+      ufsHost: 'localhost:2530',
+      appIdLocation: 'path',
+    },
+  ])(
+    'are the URL the upload SDK signs ($ufsHost, app id in the $appIdLocation)',
+    async (config) => {
+      const ours = signedFileUrl(KEY, 60, config, now);
+      expect(ours).toBe(await sdkUrl(config, now));
+      expect(new URL(ours).searchParams.get('expires')).toBe(String(now + 60_000));
+    },
+  );
+
+  it('change with the key that signs them', () => {
+    const config: StoreConfig = {
+      apiKey: 'sk_live_a',
+      appId: 'app',
+      ufsHost: 'ufs.sh',
+      appIdLocation: 'subdomain',
+    };
+    expect(signedFileUrl(KEY, 60, config, now)).not.toBe(
+      signedFileUrl(KEY, 60, { ...config, apiKey: 'sk_live_b' }, now),
+    );
+  });
+});
