@@ -1,8 +1,5 @@
 import 'server-only';
-import { renderToBuffer } from '@react-pdf/renderer';
 import { DomainError } from '@/server/errors';
-import { registerReportFonts } from '../pdf/fonts';
-import { ReportDocument } from '../pdf/report-document';
 import type { ReportData } from '../types';
 import { reportView, type ReportView } from '../view-model';
 import { getReportData } from './report-data';
@@ -23,13 +20,18 @@ export function assertReportReady(data: ReportData): asserts data is ReportData 
 export async function renderReport(shopId: string, data: ReportData): Promise<RenderedReport> {
   assertReportReady(data);
   const view = reportView(data);
-  const images = await loadReportImages(
-    shopId,
-    data.job.id,
-    data.wheels.flatMap((w) => w.photos.map((p) => p.id)),
-  );
-  registerReportFonts();
-  const pdf = await renderToBuffer(<ReportDocument view={view} images={images} />);
+  // The PDF library loads with the first report, not with every process that could build one
+  // (the Next server preloads each route's modules at start, the worker its handlers'); its
+  // loading overlaps the photos' fetching.
+  const [images, { renderReportPdf }] = await Promise.all([
+    loadReportImages(
+      shopId,
+      data.job.id,
+      data.wheels.flatMap((w) => w.photos.map((p) => p.id)),
+    ),
+    import('../pdf/render-pdf'),
+  ]);
+  const pdf = await renderReportPdf(view, images);
   return { pdf, filename: reportFilename(data.job.number), view };
 }
 
