@@ -1,5 +1,4 @@
 import type { ReactNode } from 'react';
-import { QueryProvider } from '@/features/ui/query-provider';
 import { ShopTimeZoneProvider } from '@/features/ui/shop-time-zone';
 import { getCurrentMember } from '@/server/auth/session';
 import { getShopSettings } from '@/server/shop/settings';
@@ -7,16 +6,13 @@ import { getShopSettings } from '@/server/shop/settings';
 /**
  * Full screen for the runner: no shop header, the phone's whole height for the work. The shop's
  * clock comes from its settings; signed out, the page itself sends the person to sign-in (and
- * back), so the layout neither redirects nor guesses a zone. The runner's outbox and its pulls of
- * the wheel's events run on TanStack Query, hence its provider here.
+ * back), so the layout neither redirects nor guesses a zone. No Query provider: the runner's
+ * network (TanStack Query) has a client of its own, loaded after the first paint
+ * (features/runner/api/run-sender.ts), so it is not in the runner's first load.
  */
 export default async function RunnerLayout({ children }: { children: ReactNode }) {
   const member = await getCurrentMember();
-  if (!member) return <QueryProvider>{children}</QueryProvider>;
+  if (!member) return children;
   const { timeZone } = await getShopSettings(member.shopId);
-  return (
-    <ShopTimeZoneProvider timeZone={timeZone}>
-      <QueryProvider>{children}</QueryProvider>
-    </ShopTimeZoneProvider>
-  );
+  return <ShopTimeZoneProvider timeZone={timeZone}>{children}</ShopTimeZoneProvider>;
 }

@@ -1,6 +1,4 @@
-'use client';
-
-import { queryOptions, useQuery } from '@tanstack/react-query';
+import { queryOptions } from '@tanstack/react-query';
 import type { ClientEvent } from '../events';
 
 /** The events the server holds for the wheel (or a practice attempt), every phone's. */
@@ -13,7 +11,8 @@ export async function getWheelEvents(eventsUrl: string, signal?: AbortSignal) {
 
 /**
  * Another phone on the same wheel: pull the server's events every 5 s so both converge. Query
- * pauses it offline and pulls again on reconnect; a failed pull waits for the next one.
+ * pauses it offline and pulls again on reconnect; a failed pull waits for the next one. Observed
+ * by the runner's sender (./run-sender), which loads after the first paint.
  */
 export const wheelEventsQueryOptions = (eventsUrl: string) =>
   queryOptions({
@@ -23,7 +22,3 @@ export const wheelEventsQueryOptions = (eventsUrl: string) =>
     retry: false,
     networkMode: 'online',
   });
-
-export function useWheelEvents(eventsUrl: string, enabled: boolean) {
-  return useQuery({ ...wheelEventsQueryOptions(eventsUrl), enabled });
-}

@@ -1,29 +1,24 @@
 'use client';
 
-import { onlineManager } from '@tanstack/react-query';
 import { useSyncExternalStore } from 'react';
 
-// Query assumes "online" until the browser fires an `offline` event, but a runner page reloaded
-// offline (from the service worker's copy) gets no such event: ask the browser at the start too,
-// so the outbox pauses instead of failing its first send, and the screen says "offline".
-if (typeof window !== 'undefined') {
-  onlineManager.setEventListener((setOnline) => {
-    const update = () => setOnline(navigator.onLine);
-    update();
-    window.addEventListener('online', update);
-    window.addEventListener('offline', update);
-    return () => {
-      window.removeEventListener('online', update);
-      window.removeEventListener('offline', update);
-    };
-  });
+function subscribe(change: () => void) {
+  window.addEventListener('online', change);
+  window.addEventListener('offline', change);
+  return () => {
+    window.removeEventListener('online', change);
+    window.removeEventListener('offline', change);
+  };
 }
 
-/** Whether the phone has a network, as Query sees it (its mutations pause and resume on this). */
+/**
+ * Whether the phone has a network, as the browser says: the source the sender's onlineManager
+ * follows too (./run-sender), read here without Query so the header knows before the sender loads.
+ */
 export function useOnline(): boolean {
   return useSyncExternalStore(
-    (change) => onlineManager.subscribe(change),
-    () => onlineManager.isOnline(),
+    subscribe,
+    () => navigator.onLine,
     () => true,
   );
 }

@@ -1,13 +1,11 @@
 'use client';
 
-import { useMutation } from '@tanstack/react-query';
 import { unstable_isUnrecognizedActionError } from 'next/navigation';
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { newEventId } from '../event-id';
 import type { ClientEvent, RunEvent } from '../events';
 import { afterPaint } from './after-paint';
 import { deviceId } from './device-id';
-import { useWheelEvents } from './get-wheel-events';
 import { useOnline } from './online';
 import {
   outboxKey,
@@ -17,12 +15,12 @@ import {
   type OthersWaiting,
   type QueuePerson,
 } from './outbox-store';
+import type { Sender, startSender } from './run-sender';
 import {
   KeptForRetry,
   keepsAndRetries,
   refusalMessage,
   reloadForNewBuild,
-  retryDelay,
   type SaveEvents,
 } from './send-outcome';
 
@@ -34,6 +32,7 @@ export type { SaveEvents } from './send-outcome';
 // `ready` stays false until this phone's own queue is read: before that "saved" would be a guess.
 // `signedOut`: the session ended; what waits is kept and goes once the person signs in again.
 type Status = { waiting: number; error: string | null; ready: boolean; signedOut: boolean };
+const SENDER_RELOAD_MS = 5_000;
 /** One send: the batch taken from the head of the queue and the server's answer (null: nothing sent). */
 type Sent = { batch: ClientEvent[]; result: Awaited<ReturnType<SaveEvents>> } | null;
 
@@ -41,6 +40,8 @@ type Sent = { batch: ClientEvent[]; result: Awaited<ReturnType<SaveEvents>> } | 
  * The runner's durable outbox. Every confirmation becomes an event with its own id, is applied at
  * once, written to IndexedDB before any network, and leaves "waiting" only on the server's answer.
  * Sending is a Query mutation: it pauses offline, resumes on reconnect and retries with backoff.
+ * The sender (./run-sender, TanStack Query) is loaded after the first paint, to keep it out of the
+ * runner's first load: taps before it arrives are shown and written to the phone, and wait there.
  * The server stores each id once, so sending again after a drop or a reload is always safe.
  */
 export function useRunQueue(
@@ -77,6 +78,7 @@ export function useRunQueue(
   const writes = useRef({ started: 0, committed: 0 }); // a slower older write never wins
   const mounted = useRef(true);
   const flushRef = useRef<() => void>(() => {});
+  const sender = useRef<Sender | null>(null); // null until ./run-sender has loaded
   useEffect(() => {
     mounted.current = true;
     return () => {
@@ -132,43 +134,39 @@ export function useRunQueue(
     return true;
   }, []);
 
-  const { mutateAsync } = useMutation<Sent, Error>({
-    mutationKey: ['runner', 'outbox', key],
-    // Offline the send waits (paused) and goes on reconnect; Query's onlineManager follows the
-    // browser (./online). Every failure that may pass is retried, 2 s doubling to 30 s, for as
-    // long as the runner is open: the events are on the phone, so waiting costs nothing.
-    networkMode: 'online',
-    retry: () => mounted.current,
-    retryDelay,
-    mutationFn: async () => {
-      // Each attempt takes the head of the queue as it is now, so a retry carries what was added,
-      // but only what IndexedDB already holds: a tap whose write is under way waits for the next.
-      const batch = pendingRef.current.filter((e) => written.current.has(e.clientId)).slice(0, 100);
-      if (!batch.length || !mounted.current) return null;
-      let result: Awaited<ReturnType<SaveEvents>>;
-      try {
-        result = await saveEvents(null, { wheelId, events: batch });
-      } catch (error) {
-        // A deploy replaced the build this page came from, so its action id is gone: reload into
-        // the new build, which sends what waits from IndexedDB. Once a minute at most, then retry.
-        if (unstable_isUnrecognizedActionError(error) && reloadForNewBuild()) return null;
-        throw error;
-      }
-      if (!result.ok && keepsAndRetries(result.code)) {
-        const signedOut = result.code === 'unauthenticated';
-        setStatus((s) => ({
-          ...s,
-          signedOut,
-          error: signedOut
-            ? 'Your session has ended. Everything waiting stays on this phone.'
-            : result.message,
-        }));
-        throw new KeptForRetry(result.message, signedOut);
-      }
-      return { batch, result };
-    },
-    // Settled before the send counts as done, so the queue on the phone never lags the answer.
-    onSuccess: async (sent) => {
+  // One send, as the sender's Query mutation runs it. Offline it waits (paused) and goes on
+  // reconnect; every failure that may pass is retried, 2 s doubling to 30 s, for as long as the
+  // runner is open: the events are on the phone, so waiting costs nothing.
+  const attempt = useCallback(async (): Promise<Sent> => {
+    // Each attempt takes the head of the queue as it is now, so a retry carries what was added,
+    // but only what IndexedDB already holds: a tap whose write is under way waits for the next.
+    const batch = pendingRef.current.filter((e) => written.current.has(e.clientId)).slice(0, 100);
+    if (!batch.length || !mounted.current) return null;
+    let result: Awaited<ReturnType<SaveEvents>>;
+    try {
+      result = await saveEvents(null, { wheelId, events: batch });
+    } catch (error) {
+      // A deploy replaced the build this page came from, so its action id is gone: reload into
+      // the new build, which sends what waits from IndexedDB. Once a minute at most, then retry.
+      if (unstable_isUnrecognizedActionError(error) && reloadForNewBuild()) return null;
+      throw error;
+    }
+    if (!result.ok && keepsAndRetries(result.code)) {
+      const signedOut = result.code === 'unauthenticated';
+      setStatus((s) => ({
+        ...s,
+        signedOut,
+        error: signedOut
+          ? 'Your session has ended. Everything waiting stays on this phone.'
+          : result.message,
+      }));
+      throw new KeptForRetry(result.message, signedOut);
+    }
+    return { batch, result };
+  }, [saveEvents, wheelId]);
+  // Settled before the send counts as done, so the queue on the phone never lags the answer.
+  const settle = useCallback(
+    async (sent: Sent) => {
       if (!sent) return;
       const { batch, result } = sent;
       const sentIds = new Set(batch.map((e) => e.clientId));
@@ -193,18 +191,26 @@ export function useRunQueue(
         setStatus((s) => ({ ...s, error: result.message }));
       }
     },
-  });
+    [setAside, addSaved, store],
+  );
+  // The sender outlives renders; it reaches the latest of these through the ref.
+  const work = useRef({ attempt, settle });
+  useEffect(() => {
+    work.current = { attempt, settle };
+  }, [attempt, settle]);
 
   /** Sends the head of the queue unless a send is under way; then the next batch, until empty. */
   const flush = useCallback(() => {
-    if (!loaded.current || !pendingRef.current.length) return;
+    // Before the sender has loaded, what waits is on the phone: its arrival flushes.
+    const send = sender.current?.send;
+    if (!loaded.current || !pendingRef.current.length || !send) return;
     if (sending.current) {
       again.current = true; // e.g. a write committed after this send took its batch
       return;
     }
     sending.current = true;
     again.current = false;
-    void mutateAsync()
+    void send()
       .then((sent) => sent !== null)
       .catch(() => false) // given up only when the runner closed; the phone keeps the events
       .then((more) => {
@@ -213,7 +219,7 @@ export function useRunQueue(
         again.current = false;
         if (next && mounted.current) flushRef.current();
       });
-  }, [mutateAsync]);
+  }, []);
   useEffect(() => {
     flushRef.current = flush;
   }, [flush]);
@@ -240,11 +246,43 @@ export function useRunQueue(
     };
   }, [wheelId, person, generation, store, flush, addSaved]);
 
-  // Other phones' events on this wheel, pulled by Query every few seconds (paused offline).
-  const { data: remote } = useWheelEvents(eventsUrl, status.ready);
+  // The sender, once this phone's queue is read and the screen painted: it sends what waits and
+  // pulls other phones' events on this wheel every few seconds (both paused offline).
+  const ready = status.ready;
   useEffect(() => {
-    if (remote && addSaved(remote)) void persist();
-  }, [remote, addSaved, persist]);
+    if (!ready) return;
+    let stopped = false;
+    let started: Sender | null = null;
+    // A failed load (the network dropped before the service worker kept the file) is tried again.
+    const load = (): Promise<{ startSender: typeof startSender } | null> =>
+      stopped
+        ? Promise.resolve(null)
+        : import('./run-sender').catch(() =>
+            new Promise((again) => setTimeout(again, SENDER_RELOAD_MS)).then(load),
+          );
+    void afterPaint()
+      .then(load)
+      .then((module) => {
+        if (!module || stopped) return;
+        started = module.startSender<Sent>({
+          mutationKey: ['runner', 'outbox', key],
+          attempt: () => work.current.attempt(),
+          settle: (sent) => work.current.settle(sent),
+          keepTrying: () => mounted.current,
+          eventsUrl,
+          onRemote: (remote) => {
+            if (addSaved(remote)) void persist();
+          },
+        });
+        sender.current = started;
+        flushRef.current();
+      });
+    return () => {
+      stopped = true;
+      started?.stop();
+      if (sender.current === started) sender.current = null;
+    };
+  }, [ready, key, eventsUrl, addSaved, persist]);
 
   const record = useCallback(
     async (event: RunEvent) => {
