@@ -4,6 +4,7 @@ import { DomainError } from '@/server/errors';
 import { can, type Permission } from './permissions';
 import { signInThenBackTo } from './return-path';
 import { getCurrentMember, sessionCookieName, validateSessionId, type Member } from './session';
+import { sessionIdOf } from './session-token';
 
 /**
  * For pages and layouts: the signed-in member, or a redirect to sign-in (and back to `returnTo`
@@ -27,6 +28,12 @@ function readCookie(header: string | null, name: string): string | undefined {
     if (key === name) return decodeURIComponent(rest.join('='));
   }
   return undefined;
+}
+
+/** The request's session id (its cookie's hash) without asking the database; null when none. */
+export function sessionIdForRequest(request: Request): string | null {
+  const token = readCookie(request.headers.get('cookie'), sessionCookieName());
+  return token ? sessionIdOf(token) : null;
 }
 
 /** For route handlers: reads the cookie from the request itself and throws a DomainError. */

@@ -8,8 +8,15 @@ export const pct = (xs: number[], p: number) =>
     ? [...xs].sort((a, b) => a - b)[Math.min(xs.length - 1, Math.floor((p / 100) * xs.length))]!
     : NaN;
 
-/** Builds into .next-bench and serves it against `databaseUrl`; resolves once it answers. */
-export async function startProductionServer(port: number, databaseUrl: string) {
+/**
+ * Builds into .next-bench and serves it against `databaseUrl`; resolves once it answers.
+ * `serverEnv` is added for the server alone (not the build), e.g. NODE_OPTIONS for a CPU profile.
+ */
+export async function startProductionServer(
+  port: number,
+  databaseUrl: string,
+  serverEnv: Record<string, string> = {},
+) {
   const base = `http://127.0.0.1:${port}`;
   const env = {
     ...process.env,
@@ -31,7 +38,7 @@ export async function startProductionServer(port: number, databaseUrl: string) {
   }
   const server = spawn(next, ['start', '-H', '127.0.0.1', '-p', String(port)], {
     cwd: ROOT,
-    env,
+    env: { ...env, ...serverEnv },
     stdio: 'ignore',
   });
   for (let i = 0; i < 120; i++) {

@@ -2,11 +2,12 @@
  * `npm run bench:runner`: the runner's save path under load, against the production build over
  * loopback.
  * (a) 50 technicians, each confirming a bolt every 2 s (open arrivals, about 25 a second) for 30 s
- *     through the runner's save action (saveWheelEvents), signed in; in the same run, single-row inserts straight
- *     into PostgreSQL at the same rate.
+ *     through the runner's save path (POST /api/wheels/:id/events, as the runner's outbox sends),
+ *     signed in; in the same run, single-row inserts straight into PostgreSQL at the same rate.
  * (b) capacity: the rate rises by half, 30 s per step, while the p95 stays at or under 50 ms.
- * (d) what the framework costs with no database work: a server action and a route handler each
- *     answering a call with no session, 25 a second for 10 s each.
+ * (d) what the framework costs with no database work: a server action (practice's save, the one
+ *     the runner still calls as an action) and a route handler each answering a call with no
+ *     session, 25 a second for 10 s each.
  * (c) statements per confirmation: 200 confirmations one after another, counted from the
  *     database's own statistics (pg_stat_database: transactions, rows written).
  * Each confirmation is what the runner sends on a bolt: `bolt_confirmed` naming the pass's wrench
@@ -17,6 +18,8 @@
  * generator to core 1 (`taskset`, util-linux), so the generator's own work does not queue behind the
  * server's and stop measuring itself. PostgreSQL is a shared cluster and is not pinned.
  * `BENCH_PIN=0` leaves both unpinned.
+ * `BENCH_CPU_PROFILE=<folder>` has the server write a V8 CPU profile there when it stops (open it
+ * in Chrome's DevTools, Performance).
  * Last two lines: `capacity N confirmations/s at p95 <= 50 ms` and
  * `confirm p95 X ms, raw insert p95 Y ms, ratio Z`.
  */
@@ -137,34 +140,28 @@ function post(
   });
 }
 
-/**
- * One confirmation as the runner sends it: its server action, posted to the runner page with the
- * action's id from the build, arguments encoded as React encodes plain JSON (prev state, input).
- */
-let actionId = '';
+/** One confirmation as the runner's outbox sends it (features/runner/api/post-events.ts). */
 async function confirm(t: Tech, events: unknown[] = confirmEvents(t)): Promise<number> {
   const started = performance.now();
-  const body = JSON.stringify([null, { wheelId: t.wheelId, events }]);
-  const headers = {
-    cookie: t.cookie,
-    origin: BASE,
-    'content-type': 'text/plain;charset=UTF-8',
-    accept: 'text/x-component',
-    'next-action': actionId,
-  };
-  const res = await post(`/jobs/${t.jobId}/wheels/${t.wheelId}/run`, headers, body);
-  if (res.status !== 200 || !res.text.includes('{"ok":true,') || !res.text.includes('"refused":[]'))
+  const headers = { cookie: t.cookie, origin: BASE, 'content-type': 'application/json' };
+  const res = await post(`/api/wheels/${t.wheelId}/events`, headers, JSON.stringify({ events }));
+  if (res.status !== 200 || !res.text.includes('{"data":{') || !res.text.includes('"refused":[]'))
     throw new Error(`confirm answered ${res.status}: ${res.text.slice(0, 200)}`);
   return performance.now() - started;
 }
 
-/** The framework alone: the save action and a route handler, each refusing a call with no session. */
+/**
+ * The framework alone: a server action (practice's save, posted to a practice page with its id
+ * from the build, arguments as React encodes plain JSON) and a route handler, each refusing a call
+ * with no session.
+ */
+let actionId = '';
 async function signedOut(t: Tech, kind: 'action' | 'route'): Promise<number> {
   const started = performance.now();
   const res =
     kind === 'action'
       ? await post(
-          `/jobs/${t.jobId}/wheels/${t.wheelId}/run`,
+          `/practice/attempts/${t.wheelId}`,
           {
             origin: BASE,
             'content-type': 'text/plain;charset=UTF-8',
@@ -286,10 +283,13 @@ async function main() {
   await migrateDatabase(clusterUrl(DB));
   const sql = postgres(clusterUrl(DB), { max: 10, onnotice: () => {} });
   const techs = await seed(sql);
-  const server = await startProductionServer(PORT, clusterUrl(DB));
-  actionId = serverActionId(path.join(ROOT, server.distDir), 'saveWheelEvents');
+  const profile = process.env.BENCH_CPU_PROFILE;
+  const server = await startProductionServer(PORT, clusterUrl(DB), {
+    ...(profile ? { NODE_OPTIONS: `--cpu-prof --cpu-prof-dir=${path.resolve(profile)}` } : {}),
+  });
+  actionId = serverActionId(path.join(ROOT, server.distDir), 'savePracticeEvents');
   // "Wrench set" for each pass on every wheel (this also takes each wheel's snapshot); fails loudly
-  // when the action path is wrong or a wrench is refused.
+  // when the save's address is wrong or a wrench is refused.
   for (const t of techs) await confirm(t, WITH_WRENCH ? wrenchChosenEvents(t) : confirmEvents(t));
   const serverPid = listenerPid(PORT);
   if (PIN) {

@@ -339,21 +339,6 @@ export const ACTION_CASES: Record<string, ActionCase> = {
     asAllowed: { lead: 'conflict' },
     otherShop: 'not_found',
   },
-  '/app/(runner)/jobs/[jobId]/wheels/[wheelId]/run/actions.ts#saveWheelEvents': {
-    permission: 'jobs.run',
-    input: async (w) => ({
-      wheelId: (await freshJob(w)).wheels[0]!.id,
-      events: [
-        {
-          type: 'bolt_confirmed',
-          payload: { pass: 1, bolt: 1 },
-          clientId: randomUUID(),
-          clientAt: at(),
-        },
-      ],
-    }),
-    otherShop: 'not_found',
-  },
   '/app/(shop)/jobs/[jobId]/review/actions.ts#approveReviewed': {
     permission: 'jobs.signoff',
     input: async (w) => ({ jobId: (await awaitingJob(w)).id }),

@@ -1,7 +1,7 @@
 import type { ActionResult, FailureCode } from '@/server/action';
 import type { ClientEvent, EventRefusal } from '../events';
 
-/** The server action that stores a batch (passed down from the runner page). */
+/** Stores a batch: `postWheelEvents` (./post-events) for a real wheel, practice's server action for an attempt. */
 export type SaveEvents = (
   prev: unknown,
   input: { wheelId: string; events: ClientEvent[] },

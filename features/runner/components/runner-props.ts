@@ -44,8 +44,11 @@ export type RunnerProps = {
   rules: WrenchRules;
   events: ClientEvent[];
   photos: Photo[];
-  /** The server action that stores confirmed events; the page hands it down. */
-  saveEvents: SaveEvents;
+  /**
+   * How confirmed events are sent: practice hands down its server action; a real wheel's go to
+   * `POST /api/wheels/:id/events` (`postWheelEvents`) when none is given.
+   */
+  saveEvents?: SaveEvents;
   /** Sign-in that comes back to this runner, for when the session ends mid-wheel. */
   signInHref: string;
   /** A lead sent this wheel back: their note, and the steps to redo (none = the whole wheel). */

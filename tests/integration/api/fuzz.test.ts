@@ -302,6 +302,16 @@ const GOOD_BODIES: Record<string, () => Record<string, unknown>> = {
   '/app/api/jobs/[jobId]/transitions/route.ts': () => ({ action: 'start', note: '' }),
   '/app/api/jobs/[jobId]/wheels/route.ts': () => ({ ...fourWheels(world.records.spec.id)[0] }),
   '/app/api/wheels/[wheelId]/route.ts': () => ({ ...fourWheels(world.records.spec.id)[0] }),
+  '/app/api/wheels/[wheelId]/events/route.ts': () => ({
+    events: [
+      {
+        type: 'bolt_confirmed',
+        payload: { pass: 1, bolt: 1 },
+        clientId: randomUUID(),
+        clientAt: new Date().toISOString(),
+      },
+    ],
+  }),
   '/app/api/customers/route.ts': () => ({ name: 'Nell Orchard', phone: '555-0100' }),
   '/app/api/customers/[customerId]/route.ts': () => ({ name: 'Wren Halloway', phone: '555-0142' }),
   '/app/api/vehicles/route.ts': () => ({

@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { and, eq } from 'drizzle-orm';
 import { beforeEach, describe, expect, it } from 'vitest';
-import { saveWheelEvents } from '@/app/(runner)/jobs/[jobId]/wheels/[wheelId]/run/actions';
+import { saveWheelEvents } from '@/tests/helpers/save-wheel-events';
 import { POST as CREATE_JOB } from '@/app/api/jobs/route';
 import { GET } from '@/app/api/wheels/[wheelId]/events/route';
 import { POST as SUBMIT } from '@/app/api/wheels/[wheelId]/submit/route';

@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import { beforeEach, describe, expect, it } from 'vitest';
-import { saveWheelEvents } from '@/app/(runner)/jobs/[jobId]/wheels/[wheelId]/run/actions';
+import { saveWheelEvents } from '@/tests/helpers/save-wheel-events';
 import { GET } from '@/app/api/wheels/[wheelId]/events/route';
 import { POST as SUBMIT } from '@/app/api/wheels/[wheelId]/submit/route';
 import { getDb } from '@/db';
@@ -30,7 +30,7 @@ const confirm = (bolt: number, pass = 1, clientId: string = randomUUID()) => ({
   clientId,
   clientAt: new Date(base + 1000 * t++).toISOString(),
 });
-/** The runner's save path as the phone calls it: the server action, signed in as `userId`. */
+/** The runner's save path as the phone calls it: the route handler, signed in as `userId`. */
 const post = async (userId: string | null, events: unknown[], wheel = wheelId) => {
   if (userId) await actAs(userId);
   else resetNextRequest();
@@ -42,7 +42,7 @@ const stored = () =>
     .from(wheelRunEvents)
     .where(eq(wheelRunEvents.wheelId, wheelId));
 
-describe('the runner save action (saveWheelEvents)', () => {
+describe('the runner save path (POST /api/wheels/:id/events)', () => {
   it('stores each event once however often it is replayed, and starts the job', async () => {
     const batch = [confirm(1), confirm(13)];
     expect(await post(shop.technician.userId, batch)).toEqual({
@@ -176,7 +176,7 @@ describe('the runner save action (saveWheelEvents)', () => {
     expect(await post(null, [confirm(1)])).toMatchObject({
       ok: false,
       code: 'unauthenticated',
-      message: expect.stringMatching(/Sign in again/),
+      message: expect.stringMatching(/Sign in/),
     });
     const other = await createTestShop('Other');
     expect(await post(other.lead.userId, [confirm(1)])).toMatchObject({

@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import { beforeEach, describe, expect, it } from 'vitest';
-import { saveWheelEvents } from '@/app/(runner)/jobs/[jobId]/wheels/[wheelId]/run/actions';
+import { saveWheelEvents } from '@/tests/helpers/save-wheel-events';
 import { getDb } from '@/db';
 import { shopSettings, wheelRunEvents } from '@/db/schema';
 import { getJob } from '@/features/jobs/server/jobs';

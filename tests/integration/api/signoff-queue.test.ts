@@ -124,8 +124,7 @@ describe('GET /api/jobs/:jobId/review', () => {
 
 describe('a wheel run through the runner save path', () => {
   it('is judged against its snapshot, with the wrench and setting each bolt carried', async () => {
-    const { saveWheelEvents } =
-      await import('@/app/(runner)/jobs/[jobId]/wheels/[wheelId]/run/actions');
+    const { saveWheelEvents } = await import('@/tests/helpers/save-wheel-events');
     const { recordVerification } = await import('@/features/tool-crib/server/wrenches');
     const { actAs } = await import('@/tests/helpers/next-request');
     const { randomUUID } = await import('node:crypto');

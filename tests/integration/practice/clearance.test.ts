@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { saveWheelEvents } from '@/app/(runner)/jobs/[jobId]/wheels/[wheelId]/run/actions';
+import { saveWheelEvents } from '@/tests/helpers/save-wheel-events';
 import { POST as createJobApi } from '@/app/api/jobs/route';
 import { PATCH as patchJob } from '@/app/api/jobs/[jobId]/route';
 import { GET as wheelEvents } from '@/app/api/wheels/[wheelId]/events/route';

@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { saveWheelEvents } from '@/app/(runner)/jobs/[jobId]/wheels/[wheelId]/run/actions';
+import { saveWheelEvents } from '@/tests/helpers/save-wheel-events';
 import * as job from '@/app/api/jobs/[jobId]/route';
 import * as jobReport from '@/app/api/jobs/[jobId]/report/route';
 import * as jobReview from '@/app/api/jobs/[jobId]/review/route';

@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
-import { saveWheelEvents } from '@/app/(runner)/jobs/[jobId]/wheels/[wheelId]/run/actions';
+import { saveWheelEvents } from '@/tests/helpers/save-wheel-events';
 import { reviewSources } from '@/app/_review/sources';
 import { getJob } from '@/features/jobs/server/jobs';
 import { getJobReview } from '@/features/review/server/review-data';

@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { and, eq } from 'drizzle-orm';
 import { beforeEach, describe, expect, it } from 'vitest';
-import { saveWheelEvents } from '@/app/(runner)/jobs/[jobId]/wheels/[wheelId]/run/actions';
+import { saveWheelEvents } from '@/tests/helpers/save-wheel-events';
 import RunPage from '@/app/(runner)/jobs/[jobId]/wheels/[wheelId]/run/page';
 import { GET as EVENTS } from '@/app/api/wheels/[wheelId]/events/route';
 import { getDb } from '@/db';

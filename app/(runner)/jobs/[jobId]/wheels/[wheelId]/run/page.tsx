@@ -23,7 +23,6 @@ import { can } from '@/server/auth/permissions';
 import { signInThenBackTo } from '@/server/auth/return-path';
 import { DomainError, orNotFound } from '@/server/errors';
 import { getShopSettings } from '@/server/shop/settings';
-import { saveWheelEvents } from './actions';
 
 export const metadata: Metadata = { title: 'Runner' };
 
@@ -107,7 +106,6 @@ export default async function RunPage({ params }: PageProps<'/jobs/[jobId]/wheel
       }}
       events={events}
       photos={photos}
-      saveEvents={saveWheelEvents}
       signInHref={signInThenBackTo(here)}
       rework={
         wheel.rework && !wheel.submittedAt
