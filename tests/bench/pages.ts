@@ -1,6 +1,7 @@
 /**
- * `npm run bench:pages`: for each route, the JavaScript the browser downloads (gzip bytes on the
- * wire, from Chromium's network events) and the Largest Contentful Paint under mobile emulation
+ * `npm run bench:pages`: for each route, the JavaScript the browser downloads before the page can
+ * be used (gzip bytes on the wire; what counts: first-load.ts), what it loads after that until the
+ * network is idle (printed apart), and the Largest Contentful Paint under mobile emulation
  * (360×640, 4× CPU slowdown, 150 ms RTT / 1.6 Mbps like Lighthouse's mobile profile). Then the
  * runner's tap (tap-timing.ts): 48 taps on "Clicked — bolt N" against 48 on a page holding one
  * button, both at 4× CPU slowdown, taken in turn (a floor tap, a runner tap) so both see the same
@@ -13,6 +14,7 @@ import path from 'node:path';
 import { chromium, type CDPSession, type Page } from 'playwright-core';
 import { E2E, ROOT } from '../helpers/test-services';
 import { waitForMail } from '../helpers/mailbox';
+import { kb, MARK_HYDRATION, scriptsOf } from './first-load';
 import { reachTorquePass, runnerTaps, stockWrench } from './runner-taps';
 import { openFloor, percentile, tapLine } from './tap-timing';
 
@@ -47,21 +49,6 @@ async function waitForServer(url: string, seconds: number) {
 }
 
 async function measure(page: Page, cdp: CDPSession, path: string) {
-  const scripts = new Map<string, string>();
-  let jsBytes = 0;
-  const onResponse = (e: {
-    requestId: string;
-    type?: string;
-    response: { url: string; mimeType: string };
-  }) => {
-    if (e.type === 'Script' || e.response.mimeType.includes('javascript'))
-      scripts.set(e.requestId, e.response.url);
-  };
-  const onFinished = (e: { requestId: string; encodedDataLength: number }) => {
-    if (scripts.has(e.requestId)) jsBytes += e.encodedDataLength;
-  };
-  cdp.on('Network.responseReceived', onResponse);
-  cdp.on('Network.loadingFinished', onFinished);
   await cdp.send('Network.clearBrowserCache');
   await page.goto(BASE + path, { waitUntil: 'networkidle' });
   const lcp = await page.evaluate(
@@ -74,9 +61,25 @@ async function measure(page: Page, cdp: CDPSession, path: string) {
         setTimeout(() => resolve(NaN), 3000);
       }),
   );
-  cdp.off('Network.responseReceived', onResponse);
-  cdp.off('Network.loadingFinished', onFinished);
-  return { path, scripts: scripts.size, jsKb: jsBytes / 1024, lcpMs: lcp };
+  const { hydratedMs, scripts } = await scriptsOf(page);
+  const first = scripts.filter((s) => s.first);
+  const later = scripts.filter((s) => !s.first);
+  // BENCH_SCRIPTS=1: each script, its gzip size and when it was asked for.
+  if (process.env.BENCH_SCRIPTS) {
+    console.log(`${path}: hydrated at ${hydratedMs?.toFixed(0) ?? 'never (all counted)'} ms`);
+    for (const s of scripts)
+      console.log(
+        `  ${s.first ? 'first' : 'later'} ${(s.gzipBytes / 1024).toFixed(1).padStart(6)} kB at ${s.startMs.toFixed(0).padStart(5)} ms  ${new URL(s.url).pathname}`,
+      );
+  }
+  return {
+    path,
+    scripts: first.length,
+    jsKb: kb(first),
+    laterKb: kb(later),
+    later: later.length,
+    lcpMs: lcp,
+  };
 }
 
 async function main() {
@@ -96,6 +99,7 @@ async function main() {
     const browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: ARGS });
     const context = await browser.newContext(PHONE);
     const page = await context.newPage();
+    await page.addInitScript(MARK_HYDRATION);
     const cdp = await context.newCDPSession(page);
     await cdp.send('Network.enable');
     await cdp.send('Network.setCacheDisabled', { cacheDisabled: true });
@@ -191,10 +195,12 @@ async function main() {
     await floorBrowser.close();
     await browser.close();
 
-    console.log('route             scripts   JS gzip kB   LCP ms (mobile, 4x CPU, 150 ms RTT)');
+    console.log(
+      'route             scripts   first-load JS gzip kB   later (scripts, kB)   LCP ms (mobile, 4x CPU, 150 ms RTT)',
+    );
     for (const r of rows) {
       console.log(
-        `${r.path.slice(0, 16).padEnd(17)} ${String(r.scripts).padStart(7)} ${r.jsKb.toFixed(1).padStart(12)} ${Number.isNaN(r.lcpMs) ? '   n/a' : r.lcpMs.toFixed(0).padStart(6)}`,
+        `${r.path.slice(0, 16).padEnd(17)} ${String(r.scripts).padStart(7)} ${r.jsKb.toFixed(1).padStart(23)} ${`${r.later}, ${r.laterKb.toFixed(1)}`.padStart(21)}   ${Number.isNaN(r.lcpMs) ? '   n/a' : r.lcpMs.toFixed(0).padStart(6)}`,
       );
     }
     console.log(
