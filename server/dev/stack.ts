@@ -28,6 +28,7 @@ async function main(mode: 'start' | 'dev') {
   if (!plan.ok) throw new Error(plan.message);
   const env: NodeJS.ProcessEnv = {
     ...process.env,
+    ...plan.processEnv,
     NEXT_TELEMETRY_DISABLED: '1',
     APP_URL: plan.appUrl,
     HOST: plan.host,

@@ -12,7 +12,10 @@
  * CPU time of the whole process (the image library's threads included) and peak RSS from the
  * kernel's high-water mark (VmHWM, reset before each build through /proc/self/clear_refs).
  * Last line: build p95, CPU p50, and the process's RSS before its first build, its peak during the
- * builds and the difference (what building reports costs the process that builds them).
+ * builds and the difference (what building reports costs the process that builds them), and the
+ * first build's own peak (a worker's first report loads the PDF and image libraries). The Next
+ * server's shape is not measured here (it needs a production build); it loads the same report
+ * modules with its first report.
  */
 import { spawn, spawnSync } from 'node:child_process';
 import { rmSync } from 'node:fs';
@@ -22,6 +25,7 @@ import { createInterface } from 'node:readline';
 import os from 'node:os';
 import { clusterUrl, recreateDatabase, startCluster } from '@/db/cluster';
 import { migrateDatabase } from '@/db/migrate';
+import { serverProcessEnv } from '@/server/dev/stack-plan';
 import { ROOT } from '../helpers/test-services';
 import { pct, run } from './production-server';
 
@@ -76,7 +80,12 @@ async function main() {
     DATABASE_URL: clusterUrl(DB),
     SMTP_URL: 'smtp://127.0.0.1:2599',
   });
-  const builderEnv = { ...process.env, NODE_ENV: 'production' };
+  // As `npm start` starts its worker: its process environment (MALLOC_ARENA_MAX), production.
+  const builderEnv = {
+    ...process.env,
+    ...serverProcessEnv(process.env),
+    NODE_ENV: 'production' as const,
+  };
   const { signedOffJob } = await import('../helpers/report-work');
   const { getDb, closeDb } = await import('@/db');
   const { wheelPhotos } = await import('@/db/schema');
@@ -129,7 +138,7 @@ async function main() {
       `[bench] ${BUILDS} builds: p50 ${(pct(ms, 50) / 1000).toFixed(2)} s, p95 ${(pct(ms, 95) / 1000).toFixed(2)} s, max ${(Math.max(...ms) / 1000).toFixed(2)} s; CPU p50 ${(pct(cpuMs, 50) / 1000).toFixed(2)} s, p95 ${(pct(cpuMs, 95) / 1000).toFixed(2)} s; RSS after the last build ${(result.end / MB).toFixed(0)} MB; load average ${os.loadavg()[0]!.toFixed(1)}`,
     );
     console.log(
-      `report build p95 ${(pct(ms, 95) / 1000).toFixed(2)} s, CPU p50 ${(pct(cpuMs, 50) / 1000).toFixed(2)} s; worker-shaped process RSS ${(result.baseline / MB).toFixed(0)} MB before the first build, peak ${(peak / MB).toFixed(0)} MB during ${BUILDS + 1} builds (+${((peak - result.baseline) / MB).toFixed(0)} MB) (4 wheels, ${BOLTS} bolts, ${photos.length} photos; MALLOC_ARENA_MAX=${result.arenaMax ?? 'unset'})`,
+      `report build p95 ${(pct(ms, 95) / 1000).toFixed(2)} s, CPU p50 ${(pct(cpuMs, 50) / 1000).toFixed(2)} s; worker-shaped process RSS ${(result.baseline / MB).toFixed(0)} MB before the first build, peak ${(peak / MB).toFixed(0)} MB during ${BUILDS + 1} builds (+${((peak - result.baseline) / MB).toFixed(0)} MB; the first build ${(result.first.peak / MB).toFixed(0)} MB) (4 wheels, ${BOLTS} bolts, ${photos.length} photos; MALLOC_ARENA_MAX=${result.arenaMax ?? 'unset'})`,
     );
   } finally {
     fake.stop();

@@ -116,3 +116,13 @@ describe('PORT and HOST', () => {
       });
   });
 });
+
+describe("the server's and worker's processes", () => {
+  it('start with two C allocator arenas, unless MALLOC_ARENA_MAX is already set', () => {
+    expect(planStack({})).toMatchObject({ ok: true, processEnv: { MALLOC_ARENA_MAX: '2' } });
+    expect(planStack({ MALLOC_ARENA_MAX: '4' })).toMatchObject({
+      ok: true,
+      processEnv: { MALLOC_ARENA_MAX: '4' },
+    });
+  });
+});
