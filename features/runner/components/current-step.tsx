@@ -1,29 +1,23 @@
 'use client';
 
-import { memo, useEffect, useMemo, type ReactNode } from 'react';
+import { memo, useMemo, type ReactNode } from 'react';
 import { arrowDirection } from '@/features/torque-plan';
-import { afterPaint } from '../api/after-paint';
 import type { RunEvent } from '../events';
 import { missingPhotos } from '../photo-kinds';
 import type { RunnerState } from '../state';
 import type { Step } from '../steps';
 import type { PhotoSlotFor } from './bolt-problem';
-import {
-  HandStartPanel,
-  PhotoCapture,
-  preloadHandStart,
-  ReinstallPanel,
-  SummaryPanel,
-} from './lazy-parts';
+import { HandStartPanel } from './hand-start-panel';
+import { PhotoCapture, ReinstallPanel, SummaryPanel } from './lazy-parts';
 import type { Photo } from './photo-capture';
 import type { RunnerProps } from './runner-props';
 import { StepPanel } from './step-panel';
 import { TorquePanel } from './torque-panel';
 
 /**
- * The screen of the step the wheel is at. The torque passes (the bolt circle and the big button)
- * and the checklist steps come with the page; hand-start, the photos, re-install and the summary
- * load when their step opens, hand-start ahead (after the first paint) while the wheel is before it. Memoised: the runner hands it stable props, so only a
+ * The screen of the step the wheel is at. Hand-start and the torque passes (the bolt circle and
+ * the big button) and the checklist steps come with the page; the photos, re-install and the
+ * summary load when their step opens. Memoised: the runner hands it stable props, so only a
  * change of progress (a tap) redraws it, not a save's answer.
  */
 export const CurrentStep = memo(function CurrentStep({
@@ -56,10 +50,6 @@ export const CurrentStep = memo(function CurrentStep({
   const level = practice?.level;
   const passPractice = useMemo(() => (level ? { level } : undefined), [level]);
   const photoKinds = photos.map((p) => p.kind);
-  const handStartAhead = step.id !== 'hand_start' && state.status.hand_start === 'todo';
-  useEffect(() => {
-    if (handStartAhead) void afterPaint().then(preloadHandStart);
-  }, [handStartAhead]);
   if (step.id === 'hand_start')
     return (
       <HandStartPanel

@@ -7,8 +7,7 @@ import { StepLoading, StepNotLoaded } from './step-loading';
 /**
  * The runner's parts that only some steps show, each loaded when its step opens (next/dynamic):
  * the technician's first load carries the steps, the bolt circle and the big button, not the
- * photo uploader, the verification form, the summary, the bolt-problem form or the hand-start
- * ring (only the wheels not yet past it need it; see preloadHandStart). A part shown on
+ * photo uploader, the verification form, the summary or the bolt-problem form. A part shown on
  * the first render is still rendered on the server and its script preloaded with the page; the
  * service worker keeps every script of the build for a reload without Wi-Fi.
  */
@@ -63,14 +62,3 @@ export const ReinstallPanel = onDemand(
   'the re-install step',
   'min-h-96',
 );
-export const HandStartPanel = onDemand(
-  () => import('./hand-start-panel').then((m) => m.HandStartPanel),
-  'the hand-start ring',
-  'min-h-96',
-);
-/** Fetches the hand-start panel's file after the first paint, so reaching that step shows it at once. */
-export function preloadHandStart() {
-  void import('./hand-start-panel').catch(() => {
-    // Offline and never fetched: the panel itself says so (onDemand) when its step opens.
-  });
-}
