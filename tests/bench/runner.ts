@@ -8,6 +8,8 @@
  * (d) what the framework costs with no database work: a server action (practice's save, the one
  *     the runner still calls as an action) and a route handler each answering a call with no
  *     session, 25 a second, 5 s of each in turn, twice; latency and server CPU per call.
+ * (e) the same save both ways, signed in: practice's batch (one transaction) through its server action
+ *     and through its route handler, 25 a second, 5 s of each in turn, twice; server CPU per call.
  * (c) statements per confirmation: 200 confirmations one after another, counted from the
  *     database's own statistics (pg_stat_database: transactions, rows written).
  * Each confirmation is what the runner sends on a bolt: `bolt_confirmed` naming the pass's wrench
@@ -23,10 +25,7 @@
  * Last two lines: `capacity N confirmations/s at p95 <= 50 ms` and
  * `confirm p95 X ms, raw insert p95 Y ms, ratio Z`.
  */
-import { execFileSync } from 'node:child_process';
 import { randomUUID } from 'node:crypto';
-import { readFileSync } from 'node:fs';
-import http from 'node:http';
 import path from 'node:path';
 import postgres from 'postgres';
 import { clusterUrl, recreateDatabase, startCluster } from '@/db/cluster';
@@ -35,6 +34,7 @@ import { serverActionId } from '../helpers/next-build';
 import { newSessionToken } from '../helpers/session-row';
 import { ROOT } from '../helpers/test-services';
 import { pct, run, startProductionServer } from './production-server';
+import { cpuMs, httpClient, listenerPid, load, pin } from './runner-load';
 
 const DB = 'ringpass_bench_runner';
 const PORT = 3201;
@@ -45,6 +45,7 @@ const WITH_WRENCH = process.env.BENCH_EVENTS !== 'plain';
 const PIN = process.env.BENCH_PIN !== '0';
 // The bench spec's plan: 30 %, 70 %, 100 % of 12 ft-lb, then the check pass at 100 %.
 const SETTINGS = [3.6, 8.4, 12, 12];
+const { post, close: closeClient } = httpClient(BASE);
 
 type Tech = {
   cookie: string;
@@ -120,26 +121,6 @@ function wrenchChosenEvents(t: Tech) {
   }));
 }
 
-// A light HTTP client with keep-alive: undici's fetch added 2-4 ms of the generator's own CPU to
-// every round trip on this machine, which is not the server's time.
-const agent = new http.Agent({ keepAlive: true, maxSockets: 256 });
-function post(
-  path: string,
-  headers: Record<string, string>,
-  body: string,
-): Promise<{ status: number; text: string }> {
-  return new Promise((resolve, reject) => {
-    const req = http.request(`${BASE}${path}`, { method: 'POST', headers, agent }, (res) => {
-      let text = '';
-      res.setEncoding('utf8');
-      res.on('data', (chunk: string) => (text += chunk));
-      res.on('end', () => resolve({ status: res.statusCode ?? 0, text }));
-    });
-    req.on('error', reject);
-    req.end(body);
-  });
-}
-
 /** One confirmation as the runner's outbox sends it (features/runner/api/post-events.ts). */
 async function confirm(t: Tech, events: unknown[] = confirmEvents(t)): Promise<number> {
   const started = performance.now();
@@ -187,52 +168,6 @@ async function rawInsert(sql: postgres.Sql, t: Tech): Promise<number> {
   return performance.now() - started;
 }
 
-/** Open arrivals: requests start on schedule whether or not earlier ones have finished. */
-async function load(rate: number, seconds: number, run: (i: number) => Promise<number>) {
-  const times: number[] = [];
-  let errors = 0;
-  const inflight: Promise<void>[] = [];
-  const start = performance.now();
-  const total = Math.round(rate * seconds);
-  for (let i = 0; i < total; i++) {
-    const due = start + (i * 1000) / rate;
-    const wait = due - performance.now();
-    if (wait > 1) await new Promise((r) => setTimeout(r, wait));
-    inflight.push(
-      run(i).then(
-        (ms) => void times.push(ms),
-        (error: unknown) => {
-          // The first failure of a phase is printed: a refusal and a dropped socket differ.
-          if (!errors++) console.log(`[bench] first error: ${String(error).slice(0, 300)}`);
-        },
-      ),
-    );
-  }
-  await Promise.all(inflight);
-  return { times, errors };
-}
-
-/** Pins a process and all its threads to one core (util-linux's taskset). */
-function pin(pid: number, core: number) {
-  execFileSync('taskset', ['--all-tasks', '--cpu-list', '--pid', String(core), String(pid)], {
-    stdio: 'ignore',
-  });
-}
-
-/** The process listening on a loopback port (the Next server `next start` runs). */
-function listenerPid(port: number): number {
-  const out = execFileSync('ss', ['-Hltnp', `sport = :${port}`], { encoding: 'utf8' });
-  const pid = /pid=(\d+)/.exec(out)?.[1];
-  if (!pid) throw new Error(`nothing listens on ${port}`);
-  return Number(pid);
-}
-
-/** CPU time (ms) a process has used so far, user and system (Linux /proc; clock ticks of 10 ms). */
-function cpuMs(pid: number): number {
-  const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1]!.split(' ');
-  return (Number(fields[11]) + Number(fields[12])) * 10;
-}
-
 type DbCounts = {
   xact: number;
   inserted: number;
@@ -275,6 +210,79 @@ async function countPerConfirmation(sql: postgres.Sql, techs: Tech[], serverPid:
   console.log(
     `[bench] (c) one at a time: p50 ${pct(times, 50).toFixed(2)} ms; Next server CPU ${cpu.toFixed(2)} ms, database active ${per('activeMs')} ms per confirmation`,
   );
+}
+
+/** A practice attempt per technician, started through the API as the practice page does. */
+async function startAttempts(techs: Tech[]): Promise<string[]> {
+  const headers = (t: Tech) => ({
+    cookie: t.cookie,
+    origin: BASE,
+    'content-type': 'application/json',
+  });
+  const body = JSON.stringify({ source: 'surprise', level: 'guided' });
+  return Promise.all(
+    techs.map(async (t) => {
+      const res = await post('/api/practice/attempts', headers(t), body);
+      const id = (JSON.parse(res.text) as { data?: { id?: string } }).data?.id;
+      if (res.status !== 201 || !id) throw new Error(`attempt answered ${res.status}: ${res.text}`);
+      return id;
+    }),
+  );
+}
+
+/** One practice save: the same batch and the same work, as a server action or a route handler. */
+async function practiceSave(t: Tech, attempt: string, kind: 'action' | 'route'): Promise<number> {
+  const started = performance.now();
+  const events = [{ ...confirmEvents(t)[0]!, payload: { pass: 1, bolt: 1 + (t.n % 8) } }];
+  const res =
+    kind === 'action'
+      ? await post(
+          `/practice/attempts/${attempt}`,
+          {
+            cookie: t.cookie,
+            origin: BASE,
+            'content-type': 'text/plain;charset=UTF-8',
+            accept: 'text/x-component',
+            'next-action': actionId,
+          },
+          JSON.stringify([null, { wheelId: attempt, events }]),
+        )
+      : await post(
+          `/api/practice/attempts/${attempt}/events`,
+          { cookie: t.cookie, origin: BASE, 'content-type': 'application/json' },
+          JSON.stringify({ events }),
+        );
+  const saved =
+    kind === 'action' ? res.text.includes('"ok":true') : res.text.startsWith('{"data":');
+  if (res.status !== 200 || !saved)
+    throw new Error(`practice ${kind} answered ${res.status}: ${res.text.slice(0, 200)}`);
+  return performance.now() - started;
+}
+
+/** (e): the framework's share of a signed-in save, the work held equal. */
+async function bothWays(techs: Tech[], serverPid: number) {
+  const attempts = await startAttempts(techs);
+  const seen = {
+    action: { times: [] as number[], cpu: 0, errors: 0 },
+    route: { times: [] as number[], cpu: 0, errors: 0 },
+  };
+  for (let round = 0; round < 2; round++) {
+    for (const kind of ['action', 'route'] as const) {
+      const cpuBefore = cpuMs(serverPid);
+      const step = await load(25, 5, (i) =>
+        practiceSave(techs[i % TECHS]!, attempts[i % TECHS]!, kind),
+      );
+      seen[kind].cpu += cpuMs(serverPid) - cpuBefore;
+      seen[kind].times.push(...step.times);
+      seen[kind].errors += step.errors;
+    }
+  }
+  for (const kind of ['action', 'route'] as const) {
+    const f = seen[kind];
+    console.log(
+      `[bench] (e) practice save as a ${kind === 'action' ? 'server action' : 'route handler'}: p50 ${pct(f.times, 50).toFixed(1)} ms, server CPU ${(f.cpu / (f.times.length + f.errors)).toFixed(2)} ms per call (${f.errors} errors)`,
+    );
+  }
 }
 
 async function main() {
@@ -335,6 +343,8 @@ async function main() {
       );
     }
 
+    await bothWays(techs, serverPid);
+
     // (b) capacity: raise the rate by half while p95 stays within 50 ms and nothing fails.
     let best = 0;
     for (let r = 50; r <= 3200; r = Math.round(r * 1.5)) {
@@ -353,7 +363,7 @@ async function main() {
     );
   } finally {
     server.stop();
-    agent.destroy();
+    closeClient();
     await sql.end();
   }
 }
