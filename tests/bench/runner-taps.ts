@@ -16,6 +16,18 @@ const BLUE = {
   graduation: 1,
 };
 
+/** What DevTools' Performance panel records: tasks, style, layout, paint and the frames. */
+const TRACE = [
+  'devtools.timeline',
+  'disabled-by-default-devtools.timeline',
+  'disabled-by-default-devtools.timeline.frame',
+  'disabled-by-default-devtools.timeline.invalidationTracking',
+  'blink.user_timing',
+  'v8.execute',
+  'latencyInfo',
+  'toplevel',
+];
+
 type Call = <T>(path: string, data: unknown) => Promise<T>;
 
 /** A wrench verified today near each pass's setting of a 12 ft-lb spec (43, 101, 144 in-lb). */
@@ -64,6 +76,11 @@ export async function runnerTaps(
   const wrenchSet = page.getByRole('button', { name: 'Wrench set' });
   await wrenchSet.or(confirm).first().waitFor();
   await observeTaps(page);
+  // BENCH_TAP_TRACE=<file>: a Chrome trace of the taps (style, layout, paint and scripts per frame,
+  // which a CPU profile does not show); like the profile, for finding costs, not for figures.
+  const trace = process.env.BENCH_TAP_TRACE;
+  const browser = page.context().browser();
+  if (trace && browser) await browser.startTracing(page, { path: trace, categories: TRACE });
   const lastAt = { at: 0 };
   const starts: TapStart[] = [];
   while (starts.filter((s) => s.measured).length < taps) {
@@ -79,5 +96,6 @@ export async function runnerTaps(
     const at = await tapOnce(page, confirm, () => gone(page, name), lastAt);
     starts.push({ at, measured: !lastOfPass });
   }
+  if (trace && browser) await browser.stopTracing();
   return collect(page, starts);
 }
