@@ -1,13 +1,14 @@
 'use client';
 
 import Link from 'next/link';
-import { memo } from 'react';
+import { memo, useDeferredValue } from 'react';
 import type { BackLink } from '../back-link';
 
 /**
  * The runner's sticky header: the way back, which wheel this is, and what this phone still holds
  * ("Saved", "3 waiting · offline"); when saving stopped, why, with "Sign in again" if the session ended.
- * Memoised on plain values: a save's answer redraws this header and nothing else.
+ * Memoised on plain values: a save's answer redraws this header and nothing else, and within it
+ * only the status (the way back and the title keep their memo).
  */
 export const RunnerHeader = memo(function RunnerHeader({
   back,
@@ -30,28 +31,22 @@ export const RunnerHeader = memo(function RunnerHeader({
   signedOut: boolean;
   signInHref: string;
 }) {
+  // The count follows a tap in a render of its own, after the frame that draws the next bolt:
+  // the tap's frame then has no header to restyle and repaint.
+  const shownWaiting = useDeferredValue(waiting);
   return (
     <header className="bg-ink sticky top-0 z-10 px-3 py-2 text-white landscape:py-1">
       <div className="flex items-center justify-between gap-2">
-        {/* On its side the phone has little height: one line, so the ring keeps the room. */}
-        <div className="flex min-w-0 flex-col landscape:flex-row landscape:items-center landscape:gap-3">
-          <Link
-            href={back.href}
-            className="min-h-touch inline-flex shrink-0 items-center font-bold underline"
-          >
-            ← {back.label}
-          </Link>
-          <p className="font-semibold">{title}</p>
-        </div>
+        <HeaderTitle back={back} title={title} />
         <p
           role="status"
           aria-live="polite"
-          className={`shrink-0 rounded-full px-3 py-1 text-sm font-bold ${!ready ? 'text-ink bg-white' : waiting ? 'bg-caution text-caution-ink' : 'bg-ok text-white'}`}
+          className={`shrink-0 rounded-full px-3 py-1 text-sm font-bold ${!ready ? 'text-ink bg-white' : shownWaiting ? 'bg-caution text-caution-ink' : 'bg-ok text-white'}`}
         >
           {!ready
             ? 'Checking this phone…'
-            : waiting
-              ? `${waiting} waiting${online ? '' : ' · offline'}`
+            : shownWaiting
+              ? `${shownWaiting} waiting${online ? '' : ' · offline'}`
               : 'Saved'}
         </p>
       </div>
@@ -69,5 +64,21 @@ export const RunnerHeader = memo(function RunnerHeader({
         </p>
       ) : null}
     </header>
+  );
+});
+
+/** The way back and which wheel this is: the same all through a run, so never redrawn by a tap. */
+const HeaderTitle = memo(function HeaderTitle({ back, title }: { back: BackLink; title: string }) {
+  return (
+    // On its side the phone has little height: one line, so the ring keeps the room.
+    <div className="flex min-w-0 flex-col landscape:flex-row landscape:items-center landscape:gap-3">
+      <Link
+        href={back.href}
+        className="min-h-touch inline-flex shrink-0 items-center font-bold underline"
+      >
+        ← {back.label}
+      </Link>
+      <p className="font-semibold">{title}</p>
+    </div>
   );
 });

@@ -27,7 +27,6 @@ export type BoltTap = { pass: number; bolt: number; turned?: boolean };
  * The last tap's time outlives a pass change, so a bounce on the next pass's first bolt is caught.
  */
 export function useConfirmBolt(record: (e: RunEvent) => Promise<void>, onConfirmed: () => void) {
-  const { vibrate } = useRunnerSettings();
   const lastTap = useRef<number | null>(null);
   // `at`: the tap's own time stamp (the event's), so two taps are compared on one clock.
   return (at: number, { pass, bolt, turned }: BoltTap, used: UsedWrench | null) => {
@@ -39,7 +38,9 @@ export function useConfirmBolt(record: (e: RunEvent) => Promise<void>, onConfirm
       type: 'bolt_confirmed',
       payload: { pass, bolt, ...withWrench, ...(turned === undefined ? {} : { turned }) },
     });
-    cue(`Bolt ${bolt} done`, false, vibrate);
+    // Read at the tap, not subscribed to: the panel holding this hook is not redrawn when the
+    // phone's settings change, and the buzz still follows the setting as it is now.
+    cue(`Bolt ${bolt} done`, false, useRunnerSettings.getState().vibrate);
     onConfirmed();
   };
 }

@@ -92,6 +92,37 @@ describe('BoltCircle', () => {
 });
 
 describe('bolt positions', () => {
+  it('a confirmation changes the two bolts in place: no element of a bolt is added or removed', async () => {
+    const order = tighteningSequence(8, { kind: 'cross' });
+    const ring = (done: number[]) => (
+      <BoltCircle
+        count={8}
+        order={order}
+        done={done}
+        next={order[done.length]}
+        label="Pass 1"
+        onSelect={() => {}}
+      />
+    );
+    const { rerender } = render(ring([]));
+    const added: Node[] = [];
+    const removed: Node[] = [];
+    const seen = new MutationObserver((records) => {
+      for (const r of records) {
+        added.push(...r.addedNodes);
+        removed.push(...r.removedNodes);
+      }
+    });
+    for (const bolt of screen.getAllByRole('button'))
+      seen.observe(bolt, { childList: true, subtree: true });
+    rerender(ring([order[0]!]));
+    await Promise.resolve(); // mutation records are delivered in a microtask
+    seen.disconnect();
+    expect(screen.getByRole('button', { name: /^bolt 1,.*done/ })).toBeInTheDocument();
+    expect(screen.getByRole('button', { name: /next/ })).toHaveAccessibleName(/^bolt 5,/);
+    expect([added.length, removed.length]).toEqual([0, 0]);
+  });
+
   it('bolt 1 sits just clockwise of the valve notch at 12 o’clock, and they go round clockwise', () => {
     const one = boltPosition(1, 8, 100);
     const two = boltPosition(2, 8, 100);

@@ -8,8 +8,10 @@ import { memo, type ReactNode } from 'react';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import type { SaveEvents } from '@/features/runner/api/use-run-queue';
 import { Runner, type RunnerProps } from '@/features/runner/components/runner';
+import { DOUBLE_TAP_MS } from '@/features/runner/double-tap';
 import type { ClientEvent, RunEvent } from '@/features/runner/events';
 import { reduceRun, type RunnerPlan } from '@/features/runner/state';
+import { useRunnerSettings } from '@/features/runner/settings-store';
 import { stepsFor } from '@/features/runner/steps';
 import { CLICK_WRENCH } from '@/tests/helpers/runner-fixtures';
 
@@ -25,6 +27,17 @@ function counted(name: string, real: unknown) {
     return inner(props);
   });
 }
+// The header's way back (next/link), counted around the real link.
+vi.mock('next/link', async (real: () => Promise<{ default: (p: object) => ReactNode }>) => {
+  const [mod, { createElement }] = await Promise.all([real(), import('react')]);
+  return {
+    ...mod,
+    default: function CountedLink(props: object) {
+      renders.counts.set('Link', (renders.counts.get('Link') ?? 0) + 1);
+      return createElement(mod.default, props);
+    },
+  };
+});
 vi.mock('@/features/bolt-circle/bolt', async (real: () => Promise<Record<string, unknown>>) => {
   const mod = await real();
   return { ...mod, Bolt: counted('Bolt', mod.Bolt) };
@@ -176,16 +189,50 @@ describe('a tap on the runner', () => {
     expect(count('TorquePanel')).toBe(1);
     expect(count('PassRing')).toBe(1);
     expect(renders.bolts.sort()).toEqual([1, 5]);
-    expect(count('RunnerHeader')).toBe(1);
+    // The header twice: in the tap's render with its count as it was (useDeferredValue), then
+    // alone with "1 waiting"; its way back (a link) not at all.
+    expect(count('RunnerHeader')).toBe(2);
+    expect(count('Link')).toBe(0);
     expect(count('RunnerFooter')).toBe(0);
 
     reset();
     await act(async () => answer(true));
     await screen.findByText('Saved');
     expect(count('RunnerHeader')).toBeGreaterThanOrEqual(1);
+    expect(count('Link')).toBe(0);
     expect(count('TorquePanel')).toBe(0);
     expect(count('PassRing')).toBe(0);
     expect(count('Bolt')).toBe(0);
     expect(count('RunnerFooter')).toBe(0);
+  });
+
+  it("a change of the phone's settings redraws the footer, not the pass; the buzz follows the setting at the tap", async () => {
+    const vibrate = vi.fn(() => true);
+    Object.defineProperty(navigator, 'vibrate', { value: vibrate, configurable: true });
+    const save = vi.fn<SaveEvents>(() => new Promise(() => {}));
+    render(
+      <QueryClientProvider client={new QueryClient()}>
+        <Runner {...props(save)} />
+      </QueryClientProvider>,
+    );
+    await screen.findByText('Saved');
+    fireEvent.click(screen.getByRole('button', { name: 'Wrench set' }));
+    fireEvent.click(await screen.findByRole('button', { name: 'Clicked — bolt 1' }));
+    await screen.findByRole('button', { name: 'Clicked — bolt 5' });
+    expect(vibrate).toHaveBeenCalledTimes(1);
+
+    reset();
+    act(() => useRunnerSettings.getState().toggleVibrate());
+    expect(screen.getByRole('checkbox', { name: 'Vibrate on each bolt' })).not.toBeChecked();
+    expect(count('RunnerFooter')).toBe(1);
+    expect(count('TorquePanel')).toBe(0);
+    expect(count('PassRing')).toBe(0);
+
+    // Past the double-tap guard (jsdom stamps an event with the clock's time).
+    await act(() => new Promise((resolve) => setTimeout(resolve, DOUBLE_TAP_MS + 50)));
+    fireEvent.click(screen.getByRole('button', { name: 'Clicked — bolt 5' }));
+    await screen.findByRole('button', { name: 'Clicked — bolt 3' });
+    expect(vibrate).toHaveBeenCalledTimes(1);
+    act(() => useRunnerSettings.getState().toggleVibrate());
   });
 });
