@@ -1,7 +1,7 @@
 import 'server-only';
 import { reportView, type ReportView } from '../view-model';
 import { getReportData } from './report-data';
-import { readPhotoBytes } from './report-photos';
+import { openPhoto } from './report-photos';
 import { findReportLink } from './report-links';
 import { renderReport, type RenderedReport } from './render-report';
 
@@ -25,5 +25,5 @@ export async function getPublicReportPdf(token: string): Promise<RenderedReport 
 export async function getPublicPhoto(token: string, photoId: string) {
   const link = await findReportLink(token);
   if (!link) return null;
-  return readPhotoBytes(link.shopId, link.jobId, photoId);
+  return openPhoto(link.shopId, link.jobId, photoId);
 }

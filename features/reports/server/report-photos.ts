@@ -29,12 +29,16 @@ async function fetchStored(fileKey: string): Promise<Buffer | null> {
   }
 }
 
-/** The bytes of one of this shop's photos, from the private store through a short-lived signed URL. */
-export async function readPhotoBytes(
+/**
+ * One of this shop's photos as the store sends it, streamed: the customer's page shows originals
+ * of a few MB each, and the server holds none of them whole. The timeout covers the store's
+ * answer, not the transfer to a slow phone.
+ */
+export async function openPhoto(
   shopId: string,
   jobId: string,
   photoId: string,
-): Promise<{ bytes: Buffer; mime: string } | null> {
+): Promise<{ body: ReadableStream<Uint8Array>; mime: string } | null> {
   const [row] = await getDb()
     .select({ fileKey: wheelPhotos.fileKey, mime: wheelPhotos.mime })
     .from(wheelPhotos)
@@ -46,8 +50,16 @@ export async function readPhotoBytes(
       ),
     );
   if (!row) return null;
-  const bytes = await fetchStored(row.fileKey);
-  return bytes ? { bytes, mime: row.mime } : null;
+  const answered = new AbortController();
+  const timer = setTimeout(() => answered.abort(), FETCH_TIMEOUT_MS);
+  try {
+    const res = await fetch(signedFileUrl(row.fileKey, 60), { signal: answered.signal });
+    return res.ok && res.body ? { body: res.body, mime: row.mime } : null;
+  } catch {
+    return null;
+  } finally {
+    clearTimeout(timer);
+  }
 }
 
 let sharpModule: Promise<typeof SharpFn | null> | undefined;

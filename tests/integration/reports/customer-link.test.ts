@@ -1,3 +1,5 @@
+import { createServer } from 'node:http';
+import type { AddressInfo } from 'node:net';
 import { eq } from 'drizzle-orm';
 import { renderToStaticMarkup } from 'react-dom/server';
 import sharp from 'sharp';
@@ -21,9 +23,8 @@ import { signedOffJob } from '@/tests/helpers/report-work';
 // The photo store, as the upload service would answer a signed URL: a real 1600×1200 JPEG.
 // (The report signs its URLs itself; store-url.test.ts holds them equal to the SDK's.)
 let JPEG: Buffer;
-vi.mock('@/features/reports/server/store-url', () => ({
-  signedFileUrl: () => `data:image/jpeg;base64,${JPEG.toString('base64')}`,
-}));
+let storeUrl = () => `data:image/jpeg;base64,${JPEG.toString('base64')}`;
+vi.mock('@/features/reports/server/store-url', () => ({ signedFileUrl: () => storeUrl() }));
 beforeAll(async () => {
   JPEG = await sharp({
     create: { width: 1600, height: 1200, channels: 3, background: '#6b7280' },
@@ -135,6 +136,45 @@ describe("the customer's link /r/<token>", () => {
       params({ photoId: other!.id }),
     );
     expect(apiPhoto.status).toBe(401);
+  });
+
+  it('streams a photo to the customer as the store sends it, holding none of it whole', async () => {
+    const { link, job } = await linked();
+    const [own] = await getDb()
+      .select({ id: wheelPhotos.id })
+      .from(wheelPhotos)
+      .where(eq(wheelPhotos.jobId, job.id));
+    // A store that sends the first half of the file, then waits to be let go.
+    let letGo = () => {};
+    const store = createServer((_req, res) => {
+      res.writeHead(200, { 'content-type': 'image/jpeg' });
+      res.write(JPEG.subarray(0, JPEG.length >> 1));
+      letGo = () => res.end(JPEG.subarray(JPEG.length >> 1));
+    }).listen(0, '127.0.0.1');
+    await new Promise((r) => store.once('listening', r));
+    const before = storeUrl;
+    storeUrl = () => `http://127.0.0.1:${(store.address() as AddressInfo).port}/a/app/key`;
+    try {
+      // Answered while the store still holds the second half: a buffering proxy would wait here.
+      const shown = await Promise.race([
+        photo(link.token, own!.id),
+        new Promise<never>((_, fail) =>
+          setTimeout(() => fail(new Error('the photo waited for the whole file')), 5_000),
+        ),
+      ]);
+      expect(shown.status).toBe(200);
+      const reader = shown.body!.getReader();
+      const first = await reader.read();
+      expect(first.value?.byteLength).toBeGreaterThan(0);
+      letGo();
+      const parts: Uint8Array[] = [first.value!];
+      for (let r = await reader.read(); !r.done; r = await reader.read()) parts.push(r.value);
+      expect(Buffer.concat(parts).equals(JPEG)).toBe(true);
+    } finally {
+      letGo();
+      storeUrl = before;
+      store.close();
+    }
   });
 });
 

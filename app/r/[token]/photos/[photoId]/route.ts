@@ -2,7 +2,7 @@ import { publicPhotoParams } from '@/features/reports/schemas';
 import { getPublicPhoto } from '@/features/reports/server/public-report';
 import { publicNotFound } from '@/features/reports/server/public-response';
 
-/** A photo of the link's own job, its bytes proxied from the private store. */
+/** A photo of the link's own job, its bytes streamed from the private store. */
 export async function GET(
   _request: Request,
   { params }: RouteContext<'/r/[token]/photos/[photoId]'>,
@@ -12,7 +12,7 @@ export async function GET(
     ? await getPublicPhoto(parsed.data.token, parsed.data.photoId)
     : null;
   if (!photo) return publicNotFound();
-  return new Response(new Uint8Array(photo.bytes), {
+  return new Response(photo.body, {
     headers: {
       'content-type': photo.mime,
       'content-disposition': 'inline',
