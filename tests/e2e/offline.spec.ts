@@ -11,7 +11,7 @@ const tickAndDone = async (page: Page, step: RegExp) => {
   await page.getByRole('button', { name: 'Step done' }).click();
 };
 
-test('after one online visit the runner reloads offline, and the parts it loads on demand still open: the bolt-problem form and its photo slot at hand-start, the bead photos at Seat the bead', async ({
+test('after one online visit the runner reloads offline, and the parts it loads on demand still open: the bolt-problem form and its photo slot at hand-start, the bead photos at Seat the bead; back online, what was tapped offline is sent', async ({
   page,
   context,
 }) => {
@@ -44,6 +44,12 @@ test('after one online visit the runner reloads offline, and the parts it loads 
   await expect(page.getByText('Seated bead, inner face (required)', { exact: true })).toBeVisible();
   await expect(notLoaded).toHaveCount(0);
   await expect(page.getByRole('status').filter({ hasText: /waiting · offline/ })).toBeVisible();
+
+  // Back on the Wi-Fi, the sender (loaded after the paint of the offline reload) sends it all.
+  await context.setOffline(false);
+  await expect(page.getByRole('status').filter({ hasText: /^Saved$/ })).toBeVisible({
+    timeout: 30_000,
+  });
 });
 
 test('signed out, the next person on the phone gets no runner page from the cache, not even offline', async ({
