@@ -20,8 +20,9 @@
  * generator to core 1 (`taskset`, util-linux), so the generator's own work does not queue behind the
  * server's and stop measuring itself. PostgreSQL is a shared cluster and is not pinned.
  * `BENCH_PIN=0` leaves both unpinned.
- * `BENCH_CPU_PROFILE=<folder>` has the server write a V8 CPU profile there when it stops (open it
- * in Chrome's DevTools, Performance).
+ * `BENCH_CPU_PROFILE=1` has the server write a V8 CPU profile into `.next-profiles/` when it stops
+ * (Next's own profiler, NEXT_CPU_PROF; Node refuses --cpu-prof in NODE_OPTIONS). Open it in
+ * Chrome's DevTools, Performance.
  * Last two lines: `capacity N confirmations/s at p95 <= 50 ms` and
  * `confirm p95 X ms, raw insert p95 Y ms, ratio Z`.
  */
@@ -291,10 +292,11 @@ async function main() {
   await migrateDatabase(clusterUrl(DB));
   const sql = postgres(clusterUrl(DB), { max: 10, onnotice: () => {} });
   const techs = await seed(sql);
-  const profile = process.env.BENCH_CPU_PROFILE;
-  const server = await startProductionServer(PORT, clusterUrl(DB), {
-    ...(profile ? { NODE_OPTIONS: `--cpu-prof --cpu-prof-dir=${path.resolve(profile)}` } : {}),
-  });
+  const server = await startProductionServer(
+    PORT,
+    clusterUrl(DB),
+    process.env.BENCH_CPU_PROFILE === '1' ? { NEXT_CPU_PROF: '1' } : {},
+  );
   actionId = serverActionId(path.join(ROOT, server.distDir), 'savePracticeEvents');
   // "Wrench set" for each pass on every wheel (this also takes each wheel's snapshot); fails loudly
   // when the save's address is wrong or a wrench is refused.
