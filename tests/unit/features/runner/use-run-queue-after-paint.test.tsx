@@ -2,11 +2,9 @@
 // A tap is drawn before the phone's storage is touched: IndexedDB clones the whole outbox when it
 // writes, which would otherwise land in the frame the technician is waiting for.
 import 'fake-indexeddb/auto';
-import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { act, renderHook, waitFor } from '@testing-library/react';
 import type * as idb from 'idb-keyval';
 import { clear, set } from 'idb-keyval';
-import type { ReactNode } from 'react';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { afterPaint } from '@/features/runner/api/after-paint';
 import {
@@ -39,16 +37,11 @@ describe('the runner writes a tap to the phone after the frame that shows it', (
   afterEach(() => vi.unstubAllGlobals());
 
   it('shows the tap at once, writes it once the frame is painted, then sends it', async () => {
-    const client = new QueryClient();
     const action = vi.fn<SaveEvents>(async () => ({
       ok: true as const,
       data: { saved: 1, duplicates: 0 },
     }));
-    const hook = renderHook(() => useRunQueue(WHEEL, [], action, THEO), {
-      wrapper: ({ children }: { children: ReactNode }) => (
-        <QueryClientProvider client={client}>{children}</QueryClientProvider>
-      ),
-    });
+    const hook = renderHook(() => useRunQueue(WHEEL, [], action, THEO));
     await waitFor(() => expect(hook.result.current.status.ready).toBe(true));
     const frames = holdFrames();
     vi.mocked(set).mockClear();

@@ -2,10 +2,8 @@
 // The outbox's network side (Query): offline it waits, a refusal that may pass is retried after a
 // pause, and another phone's confirmations arrive by the poll. IndexedDB is fake-indexeddb.
 import 'fake-indexeddb/auto';
-import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { act, renderHook, waitFor } from '@testing-library/react';
 import { clear, get } from 'idb-keyval';
-import type { ReactNode } from 'react';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import type { ClientEvent } from '@/features/runner/events';
 import {
@@ -22,13 +20,8 @@ const confirm = { type: 'bolt_confirmed', payload: { pass: 1, bolt: 1 } } as con
 const saved = { ok: true as const, data: { saved: 1, duplicates: 0 } };
 
 function setUp(save: SaveEvents) {
-  const client = new QueryClient();
   const action = vi.fn(save);
-  const hook = renderHook(() => useRunQueue(WHEEL, [], action, THEO), {
-    wrapper: function WithQuery({ children }: { children: ReactNode }) {
-      return <QueryClientProvider client={client}>{children}</QueryClientProvider>;
-    },
-  });
+  const hook = renderHook(() => useRunQueue(WHEEL, [], action, THEO));
   return { action, hook };
 }
 

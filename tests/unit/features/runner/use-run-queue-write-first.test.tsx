@@ -3,11 +3,9 @@
 // here (a gate around the real one, on fake-indexeddb) to show that nothing is sent in that gap,
 // neither by the tap itself nor by a retry that was already waiting.
 import 'fake-indexeddb/auto';
-import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { act, renderHook, waitFor } from '@testing-library/react';
 import type * as idb from 'idb-keyval';
 import { clear, get } from 'idb-keyval';
-import type { ReactNode } from 'react';
 import { beforeEach, describe, expect, it, vi } from 'vitest';
 import type { RunEvent } from '@/features/runner/events';
 import {
@@ -46,13 +44,8 @@ const bolt = (n: number): RunEvent => ({ type: 'bolt_confirmed', payload: { pass
 const saved = { ok: true as const, data: { saved: 1, duplicates: 0 } };
 
 function setUp(save: SaveEvents) {
-  const client = new QueryClient();
   const action = vi.fn(save);
-  const hook = renderHook(() => useRunQueue(WHEEL, [], action, THEO), {
-    wrapper: function WithQuery({ children }: { children: ReactNode }) {
-      return <QueryClientProvider client={client}>{children}</QueryClientProvider>;
-    },
-  });
+  const hook = renderHook(() => useRunQueue(WHEEL, [], action, THEO));
   return { action, hook };
 }
 

@@ -1,11 +1,9 @@
 // @vitest-environment jsdom
 // The device's IndexedDB in memory (fake-indexeddb), under the real idb-keyval the runner uses.
 import 'fake-indexeddb/auto';
-import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { act, renderHook, waitFor } from '@testing-library/react';
 import { clear, get, set } from 'idb-keyval';
 import { UnrecognizedActionError } from 'next/dist/client/components/unrecognized-action-error';
-import type { ReactNode } from 'react';
 import { beforeEach, describe, expect, it, vi } from 'vitest';
 import {
   outboxKey,
@@ -21,17 +19,9 @@ const THEO: QueuePerson = { id: '0b6f9a52-56a4-4c6e-8a39-8d3c3f1e0a01', name: 'T
 const LENA: QueuePerson = { id: '7c1e2d33-9f0a-4b1e-b2c4-5a6d7e8f9a02', name: 'Lena Lead' };
 const KEY = outboxKey(THEO.id, WHEEL);
 
-// The runner's page gives it the app's QueryClient (the runner layout); each test its own.
-function withQuery() {
-  const client = new QueryClient();
-  return function WithQuery({ children }: { children: ReactNode }) {
-    return <QueryClientProvider client={client}>{children}</QueryClientProvider>;
-  };
-}
-
 function setUp(save: SaveEvents, person = THEO) {
   const action = vi.fn(save);
-  const hook = renderHook(() => useRunQueue(WHEEL, [], action, person), { wrapper: withQuery() });
+  const hook = renderHook(() => useRunQueue(WHEEL, [], action, person));
   return { action, hook };
 }
 
@@ -243,10 +233,7 @@ describe('the runner outbox', () => {
       generation: null,
     });
     const action = vi.fn<SaveEvents>(async () => saved);
-    const hook = renderHook(
-      () => useRunQueue(WHEEL, [], action, THEO, '2026-01-02T10:00:00.000Z'),
-      { wrapper: withQuery() },
-    );
+    const hook = renderHook(() => useRunQueue(WHEEL, [], action, THEO, '2026-01-02T10:00:00.000Z'));
     await waitFor(() => expect(action).toHaveBeenCalledTimes(1));
     await waitFor(() => expect(hook.result.current.status.waiting).toBe(0));
     expect(hook.result.current.events.map((e) => e.clientId)).toEqual([waiting.clientId]);
