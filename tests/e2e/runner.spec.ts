@@ -217,8 +217,9 @@ test('a save that fails in flight (Wi-Fi up, no route to the server) waits and g
   await page.goto(runner);
   await expect(page.getByRole('heading', { name: /Safety gate/ })).toBeVisible();
 
-  // The phone still believes it is online; every save to the server fails at the network.
-  const saves = (url: URL) => url.pathname === runner;
+  // The phone still believes it is online; every save to the server fails at the network (the
+  // runner's other phones' poll, a GET to the same address, passes).
+  const saves = (url: URL) => url.pathname === `/api/wheels/${wheelId}/events`;
   await page.route(saves, (route) =>
     route.request().method() === 'POST' ? route.abort('internetdisconnected') : route.continue(),
   );
