@@ -221,14 +221,14 @@ async function startAttempts(techs: Tech[]): Promise<string[]> {
     'content-type': 'application/json',
   });
   const body = JSON.stringify({ source: 'surprise', level: 'guided' });
-  return Promise.all(
-    techs.map(async (t) => {
-      const res = await post('/api/practice/attempts', headers(t), body);
-      const id = (JSON.parse(res.text) as { data?: { id?: string } }).data?.id;
-      if (res.status !== 201 || !id) throw new Error(`attempt answered ${res.status}: ${res.text}`);
-      return id;
-    }),
-  );
+  const ids: string[] = [];
+  for (const t of techs) {
+    const res = await post('/api/practice/attempts', headers(t), body);
+    const id = (JSON.parse(res.text) as { data?: { id?: string } }).data?.id;
+    if (res.status !== 201 || !id) throw new Error(`attempt answered ${res.status}: ${res.text}`);
+    ids.push(id);
+  }
+  return ids;
 }
 
 /** One practice save: the same batch and the same work, as a server action or a route handler. */
