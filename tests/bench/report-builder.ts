@@ -15,6 +15,7 @@ import '@/server/queue/worker';
 
 const MB = 1024 * 1024;
 const [shopId, jobId, photoCount, builds] = process.argv.slice(2);
+const PAUSE_MS = Number(process.env.BENCH_PAUSE_MS ?? 0);
 
 /** A field of /proc/self/status in bytes: VmRSS now, VmHWM the peak since the last reset. */
 const status = (field: 'VmRSS' | 'VmHWM') =>
@@ -68,10 +69,13 @@ async function main() {
     const r = await build();
     runs.push(r);
     line(`build ${i + 1}`, r);
+    // BENCH_PAUSE_MS: a worker idle between e-mails, where V8's memory reducer collects and
+    // shrinks the heap; by default the builds run back to back (a burst of sign-offs, the worst case).
+    if (PAUSE_MS > 0) await new Promise((done) => setTimeout(done, PAUSE_MS));
   }
   await closeDb();
   process.stdout.write(
-    `${JSON.stringify({ baseline, first, runs, end: status('VmRSS'), arenaMax: process.env.MALLOC_ARENA_MAX ?? null })}\n`,
+    `${JSON.stringify({ baseline, first, runs, end: status('VmRSS'), arenaMax: process.env.MALLOC_ARENA_MAX ?? null, pauseMs: PAUSE_MS })}\n`,
   );
 }
 

@@ -10,7 +10,8 @@
  * with the server-only hook, the worker's modules loaded first, the environment the start scripts
  * give it), through `renderJobReport`, 1 + BENCH_BUILDS times (default 10). Per build: wall time,
  * CPU time of the whole process (the image library's threads included) and peak RSS from the
- * kernel's high-water mark (VmHWM, reset before each build through /proc/self/clear_refs).
+ * kernel's high-water mark (VmHWM, reset before each build through /proc/self/clear_refs). The
+ * builds run back to back; BENCH_PAUSE_MS=15000 idles between them as a worker does between e-mails.
  * Last line: build p95, CPU p50, and the process's RSS before its first build, its peak during the
  * builds and the difference (what building reports costs the process that builds them), and the
  * first build's own peak (a worker's first report loads the PDF and image libraries). The Next
@@ -68,6 +69,7 @@ type BuilderResult = {
   runs: Build[];
   end: number;
   arenaMax: string | null;
+  pauseMs: number;
 };
 
 async function main() {
@@ -138,7 +140,7 @@ async function main() {
       `[bench] ${BUILDS} builds: p50 ${(pct(ms, 50) / 1000).toFixed(2)} s, p95 ${(pct(ms, 95) / 1000).toFixed(2)} s, max ${(Math.max(...ms) / 1000).toFixed(2)} s; CPU p50 ${(pct(cpuMs, 50) / 1000).toFixed(2)} s, p95 ${(pct(cpuMs, 95) / 1000).toFixed(2)} s; RSS after the last build ${(result.end / MB).toFixed(0)} MB; load average ${os.loadavg()[0]!.toFixed(1)}`,
     );
     console.log(
-      `report build p95 ${(pct(ms, 95) / 1000).toFixed(2)} s, CPU p50 ${(pct(cpuMs, 50) / 1000).toFixed(2)} s; worker-shaped process RSS ${(result.baseline / MB).toFixed(0)} MB before the first build, peak ${(peak / MB).toFixed(0)} MB during ${BUILDS + 1} builds (+${((peak - result.baseline) / MB).toFixed(0)} MB; the first build ${(result.first.peak / MB).toFixed(0)} MB) (4 wheels, ${BOLTS} bolts, ${photos.length} photos; MALLOC_ARENA_MAX=${result.arenaMax ?? 'unset'})`,
+      `report build p95 ${(pct(ms, 95) / 1000).toFixed(2)} s, CPU p50 ${(pct(cpuMs, 50) / 1000).toFixed(2)} s; worker-shaped process RSS ${(result.baseline / MB).toFixed(0)} MB before the first build, peak ${(peak / MB).toFixed(0)} MB during ${BUILDS + 1} builds (+${((peak - result.baseline) / MB).toFixed(0)} MB; the first build ${(result.first.peak / MB).toFixed(0)} MB) (4 wheels, ${BOLTS} bolts, ${photos.length} photos; MALLOC_ARENA_MAX=${result.arenaMax ?? 'unset'}${result.pauseMs ? `, ${result.pauseMs} ms between builds` : ', back to back'})`,
     );
   } finally {
     fake.stop();
