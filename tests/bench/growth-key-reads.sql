@@ -5,7 +5,8 @@
 --   psql "$(npx tsx -e "import('@/db/cluster').then(m => console.log(m.clusterUrl('ringpass_bench_growth')))")" -f tests/bench/growth-key-reads.sql
 -- It first builds `bench_random_key`, an index on a random uuid of each row (md5 of its key): the
 -- shape of the former surrogate `id` and of a v4 client key. Each insert is its own statement; all
--- are rolled back; the index is dropped at the end. A read is a block not found in shared_buffers
+-- are rolled back, on a wheel the bench does not measure (ord 21: its measured wheels are 1–20),
+-- and vacuumed away; the index is dropped at the end. A read is a block not found in shared_buffers
 -- (this cluster: 128 MB); reads 0 means the insert touched only pages already in memory.
 select pg_backend_pid() as pid \gset
 \! renice -n 19 -p :pid > /dev/null
@@ -21,7 +22,7 @@ begin
   for i in 1..n loop
     execute format($q$insert into wheel_run_events (shop_id, job_id, wheel_id, client_id, type, payload, by_id, client_at)
       select shop_id, job_id, wheel_id, %s, 'bolt_confirmed', '{"pass":1,"bolt":1}', by_id, now()
-      from bench_wheels where ord = 11$q$, key_sql);
+      from bench_wheels where ord = 21$q$, key_sql);
   end loop;
 end $$;
 
@@ -46,3 +47,5 @@ select a.rel as relation,
 from reads a join reads b on b.rel = a.rel and b.kind = 'after v7' join reads c on c.rel = a.rel and c.kind = 'after v4'
 where a.kind = 'before v7' order by 1;
 drop index bench_random_key;
+-- The rolled-back rows' index entries would otherwise be read by every later scan of that wheel.
+vacuum (index_cleanup on) wheel_run_events;
