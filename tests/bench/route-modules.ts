@@ -1,7 +1,7 @@
 /**
  * Which modules a route's first-load JavaScript holds, per chunk, in gzip bytes:
  * `npx tsx tests/bench/route-modules.ts [route] [minBytes]` (default the runner, 250 B).
- * Builds the committed HEAD in a scratch copy (git archive; node_modules hard-linked; others'
+ * Builds the committed HEAD (or ROUTE_MODULES_REV) in a scratch copy (git archive; node_modules hard-linked; others'
  * uncommitted work and the shared build folders left alone) with browser source maps on, then
  * gives every byte of each chunk in the route's `firstLoadChunkPaths` to the source its source-map
  * segment names (Turbopack hoists several modules into one function, so functions are not
@@ -65,13 +65,16 @@ const minBytes = Number(process.argv[3] ?? 250);
 const gz = (text: string) => gzipSync(text, { level: 6 }).length;
 const kb = (bytes: number) => (bytes / 1024).toFixed(2).padStart(6);
 
+// ROUTE_MODULES_REV=<commit>: build that commit instead of HEAD (a before/after on the same method).
+const REV = process.env.ROUTE_MODULES_REV ?? 'HEAD';
+if (!/^[\w./~^-]+$/.test(REV)) throw new Error(`not a revision: ${REV}`);
 // ROUTE_MODULES_DIR=<dir>: read the build a previous run left there instead of building again.
 const dir = process.env.ROUTE_MODULES_DIR ?? buildHead();
 
 function buildHead() {
   const scratch = mkdtempSync(path.join(tmpdir(), 'ringpass-route-modules-'));
   execSync(
-    `git archive HEAD | tar -x -C ${scratch} && cp -al node_modules ${scratch}/node_modules`,
+    `git archive ${REV} | tar -x -C ${scratch} && cp -al node_modules ${scratch}/node_modules`,
     { cwd: ROOT },
   );
   const config = path.join(scratch, 'next.config.mjs');
