@@ -36,16 +36,20 @@ export function proxy(request: NextRequest) {
 export const config = {
   matcher: [
     {
-      // Pages only: not the JSON API, build assets, images or the service worker script.
-      source: '/((?!api/|_next/static|_next/image|favicon.ico|icon.svg|runner-sw).*)',
-      // A prefetch renders no HTML, so it needs no nonce (Next's guide leaves them out too); nor
-      // does a server action called from a page (its Next-Action header): it answers React's
-      // payload, never HTML, and the page that calls it came with its own nonce and HSTS. A form
-      // posted without JavaScript sends no such header and gets an HTML page, so it keeps both.
+      // Every HTML answer needs its nonce and HSTS, so only names that never answer HTML are left
+      // out, each anchored: a prefix like `runner-sw` also skipped Next's HTML 404 for /runner-sw-x.
+      // /api/ answers JSON or bytes only (app/api/[...unknown]/route.ts answers JSON for an unknown
+      // path instead of Next's HTML 404). /_next/static/ holds build files, /_next/image images,
+      // /runner-sw/sw.js is the runner's worker (a CSP header would apply to the worker itself),
+      // /runner-sw.js the retired one; any other /runner-sw/ name is Next's HTML 404, so it runs.
+      source:
+        '/((?!api/|_next/static/|_next/image$|favicon\\.ico$|icon\\.svg$|runner-sw\\.js$|runner-sw/sw\\.js$).*)',
+      // A prefetch renders no HTML, so it needs no nonce (Next's guide leaves them out too). Not a
+      // request with a Next-Action header: a GET, or a POST that Next does not take for an action
+      // (urlencoded), is answered with an HTML page.
       missing: [
         { type: 'header', key: 'next-router-prefetch' },
         { type: 'header', key: 'purpose', value: 'prefetch' },
-        { type: 'header', key: 'next-action' },
       ],
     },
   ],

@@ -36,6 +36,39 @@ test('pages carry a per-response CSP nonce on every script, refuse framing and s
   expect(violations).toEqual([]);
 });
 
+test('every HTML answer has its CSP nonce: a page asked with a Next-Action header, a urlencoded post with one, a 404 under a name like a skipped file; an unknown /api/ address answers JSON', async ({
+  page,
+  baseURL,
+}) => {
+  const nonceOf = (headers: Record<string, string>) =>
+    /'nonce-[^']+'/.test(headers['content-security-policy'] ?? '');
+  const html = (headers: Record<string, string>) =>
+    (headers['content-type'] ?? '').startsWith('text/html');
+
+  const withAction = await page.request.get('/sign-in', { headers: { 'next-action': 'abc123' } });
+  expect(html(withAction.headers())).toBe(true);
+  expect(nonceOf(withAction.headers()), 'GET with Next-Action').toBe(true);
+
+  const urlencoded = await page.request.post('/sign-in', {
+    headers: { 'next-action': 'abc123', origin: baseURL! },
+    form: { email: 'x' },
+    maxRedirects: 0,
+  });
+  expect(html(urlencoded.headers()), 'Next answers it with its HTML 404').toBe(true);
+  expect(nonceOf(urlencoded.headers()), 'urlencoded POST with Next-Action').toBe(true);
+
+  for (const path of ['/runner-sw-x', '/runner-sw/other.js', '/favicon.icon']) {
+    const notFound = await page.request.get(path);
+    expect(notFound.status(), path).toBe(404);
+    expect(nonceOf(notFound.headers()), path).toBe(true);
+  }
+
+  const api = await page.request.get('/api/nope/deeper');
+  expect(api.status()).toBe(404);
+  expect(api.headers()['content-type']).toContain('application/json');
+  expect(await api.json()).toMatchObject({ error: { code: 'not_found' } });
+});
+
 test('a server action with a body over 256 kB is refused before it runs', async ({ page }) => {
   // Signed out: the shared lead signs in (a session of this test's own; the shared one is untouched).
   const { email } = sharedPeople().lead;

@@ -56,11 +56,35 @@ describe('proxy: which requests it runs on', () => {
     );
   });
 
-  it('not a server action called from a page, the JSON API, prefetches or build files', async () => {
-    expect(await runsOn('/jobs/j1/wheels/w1/run', { 'next-action': 'abc123' })).toBe(false);
+  it("every answer that can be HTML: a page asked with a Next-Action header, a urlencoded post, Next's 404 under names like its skipped files", async () => {
+    // Next takes only a POST for a server action; a GET with the header renders the page, and a
+    // urlencoded POST with it gets Next's HTML 404 (action-handler's not-found).
+    expect(await runsOn('/board', { 'next-action': 'abc123' })).toBe(true);
+    expect(
+      await runsOn('/jobs/j1/wheels/w1/run', {
+        'next-action': 'abc123',
+        'content-type': 'application/x-www-form-urlencoded',
+      }),
+    ).toBe(true);
+    expect(await runsOn('/runner-sw-x')).toBe(true);
+    expect(await runsOn('/runner-sw/other.js')).toBe(true);
+    expect(await runsOn('/favicon.icon')).toBe(true);
+    expect(await runsOn('/faviconXico')).toBe(true);
+    expect(await runsOn('/icon.svg.html')).toBe(true);
+    expect(await runsOn('/_next/imagery')).toBe(true);
+    expect(await runsOn('/apiary')).toBe(true);
+  });
+
+  it('not the JSON API (an unknown /api/ address answers JSON too), prefetches or build files', async () => {
     expect(await runsOn('/api/wheels/w1/events')).toBe(false);
+    expect(await runsOn('/api/nope')).toBe(false);
     expect(await runsOn('/board', { 'next-router-prefetch': '1' })).toBe(false);
+    expect(await runsOn('/board', { purpose: 'prefetch' })).toBe(false);
     expect(await runsOn('/_next/static/chunks/app.js')).toBe(false);
+    expect(await runsOn('/_next/image')).toBe(false);
+    expect(await runsOn('/favicon.ico')).toBe(false);
+    expect(await runsOn('/icon.svg')).toBe(false);
     expect(await runsOn('/runner-sw/sw.js')).toBe(false);
+    expect(await runsOn('/runner-sw.js')).toBe(false);
   });
 });
