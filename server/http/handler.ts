@@ -22,8 +22,25 @@ const STATUS: Record<DomainErrorCode, number> = {
   rate_limited: 429,
 };
 
+/**
+ * A write from an Origin this app does not know. Its own code, not `forbidden`: the runner's
+ * outbox sets a forbidden batch aside for good, but this says nothing about the events (a proxy
+ * may have rewritten the Origin, or the app is reached under another address), so it keeps them
+ * and retries while showing the message.
+ */
+export class CrossOriginRefused extends DomainError {
+  constructor() {
+    super(
+      'forbidden',
+      'Cross-origin request refused: send it from the Ringpass app (Origin header).',
+    );
+    this.name = 'CrossOriginRefused';
+  }
+}
+
 export function errorResponse(error: DomainError): Response {
-  const body: ApiError = { error: { code: error.code, message: error.message } };
+  const code = error instanceof CrossOriginRefused ? 'cross_origin' : error.code;
+  const body: ApiError = { error: { code, message: error.message } };
   if (error.fields) body.error.fields = error.fields;
   return Response.json(body, { status: STATUS[error.code] });
 }
@@ -44,12 +61,7 @@ export function assertSameOrigin(request: Request) {
       request.headers.get('x-forwarded-proto') ?? new URL(request.url).protocol.replace(':', '');
     allowed.add(`${proto}://${host}`);
   }
-  if (!origin || !allowed.has(origin)) {
-    throw new DomainError(
-      'forbidden',
-      'Cross-origin request refused: send it from the Ringpass app (Origin header).',
-    );
-  }
+  if (!origin || !allowed.has(origin)) throw new CrossOriginRefused();
 }
 
 async function readJson(request: Request): Promise<unknown> {

@@ -1,11 +1,9 @@
 import type { FailureCode } from '@/server/action';
-import type { SaveEvents } from './send-outcome';
+import type { EventRefusal } from '../events';
+import { KeptForRetry, type SaveEvents } from './send-outcome';
 
 type SaveAnswer = Awaited<ReturnType<SaveEvents>>;
-type Body = {
-  data?: Extract<SaveAnswer, { ok: true }>['data'];
-  error?: { code?: unknown; message?: unknown; fields?: Record<string, string[]> };
-};
+type Saved = Extract<SaveAnswer, { ok: true }>['data'];
 
 // The JSON API's error codes the outbox acts on; `satisfies` fails the build when a code is added.
 const FAILURE_CODES = {
@@ -20,23 +18,55 @@ const FAILURE_CODES = {
 const isFailureCode = (code: unknown): code is FailureCode =>
   typeof code === 'string' && Object.hasOwn(FAILURE_CODES, code);
 
+const isRecord = (value: unknown): value is Record<string, unknown> =>
+  typeof value === 'object' && value !== null && !Array.isArray(value);
+const isCount = (value: unknown): value is number => Number.isSafeInteger(value) && value >= 0;
+const isFieldErrors = (value: unknown): value is Record<string, string[]> =>
+  isRecord(value) &&
+  Object.values(value).every((v) => Array.isArray(v) && v.every((m) => typeof m === 'string'));
+const isRefusal = (value: unknown): value is EventRefusal =>
+  isRecord(value) &&
+  isCount(value.index) &&
+  (value.clientId === null || typeof value.clientId === 'string') &&
+  typeof value.message === 'string' &&
+  isFieldErrors(value.fieldErrors);
+
+/**
+ * The saved result, only in the handler's exact shape. Anything 200 with some `data` is not
+ * enough: a captive portal or a proxy could answer that, and the outbox drops what it takes as saved.
+ */
+function savedFrom(data: unknown): Saved | null {
+  if (!isRecord(data) || !isCount(data.saved) || !isCount(data.duplicates)) return null;
+  if (data.refused === undefined) return { saved: data.saved, duplicates: data.duplicates };
+  if (!Array.isArray(data.refused) || !data.refused.every(isRefusal)) return null;
+  return { saved: data.saved, duplicates: data.duplicates, refused: data.refused };
+}
+
 /**
  * The save handler's answer as the outbox reads it: `{ data }` is saved (with any per-event
- * refusals), `{ error: { code, message, fields } }` a whole-batch failure with its code. Anything
- * else (a body over the API's cap, a proxy's error page, no JSON) throws, so the send is retried
- * with the events kept, as when the network drops.
+ * refusals), `{ error: { code, message, fields } }` a whole-batch failure with its code. A refused
+ * Origin (`cross_origin`: a proxy or an address the app does not know rewrote it) says nothing
+ * about the events, so it throws KeptForRetry with its message. Anything else (a body over the
+ * API's cap, a proxy's error page, no JSON, a result of another shape) throws, so the send is
+ * retried with the events kept, as when the network drops.
  */
 export async function readSaveAnswer(res: Response): Promise<SaveAnswer> {
-  const body = (await res.json().catch(() => null)) as Body | null;
-  if (res.ok && body?.data) return { ok: true, data: body.data };
-  const error = body?.error;
-  if (!res.ok && error && isFailureCode(error.code) && typeof error.message === 'string') {
-    return {
-      ok: false,
-      code: error.code,
-      message: error.message,
-      ...(error.fields ? { fieldErrors: error.fields } : {}),
-    };
+  const body: unknown = await res.json().catch(() => null);
+  if (res.ok && isRecord(body)) {
+    const data = savedFrom(body.data);
+    if (data) return { ok: true, data };
+  }
+  const error = isRecord(body) && isRecord(body.error) ? body.error : null;
+  if (!res.ok && error && typeof error.message === 'string') {
+    if (error.code === 'cross_origin') throw new KeptForRetry(error.message, false);
+    if (isFailureCode(error.code)) {
+      return {
+        ok: false,
+        code: error.code,
+        message: error.message,
+        ...(isFieldErrors(error.fields) ? { fieldErrors: error.fields } : {}),
+      };
+    }
   }
   throw new Error(`The save answered ${res.status} without a result.`);
 }

@@ -149,6 +149,8 @@ export function useRunQueue(
       // A deploy replaced the build this page came from, so its action id is gone: reload into
       // the new build, which sends what waits from IndexedDB. Once a minute at most, then retry.
       if (unstable_isUnrecognizedActionError(error) && reloadForNewBuild()) return null;
+      // Kept and retried with the server's reason on screen (e.g. an Origin it refused).
+      if (error instanceof KeptForRetry) setStatus((s) => ({ ...s, error: error.message }));
       throw error;
     }
     if (!result.ok && keepsAndRetries(result.code)) {

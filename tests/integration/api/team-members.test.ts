@@ -121,7 +121,7 @@ describe('/api/team/members/[memberId]', () => {
       );
       expect(res.status).toBe(403);
       expect(await res.json()).toMatchObject({
-        error: { code: 'forbidden', message: expect.stringMatching(/Cross-origin/) },
+        error: { code: 'cross_origin', message: expect.stringMatching(/Cross-origin/) },
       });
     }
     const after = await getMember(

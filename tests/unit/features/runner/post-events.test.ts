@@ -1,6 +1,6 @@
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { postWheelEvents, readSaveAnswer } from '@/features/runner/api/post-events';
-import { keepsAndRetries } from '@/features/runner/api/send-outcome';
+import { KeptForRetry, keepsAndRetries } from '@/features/runner/api/send-outcome';
 import type { ClientEvent } from '@/features/runner/events';
 
 // The handler's answers, read as the outbox acts on them: saved, refused for good, kept and retried.
@@ -11,6 +11,8 @@ describe('readSaveAnswer', () => {
   it('a 200 with data is saved, with its duplicates and per-event refusals', async () => {
     const data = { saved: 1, duplicates: 1, refused: [refusal] };
     expect(await readSaveAnswer(json(200, { data }))).toEqual({ ok: true, data });
+    const bare = { saved: 2, duplicates: 0 };
+    expect(await readSaveAnswer(json(200, { data: bare }))).toEqual({ ok: true, data: bare });
   });
 
   it('an error answer carries its code, message and fields', async () => {
@@ -43,12 +45,26 @@ describe('readSaveAnswer', () => {
     }
   });
 
+  it('a refused Origin is kept and retried with its message, never set aside for good', async () => {
+    const answer = readSaveAnswer(
+      json(403, { error: { code: 'cross_origin', message: 'Cross-origin request refused.' } }),
+    );
+    await expect(answer).rejects.toBeInstanceOf(KeptForRetry);
+    await expect(answer).rejects.toThrow('Cross-origin request refused.');
+  });
+
   it('an answer that is not ours throws, so the send is retried with the events kept', async () => {
     const notOurs = [
       json(413, { error: { code: 'too_large', message: 'Over 256 kB.' } }),
       new Response('<html>Bad gateway</html>', { status: 502 }),
       json(200, { ok: true }),
       json(500, { error: 'boom' }),
+      // A 200 whose data is not the handler's shape (a captive portal, a proxy): never "saved".
+      json(200, { data: {} }),
+      json(200, { data: { saved: '1', duplicates: 0 } }),
+      json(200, { data: { saved: 1, duplicates: 0, refused: {} } }),
+      json(200, { data: { saved: 1, duplicates: 0, refused: [{ index: 0 }] } }),
+      json(200, { data: { saved: -1, duplicates: 0 } }),
     ];
     for (const res of notOurs)
       await expect(readSaveAnswer(res)).rejects.toThrow(/without a result/);

@@ -5,6 +5,7 @@ import { act, renderHook, waitFor } from '@testing-library/react';
 import { clear, get, set } from 'idb-keyval';
 import { UnrecognizedActionError } from 'next/dist/client/components/unrecognized-action-error';
 import { beforeEach, describe, expect, it, vi } from 'vitest';
+import { readSaveAnswer } from '@/features/runner/api/post-events';
 import {
   outboxKey,
   useRunQueue,
@@ -63,6 +64,30 @@ describe('the runner outbox', () => {
     expect(hook.result.current.status.waiting).toBe(1);
     expect(action).toHaveBeenCalledTimes(1);
     expect((await held()).pending).toHaveLength(1);
+  });
+
+  it('a refused Origin keeps the confirmation, says why, and sends it again (never set aside)', async () => {
+    const answers = [
+      Response.json(
+        { error: { code: 'cross_origin', message: 'Cross-origin request refused.' } },
+        { status: 403 },
+      ),
+      Response.json({ data: { saved: 1, duplicates: 0, refused: [] } }),
+    ];
+    // The outbox's own answer reader, as the real wheel's save uses it.
+    const { action, hook } = setUp(async () => readSaveAnswer(answers.shift()!));
+    await waitFor(() => expect(hook.result.current.status.ready).toBe(true));
+    await act(() => hook.result.current.record(confirm));
+    await waitFor(() =>
+      expect(hook.result.current.status.error).toBe('Cross-origin request refused.'),
+    );
+    expect(hook.result.current.status.waiting).toBe(1);
+    expect(hook.result.current.attention).toEqual([]);
+    // Retried after 2 s, then saved.
+    await waitFor(() => expect(hook.result.current.status.waiting).toBe(0), { timeout: 5_000 });
+    expect(action).toHaveBeenCalledTimes(2);
+    expect(hook.result.current.attention).toEqual([]);
+    expect(hook.result.current.events).toHaveLength(1);
   });
 
   it('a refusal for good (bad data) leaves the queue, so what follows can go, and says why', async () => {
