@@ -20,7 +20,8 @@ const isFailureCode = (code: unknown): code is FailureCode =>
 
 const isRecord = (value: unknown): value is Record<string, unknown> =>
   typeof value === 'object' && value !== null && !Array.isArray(value);
-const isCount = (value: unknown): value is number => Number.isSafeInteger(value) && value >= 0;
+const isCount = (value: unknown): value is number =>
+  typeof value === 'number' && Number.isSafeInteger(value) && value >= 0;
 const isFieldErrors = (value: unknown): value is Record<string, string[]> =>
   isRecord(value) &&
   Object.values(value).every((v) => Array.isArray(v) && v.every((m) => typeof m === 'string'));
