@@ -30,8 +30,8 @@ const schema = z.object({
   // service (the local fake in development and tests, the hosted service by default).
   UPLOADTHING_INGEST_URL: z.url().optional(),
   UPLOADTHING_UFS_HOST: z.string().min(1).optional(),
-  // Also read by the report's photo reader, which signs the store's URLs without loading the SDK
-  // (features/reports/server/store-url.ts); checked there, as the SDK checks them.
+  // Also read by the photo reader, which signs the store's URLs without loading the SDK
+  // (server/storage/store-config.ts, through parseUploadToken below).
   UPLOADTHING_TOKEN: z.string().optional(),
   UPLOADTHING_UFS_APP_ID_LOCATION: z.string().optional(),
   COOKIE_SECURE: bool.optional(),
@@ -52,11 +52,65 @@ const schema = z.object({
   TRUST_PROXY_HOPS: z.coerce.number().int().min(0).max(10).default(0),
 });
 
+const BASE64 = /^(?:[A-Za-z0-9+/]{4})*(?:[A-Za-z0-9+/]{2}==|[A-Za-z0-9+/]{3}=)?$/;
+
+/**
+ * The upload service's token (base64 of `{"apiKey":"sk_…","appId":"…","regions":[…]}`), checked
+ * as the SDK's schema checks it. No message carries the token's bytes: JSON.parse's own
+ * SyntaxError quotes its input, so its error is replaced, never passed on.
+ * @param {string | undefined} raw
+ * @returns {{ apiKey: string; appId: string }}
+ */
+export function parseUploadToken(raw) {
+  if (!raw) throw new Error('UPLOADTHING_TOKEN is not set');
+  const bad = (/** @type {string} */ why) => new Error(`UPLOADTHING_TOKEN ${why}`);
+  if (!BASE64.test(raw)) throw bad('is not base64');
+  /** @type {unknown} */
+  let token;
+  try {
+    token = JSON.parse(Buffer.from(raw, 'base64').toString('utf8'));
+  } catch {
+    throw bad('is not base64 of JSON');
+  }
+  const { apiKey, appId, regions } = /** @type {Record<string, unknown>} */ (token ?? {});
+  if (typeof apiKey !== 'string' || !apiKey.startsWith('sk_'))
+    throw bad('has no secret API key (sk_…)');
+  if (typeof appId !== 'string' || !appId) throw bad('has no app id');
+  if (!Array.isArray(regions) || !regions.length || regions.some((r) => typeof r !== 'string'))
+    throw bad('has no regions');
+  return { apiKey, appId };
+}
+
+// A production server checks the store's settings at start, not at the first photo. Unset is
+// left to the start script (stack-plan's PRODUCTION_VARIABLES): production builds of the tests
+// and benches run without a store.
+const checked = schema.superRefine((v, ctx) => {
+  if (v.NODE_ENV !== 'production') return;
+  if (v.UPLOADTHING_TOKEN !== undefined) {
+    try {
+      parseUploadToken(v.UPLOADTHING_TOKEN);
+    } catch (error) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['UPLOADTHING_TOKEN'],
+        message: /** @type {Error} */ (error).message.replace(/^UPLOADTHING_TOKEN /, ''),
+      });
+    }
+  }
+  const location = v.UPLOADTHING_UFS_APP_ID_LOCATION;
+  if (location !== undefined && location !== 'subdomain' && location !== 'path')
+    ctx.addIssue({
+      code: 'custom',
+      path: ['UPLOADTHING_UFS_APP_ID_LOCATION'],
+      message: 'must be "subdomain" or "path"',
+    });
+});
+
 /** @typedef {z.infer<typeof schema>} Env */
 
 /** @returns {Env} */
 function parseEnv() {
-  const parsed = schema.safeParse(process.env);
+  const parsed = checked.safeParse(process.env);
   if (!parsed.success) {
     const lines = parsed.error.issues.map(
       (i) => `  - ${i.path.join('.') || '(env)'}: ${i.message}`,

@@ -11,6 +11,7 @@
  */
 import { createHmac, randomBytes, timingSafeEqual } from 'node:crypto';
 import { createServer, type IncomingMessage, type ServerResponse } from 'node:http';
+import type { AddressInfo } from 'node:net';
 import { mkdirSync, readFileSync, rmSync, writeFileSync, existsSync } from 'node:fs';
 import path from 'node:path';
 import { Readable, Transform } from 'node:stream';
@@ -62,11 +63,13 @@ export function uploadFakeEnv(port: number, apiKey: string, appId: string): Reco
   };
 }
 
+/** `port` 0 takes a free port (the returned `port` and `env` name it). */
 export async function startUploadFake(options: { port: number; dir: string }): Promise<UploadFake> {
   mkdirSync(options.dir, { recursive: true });
   const apiKey = `sk_local_${randomBytes(16).toString('hex')}`;
   const appId = 'ringpass-local';
-  const base = `http://127.0.0.1:${options.port}`;
+  let port = options.port;
+  const base = () => `http://127.0.0.1:${port}`;
   const pending = new Map<string, Pending>();
   const results = new Map<string, (data: unknown) => void>();
 
@@ -89,11 +92,11 @@ export async function startUploadFake(options: { port: number; dir: string }): P
     return Buffer.concat(chunks).toString('utf8');
   };
   const authorised = (req: IncomingMessage) => req.headers['x-uploadthing-api-key'] === apiKey;
-  const fileUrl = (key: string) => `http://localhost:${options.port}/a/${appId}/${key}`;
+  const fileUrl = (key: string) => `http://localhost:${port}/a/${appId}/${key}`;
 
   async function handlePut(req: IncomingMessage, res: ServerResponse, key: string, url: URL) {
     // The SDK signs the URL up to "&signature"; values are encoded twice.
-    const raw = `${base}${req.url!}`;
+    const raw = `${base()}${req.url!}`;
     if (!signedBy(raw, apiKey)) return json(res, 403, { error: 'Invalid signature' });
     if (Number(url.searchParams.get('expires')) < Date.now())
       return json(res, 403, { error: 'URL expired' });
@@ -144,7 +147,7 @@ export async function startUploadFake(options: { port: number; dir: string }): P
         fileHash,
         lastModified: Date.now(),
       },
-      origin: base,
+      origin: base(),
       metadata: meta.metadata,
     });
     const done = new Promise<unknown>((resolve, reject) => {
@@ -175,7 +178,7 @@ export async function startUploadFake(options: { port: number; dir: string }): P
 
   const server = createServer((req, res) => {
     cors(req, res);
-    const url = new URL(req.url ?? '/', base);
+    const url = new URL(req.url ?? '/', base());
     const route = `${req.method} ${url.pathname}`;
     void (async () => {
       if (req.method === 'OPTIONS') return res.writeHead(204).end();
@@ -247,9 +250,10 @@ export async function startUploadFake(options: { port: number; dir: string }): P
     server.once('error', reject);
     server.listen(options.port, '127.0.0.1', () => resolve());
   });
+  port = (server.address() as AddressInfo).port;
   return {
-    port: options.port,
-    env: uploadFakeEnv(options.port, apiKey, appId),
+    port,
+    env: uploadFakeEnv(port, apiKey, appId),
     close: () => new Promise((r) => server.close(() => r())),
   };
 }

@@ -13,6 +13,14 @@ Object.assign(process.env, {
   SMTP_URL: `smtp://127.0.0.1:${INTEGRATION_SINK.port}`,
   MAILBOX_DIR: INTEGRATION_SINK.dir,
   APP_URL: 'http://127.0.0.1:3000',
+  // A photo store nobody listens on (port 9, discard): reports built without the upload fake
+  // find their photos unreadable at once. A missing token would fail every report with photos,
+  // as it must in a server. Tests that read photos start the fake and set its own variables.
+  UPLOADTHING_TOKEN: Buffer.from(
+    JSON.stringify({ apiKey: 'sk_test_none', appId: 'ringpass-test', regions: ['local'] }),
+  ).toString('base64'),
+  UPLOADTHING_UFS_HOST: 'localhost:9',
+  UPLOADTHING_UFS_APP_ID_LOCATION: 'path',
 });
 
 vi.mock('next/headers', async () => (await import('./next-request')).nextHeadersMock);

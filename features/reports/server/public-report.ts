@@ -21,9 +21,12 @@ export async function getPublicReportPdf(token: string): Promise<RenderedReport 
   return renderReport(link.shopId, await getReportData(link.shopId, link.jobId));
 }
 
-/** A photo of the link's own job, proxied: the store's URLs never reach the customer. */
-export async function getPublicPhoto(token: string, photoId: string) {
+/**
+ * A photo of the link's own job, proxied: the store's URLs never reach the customer. The
+ * transfer ends with `signal` (the customer's request).
+ */
+export async function getPublicPhoto(token: string, photoId: string, signal?: AbortSignal) {
   const link = await findReportLink(token);
   if (!link) return null;
-  return openPhoto(link.shopId, link.jobId, photoId);
+  return openPhoto(link.shopId, link.jobId, photoId, signal);
 }

@@ -4,41 +4,28 @@ import type SharpFn from 'sharp';
 import { getDb } from '@/db';
 import { wheelPhotos } from '@/db/schema';
 import type { PhotoImage } from '../pdf/wheel-section';
-import { signedFileUrl } from './store-url';
+import { openStoredFile, readStoredFile } from '@/server/storage/read-file';
+import { storeConfig } from '@/server/storage/store-config';
 
 /** Photos in the PDF are at most this wide: enough to see the bead and ring gap, small enough to mail. */
 const MAX_EDGE = 640;
 /** Without an image library, a stored JPEG or PNG up to this size goes in as it is. */
 const MAX_RAW_BYTES = 1_500_000;
-const FETCH_TIMEOUT_MS = 8_000;
 type StoredPhoto = { id: string; fileKey: string; mime: string };
 
 /**
- * The bytes of a stored file, through a short-lived signed URL of the private store. Whole, not
- * streamed: the image library gathers a streamed input into one buffer before it decodes anyway.
- */
-async function fetchStored(fileKey: string): Promise<Buffer | null> {
-  try {
-    const res = await fetch(signedFileUrl(fileKey, 60), {
-      signal: AbortSignal.timeout(FETCH_TIMEOUT_MS),
-    });
-    if (!res.ok) return null;
-    return Buffer.from(await res.arrayBuffer());
-  } catch {
-    return null;
-  }
-}
-
-/**
  * One of this shop's photos as the store sends it, streamed: the customer's page shows originals
- * of a few MB each, and the server holds none of them whole. The timeout covers the store's
- * answer, not the transfer to a slow phone.
+ * of a few MB each, and the server holds none of them whole. The transfer ends with the request
+ * (`signal`) or a store that stalls; a misconfigured store throws (the route answers 500 and
+ * logs it) instead of passing for a missing photo.
  */
 export async function openPhoto(
   shopId: string,
   jobId: string,
   photoId: string,
-): Promise<{ body: ReadableStream<Uint8Array>; mime: string } | null> {
+  signal?: AbortSignal,
+): Promise<{ body: ReadableStream<Uint8Array>; mime: string; length: number | null } | null> {
+  const config = storeConfig();
   const [row] = await getDb()
     .select({ fileKey: wheelPhotos.fileKey, mime: wheelPhotos.mime })
     .from(wheelPhotos)
@@ -50,16 +37,8 @@ export async function openPhoto(
       ),
     );
   if (!row) return null;
-  const answered = new AbortController();
-  const timer = setTimeout(() => answered.abort(), FETCH_TIMEOUT_MS);
-  try {
-    const res = await fetch(signedFileUrl(row.fileKey, 60), { signal: answered.signal });
-    return res.ok && res.body ? { body: res.body, mime: row.mime } : null;
-  } catch {
-    return null;
-  } finally {
-    clearTimeout(timer);
-  }
+  const file = await openStoredFile(config, row.fileKey, { signal });
+  return file && { ...file, mime: row.mime };
 }
 
 let sharpModule: Promise<typeof SharpFn | null> | undefined;
@@ -112,6 +91,9 @@ export async function loadReportImages(
   photoIds: string[],
 ): Promise<Record<string, PhotoImage | null>> {
   if (!photoIds.length) return {};
+  // Read before any photo: a misconfigured store fails the build (and the queue's job, with this
+  // reason) instead of sending the customer a report whose every photo "could not be read".
+  const config = storeConfig();
   const rows: StoredPhoto[] = await getDb()
     .select({ id: wheelPhotos.id, fileKey: wheelPhotos.fileKey, mime: wheelPhotos.mime })
     .from(wheelPhotos)
@@ -128,7 +110,7 @@ export async function loadReportImages(
   // body twice while undici joins it: three at once peaked 20–30 MB higher in bench:report for
   // the same CPU. The cost is wall time against a remote store: its round trips add up.
   for (const { id, fileKey, mime } of rows) {
-    const bytes = await fetchStored(fileKey);
+    const bytes = await readStoredFile(config, fileKey);
     out[id] = bytes ? await downscale(bytes, mime) : null;
   }
   return out;

@@ -19,12 +19,21 @@ import {
 } from '@/features/reports/server/report-links';
 import { apiRequest, params } from '@/tests/helpers/factories';
 import { signedOffJob } from '@/tests/helpers/report-work';
+import type * as StoreConfigModule from '@/server/storage/store-config';
 
 // The photo store, as the upload service would answer a signed URL: a real 1600×1200 JPEG.
-// (The report signs its URLs itself; store-url.test.ts holds them equal to the SDK's.)
+// (server/storage signs the URLs; signed-url.test.ts holds them equal to the SDK's.)
 let JPEG: Buffer;
 let storeUrl = () => `data:image/jpeg;base64,${JPEG.toString('base64')}`;
-vi.mock('@/features/reports/server/store-url', () => ({ signedFileUrl: () => storeUrl() }));
+vi.mock('@/server/storage/signed-url', () => ({ signedFileUrl: async () => storeUrl() }));
+/** A garbled UPLOADTHING_TOKEN while set: the real check then refuses it, as in a server. */
+let garbledToken = false;
+vi.mock('@/server/storage/store-config', async (load) => {
+  const real = await load<typeof StoreConfigModule>();
+  const storeConfig = () =>
+    garbledToken ? real.storeConfigFrom({ UPLOADTHING_TOKEN: 'sk_live!' }) : real.storeConfig();
+  return { ...real, storeConfig };
+});
 beforeAll(async () => {
   JPEG = await sharp({
     create: { width: 1600, height: 1200, channels: 3, background: '#6b7280' },
@@ -174,6 +183,84 @@ describe("the customer's link /r/<token>", () => {
       letGo();
       storeUrl = before;
       store.close();
+    }
+  });
+});
+
+describe("the customer's photos from a store that fails", () => {
+  const firstPhoto = async (jobId: string) =>
+    (
+      await getDb()
+        .select({ id: wheelPhotos.id })
+        .from(wheelPhotos)
+        .where(eq(wheelPhotos.jobId, jobId))
+    )[0]!.id;
+  /** A store on loopback answering as `answer` does, for the time of `body`. */
+  async function withStore(
+    answer: Parameters<typeof createServer>[1],
+    body: () => Promise<void>,
+  ): Promise<void> {
+    const store = createServer(answer).listen(0, '127.0.0.1');
+    await new Promise((r) => store.once('listening', r));
+    const before = storeUrl;
+    storeUrl = () => `http://127.0.0.1:${(store.address() as AddressInfo).port}/a/app/key`;
+    try {
+      await body();
+    } finally {
+      storeUrl = before;
+      store.closeAllConnections();
+      store.close();
+    }
+  }
+
+  it('answers 404 within about 8 s when the store never answers', async () => {
+    const { link, job } = await linked();
+    const id = await firstPhoto(job.id);
+    await withStore(
+      () => {},
+      async () => {
+        const started = performance.now();
+        const shown = await photo(link.token, id);
+        expect(shown.status).toBe(404);
+        expect(performance.now() - started).toBeLessThan(9_500);
+      },
+    );
+  });
+
+  it('forwards the length the store gives, and stops reading when the customer leaves', async () => {
+    const { link, job } = await linked();
+    const id = await firstPhoto(job.id);
+    let storeLetGo: Promise<void> = Promise.resolve();
+    await withStore(
+      (_req, res) => {
+        storeLetGo = new Promise((r) => res.once('close', () => r()));
+        res.writeHead(200, { 'content-type': 'image/jpeg', 'content-length': JPEG.length });
+        res.write(JPEG.subarray(0, JPEG.length >> 1));
+      },
+      async () => {
+        const customer = new AbortController();
+        const shown = await publicPhotoRoute.GET(
+          new Request(`http://127.0.0.1:3000/r/${link.token}/photos/${id}`, {
+            signal: customer.signal,
+          }),
+          { params: Promise.resolve({ token: link.token, photoId: id }) } as never,
+        );
+        expect(shown.status).toBe(200);
+        expect(shown.headers.get('content-length')).toBe(String(JPEG.length));
+        customer.abort();
+        await expect(storeLetGo).resolves.toBeUndefined();
+      },
+    );
+  });
+
+  it('fails loudly (Next logs it, answers 500) when the store is misconfigured, not as a missing photo', async () => {
+    const { link, job } = await linked();
+    const id = await firstPhoto(job.id);
+    garbledToken = true;
+    try {
+      await expect(photo(link.token, id)).rejects.toThrow('UPLOADTHING_TOKEN is not base64');
+    } finally {
+      garbledToken = false;
     }
   });
 });

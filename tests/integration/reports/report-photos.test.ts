@@ -1,27 +1,33 @@
 import { rmSync, writeFileSync } from 'node:fs';
-import { createServer, type AddressInfo } from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { eq } from 'drizzle-orm';
 import sharp from 'sharp';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { getDb } from '@/db';
 import { wheelPhotos } from '@/db/schema';
 import { loadReportImages } from '@/features/reports/server/report-photos';
 import { startUploadFake, type UploadFake } from '@/server/dev/upload-fake';
 import { signedOffJob } from '@/tests/helpers/report-work';
+import type * as StoreConfigModule from '@/server/storage/store-config';
 
-// The report reads the private store through URLs it signs itself, without the upload SDK: the
+/** A garbled UPLOADTHING_TOKEN while set: the real check then refuses it, as in a server. */
+let garbledToken = false;
+vi.mock('@/server/storage/store-config', async (load) => {
+  const real = await load<typeof StoreConfigModule>();
+  const storeConfig = () =>
+    garbledToken ? real.storeConfigFrom({ UPLOADTHING_TOKEN: 'sk_live!' }) : real.storeConfig();
+  return { ...real, storeConfig };
+});
+
+// The report reads the private store through URLs signed without UTApi (server/storage/): the
 // local fake of the service (which checks the signature on private files) must hand them over.
 const dir = path.join(os.tmpdir(), `ringpass-report-photos-${process.pid}`);
 let fake: UploadFake;
 
 beforeAll(async () => {
-  const probe = createServer().listen(0, '127.0.0.1');
-  await new Promise((r) => probe.once('listening', r));
-  const port = (probe.address() as AddressInfo).port;
-  await new Promise((r) => probe.close(r));
-  fake = await startUploadFake({ port, dir });
+  // Port 0: the fake takes a free port itself (a probed port could be taken before it listens).
+  fake = await startUploadFake({ port: 0, dir });
   // Before anything reads the app's configuration (read once, on first use).
   Object.assign(process.env, fake.env);
 });
@@ -68,6 +74,26 @@ describe("the report's photos", () => {
       expect(image?.format).toBe('jpg');
       const { width, height } = await sharp(image!.data).metadata();
       expect({ width, height }).toEqual({ width: 480, height: 640 });
+    }
+  });
+
+  it('fail the whole build, with the reason, when the store is misconfigured', async () => {
+    const { shop, job } = await signedOffJob(new Date());
+    const ids = await getDb()
+      .select({ id: wheelPhotos.id })
+      .from(wheelPhotos)
+      .where(eq(wheelPhotos.jobId, job.id));
+    garbledToken = true;
+    try {
+      await expect(
+        loadReportImages(
+          shop.shopId,
+          job.id,
+          ids.map((r) => r.id),
+        ),
+      ).rejects.toThrow('UPLOADTHING_TOKEN is not base64');
+    } finally {
+      garbledToken = false;
     }
   });
 });

@@ -9,6 +9,6 @@ const params = z.object({ photoId: z.uuid() });
  * the person running the photo's wheel (a cleared apprentice's runner). The guard only requires
  * a member of the shop; streamPhoto decides per photo, so neither group is held to the other's rule.
  */
-export const GET = apiRoute({ permission: 'board.view', params }, ({ member, params }) =>
-  streamPhoto(member, params.photoId),
+export const GET = apiRoute({ permission: 'board.view', params }, ({ request, member, params }) =>
+  streamPhoto(member, params.photoId, request.signal),
 );
