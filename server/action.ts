@@ -2,7 +2,7 @@ import 'server-only';
 import { unstable_rethrow } from 'next/navigation';
 import type { z } from 'zod';
 import { can, type Permission } from '@/server/auth/permissions';
-import { currentSessionId, getCurrentMember, type Member } from '@/server/auth/session';
+import { getCurrentMember, type Member } from '@/server/auth/session';
 import { DomainError, type DomainErrorCode } from '@/server/errors';
 
 export type FieldErrors = Record<string, string[] | undefined>;
@@ -102,29 +102,10 @@ export function memberAction<S extends z.ZodType, T>(
   options: {
     permission: Permission;
     schema: S;
-    /**
-     * An optional first try for a hot path: the valid input and the cookie's session id, for a
-     * single statement that checks the session, the permission and the rows itself
-     * (`liveMemberSql`). Null sends the call the ordinary way, which answers for the whole batch (a
-     * race may have let the quick step store part of it; ids are stored once, so nothing doubles).
-     */
-    quick?: (input: z.output<S>, sessionId: string) => Promise<T | null>;
   },
   run: (input: z.output<S>, member: Member) => Promise<T>,
 ) {
   return async (_prev: unknown, payload: FormData | z.input<S>): Promise<ActionResult<T>> => {
-    if (options.quick && !(payload instanceof FormData)) {
-      const sessionId = await currentSessionId();
-      const parsed = sessionId ? options.schema.safeParse(payload ?? {}) : null;
-      if (sessionId && parsed?.success) {
-        try {
-          const data = await options.quick(parsed.data, sessionId);
-          if (data !== null) return { ok: true, data };
-        } catch (error) {
-          return failure(error, {});
-        }
-      }
-    }
     const member = await getCurrentMember();
     if (!member)
       return {

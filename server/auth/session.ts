@@ -124,12 +124,6 @@ export const getCurrentMember = cache(async (): Promise<Member | null> => {
   return result?.member ?? null;
 });
 
-/** This request's session id (its cookie's hash) without asking the database; null when none. */
-export async function currentSessionId(): Promise<string | null> {
-  const token = (await cookies()).get(SESSION_COOKIE)?.value;
-  return token ? sessionIdOf(token) : null;
-}
-
 /**
  * The member behind a session id as a subquery of one statement — `(user_id, shop_id, role)` —
  * holding every check validateSessionId and can() make: the session live (idle and absolute end),

@@ -85,8 +85,11 @@ function validate<S extends z.ZodType>(schema: S, value: unknown, what: string):
 }
 
 type Context<P, B, Q> = { request: Request; member: Member; params: P; body: B; query: Q };
-/** What a quick first try gets: the valid params and body and the cookie's session id, no member yet. */
-type QuickContext<P, B> = { params: P; body: B; sessionId: string };
+/**
+ * What a quick first try gets: the valid params and body, the cookie's session id (no member yet)
+ * and the route's permission, which its statement checks for itself.
+ */
+type QuickContext<P, B> = { params: P; body: B; sessionId: string; permission: Permission };
 
 /**
  * The one way to write a route handler: origin check for writes, session and role, params
@@ -107,7 +110,7 @@ export function apiRoute<
     /**
      * An optional first try for a hot path, after the origin check and before anyone reads the
      * session: a single statement that checks the session, the permission and the rows itself
-     * (`liveMemberSql`), as memberAction's `quick`. Its answer is sent as `run`'s would be; null
+     * (`liveMemberSql` with the `permission` it is given). Its answer is sent as `run`'s would be; null
      * (or no session cookie, or params or body that do not parse) goes the ordinary way, which
      * answers in the ordinary order (401, 403, 404, 400), so the answers never depend on this try.
      */
@@ -169,7 +172,7 @@ export function apiRoute<
 
 /** The quick try's answer, or null when it does not apply or stored nothing (the ordinary way answers). */
 async function tryQuick<P, B>(
-  options: { params?: z.ZodType; body?: z.ZodType },
+  options: { permission: Permission; params?: z.ZodType; body?: z.ZodType },
   quick: (ctx: QuickContext<P, B>) => Promise<unknown>,
   request: Request,
   context: { params: Promise<Record<string, string | string[]>> },
@@ -192,5 +195,10 @@ async function tryQuick<P, B>(
     if (!parsed?.success) return null;
     body = parsed.data;
   }
-  return quick({ params: params.data as P, body: body as B, sessionId });
+  return quick({
+    params: params.data as P,
+    body: body as B,
+    sessionId,
+    permission: options.permission,
+  });
 }

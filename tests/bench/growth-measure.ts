@@ -86,10 +86,10 @@ const confirmation = (k: number, wrenchId?: string): ClientEvent => ({
   },
 });
 
-/** What the runner's action does: the quick statement first, the full path when it stores nothing. */
+/** What the runner's save handler does: the quick statement first, the full path when it stores nothing. */
 async function save(member: Member, wheelId: string, event: ClientEvent) {
   const result =
-    (await saveWheelBatchForSession(member.sessionId, wheelId, [event])) ??
+    (await saveWheelBatchForSession(member.sessionId, 'jobs.run', wheelId, [event])) ??
     (await saveWheelBatch(member, wheelId, [event], noStart));
   if (result.refused.length) throw new Error(`refused: ${result.refused[0]!.message}`);
   return result;

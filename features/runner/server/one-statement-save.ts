@@ -3,6 +3,7 @@ import { sql, type SQL } from 'drizzle-orm';
 import { getDb } from '@/db';
 import { jobs, jobWheels, shopSettings, wheelRunEvents, wheelSpecs, wrenches } from '@/db/schema';
 import { CYCLE_LIMIT } from '@/features/torque-plan';
+import type { Permission } from '@/server/auth/permissions';
 import { liveMemberSql } from '@/server/auth/session';
 import { clampClientAt } from '../clock-window';
 import { partitionEvents, type ClientEvent, type EventRefusal } from '../events';
@@ -99,7 +100,7 @@ export function prepareBatch(raw: unknown[], now: Date) {
 /**
  * The quick path before anyone has read the session: the whole batch in one statement that also
  * checks the session (server/auth's `liveMemberSql`: live, not due for renewal, role and
- * clearance for `jobs.run`). Null when it stored nothing: the caller goes the ordinary way
+ * clearance for the route's `permission`). Null when it stored nothing: the caller goes the ordinary way
  * (session, permission, `saveWheelBatch`), which answers ended sessions, renewals, refusals and
  * replays as before. Only a race (another request storing one of these ids between this
  * statement's read and its insert) leaves part of a batch stored here; the ordinary way then
@@ -107,6 +108,7 @@ export function prepareBatch(raw: unknown[], now: Date) {
  */
 export async function saveWheelBatchForSession(
   sessionId: string,
+  permission: Permission,
   wheelId: string,
   raw: unknown[],
   now = new Date(),
@@ -114,7 +116,7 @@ export async function saveWheelBatchForSession(
   const { events, simple } = prepareBatch(raw, now);
   if (!simple) return null;
   const saved = await insertIfAllowed(
-    liveMemberSql(sessionId, 'jobs.run', now.getTime()),
+    liveMemberSql(sessionId, permission, now.getTime()),
     wheelId,
     events,
   );

@@ -167,6 +167,8 @@ describe('POST /api/wheels/:id/events', () => {
     expect(next.status).toBe(200);
     expect(await next.json()).toEqual({ data: { saved: 1, duplicates: 0, refused: [] } });
     expect(saveWheelBatchForSession).toHaveBeenCalledTimes(1);
+    // The statement checks the route's own permission (apiRoute hands it over).
+    expect(vi.mocked(saveWheelBatchForSession).mock.calls[0]?.[1]).toBe('jobs.run');
     expect(saveWheelBatch).not.toHaveBeenCalled();
     expect(await stored()).toHaveLength(2);
   });

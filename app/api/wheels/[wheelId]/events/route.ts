@@ -32,8 +32,13 @@ export const POST = apiRoute(
     params,
     body: looseEventBatchSchema,
     // A plain bolt confirmation: session, role, wheel, wrench and plan in one statement.
-    quick: async ({ params, body, sessionId }) => {
-      const saved = await saveWheelBatchForSession(sessionId, params.wheelId, body.events);
+    quick: async ({ params, body, sessionId, permission }) => {
+      const saved = await saveWheelBatchForSession(
+        sessionId,
+        permission,
+        params.wheelId,
+        body.events,
+      );
       return saved && { data: saved };
     },
   },
