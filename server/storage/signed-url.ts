@@ -7,10 +7,11 @@ import type { StoreConfig } from './store-config';
 /**
  * A short-lived URL that reads the private file `fileKey`: the base is built as the SDK's
  * `UTApi.generateSignedURL` builds it (uploadthing 7.7), the signature is the SDK's own
- * `generateSignedURL` (@uploadthing/shared). Not `UTApi`: `uploadthing/server` and its effect
- * runtime cost a process about 44 MB resident, the shared signer about 11 MB, and the queue's
- * worker only ever reads photos. `tests/unit/server/storage/signed-url.test.ts` holds the result
- * equal to `UTApi.generateSignedURL`, so an SDK upgrade that builds the URL differently fails there.
+ * `generateSignedURL` (@uploadthing/shared). Not `UTApi`: in the queue worker's shape (which only
+ * ever reads photos) `uploadthing/server` added about 50 MB resident, this signer about 5 MB over
+ * the hand-written HMAC it replaces (2026-12-02, 5 alternating pairs). The unit test
+ * `tests/unit/server/storage/signed-url.test.ts` holds the result equal to `UTApi.generateSignedURL`,
+ * so an SDK upgrade that builds the URL differently fails there.
  */
 export function signedFileUrl(
   config: StoreConfig,
