@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import { beforeAll, describe, expect, it } from 'vitest';
 import * as customerItem from '@/app/api/customers/[customerId]/route';
 import * as customerList from '@/app/api/customers/route';
@@ -9,6 +10,7 @@ import * as specItem from '@/app/api/specs/[specId]/route';
 import * as specList from '@/app/api/specs/route';
 import * as vehicleItem from '@/app/api/vehicles/[vehicleId]/route';
 import * as vehicleList from '@/app/api/vehicles/route';
+import * as wheelEvents from '@/app/api/wheels/[wheelId]/events/route';
 import * as wheelItem from '@/app/api/wheels/[wheelId]/route';
 import * as wrenchClear from '@/app/api/wrenches/[wrenchId]/clear/route';
 import * as wrenchItem from '@/app/api/wrenches/[wrenchId]/route';
@@ -31,6 +33,7 @@ let a: Shop,
   ra: Records,
   rb: Records,
   wheelA: string,
+  runWheelA: string,
   cookies: Record<'lead' | 'technician' | 'apprentice' | 'otherLead', string>;
 
 beforeAll(async () => {
@@ -39,6 +42,10 @@ beforeAll(async () => {
   ra = await createRecords(a.lead, a.technician.userId);
   rb = await createRecords(b.lead, b.technician.userId);
   wheelA = (await getJob(a.shopId, ra.job.id)).wheels[0]!.id;
+  // A job of its own for the runner's save (its first event starts the job; ra.job's transitions
+  // are tested below), assigned to the technician.
+  const runJob = (await createRecords(a.lead, a.technician.userId)).job;
+  runWheelA = (await getJob(a.shopId, runJob.id)).wheels[0]!.id;
   cookies = {
     lead: await cookieFor(a.lead.userId),
     technician: await cookieFor(a.technician.userId),
@@ -120,6 +127,29 @@ const cases: Case[] = [
     method: 'GET',
     path: () => `/api/wheels/${wheelA}`,
     params: () => ({ wheelId: wheelA }),
+    allowed: ['lead', 'technician'],
+    ok: 200,
+  },
+  {
+    // The lead's call starts the wheel (the full path); the technician's then takes the quick
+    // statement, which checks the role itself. Unassigned, cleared and removed people:
+    // wheel-events-access.test.ts.
+    name: 'POST /api/wheels/:id/events',
+    handler: wheelEvents.POST as Handler,
+    method: 'POST',
+    path: () => `/api/wheels/${runWheelA}/events`,
+    params: () => ({ wheelId: runWheelA }),
+    body: () => ({
+      events: [
+        {
+          type: 'bolt_confirmed',
+          payload: { pass: 1, bolt: 1 },
+          clientId: randomUUID(),
+          clientAt: new Date().toISOString(),
+        },
+      ],
+    }),
+    bad: () => ({ events: [] }),
     allowed: ['lead', 'technician'],
     ok: 200,
   },
