@@ -1,3 +1,4 @@
+import { sql } from 'drizzle-orm';
 import {
   boolean,
   date,
@@ -366,7 +367,16 @@ export const wheelRunEvents = pgTable(
      */
     supersededAt: timestamp({ withTimezone: true }),
   },
-  (t) => [index('wheel_run_events_wheel_idx').on(t.wheelId, t.clientAt)],
+  (t) => [
+    index('wheel_run_events_wheel_idx').on(t.wheelId, t.clientAt),
+    // The quick save's wrench check (features/runner/server/one-statement-save.ts): was this
+    // wrench chosen for this pass? Only current choices, so it reads a wheel's few choices, not
+    // its whole history. The expressions must stay as the query writes them for the planner to
+    // match; the wrench id is left out (one or two choices per pass; it would double the size).
+    index('wheel_run_events_wrench_chosen_idx')
+      .on(t.wheelId, sql`((${t.payload}->>'pass')::int)`)
+      .where(sql`${t.type} = 'wrench_chosen' and ${t.supersededAt} is null`),
+  ],
 );
 
 export const photoKindEnum = pgEnum('photo_kind', ['bead_outer', 'bead_inner', 'other']);
