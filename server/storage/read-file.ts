@@ -14,17 +14,17 @@ export type StoredStream = { body: ReadableStream<Uint8Array>; length: number | 
 
 /**
  * A private file's bytes, whole (the image library gathers its input into one buffer anyway), or
- * null when the store does not have it or does not send it within the timeout. The config is
- * the caller's, read before this: a misconfigured store throws there, not here.
+ * null when the store does not have it or does not send all of it within `timeoutMs`. The config
+ * is the caller's, read before this: a misconfigured store throws there, not here.
  */
 export async function readStoredFile(
   config: StoreConfig,
   fileKey: string,
-  { answerMs = ANSWER_MS }: Pick<ReadOptions, 'answerMs'> = {},
+  { timeoutMs = ANSWER_MS }: { timeoutMs?: number } = {},
 ): Promise<Buffer | null> {
   const url = await signedFileUrl(config, fileKey, URL_TTL_SECONDS);
   try {
-    const res = await fetch(url, { signal: AbortSignal.timeout(answerMs) });
+    const res = await fetch(url, { signal: AbortSignal.timeout(timeoutMs) });
     if (!res.ok) {
       // Unread, the answer's body would hold its connection until undici's body timeout.
       await res.body?.cancel();

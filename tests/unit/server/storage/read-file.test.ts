@@ -109,6 +109,6 @@ describe('a private file read whole', () => {
     });
     expect((await readStoredFile(config, 'here'))?.equals(FILE)).toBe(true);
     expect(await readStoredFile(config, 'gone')).toBeNull();
-    expect(await readStoredFile(config, 'silent', { answerMs: 300 })).toBeNull();
+    expect(await readStoredFile(config, 'silent', { timeoutMs: 300 })).toBeNull();
   });
 });
