@@ -49,6 +49,8 @@ async function insertIfAllowed(who: SQL, wheelId: string, events: Timed[]): Prom
         -- A bolt naming a wrench takes this path only when that wrench was chosen, and so judged, for
         -- its pass, and is still usable now (in service, calibration not past due on the shop's day,
         -- under the cycle limit: it may have reached it mid-pass); otherwise the full path judges it.
+        -- The choice is found through wheel_run_events_wrench_chosen_idx (db/schema/records.ts), whose
+        -- predicate and pass expression these conditions repeat word for word so the planner matches it.
         and (ev.type <> 'bolt_confirmed' or ev.payload->>'wrenchId' is null or (exists (
           select 1 from ${wheelRunEvents} c join ${shopSettings} cs on cs.shop_id = c.shop_id
           where c.wheel_id = w.id and c.type = 'wrench_chosen' and c.superseded_at is null
