@@ -50,18 +50,18 @@ async function setup(db: CapturingDb): Promise<Setup> {
     sessionId: session.id,
   };
   const ids = wheels.map((w) => w.wheel_id as string);
+  const wrenchId = who!.wrench_id as string;
   db.use();
   for (const wheelId of ids) {
     const ctx = await loadWheel(member.shopId, wheelId);
     if (!ctx.wheel.snapshot) await save(member, wheelId, stepDone());
   }
   const half = ids.length / 2;
-  const made = {
-    member,
-    wrenchId: who!.wrench_id as string,
-    reads: ids.slice(0, half),
-    saves: ids.slice(half),
-  };
+  // The saved-on wheels' generated choices are months old, and the quick statement takes a bolt
+  // naming a wrench only when that wrench was chosen for its pass the same shop day: without a
+  // choice today every measured confirmation would be handed on to the full path.
+  for (const wheelId of ids.slice(half)) await save(member, wheelId, chosen(wrenchId));
+  const made = { member, wrenchId, reads: ids.slice(0, half), saves: ids.slice(half) };
   setups.set(db, made);
   return made;
 }
@@ -71,6 +71,13 @@ const stepDone = (): ClientEvent => ({
   clientAt: new Date().toISOString(),
   type: 'step_done',
   payload: { step: 'safety', checklist: [] },
+});
+
+const chosen = (wrenchId: string): ClientEvent => ({
+  clientId: newEventId(),
+  clientAt: new Date().toISOString(),
+  type: 'wrench_chosen',
+  payload: { pass: 1, wrenchId },
 });
 
 // Without a wrench (as older phones sent it) the statement updates no wrench row, so parallel saves
@@ -88,11 +95,10 @@ const confirmation = (k: number, wrenchId?: string): ClientEvent => ({
 
 /** What the runner's save handler does: the quick statement first, the full path when it stores nothing. */
 async function save(member: Member, wheelId: string, event: ClientEvent) {
-  const result =
-    (await saveWheelBatchForSession(member.sessionId, 'jobs.run', wheelId, [event])) ??
-    (await saveWheelBatch(member, wheelId, [event], noStart));
+  const quick = await saveWheelBatchForSession(member.sessionId, 'jobs.run', wheelId, [event]);
+  const result = quick ?? (await saveWheelBatch(member, wheelId, [event], noStart));
   if (result.refused.length) throw new Error(`refused: ${result.refused[0]!.message}`);
-  return result;
+  return { ...result, quick: quick !== null };
 }
 
 async function read(s: Setup, wheelId: string) {
@@ -120,7 +126,10 @@ export async function measure(db: CapturingDb, n: number) {
     await timed(out.read, () => read(s, s.reads[i % s.reads.length]!));
     const event = confirmation(i, s.wrenchId);
     await timed(out.confirm, async () => {
-      if ((await save(s.member, wheelId, event)).saved !== 1) throw new Error('not saved');
+      const saved = await save(s.member, wheelId, event);
+      if (saved.saved !== 1) throw new Error('not saved');
+      // The figure is the quick statement's: a confirmation handed on would measure the full path.
+      if (!saved.quick) throw new Error('the quick statement handed a plain confirmation on');
     });
     await timed(out.replay, async () => {
       if ((await save(s.member, wheelId, event)).duplicates !== 1) throw new Error('not a replay');

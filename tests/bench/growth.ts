@@ -34,12 +34,13 @@ async function prepare(db: { name: string; rows: number }, reuse: boolean) {
     const sql = postgres(clusterUrl(db.name), { max: 1, onnotice: () => {} });
     const [{ n }] = (await sql`select count(*)::int as n from wheel_run_events`) as [{ n: number }];
     if (n >= db.rows) {
-      // Earlier runs' confirmations on the measured wheels go, so their wheels are as long as the
-      // fresh 10,000-row database's (the save's checks read a wheel's events), then vacuum.
+      // Earlier runs' confirmations and wrench choices on the measured wheels go, so their wheels
+      // are as long as the fresh 10,000-row database's (the save's checks read a wheel's events),
+      // then vacuum.
       const gone = await sql`
         delete from wheel_run_events e using bench_wheels b
-        where b.wheel_id = e.wheel_id and b.ord <= ${MEASURED_WHEELS} and e.type = 'bolt_confirmed'
-          and e.received_at > now() - interval '30 days'`;
+        where b.wheel_id = e.wheel_id and b.ord <= ${MEASURED_WHEELS}
+          and e.type in ('bolt_confirmed', 'wrench_chosen') and e.received_at > now() - interval '30 days'`;
       await sql`vacuum (index_cleanup on) wheel_run_events`;
       await sql.end();
       return console.log(
