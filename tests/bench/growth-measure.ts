@@ -163,7 +163,9 @@ export async function captureOne(db: CapturingDb, op: 'read' | 'confirm' | 'repl
   const event = confirmation(7, s.wrenchId);
   if (op === 'read') return db.capture(() => read(s, s.reads[0]!));
   if (op === 'confirm') {
-    const statements = await db.capture(() => save(s.member, wheelId, event));
+    const statements = await db.capture(async () => {
+      if (!(await save(s.member, wheelId, event)).quick) throw new Error('handed on, not quick');
+    });
     // Gone again, so the explained insert stores it (then rolls back) instead of finding it there.
     await db.sql`delete from wheel_run_events where client_id = ${event.clientId}`;
     return statements;
