@@ -5,11 +5,11 @@
  *     through the runner's save path (POST /api/wheels/:id/events, as the runner's outbox sends),
  *     signed in; in the same run, single-row inserts straight into PostgreSQL at the same rate.
  * (b) capacity: the rate rises by half, 30 s per step, while the p95 stays at or under 50 ms.
- * (d) what the framework costs with no database work: a server action (practice's save, the one
- *     the runner still calls as an action) and a route handler each answering a call with no
- *     session, 25 a second, 5 s of each in turn, twice; latency and server CPU per call.
- * (e) the same save both ways, signed in: practice's batch (one transaction) through its server action
- *     and through its route handler, 25 a second, 5 s of each in turn, twice; server CPU per call.
+ * (d) what the framework costs with no database work: a server action (practice's start, posted
+ *     to the practice page) and a route handler each answering a call with no session, 25 a
+ *     second, 5 s of each in turn, twice; latency and server CPU per call. (The former (e), the
+ *     practice save as an action beside its route handler, left with that action: practice saves
+ *     through its route handler as the runner does.)
  * (c) statements per confirmation: 200 confirmations one after another, counted from the
  *     database's own statistics (pg_stat_database: transactions, rows written).
  * Each confirmation is what the runner sends on a bolt: `bolt_confirmed` naming the pass's wrench
@@ -133,7 +133,7 @@ async function confirm(t: Tech, events: unknown[] = confirmEvents(t)): Promise<n
 }
 
 /**
- * The framework alone: a server action (practice's save, posted to a practice page with its id
+ * The framework alone: a server action (practice's start, posted to the practice page with its id
  * from the build, arguments as React encodes plain JSON) and a route handler, each refusing a call
  * with no session.
  */
@@ -143,14 +143,14 @@ async function signedOut(t: Tech, kind: 'action' | 'route'): Promise<number> {
   const res =
     kind === 'action'
       ? await post(
-          `/practice/attempts/${t.wheelId}`,
+          '/practice',
           {
             origin: BASE,
             'content-type': 'text/plain;charset=UTF-8',
             accept: 'text/x-component',
             'next-action': actionId,
           },
-          JSON.stringify([null, { wheelId: t.wheelId, events: confirmEvents(t) }]),
+          JSON.stringify([null, { source: 'surprise', level: 'guided' }]),
         )
       : await post(
           `/api/wheels/${t.wheelId}/submit`,
@@ -213,79 +213,6 @@ async function countPerConfirmation(sql: postgres.Sql, techs: Tech[], serverPid:
   );
 }
 
-/** A practice attempt per technician, started through the API as the practice page does. */
-async function startAttempts(techs: Tech[]): Promise<string[]> {
-  const headers = (t: Tech) => ({
-    cookie: t.cookie,
-    origin: BASE,
-    'content-type': 'application/json',
-  });
-  const body = JSON.stringify({ source: 'surprise', level: 'guided' });
-  const ids: string[] = [];
-  for (const t of techs) {
-    const res = await post('/api/practice/attempts', headers(t), body);
-    const id = (JSON.parse(res.text) as { data?: { id?: string } }).data?.id;
-    if (res.status !== 201 || !id) throw new Error(`attempt answered ${res.status}: ${res.text}`);
-    ids.push(id);
-  }
-  return ids;
-}
-
-/** One practice save: the same batch and the same work, as a server action or a route handler. */
-async function practiceSave(t: Tech, attempt: string, kind: 'action' | 'route'): Promise<number> {
-  const started = performance.now();
-  const events = [{ ...confirmEvents(t)[0]!, payload: { pass: 1, bolt: 1 + (t.n % 8) } }];
-  const res =
-    kind === 'action'
-      ? await post(
-          `/practice/attempts/${attempt}`,
-          {
-            cookie: t.cookie,
-            origin: BASE,
-            'content-type': 'text/plain;charset=UTF-8',
-            accept: 'text/x-component',
-            'next-action': actionId,
-          },
-          JSON.stringify([null, { wheelId: attempt, events }]),
-        )
-      : await post(
-          `/api/practice/attempts/${attempt}/events`,
-          { cookie: t.cookie, origin: BASE, 'content-type': 'application/json' },
-          JSON.stringify({ events }),
-        );
-  const saved =
-    kind === 'action' ? res.text.includes('"ok":true') : res.text.startsWith('{"data":');
-  if (res.status !== 200 || !saved)
-    throw new Error(`practice ${kind} answered ${res.status}: ${res.text.slice(0, 200)}`);
-  return performance.now() - started;
-}
-
-/** (e): the framework's share of a signed-in save, the work held equal. */
-async function bothWays(techs: Tech[], serverPid: number) {
-  const attempts = await startAttempts(techs);
-  const seen = {
-    action: { times: [] as number[], cpu: 0, errors: 0 },
-    route: { times: [] as number[], cpu: 0, errors: 0 },
-  };
-  for (let round = 0; round < 2; round++) {
-    for (const kind of ['action', 'route'] as const) {
-      const cpuBefore = cpuMs(serverPid);
-      const step = await load(25, 5, (i) =>
-        practiceSave(techs[i % TECHS]!, attempts[i % TECHS]!, kind),
-      );
-      seen[kind].cpu += cpuMs(serverPid) - cpuBefore;
-      seen[kind].times.push(...step.times);
-      seen[kind].errors += step.errors;
-    }
-  }
-  for (const kind of ['action', 'route'] as const) {
-    const f = seen[kind];
-    console.log(
-      `[bench] (e) practice save as a ${kind === 'action' ? 'server action' : 'route handler'}: p50 ${pct(f.times, 50).toFixed(1)} ms, server CPU ${(f.cpu / (f.times.length + f.errors)).toFixed(2)} ms per call (${f.errors} errors)`,
-    );
-  }
-}
-
 async function main() {
   await startCluster();
   await recreateDatabase(DB);
@@ -297,7 +224,7 @@ async function main() {
     clusterUrl(DB),
     process.env.BENCH_CPU_PROFILE === '1' ? { NEXT_CPU_PROF: '1' } : {},
   );
-  actionId = serverActionId(path.join(ROOT, server.distDir), 'savePracticeEvents');
+  actionId = serverActionId(path.join(ROOT, server.distDir), 'startPracticeAttempt');
   // "Wrench set" for each pass on every wheel (this also takes each wheel's snapshot); fails loudly
   // when the save's address is wrong or a wrench is refused.
   for (const t of techs) await confirm(t, WITH_WRENCH ? wrenchChosenEvents(t) : confirmEvents(t));
@@ -344,8 +271,6 @@ async function main() {
         `[bench] (d) signed-out ${kind === 'action' ? 'server action' : 'route handler'}: p50 ${pct(f.times, 50).toFixed(1)} ms, p95 ${pct(f.times, 95).toFixed(1)} ms, server CPU ${(f.cpu / (f.times.length + f.errors)).toFixed(2)} ms per call (${f.errors} errors)`,
       );
     }
-
-    await bothWays(techs, serverPid);
 
     // (b) capacity: raise the rate by half while p95 stays within 50 ms and nothing fails.
     let best = 0;

@@ -11,7 +11,6 @@ import {
 } from '@/db/schema';
 import { createInvite } from '@/features/accounts/server/invites';
 import { createJob, getJob } from '@/features/jobs/server/jobs';
-import { createAttempt } from '@/features/practice/server/attempts';
 import { createReportLink } from '@/features/reports/server/report-links';
 import type { Permission } from '@/server/auth/permissions';
 import type { Member } from '@/server/auth/session';
@@ -117,8 +116,6 @@ async function signedOffJob(w: World) {
   });
   return job;
 }
-
-const at = () => new Date().toISOString();
 
 /** A fresh job of shop A, run and submitted by its technician, waiting for a lead. */
 async function awaitingJob(w: World) {
@@ -260,27 +257,6 @@ export const ACTION_CASES: Record<string, ActionCase> = {
     permission: 'practice.run',
     input: () => ({ source: 'surprise', level: 'guided' }),
     otherShop: 'ok',
-  },
-  // The caller's own attempt; another shop's lead (and the signed-out caller) get shop A's apprentice's.
-  '/features/practice/actions/practice-actions.ts#savePracticeEvents': {
-    permission: 'practice.run',
-    input: async (w, caller) => ({
-      wheelId: (
-        await createAttempt(caller?.shopId === w.a.shopId ? caller : w.a.apprentice, {
-          source: 'surprise',
-          level: 'guided',
-        })
-      ).id,
-      events: [
-        {
-          type: 'step_done',
-          payload: { step: 'safety', checklist: [] },
-          clientId: randomUUID(),
-          clientAt: at(),
-        },
-      ],
-    }),
-    otherShop: 'not_found',
   },
   '/features/follow-up/actions/follow-up-actions.ts#cancelRecheckReminder': {
     permission: 'followup.manage',

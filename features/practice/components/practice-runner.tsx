@@ -3,6 +3,7 @@
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { Runner, type RunnerProps } from '@/features/runner/components/runner';
+import { postPracticeEvents } from '../api/post-practice-events';
 import type { PracticeLevel } from '../types';
 
 type Info = { waiting: number; unfinished: string[]; early: boolean };
@@ -75,10 +76,11 @@ export function PracticeRunner({
   attemptId,
   level,
   ...props
-}: Omit<RunnerProps, 'practice'> & { attemptId: string; level: PracticeLevel }) {
+}: Omit<RunnerProps, 'practice' | 'saveEvents'> & { attemptId: string; level: PracticeLevel }) {
   return (
     <Runner
       {...props}
+      saveEvents={postPracticeEvents}
       practice={{
         level,
         eventsUrl: `/api/practice/attempts/${attemptId}/events`,

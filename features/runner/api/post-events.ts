@@ -73,15 +73,20 @@ export async function readSaveAnswer(res: Response): Promise<SaveAnswer> {
 }
 
 /**
- * How a real wheel's outbox sends: `POST /api/wheels/:id/events` (a stable address that survives
- * deploys, unlike a server action's id). The browser adds the session cookie and the Origin the
- * handler checks.
+ * An outbox's save: POSTs `{ events }` as JSON to the address for its id (a stable address that
+ * survives deploys, unlike a server action's id) and reads the answer with `readSaveAnswer`. The
+ * browser adds the session cookie and the Origin the handler checks.
  */
-export const postWheelEvents: SaveEvents = async (_prev, { wheelId, events }) =>
-  readSaveAnswer(
-    await fetch(`/api/wheels/${encodeURIComponent(wheelId)}/events`, {
-      method: 'POST',
-      headers: { 'content-type': 'application/json' },
-      body: JSON.stringify({ events }),
-    }),
-  );
+export const eventsPoster =
+  (address: (id: string) => string): SaveEvents =>
+  async (_prev, { wheelId, events }) =>
+    readSaveAnswer(
+      await fetch(address(encodeURIComponent(wheelId)), {
+        method: 'POST',
+        headers: { 'content-type': 'application/json' },
+        body: JSON.stringify({ events }),
+      }),
+    );
+
+/** How a real wheel's outbox sends: `POST /api/wheels/:id/events`. */
+export const postWheelEvents = eventsPoster((id) => `/api/wheels/${id}/events`);

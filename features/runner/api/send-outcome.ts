@@ -1,7 +1,7 @@
 import type { ActionResult, FailureCode } from '@/server/action';
 import type { ClientEvent, EventRefusal } from '../events';
 
-/** Stores a batch: `postWheelEvents` (./post-events) for a real wheel, practice's server action for an attempt. */
+/** Stores a batch: `postWheelEvents` (./post-events) for a real wheel, practice's `postPracticeEvents` for an attempt. */
 export type SaveEvents = (
   prev: unknown,
   input: { wheelId: string; events: ClientEvent[] },
@@ -37,14 +37,4 @@ export function refusalMessage(refused: EventRefusal[]): string | null {
   const what =
     refused.length === 1 ? 'One confirmation was' : `${refused.length} confirmations were`;
   return `${what} not saved and set aside: ${refused[0]!.message} Everything else was saved; redo that step if it still needs doing.`;
-}
-
-const RELOADED_AT = 'ringpass:reloaded-for-new-build';
-/** Reloads into the new build after a deploy, once a minute at most (no reload loop). */
-export function reloadForNewBuild(): boolean {
-  const last = Number(sessionStorage.getItem(RELOADED_AT) ?? 0);
-  if (Date.now() - last < 60_000) return false;
-  sessionStorage.setItem(RELOADED_AT, String(Date.now()));
-  location.reload();
-  return true;
 }

@@ -1,6 +1,5 @@
 'use client';
 
-import { unstable_isUnrecognizedActionError } from 'next/navigation';
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { newEventId } from '../event-id';
 import type { ClientEvent, RunEvent } from '../events';
@@ -16,13 +15,7 @@ import {
   type QueuePerson,
 } from './outbox-store';
 import type { Sender, startSender } from './run-sender';
-import {
-  KeptForRetry,
-  keepsAndRetries,
-  refusalMessage,
-  reloadForNewBuild,
-  type SaveEvents,
-} from './send-outcome';
+import { KeptForRetry, keepsAndRetries, refusalMessage, type SaveEvents } from './send-outcome';
 
 export { outboxKey, othersWaiting } from './outbox-store';
 export type { AttentionItem, OthersWaiting, QueuePerson } from './outbox-store';
@@ -146,9 +139,6 @@ export function useRunQueue(
     try {
       result = await saveEvents(null, { wheelId, events: batch });
     } catch (error) {
-      // A deploy replaced the build this page came from, so its action id is gone: reload into
-      // the new build, which sends what waits from IndexedDB. Once a minute at most, then retry.
-      if (unstable_isUnrecognizedActionError(error) && reloadForNewBuild()) return null;
       // Kept and retried with the server's reason on screen (e.g. an Origin it refused).
       if (error instanceof KeptForRetry) setStatus((s) => ({ ...s, error: error.message }));
       throw error;

@@ -45,10 +45,11 @@ export type RunnerProps = {
   events: ClientEvent[];
   photos: Photo[];
   /**
-   * How confirmed events are sent: practice hands down its server action; a real wheel's go to
-   * `POST /api/wheels/:id/events` (`postWheelEvents`) when none is given.
+   * How confirmed events are sent: `postWheelEvents` for a real wheel (WheelRunner),
+   * practice's `postPracticeEvents` for an attempt. Required, so a page cannot send an attempt's
+   * events to a wheel's address by leaving it out.
    */
-  saveEvents?: SaveEvents;
+  saveEvents: SaveEvents;
   /** Sign-in that comes back to this runner, for when the session ends mid-wheel. */
   signInHref: string;
   /** A lead sent this wheel back: their note, and the steps to redo (none = the whole wheel). */

@@ -1,7 +1,6 @@
 'use client';
 
 import { useCallback, useMemo, useState } from 'react';
-import { postWheelEvents } from '../api/post-events';
 import { useRunQueue } from '../api/use-run-queue';
 import { useRunState } from './use-run-state';
 import { CurrentStep } from './current-step';
@@ -27,7 +26,7 @@ export function Runner(props: RunnerProps) {
   const { events, record, status, attention, others, dismiss } = useRunQueue(
     wheel.id,
     props.events,
-    props.saveEvents ?? postWheelEvents,
+    props.saveEvents,
     person,
     props.rework?.at ?? null,
     practice?.eventsUrl,

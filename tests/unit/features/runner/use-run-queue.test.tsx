@@ -3,7 +3,6 @@
 import 'fake-indexeddb/auto';
 import { act, renderHook, waitFor } from '@testing-library/react';
 import { clear, get, set } from 'idb-keyval';
-import { UnrecognizedActionError } from 'next/dist/client/components/unrecognized-action-error';
 import { beforeEach, describe, expect, it, vi } from 'vitest';
 import { readSaveAnswer } from '@/features/runner/api/post-events';
 import {
@@ -147,24 +146,6 @@ describe('the runner outbox', () => {
         expect.objectContaining({ clientId: queued[2]!.clientId }),
       ],
     });
-  });
-
-  it('an action id retired by a deploy reloads the page once, keeping the queue for the new build', async () => {
-    const reload = vi.fn();
-    vi.stubGlobal('location', { ...window.location, reload });
-    const { hook } = setUp(async () => {
-      throw new UnrecognizedActionError('Server Action "7f00" was not found on the server.');
-    });
-    await waitFor(() => expect(hook.result.current.status.ready).toBe(true));
-    await act(() => hook.result.current.record(confirm));
-    await waitFor(() => expect(reload).toHaveBeenCalledTimes(1));
-    expect((await held()).pending).toHaveLength(1);
-    // Reloaded a moment ago and still refused: no reload loop, the queue waits and retries.
-    await act(() => hook.result.current.record(confirm));
-    await new Promise((r) => setTimeout(r, 50));
-    expect(reload).toHaveBeenCalledTimes(1);
-    expect(hook.result.current.status.waiting).toBe(2);
-    vi.unstubAllGlobals();
   });
 
   it("a shared phone: Theo's waiting confirmations are never sent in Lena's session; they wait, labelled, until Theo signs in again", async () => {

@@ -1,7 +1,6 @@
 import type { Metadata } from 'next';
 import { notFound, redirect } from 'next/navigation';
 import { PracticeRunner } from '@/features/practice/components/practice-runner';
-import { savePracticeEvents } from '@/features/practice/actions/practice-actions';
 import { practicePlan } from '@/features/practice/plan';
 import { attemptId } from '@/features/practice/schemas';
 import { attemptFor, listPracticeEvents } from '@/features/practice/server/attempts';
@@ -61,7 +60,6 @@ export default async function PracticeRunPage({
       }}
       events={events}
       photos={[]}
-      saveEvents={savePracticeEvents}
       signInHref={signInThenBackTo(here)}
       rework={null}
       person={{ id: member.userId, name: member.name }}

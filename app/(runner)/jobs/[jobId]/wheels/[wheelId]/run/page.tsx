@@ -2,7 +2,7 @@ import type { Metadata } from 'next';
 import { forbidden, notFound } from 'next/navigation';
 import { ids } from '@/features/jobs/schemas';
 import { runnerBackLink } from '@/features/runner/back-link';
-import { Runner } from '@/features/runner/components/runner';
+import { WheelRunner } from '@/features/runner/components/wheel-runner';
 import { listPhotos } from '@/features/runner/server/photo-router';
 import { RunnerBlocked } from '@/features/runner/components/runner-blocked';
 import {
@@ -67,7 +67,7 @@ export default async function RunPage({ params }: PageProps<'/jobs/[jobId]/wheel
   const snap = snapshotOf(ctx);
   const targets = snap.plan.passes.map((x) => x.target);
   return (
-    <Runner
+    <WheelRunner
       jobId={ctx.job.id}
       jobNumber={ctx.job.number}
       wheel={{
