@@ -48,7 +48,7 @@ export async function saveWheelBatch(
   startJob: StartJob,
   now = new Date(),
 ): Promise<SaveResult> {
-  // The plain bolt confirmation was already tried in one statement by the action's quick step
+  // The plain bolt confirmation was already tried in one statement by the route's quick try
   // (saveWheelBatchForSession); what reaches here is judged in full.
   const { parsed, events } = prepareBatch(raw, now);
   const indexOf = new Map(

@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { and, eq } from 'drizzle-orm';
 import { beforeEach, describe, expect, it } from 'vitest';
-import { saveWheelEvents } from '@/tests/helpers/save-wheel-events';
+import { postToWheelEvents } from '@/tests/helpers/wheel-events-route';
 import { POST as CREATE_JOB } from '@/app/api/jobs/route';
 import { GET } from '@/app/api/wheels/[wheelId]/events/route';
 import { POST as SUBMIT } from '@/app/api/wheels/[wheelId]/submit/route';
@@ -40,7 +40,7 @@ const confirm = (bolt: number, pass: number, extra: Record<string, unknown> = {}
 });
 const post = async (events: unknown[]) => {
   await actAs(shop.technician.userId);
-  return saveWheelEvents(null, { wheelId, events } as Parameters<typeof saveWheelEvents>[1]);
+  return postToWheelEvents(null, { wheelId, events } as Parameters<typeof postToWheelEvents>[1]);
 };
 const cycles = async () =>
   (

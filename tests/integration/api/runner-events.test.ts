@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import { beforeEach, describe, expect, it } from 'vitest';
-import { saveWheelEvents } from '@/tests/helpers/save-wheel-events';
+import { postToWheelEvents } from '@/tests/helpers/wheel-events-route';
 import { GET } from '@/app/api/wheels/[wheelId]/events/route';
 import { POST as SUBMIT } from '@/app/api/wheels/[wheelId]/submit/route';
 import { getDb } from '@/db';
@@ -34,7 +34,9 @@ const confirm = (bolt: number, pass = 1, clientId: string = randomUUID()) => ({
 const post = async (userId: string | null, events: unknown[], wheel = wheelId) => {
   if (userId) await actAs(userId);
   else resetNextRequest();
-  return saveWheelEvents(null, { wheelId: wheel, events } as Parameters<typeof saveWheelEvents>[1]);
+  return postToWheelEvents(null, { wheelId: wheel, events } as Parameters<
+    typeof postToWheelEvents
+  >[1]);
 };
 const stored = () =>
   getDb()

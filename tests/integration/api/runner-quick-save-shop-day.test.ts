@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import { beforeEach, describe, expect, it } from 'vitest';
-import { saveWheelEvents } from '@/tests/helpers/save-wheel-events';
+import { postToWheelEvents } from '@/tests/helpers/wheel-events-route';
 import { getDb } from '@/db';
 import { shopSettings, wheelRunEvents } from '@/db/schema';
 import { getJob } from '@/features/jobs/server/jobs';
@@ -46,7 +46,7 @@ const event = (type: string, payload: Record<string, unknown>, at: number) => ({
 });
 const post = async (events: unknown[]) => {
   await actAs(shop.technician.userId);
-  return saveWheelEvents(null, { wheelId, events } as Parameters<typeof saveWheelEvents>[1]);
+  return postToWheelEvents(null, { wheelId, events } as Parameters<typeof postToWheelEvents>[1]);
 };
 const storedBolts = async () =>
   (await getDb().select().from(wheelRunEvents).where(eq(wheelRunEvents.wheelId, wheelId))).filter(

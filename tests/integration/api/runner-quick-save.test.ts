@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import { beforeEach, describe, expect, it } from 'vitest';
-import { saveWheelEvents } from '@/tests/helpers/save-wheel-events';
+import { postToWheelEvents } from '@/tests/helpers/wheel-events-route';
 import { getDb } from '@/db';
 import { jobs, practiceClearances, sessions, users, wheelRunEvents } from '@/db/schema';
 import { getJob } from '@/features/jobs/server/jobs';
@@ -34,7 +34,7 @@ const signIn = async (userId: string) => {
 };
 /** Sends from the session already signed in (no new sign-in). */
 const send = (events: unknown[]) =>
-  saveWheelEvents(null, { wheelId, events } as Parameters<typeof saveWheelEvents>[1]);
+  postToWheelEvents(null, { wheelId, events } as Parameters<typeof postToWheelEvents>[1]);
 const storedBolts = async () =>
   (
     await getDb()

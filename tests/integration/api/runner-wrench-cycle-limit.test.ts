@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import { beforeEach, describe, expect, it } from 'vitest';
-import { saveWheelEvents } from '@/tests/helpers/save-wheel-events';
+import { postToWheelEvents } from '@/tests/helpers/wheel-events-route';
 import { getDb } from '@/db';
 import { wheelRunEvents, wrenches } from '@/db/schema';
 import { getJob } from '@/features/jobs/server/jobs';
@@ -36,7 +36,7 @@ const chosen = () => event('wrench_chosen', { pass: 1, wrenchId });
 const confirm = (bolt: number) => event('bolt_confirmed', { pass: 1, bolt, wrenchId });
 const post = async (events: unknown[]) => {
   await actAs(shop.technician.userId);
-  return saveWheelEvents(null, { wheelId, events } as Parameters<typeof saveWheelEvents>[1]);
+  return postToWheelEvents(null, { wheelId, events } as Parameters<typeof postToWheelEvents>[1]);
 };
 const setCycles = (n: number) =>
   getDb().update(wrenches).set({ cyclesSinceCalibration: n }).where(eq(wrenches.id, wrenchId));

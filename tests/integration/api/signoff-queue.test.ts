@@ -124,7 +124,7 @@ describe('GET /api/jobs/:jobId/review', () => {
 
 describe('a wheel run through the runner save path', () => {
   it('is judged against its snapshot, with the wrench and setting each bolt carried', async () => {
-    const { saveWheelEvents } = await import('@/tests/helpers/save-wheel-events');
+    const { postToWheelEvents } = await import('@/tests/helpers/wheel-events-route');
     const { recordVerification } = await import('@/features/tool-crib/server/wrenches');
     const { actAs } = await import('@/tests/helpers/next-request');
     const { randomUUID } = await import('node:crypto');
@@ -156,7 +156,7 @@ describe('a wheel run through the runner save path', () => {
     ];
     await actAs(shop.technician.userId);
     expect(
-      await saveWheelEvents(null, { wheelId, events } as Parameters<typeof saveWheelEvents>[1]),
+      await postToWheelEvents(null, { wheelId, events } as Parameters<typeof postToWheelEvents>[1]),
     ).toMatchObject({ ok: true, data: { saved: 5 } });
     const res = await review(shop.lead.userId, job.id);
     expect(res.status, await res.clone().text()).toBe(200);

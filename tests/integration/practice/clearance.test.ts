@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { saveWheelEvents } from '@/tests/helpers/save-wheel-events';
+import { postToWheelEvents } from '@/tests/helpers/wheel-events-route';
 import { POST as createJobApi } from '@/app/api/jobs/route';
 import { PATCH as patchJob } from '@/app/api/jobs/[jobId]/route';
 import { GET as wheelEvents } from '@/app/api/wheels/[wheelId]/events/route';
@@ -70,7 +70,7 @@ const runnerReads = async (wheelId: string) => {
 // The runner's own save path, as the apprentice's phone sends a confirmation.
 const runAsApprentice = async (wheelId: string) => {
   await actAs(a.apprentice.userId);
-  return saveWheelEvents(null, {
+  return postToWheelEvents(null, {
     wheelId,
     events: [
       {

@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { saveWheelEvents } from '@/tests/helpers/save-wheel-events';
+import { postToWheelEvents } from '@/tests/helpers/wheel-events-route';
 import * as job from '@/app/api/jobs/[jobId]/route';
 import * as jobReport from '@/app/api/jobs/[jobId]/report/route';
 import * as jobReview from '@/app/api/jobs/[jobId]/review/route';
@@ -168,7 +168,7 @@ describe('no practice row is reachable through a job, board, sign-off, report or
     // The runner's own save path does not take an attempt for a wheel either.
     await actAs(a.lead.userId);
     expect(
-      await saveWheelEvents(null, { wheelId: id, events: [event('hand_started', { bolt: 1 })] }),
+      await postToWheelEvents(null, { wheelId: id, events: [event('hand_started', { bolt: 1 })] }),
     ).toMatchObject({ ok: false, code: 'not_found' });
   });
 });

@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
-import { saveWheelEvents } from '@/tests/helpers/save-wheel-events';
+import { postToWheelEvents } from '@/tests/helpers/wheel-events-route';
 import { reviewSources } from '@/app/_review/sources';
 import { getJob } from '@/features/jobs/server/jobs';
 import { getJobReview } from '@/features/review/server/review-data';
@@ -23,10 +23,10 @@ describe("the review's per-bolt phone", () => {
       ...(deviceId ? { deviceId } : {}),
     });
     await actAs(shop.technician.userId);
-    const result = await saveWheelEvents(null, {
+    const result = await postToWheelEvents(null, {
       wheelId,
       events: [confirm(1, 0, phone), confirm(13, 1)],
-    } as Parameters<typeof saveWheelEvents>[1]);
+    } as Parameters<typeof postToWheelEvents>[1]);
     expect(result).toMatchObject({ ok: true, data: { saved: 2 } });
 
     const review = await getJobReview(shop.shopId, job.id, reviewSources);

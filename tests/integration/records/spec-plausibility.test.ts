@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { and, eq } from 'drizzle-orm';
 import { beforeEach, describe, expect, it } from 'vitest';
-import { saveWheelEvents } from '@/tests/helpers/save-wheel-events';
+import { postToWheelEvents } from '@/tests/helpers/wheel-events-route';
 import * as specItem from '@/app/api/specs/[specId]/route';
 import * as specList from '@/app/api/specs/route';
 import { getDb } from '@/db';
@@ -157,7 +157,7 @@ describe('flagged specs (stored before the rules)', () => {
   });
   const save = async (wheelId: string, events: unknown[]) => {
     await actAs(shop.technician.userId);
-    return saveWheelEvents(null, { wheelId, events } as Parameters<typeof saveWheelEvents>[1]);
+    return postToWheelEvents(null, { wheelId, events } as Parameters<typeof postToWheelEvents>[1]);
   };
 
   it("block the runner's save (without starting the job), show on the job card, and clear when a lead saves a plausible spec", async () => {

@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { and, eq, isNull } from 'drizzle-orm';
 import { describe, expect, it } from 'vitest';
-import { saveWheelEvents } from '@/tests/helpers/save-wheel-events';
+import { postToWheelEvents } from '@/tests/helpers/wheel-events-route';
 import { reviewSources } from '@/app/_review/sources';
 import * as jobTransitions from '@/app/api/jobs/[jobId]/transitions/route';
 import { getDb } from '@/db';
@@ -289,7 +289,7 @@ describe('send back per wheel', () => {
     // The runner takes rework for exactly the steps named: RF's torque, not its other steps; LR stays closed.
     await actAs(shop.technician.userId);
     const at = new Date().toISOString();
-    const rework = await saveWheelEvents(null, {
+    const rework = await postToWheelEvents(null, {
       wheelId: rf!,
       events: [
         {
@@ -318,7 +318,7 @@ describe('send back per wheel', () => {
         ],
       },
     });
-    const closed = await saveWheelEvents(null, {
+    const closed = await postToWheelEvents(null, {
       wheelId: lr!,
       events: [
         {

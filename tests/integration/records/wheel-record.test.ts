@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { and, eq } from 'drizzle-orm';
 import { beforeEach, describe, expect, it } from 'vitest';
-import { saveWheelEvents } from '@/tests/helpers/save-wheel-events';
+import { postToWheelEvents } from '@/tests/helpers/wheel-events-route';
 import RunPage from '@/app/(runner)/jobs/[jobId]/wheels/[wheelId]/run/page';
 import { GET as EVENTS } from '@/app/api/wheels/[wheelId]/events/route';
 import { getDb } from '@/db';
@@ -36,7 +36,9 @@ const ev = (type: string, payload: Record<string, unknown>, clientAt = at()) => 
 });
 const post = async (userId: string, events: unknown[], wheel = wheelId) => {
   await actAs(userId);
-  return saveWheelEvents(null, { wheelId: wheel, events } as Parameters<typeof saveWheelEvents>[1]);
+  return postToWheelEvents(null, { wheelId: wheel, events } as Parameters<
+    typeof postToWheelEvents
+  >[1]);
 };
 const rows = (wheel = wheelId) =>
   getDb().select().from(wheelRunEvents).where(eq(wheelRunEvents.wheelId, wheel));

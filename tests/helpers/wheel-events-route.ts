@@ -10,7 +10,7 @@ import { cookieValue } from './next-request';
  * app's origin, signed in as the in-memory request's person (`actAs`; signed out after
  * `resetNextRequest`), its answer read by the outbox's own reader (`readSaveAnswer`).
  */
-export async function saveWheelEvents(
+export async function postToWheelEvents(
   _prev: unknown,
   { wheelId, events }: { wheelId: string; events: unknown[] },
 ): ReturnType<SaveEvents> {
