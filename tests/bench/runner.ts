@@ -26,11 +26,11 @@
  * Last two lines: `capacity N confirmations/s at p95 <= 50 ms` and
  * `confirm p95 X ms, raw insert p95 Y ms, ratio Z`.
  */
-import { randomUUID } from 'node:crypto';
 import path from 'node:path';
 import postgres from 'postgres';
 import { clusterUrl, recreateDatabase, startCluster } from '@/db/cluster';
 import { migrateDatabase } from '@/db/migrate';
+import { newEventId } from '@/features/runner/event-id';
 import { serverActionId } from '../helpers/next-build';
 import { newSessionToken } from '../helpers/session-row';
 import { ROOT } from '../helpers/test-services';
@@ -106,7 +106,8 @@ function confirmEvents(t: Tech) {
     {
       type: 'bolt_confirmed',
       payload: { pass, bolt: 1 + (k % 32), ...(WITH_WRENCH ? wrench : {}) },
-      clientId: randomUUID(),
+      // Time-ordered ids, as the runner's outbox makes them (event-id.ts).
+      clientId: newEventId(),
       clientAt: new Date().toISOString(),
     },
   ];
@@ -117,7 +118,7 @@ function wrenchChosenEvents(t: Tech) {
   return SETTINGS.map((_, i) => ({
     type: 'wrench_chosen',
     payload: { pass: i + 1, wrenchId: t.wrenchId },
-    clientId: randomUUID(),
+    clientId: newEventId(),
     clientAt: new Date().toISOString(),
   }));
 }
@@ -163,9 +164,10 @@ async function signedOut(t: Tech, kind: 'action' | 'route'): Promise<number> {
   return performance.now() - started;
 }
 
+/** The floor: one row straight into PostgreSQL, keyed by the same time-ordered id as the app's. */
 async function rawInsert(sql: postgres.Sql, t: Tech): Promise<number> {
   const started = performance.now();
-  await sql`insert into wheel_run_events (shop_id, job_id, wheel_id, client_id, type, payload, by_id, client_at) values (${t.shopId}, ${t.jobId}, ${t.wheelId}, ${randomUUID()}, 'bench_raw', ${sql.json({ pass: 1, bolt: 1 })}, ${t.userId}, now())`;
+  await sql`insert into wheel_run_events (shop_id, job_id, wheel_id, client_id, type, payload, by_id, client_at) values (${t.shopId}, ${t.jobId}, ${t.wheelId}, ${newEventId()}, 'bench_raw', ${sql.json({ pass: 1, bolt: 1 })}, ${t.userId}, now())`;
   return performance.now() - started;
 }
 
