@@ -4,7 +4,8 @@
  * wheel_run_events and practice_events), so ids that grow with time land in the index's newest
  * page instead of a random one: with millions of rows a random (v4) id reads and dirties a leaf
  * page that is rarely in memory on every insert. The 74 other bits stay random (Web Crypto), so ids
- * from different phones in the same millisecond still never meet. Old phones' queued v4 ids are
+ * from different phones in the same millisecond practically never meet (a replay of an id
+ * stored for another wheel is refused, never merged). Old phones' queued v4 ids are
  * still accepted: the event schema takes any RFC 9562 UUID.
  */
 

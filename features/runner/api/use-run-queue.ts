@@ -279,11 +279,12 @@ export function useRunQueue(
   const record = useCallback(
     async (event: RunEvent) => {
       // `deviceId`: which phone confirmed it, for the lead's review (a shared phone and a second phone both show).
+      const now = Date.now(); // one reading: the id's time and the event's time are the same moment
       const full = {
         ...event,
         // Time-ordered, so the server's event index takes it in its newest page (event-id.ts).
-        clientId: newEventId(),
-        clientAt: new Date().toISOString(),
+        clientId: newEventId(now),
+        clientAt: new Date(now).toISOString(),
         deviceId: deviceId(),
       } as ClientEvent;
       show([...pendingRef.current, full]);
