@@ -57,7 +57,9 @@ export async function openStoredFile(
       await res.body?.cancel();
       return null;
     }
-    const length = res.headers.get('content-length');
+    // fetch undoes a content-encoding (gzip…) but keeps the encoded length: passed on, it would
+    // cut the decoded bytes short. The length is the file's only when nothing was decoded.
+    const length = res.headers.has('content-encoding') ? null : res.headers.get('content-length');
     return {
       body: idleLimited(res.body, idleMs, ours),
       length: length && /^\d+$/.test(length) ? Number(length) : null,

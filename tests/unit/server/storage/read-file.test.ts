@@ -1,5 +1,6 @@
 import { createServer, type IncomingMessage, type ServerResponse } from 'node:http';
 import type { AddressInfo } from 'node:net';
+import { gzipSync } from 'node:zlib';
 import { afterEach, describe, expect, it } from 'vitest';
 import { openStoredFile, readStoredFile } from '@/server/storage/read-file';
 import type { StoreConfig } from '@/server/storage/store-config';
@@ -47,6 +48,18 @@ describe('a private file streamed from the store', () => {
     expect(file?.length).toBe(FILE.length);
     expect((await drain(file!.body)).equals(FILE)).toBe(true);
     expect(asked).toMatch(/^\/a\/app\/key-1\?expires=\d+&signature=hmac-sha256%3D[0-9a-f]{64}$/);
+  });
+
+  it('passes on no length when the store compressed the file (the decoded bytes are longer)', async () => {
+    const gzipped = gzipSync(FILE);
+    const config = await storeThat((_req, res) => {
+      res
+        .writeHead(200, { 'content-encoding': 'gzip', 'content-length': gzipped.length })
+        .end(gzipped);
+    });
+    const file = await openStoredFile(config, 'key-gz');
+    expect(file?.length).toBeNull();
+    expect((await drain(file!.body)).equals(FILE)).toBe(true);
   });
 
   it('is null when the store never answers, after the answer timeout', async () => {
