@@ -1,21 +1,17 @@
 /**
- * Runs `npm run worker`'s entry as a child process beside a web server (npm start, the e2e
- * server): the same tsx flags as the npm script (package.json), the same environment as the server.
+ * Runs the queue's worker as a child process beside a web server (npm start, npm run dev, the e2e
+ * server) as `npm run worker` does: compiled first (worker-build.ts, a fraction of a second), then
+ * under plain node, with the same environment as the server.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { buildWorker } from './worker-build';
 
 const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
-const TSX = path.join(ROOT, 'node_modules', '.bin', 'tsx');
 
 export function spawnWorker(env: NodeJS.ProcessEnv): ChildProcess {
-  const args = [
-    '--import',
-    './app/_worker/server-only-hook.mjs',
-    path.join('app', '_worker', 'run.ts'),
-  ];
-  return spawn(TSX, args, {
+  return spawn(process.execPath, [buildWorker()], {
     cwd: ROOT,
     env,
     stdio: 'inherit',

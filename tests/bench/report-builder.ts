@@ -1,12 +1,14 @@
 /**
  * The process that builds reports in `npm run bench:report`, shaped as the queue's worker
- * (`npm run worker`, which builds the customer e-mail's PDF): the same tsx flags and server-only
- * hook (server/dev/worker-process.ts), the same modules loaded before any job arrives
- * (app/_worker/run.ts's imports), the same environment. Only then is anything measured, so its
- * baseline is the worker's own and a build's cost is what a build adds to it.
+ * (`npm run worker`, which builds the customer e-mail's PDF): compiled with the worker's own
+ * esbuild options (server/dev/worker-build.ts) and run under plain node as the worker is, the same
+ * modules loaded before any job arrives (app/_worker/run.ts's imports), the same environment. Only
+ * then is anything measured, so its baseline is the worker's own and a build's cost is what a
+ * build adds to it.
  *
- * `tsx --import ./app/_worker/server-only-hook.mjs tests/bench/report-builder.ts <shopId> <jobId>
- * <photos> <builds>`; prints `[bench]` lines and, last, one JSON line of figures for the parent.
+ * report.ts builds it into .data/bench-worker/ and runs `node .data/bench-worker/report-builder.mjs
+ * <shopId> <jobId> <photos> <builds>`; it prints `[bench]` lines and, last, one JSON line of
+ * figures for the parent.
  */
 import { readFileSync, writeFileSync } from 'node:fs';
 import v8 from 'node:v8';

@@ -6,9 +6,9 @@
  *
  * Reports are built in two kinds of process: the Next server (`GET /api/jobs/:id/report`,
  * `/r/<token>/report.pdf`) and the queue's worker (the customer e-mail's PDF, `npm run worker` and
- * beside `npm start`). The builds here run in a child of the worker's shape (report-builder.ts: tsx
- * with the server-only hook, the worker's modules loaded first, the environment the start scripts
- * give it), through `renderJobReport`, 1 + BENCH_BUILDS times (default 10). Per build: wall time,
+ * beside `npm start`). The builds here run in a child of the worker's shape (report-builder.ts:
+ * compiled as the worker is, server/dev/worker-build.ts, and run under plain node; the worker's
+ * modules loaded first; the environment the start scripts give it), through `renderJobReport`, 1 + BENCH_BUILDS times (default 10). Per build: wall time,
  * CPU time of the whole process (the image library's threads included) and peak RSS from the
  * kernel's high-water mark (VmHWM, reset before each build through /proc/self/clear_refs). The
  * builds run back to back; BENCH_PAUSE_MS=15000 idles between them as a worker does between e-mails.
@@ -27,6 +27,7 @@ import os from 'node:os';
 import { clusterUrl, recreateDatabase, startCluster } from '@/db/cluster';
 import { migrateDatabase } from '@/db/migrate';
 import { serverProcessEnv } from '@/server/dev/stack-plan';
+import { buildWorker } from '@/server/dev/worker-build';
 import { ROOT } from '../helpers/test-services';
 import { pct, run } from './production-server';
 
@@ -115,17 +116,13 @@ async function main() {
     // The builds run in a process of the worker's shape (report-builder.ts): what a report costs
     // is measured in a process that holds only what the worker holds, not this bench's own modules.
     console.log(`[bench] load average ${os.loadavg()[0]!.toFixed(1)} (2 cores shared)`);
+    const builder = buildWorker({
+      entry: 'tests/bench/report-builder.ts',
+      outdir: '.data/bench-worker',
+    });
     const child = spawnSync(
-      TSX,
-      [
-        '--import',
-        './app/_worker/server-only-hook.mjs',
-        'tests/bench/report-builder.ts',
-        shop.shopId,
-        job.id,
-        String(photos.length),
-        String(BUILDS),
-      ],
+      process.execPath,
+      [builder, shop.shopId, job.id, String(photos.length), String(BUILDS)],
       { cwd: ROOT, env: builderEnv, encoding: 'utf8', stdio: ['ignore', 'pipe', 'inherit'] },
     );
     const out = child.stdout.trim().split('\n');
