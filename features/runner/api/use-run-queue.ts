@@ -63,8 +63,12 @@ export function useRunQueue(
   const savedRef = useRef<ClientEvent[]>(serverEvents);
   const attentionRef = useRef<AttentionItem[]>([]);
   const loaded = useRef(false); // status.ready, readable inside callbacks without re-creating them
+  const loadedKey = useRef<string | null>(null); // whose queue `pendingRef` holds once loaded
   const sending = useRef(false); // one send at a time keeps the queue's order
   const again = useRef(false); // asked to send during a send: look once more when it ends
+  // Which sender's send `sending` waits for: a stopped sender's paused send never ends, so its
+  // late end (if any) must not clear the flag of the send that replaced it.
+  const sendRound = useRef(0);
   // The ids of the queue as IndexedDB last committed it. The send takes only these: the screen
   // shows a tap at once, but no event reaches the network before it is on the phone.
   const written = useRef<Set<string>>(new Set());
@@ -159,7 +163,10 @@ export function useRunQueue(
   // Settled before the send counts as done, so the queue on the phone never lags the answer.
   const settle = useCallback(
     async (sent: Sent) => {
-      if (!sent) return;
+      // A late answer after the runner closed: this copy's queue is stale, and writing it would
+      // replace what a newer runner on this wheel keeps. The events stay queued; the server
+      // stores each id once, so the next runner's resend is answered as duplicates.
+      if (!sent || !mounted.current) return;
       const { batch, result } = sent;
       const sentIds = new Set(batch.map((e) => e.clientId));
       if (result.ok) {
@@ -202,10 +209,12 @@ export function useRunQueue(
     }
     sending.current = true;
     again.current = false;
+    const round = sendRound.current;
     void send()
       .then((sent) => sent !== null)
       .catch(() => false) // given up only when the runner closed; the phone keeps the events
       .then((more) => {
+        if (round !== sendRound.current) return; // its sender was stopped; a new one took over
         sending.current = false;
         const next = more || again.current;
         again.current = false;
@@ -223,20 +232,28 @@ export function useRunQueue(
       const { held, others: theirs } = await readOutbox(person, wheelId);
       if (cancelled) return;
       setOthers(theirs);
+      // Taps made on this wheel while its queue was being read are only on screen (`record` does
+      // not write before the read: it would replace what waits on the phone). They join what the
+      // phone held, after it, and the whole queue is written once.
+      const early =
+        loadedKey.current === null || loadedKey.current === key ? pendingRef.current : [];
       loaded.current = true;
+      loadedKey.current = key;
       attentionRef.current = held?.attention ?? [];
       setAttention(attentionRef.current);
       // A send-back since this copy was kept: the events it superseded are not this phone's to show.
       if ((held?.generation ?? null) === generation) addSaved(held?.saved ?? []);
       const known = new Set(savedRef.current.map((e) => e.clientId));
-      await store((held?.pending ?? []).filter((e) => !known.has(e.clientId)));
+      const heldPending = (held?.pending ?? []).filter((e) => !known.has(e.clientId));
+      heldPending.forEach((e) => known.add(e.clientId));
+      await store([...heldPending, ...early.filter((e) => !known.has(e.clientId))]);
       setStatus((s) => ({ ...s, ready: true }));
       flush();
     })();
     return () => {
       cancelled = true;
     };
-  }, [wheelId, person, generation, store, flush, addSaved]);
+  }, [wheelId, person, generation, key, store, flush, addSaved]);
 
   // The sender, once this phone's queue is read and the screen painted: it sends what waits and
   // pulls other phones' events on this wheel every few seconds (both paused offline).
@@ -273,6 +290,11 @@ export function useRunQueue(
       stopped = true;
       started?.stop();
       if (sender.current === started) sender.current = null;
+      // A send the stopped sender held (paused offline) never ends: free the queue for the next
+      // sender, which takes the same events again (the server stores each id once).
+      sendRound.current++;
+      sending.current = false;
+      again.current = false;
     };
   }, [ready, key, eventsUrl, addSaved, persist]);
 
@@ -291,6 +313,9 @@ export function useRunQueue(
       // The tap is drawn first: the write (IndexedDB clones the whole outbox) waits until that
       // frame is painted. The send still waits for the write (it takes only what is written).
       await afterPaint();
+      // Before the phone's queue is read, a write would replace what waits there: the load adds
+      // this tap to what it finds and writes both.
+      if (!loaded.current) return;
       await persist();
       flush();
     },
