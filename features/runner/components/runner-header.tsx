@@ -31,9 +31,12 @@ export const RunnerHeader = memo(function RunnerHeader({
   signedOut: boolean;
   signInHref: string;
 }) {
-  // The count follows a tap in a render of its own, after the frame that draws the next bolt:
-  // the tap's frame then has no header to restyle and repaint.
-  const shownWaiting = useDeferredValue(waiting);
+  // The count follows a tap in a render of its own, after the frame that draws the next bolt.
+  // Only the number waits: "Saved" shows only when neither the live nor the deferred count has
+  // anything waiting, so no frame claims a tap is saved while it is not. From Saved, the first
+  // tap's frame shows its live count (the header restyles then anyway).
+  const deferredWaiting = useDeferredValue(waiting);
+  const shownWaiting = deferredWaiting || waiting;
   return (
     <header className="bg-ink sticky top-0 z-10 px-3 py-2 text-white landscape:py-1">
       <div className="flex items-center justify-between gap-2">

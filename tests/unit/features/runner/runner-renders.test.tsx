@@ -1,10 +1,9 @@
 // @vitest-environment jsdom
 // The device's IndexedDB in memory (fake-indexeddb), under the real idb-keyval the runner uses.
 import 'fake-indexeddb/auto';
-import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { act, fireEvent, render, screen, waitFor } from '@testing-library/react';
 import { clear } from 'idb-keyval';
-import { memo, type ReactNode } from 'react';
+import { createElement, Fragment, memo, useLayoutEffect, type ReactNode } from 'react';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import type { SaveEvents } from '@/features/runner/api/use-run-queue';
 import { Runner, type RunnerProps } from '@/features/runner/components/runner';
@@ -18,14 +17,28 @@ import { CLICK_WRENCH } from '@/tests/helpers/runner-fixtures';
 // Render counters. Each counted part is the real component under the same memo (React's default
 // prop comparison), so it redraws exactly when the real one would; a part that is not memoised
 // has no inner `type` and fails the test.
-const renders = vi.hoisted(() => ({ counts: new Map<string, number>(), bolts: [] as number[] }));
+// The header's status line as each of its renders committed it (`statuses`).
+const renders = vi.hoisted(() => ({
+  counts: new Map<string, number>(),
+  bolts: [] as number[],
+  statuses: [] as (string | null)[],
+}));
 function counted(name: string, real: unknown) {
   const inner = (real as { type: (p: object) => ReactNode }).type;
   return memo(function Counted(props: object) {
     renders.counts.set(name, (renders.counts.get(name) ?? 0) + 1);
     if (name === 'Bolt') renders.bolts.push((props as { bolt: number }).bolt);
+    if (name === 'RunnerHeader')
+      return createElement(Fragment, null, inner(props), createElement(StatusProbe));
     return inner(props);
   });
+}
+/** Reads the header's status after each commit of a header render (drawn with it, no memo). */
+function StatusProbe() {
+  useLayoutEffect(() => {
+    renders.statuses.push(document.querySelector('header [role="status"]')?.textContent ?? null);
+  });
+  return null;
 }
 // The header's way back (next/link), counted around the real link.
 vi.mock('next/link', async (real: () => Promise<{ default: (p: object) => ReactNode }>) => {
@@ -147,6 +160,7 @@ function props(saveEvents: SaveEvents): RunnerProps {
 const reset = () => {
   renders.counts.clear();
   renders.bolts = [];
+  renders.statuses = [];
 };
 const count = (name: string) => renders.counts.get(name) ?? 0;
 
@@ -170,11 +184,7 @@ describe('a tap on the runner', () => {
           answer = () => resolve({ ok: true, data: { saved: events.length, duplicates: 0 } });
         }),
     );
-    render(
-      <QueryClientProvider client={new QueryClient()}>
-        <Runner {...props(save)} />
-      </QueryClientProvider>,
-    );
+    render(<Runner {...props(save)} />);
     await screen.findByText('Saved');
     fireEvent.click(screen.getByRole('button', { name: 'Wrench set' }));
     const clicked = await screen.findByRole('button', { name: 'Clicked — bolt 1' });
@@ -189,9 +199,10 @@ describe('a tap on the runner', () => {
     expect(count('TorquePanel')).toBe(1);
     expect(count('PassRing')).toBe(1);
     expect(renders.bolts.sort()).toEqual([1, 5]);
-    // The header twice: in the tap's render with its count as it was (useDeferredValue), then
-    // alone with "1 waiting"; its way back (a link) not at all.
+    // The header twice: in the tap's render, which already leaves "Saved" (a tap waits), then
+    // alone for the deferred count (useDeferredValue); its way back (a link) not at all.
     expect(count('RunnerHeader')).toBe(2);
+    expect(renders.statuses).toEqual(['1 waiting', '1 waiting']);
     expect(count('Link')).toBe(0);
     expect(count('RunnerFooter')).toBe(0);
 
@@ -210,11 +221,7 @@ describe('a tap on the runner', () => {
     const vibrate = vi.fn(() => true);
     Object.defineProperty(navigator, 'vibrate', { value: vibrate, configurable: true });
     const save = vi.fn<SaveEvents>(() => new Promise(() => {}));
-    render(
-      <QueryClientProvider client={new QueryClient()}>
-        <Runner {...props(save)} />
-      </QueryClientProvider>,
-    );
+    render(<Runner {...props(save)} />);
     await screen.findByText('Saved');
     fireEvent.click(screen.getByRole('button', { name: 'Wrench set' }));
     fireEvent.click(await screen.findByRole('button', { name: 'Clicked — bolt 1' }));
