@@ -6,6 +6,7 @@ import type { Permission } from '@/server/auth/permissions';
 import type { Member } from '@/server/auth/session';
 import { env } from '@/server/env.mjs';
 import { DomainError, type DomainErrorCode } from '@/server/errors';
+import { CROSS_ORIGIN_CODE } from './api-codes';
 import { BodyTooLarge, readLimitedText } from './body-limit';
 
 /** The one error shape of the JSON API. */
@@ -39,7 +40,7 @@ export class CrossOriginRefused extends DomainError {
 }
 
 export function errorResponse(error: DomainError): Response {
-  const code = error instanceof CrossOriginRefused ? 'cross_origin' : error.code;
+  const code = error instanceof CrossOriginRefused ? CROSS_ORIGIN_CODE : error.code;
   const body: ApiError = { error: { code, message: error.message } };
   if (error.fields) body.error.fields = error.fields;
   return Response.json(body, { status: STATUS[error.code] });

@@ -23,5 +23,5 @@ export async function postToWheelEvents(
     }),
     params({ wheelId }),
   );
-  return readSaveAnswer(res);
+  return readSaveAnswer(res, events.length);
 }

@@ -1,4 +1,5 @@
 import type { FailureCode } from '@/server/action';
+import { CROSS_ORIGIN_CODE } from '@/server/http/api-codes';
 import type { EventRefusal } from '../events';
 import { KeptForRetry, type SaveEvents } from './send-outcome';
 
@@ -33,33 +34,38 @@ const isRefusal = (value: unknown): value is EventRefusal =>
   isFieldErrors(value.fieldErrors);
 
 /**
- * The saved result, only in the handler's exact shape. Anything 200 with some `data` is not
- * enough: a captive portal or a proxy could answer that, and the outbox drops what it takes as saved.
+ * The saved result, only in the handler's exact shape and only when it accounts for the whole
+ * batch (each event saved, a duplicate or refused at its own index). Anything 200 with some
+ * `data` is not enough: a captive portal or a proxy could answer that, and the outbox drops what
+ * it takes as saved.
  */
-function savedFrom(data: unknown): Saved | null {
+function savedFrom(data: unknown, sent: number): Saved | null {
   if (!isRecord(data) || !isCount(data.saved) || !isCount(data.duplicates)) return null;
+  const refused = data.refused ?? [];
+  if (!Array.isArray(refused) || !refused.every(isRefusal)) return null;
+  if (data.saved + data.duplicates + refused.length !== sent) return null;
+  if (!refused.every((r) => r.index < sent)) return null;
   if (data.refused === undefined) return { saved: data.saved, duplicates: data.duplicates };
-  if (!Array.isArray(data.refused) || !data.refused.every(isRefusal)) return null;
-  return { saved: data.saved, duplicates: data.duplicates, refused: data.refused };
+  return { saved: data.saved, duplicates: data.duplicates, refused };
 }
 
 /**
- * The save handler's answer as the outbox reads it: `{ data }` is saved (with any per-event
+ * The save handler's answer to a batch of `sent` events as the outbox reads it: `{ data }` is saved (with any per-event
  * refusals), `{ error: { code, message, fields } }` a whole-batch failure with its code. A refused
  * Origin (`cross_origin`: a proxy or an address the app does not know rewrote it) says nothing
  * about the events, so it throws KeptForRetry with its message. Anything else (a body over the
  * API's cap, a proxy's error page, no JSON, a result of another shape) throws, so the send is
  * retried with the events kept, as when the network drops.
  */
-export async function readSaveAnswer(res: Response): Promise<SaveAnswer> {
+export async function readSaveAnswer(res: Response, sent: number): Promise<SaveAnswer> {
   const body: unknown = await res.json().catch(() => null);
   if (res.ok && isRecord(body)) {
-    const data = savedFrom(body.data);
+    const data = savedFrom(body.data, sent);
     if (data) return { ok: true, data };
   }
   const error = isRecord(body) && isRecord(body.error) ? body.error : null;
   if (!res.ok && error && typeof error.message === 'string') {
-    if (error.code === 'cross_origin') throw new KeptForRetry(error.message, false);
+    if (error.code === CROSS_ORIGIN_CODE) throw new KeptForRetry(error.message, false);
     if (isFailureCode(error.code)) {
       return {
         ok: false,
@@ -86,6 +92,7 @@ export const eventsPoster =
         headers: { 'content-type': 'application/json' },
         body: JSON.stringify({ events }),
       }),
+      events.length,
     );
 
 /** How a real wheel's outbox sends: `POST /api/wheels/:id/events`. */

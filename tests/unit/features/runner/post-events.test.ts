@@ -10,9 +10,9 @@ const refusal = { index: 0, clientId: 'c1', message: 'Off the ring.', fieldError
 describe('readSaveAnswer', () => {
   it('a 200 with data is saved, with its duplicates and per-event refusals', async () => {
     const data = { saved: 1, duplicates: 1, refused: [refusal] };
-    expect(await readSaveAnswer(json(200, { data }))).toEqual({ ok: true, data });
+    expect(await readSaveAnswer(json(200, { data }), 3)).toEqual({ ok: true, data });
     const bare = { saved: 2, duplicates: 0 };
-    expect(await readSaveAnswer(json(200, { data: bare }))).toEqual({ ok: true, data: bare });
+    expect(await readSaveAnswer(json(200, { data: bare }), 2)).toEqual({ ok: true, data: bare });
   });
 
   it('an error answer carries its code, message and fields', async () => {
@@ -20,6 +20,7 @@ describe('readSaveAnswer', () => {
       json(400, {
         error: { code: 'invalid', message: 'The body has errors.', fields: { events: ['Empty.'] } },
       }),
+      1,
     );
     expect(answer).toEqual({
       ok: false,
@@ -39,7 +40,7 @@ describe('readSaveAnswer', () => {
       [409, 'conflict', false],
     ] as const;
     for (const [status, code, kept] of codes) {
-      const answer = await readSaveAnswer(json(status, { error: { code, message: 'm' } }));
+      const answer = await readSaveAnswer(json(status, { error: { code, message: 'm' } }), 1);
       expect(answer).toEqual({ ok: false, code, message: 'm' });
       if (!answer.ok) expect(keepsAndRetries(answer.code), code).toBe(kept);
     }
@@ -48,6 +49,7 @@ describe('readSaveAnswer', () => {
   it('a refused Origin is kept and retried with its message, never set aside for good', async () => {
     const answer = readSaveAnswer(
       json(403, { error: { code: 'cross_origin', message: 'Cross-origin request refused.' } }),
+      1,
     );
     await expect(answer).rejects.toBeInstanceOf(KeptForRetry);
     await expect(answer).rejects.toThrow('Cross-origin request refused.');
@@ -67,7 +69,22 @@ describe('readSaveAnswer', () => {
       json(200, { data: { saved: -1, duplicates: 0 } }),
     ];
     for (const res of notOurs)
-      await expect(readSaveAnswer(res)).rejects.toThrow(/without a result/);
+      await expect(readSaveAnswer(res, 1)).rejects.toThrow(/without a result/);
+  });
+
+  it('a 200 that does not account for every event sent throws, so none is dropped unsaved', async () => {
+    const short = [
+      // Two sent, none saved, none a duplicate, none refused: the batch was not stored.
+      { saved: 0, duplicates: 0 },
+      { saved: 1, duplicates: 0, refused: [] },
+      { saved: 2, duplicates: 1 },
+      // A refusal of an event that was not in the batch.
+      { saved: 1, duplicates: 0, refused: [{ ...refusal, index: 2 }] },
+    ];
+    for (const data of short)
+      await expect(readSaveAnswer(json(200, { data }), 2)).rejects.toThrow(/without a result/);
+    const whole = { saved: 1, duplicates: 0, refused: [{ ...refusal, index: 1 }] };
+    expect(await readSaveAnswer(json(200, { data: whole }), 2)).toEqual({ ok: true, data: whole });
   });
 });
 

@@ -74,7 +74,9 @@ describe('the runner outbox', () => {
       Response.json({ data: { saved: 1, duplicates: 0, refused: [] } }),
     ];
     // The outbox's own answer reader, as the real wheel's save uses it.
-    const { action, hook } = setUp(async () => readSaveAnswer(answers.shift()!));
+    const { action, hook } = setUp(async (_prev, { events }) =>
+      readSaveAnswer(answers.shift()!, events.length),
+    );
     await waitFor(() => expect(hook.result.current.status.ready).toBe(true));
     await act(() => hook.result.current.record(confirm));
     await waitFor(() =>
