@@ -2,10 +2,8 @@
 // The ids the runner gives its events are time-ordered (UUIDv7): the server keys its event tables by
 // them, and an id that grows with time keeps each insert in the index's newest page.
 import 'fake-indexeddb/auto';
-import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { act, renderHook, waitFor } from '@testing-library/react';
 import { clear } from 'idb-keyval';
-import type { ReactNode } from 'react';
 import { beforeEach, expect, it, vi } from 'vitest';
 import {
   useRunQueue,
@@ -28,12 +26,7 @@ beforeEach(async () => {
 
 it('a tap gets a UUIDv7 of the moment it was made, later taps larger ids', async () => {
   const action = vi.fn<SaveEvents>(async () => ({ ok: true, data: { saved: 1, duplicates: 0 } }));
-  const client = new QueryClient();
-  const hook = renderHook(() => useRunQueue(WHEEL, [], action, THEO), {
-    wrapper: ({ children }: { children: ReactNode }) => (
-      <QueryClientProvider client={client}>{children}</QueryClientProvider>
-    ),
-  });
+  const hook = renderHook(() => useRunQueue(WHEEL, [], action, THEO));
   await waitFor(() => expect(hook.result.current.status.ready).toBe(true));
   const before = Date.now();
   await act(() => hook.result.current.record(bolt(1)));

@@ -13,15 +13,27 @@ import {
   type SaveEvents,
 } from '@/features/runner/api/use-run-queue';
 
+// The gate holds back a module only the sender imports (not the sender itself: while a mock's
+// factory runs, vitest gives other imports of that path the original, so a second runner would
+// get the sender at once). `starts` counts the senders started (each asks for the poll's query
+// options), so "nothing was sent" is checked after a sender was there and asked to send.
 const gate = vi.hoisted(() => {
   let open = () => {};
-  const state = { opened: new Promise<void>((resolve) => (open = resolve)), loads: 0 };
+  const opened = new Promise<void>((resolve) => (open = resolve));
+  const state = { opened, loads: 0, starts: 0 };
   return { state, open: () => open() };
 });
-vi.mock('@/features/runner/api/run-sender', async (importOriginal) => {
+vi.mock('@/features/runner/api/get-wheel-events', async (importOriginal) => {
   gate.state.loads++;
   await gate.state.opened;
-  return importOriginal();
+  const mod = await importOriginal<typeof import('@/features/runner/api/get-wheel-events')>();
+  return {
+    ...mod,
+    wheelEventsQueryOptions: (...args: Parameters<typeof mod.wheelEventsQueryOptions>) => {
+      gate.state.starts++;
+      return mod.wheelEventsQueryOptions(...args);
+    },
+  };
 });
 
 const WHEEL = '9a2e4c6d-3b1f-4e8a-a7c5-0d9e8f7a6b5c';
@@ -74,8 +86,11 @@ describe('the outbox before its sender has loaded', () => {
     await act(() => second.result.current.record(tap(3)));
     expect(await held()).toHaveLength(3);
 
-    // The sender arrives offline: still nothing goes.
+    // The sender arrives offline and is asked to send: still nothing goes.
+    expect(gate.state.starts).toBe(0); // held back for both runners until now
     gate.open();
+    // The sender starts and at once asks for a send (paused offline).
+    await waitFor(() => expect(gate.state.starts).toBe(1));
     await new Promise((r) => setTimeout(r, 300));
     expect(action).not.toHaveBeenCalled();
     expect(second.result.current.status.waiting).toBe(3);
