@@ -73,7 +73,14 @@ async function main() {
   // A deploy, for the test of confirmations queued across builds: stop, build anew, start again.
   process.on('SIGUSR2', () => {
     redeploying = true;
+    console.log('[e2e] redeploy: stopping the server, then building anew');
+    // Next stops on SIGTERM once its requests end; one left hanging must not stall the deploy.
+    const stubborn = setTimeout(() => {
+      console.log('[e2e] redeploy: the server did not stop in 15 s; killing it');
+      server.kill('SIGKILL');
+    }, 15_000);
     server.once('exit', () => {
+      clearTimeout(stubborn);
       // A build machine starts clean: without Next's cached key the new build gets new action ids.
       rmSync(path.join(E2E.distDir, 'cache', '.rscinfo'), { force: true });
       build();
