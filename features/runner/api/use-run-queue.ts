@@ -262,6 +262,8 @@ export function useRunQueue(
     if (!ready) return;
     let stopped = false;
     let started: Sender | null = null;
+    // A counter, not a node: the cleanup bumps whatever round is current then.
+    const rounds = sendRound;
     // A failed load (the network dropped before the service worker kept the file) is tried again.
     const load = (): Promise<{ startSender: typeof startSender } | null> =>
       stopped
@@ -292,7 +294,7 @@ export function useRunQueue(
       if (sender.current === started) sender.current = null;
       // A send the stopped sender held (paused offline) never ends: free the queue for the next
       // sender, which takes the same events again (the server stores each id once).
-      sendRound.current++;
+      rounds.current++;
       sending.current = false;
       again.current = false;
     };

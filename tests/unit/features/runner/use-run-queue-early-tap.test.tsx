@@ -14,10 +14,11 @@ import {
   type SaveEvents,
 } from '@/features/runner/api/use-run-queue';
 import type { ClientEvent } from '@/features/runner/events';
+import type * as OutboxStore from '@/features/runner/api/outbox-store';
 
 const read = vi.hoisted(() => ({ gate: Promise.resolve() }));
 vi.mock('@/features/runner/api/outbox-store', async (importOriginal) => {
-  const mod = await importOriginal<typeof import('@/features/runner/api/outbox-store')>();
+  const mod = await importOriginal<typeof OutboxStore>();
   return {
     ...mod,
     readOutbox: async (...args: Parameters<typeof mod.readOutbox>) => {

@@ -12,6 +12,7 @@ import {
   type QueuePerson,
   type SaveEvents,
 } from '@/features/runner/api/use-run-queue';
+import type * as GetWheelEvents from '@/features/runner/api/get-wheel-events';
 
 // The gate holds back a module only the sender imports (not the sender itself: while a mock's
 // factory runs, vitest gives other imports of that path the original, so a second runner would
@@ -26,7 +27,7 @@ const gate = vi.hoisted(() => {
 vi.mock('@/features/runner/api/get-wheel-events', async (importOriginal) => {
   gate.state.loads++;
   await gate.state.opened;
-  const mod = await importOriginal<typeof import('@/features/runner/api/get-wheel-events')>();
+  const mod = await importOriginal<typeof GetWheelEvents>();
   return {
     ...mod,
     wheelEventsQueryOptions: (...args: Parameters<typeof mod.wheelEventsQueryOptions>) => {

@@ -13,11 +13,12 @@ import {
   type SaveEvents,
 } from '@/features/runner/api/use-run-queue';
 import type { ClientEvent } from '@/features/runner/events';
+import type * as RunSender from '@/features/runner/api/run-sender';
 
 // Counts the senders started and the sends asked of them, to know a send is under way.
 const seen = vi.hoisted(() => ({ starts: 0, sends: 0 }));
 vi.mock('@/features/runner/api/run-sender', async (importOriginal) => {
-  const mod = await importOriginal<typeof import('@/features/runner/api/run-sender')>();
+  const mod = await importOriginal<typeof RunSender>();
   return {
     ...mod,
     startSender: (work: Parameters<typeof mod.startSender>[0]) => {
