@@ -4,17 +4,21 @@
 // The read is held back by a gate so the tap lands before it, every run.
 import 'fake-indexeddb/auto';
 import { act, renderHook, waitFor } from '@testing-library/react';
-import { clear, get, set } from 'idb-keyval';
+import { clear, set } from 'idb-keyval';
 import { StrictMode, type ReactNode } from 'react';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-import {
-  outboxKey,
-  useRunQueue,
-  type QueuePerson,
-  type SaveEvents,
-} from '@/features/runner/api/use-run-queue';
+import { outboxKey, useRunQueue, type SaveEvents } from '@/features/runner/api/use-run-queue';
 import type { ClientEvent } from '@/features/runner/events';
 import type * as OutboxStore from '@/features/runner/api/outbox-store';
+import {
+  boltOf,
+  heldBolts as heldOn,
+  network,
+  stubPhone,
+  tap,
+  THEO,
+  unstubPhone,
+} from '@/tests/helpers/outbox-harness';
 
 const read = vi.hoisted(() => ({ gate: Promise.resolve() }));
 vi.mock('@/features/runner/api/outbox-store', async (importOriginal) => {
@@ -29,12 +33,8 @@ vi.mock('@/features/runner/api/outbox-store', async (importOriginal) => {
 });
 
 const WHEEL = '6d3a0f7e-1c1b-4c55-9f3e-2a7d1f0c9b11';
-const THEO: QueuePerson = { id: '0b6f9a52-56a4-4c6e-8a39-8d3c3f1e0a01', name: 'Theo Tech' };
 const KEY = outboxKey(THEO.id, WHEEL);
-const tap = (bolt: number) => ({ type: 'bolt_confirmed', payload: { pass: 1, bolt } }) as const;
-const boltOf = (e: ClientEvent) => (e.payload as { bolt: number }).bolt;
-const heldBolts = async () =>
-  (((await get(KEY)) as { pending: ClientEvent[] } | undefined)?.pending ?? []).map(boltOf);
+const heldBolts = () => heldOn(KEY);
 const sentBolts = (action: ReturnType<typeof vi.fn<SaveEvents>>) =>
   action.mock.calls.flatMap(([, input]) => input.events.map(boltOf));
 const saveAll = vi.fn<SaveEvents>(async (_prev, { events }) => ({
@@ -42,28 +42,14 @@ const saveAll = vi.fn<SaveEvents>(async (_prev, { events }) => ({
   data: { saved: events.length, duplicates: 0 },
 }));
 
-let online = true;
-function network(up: boolean) {
-  online = up;
-  window.dispatchEvent(new Event(up ? 'online' : 'offline'));
-}
-
 describe('a tap before the phone’s queue is read', () => {
   beforeEach(async () => {
     await clear();
     saveAll.mockClear();
     read.gate = Promise.resolve();
-    Object.defineProperty(window.navigator, 'onLine', { configurable: true, get: () => online });
-    network(true);
-    vi.stubGlobal(
-      'fetch',
-      vi.fn(async () => Response.json({ data: { events: [] } })),
-    );
+    stubPhone();
   });
-  afterEach(() => {
-    network(true);
-    vi.unstubAllGlobals();
-  });
+  afterEach(unstubPhone);
 
   it('keeps bolt 1 that waited on the phone and the new bolt 2, on screen and on the phone, and sends each once', async () => {
     const earlier: ClientEvent = {

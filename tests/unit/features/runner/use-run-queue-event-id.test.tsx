@@ -5,16 +5,10 @@ import 'fake-indexeddb/auto';
 import { act, renderHook, waitFor } from '@testing-library/react';
 import { clear } from 'idb-keyval';
 import { beforeEach, expect, it, vi } from 'vitest';
-import {
-  useRunQueue,
-  type QueuePerson,
-  type SaveEvents,
-} from '@/features/runner/api/use-run-queue';
-import type { RunEvent } from '@/features/runner/events';
+import { useRunQueue, type SaveEvents } from '@/features/runner/api/use-run-queue';
+import { tap as bolt, THEO } from '@/tests/helpers/outbox-harness';
 
 const WHEEL = '9a8b7c6d-5e4f-4a3b-8c2d-1e0f9a8b7c6d';
-const THEO: QueuePerson = { id: '0b6f9a52-56a4-4c6e-8a39-8d3c3f1e0a01', name: 'Theo Tech' };
-const bolt = (n: number): RunEvent => ({ type: 'bolt_confirmed', payload: { pass: 1, bolt: n } });
 // RFC 9562 §5.7: version 7 nibble, variant 10, the first 48 bits the Unix time in ms.
 const V7 = /^[0-9a-f]{8}-[0-9a-f]{4}-7[0-9a-f]{3}-[89ab][0-9a-f]{3}-[0-9a-f]{12}$/;
 const msOf = (id: string) => parseInt(id.replace(/-/g, '').slice(0, 12), 16);

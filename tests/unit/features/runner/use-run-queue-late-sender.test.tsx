@@ -6,13 +6,9 @@ import 'fake-indexeddb/auto';
 import { act, renderHook, waitFor } from '@testing-library/react';
 import { clear, get } from 'idb-keyval';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-import {
-  outboxKey,
-  useRunQueue,
-  type QueuePerson,
-  type SaveEvents,
-} from '@/features/runner/api/use-run-queue';
+import { outboxKey, useRunQueue, type SaveEvents } from '@/features/runner/api/use-run-queue';
 import type * as GetWheelEvents from '@/features/runner/api/get-wheel-events';
+import { network, stubPhone, tap, THEO, unstubPhone } from '@/tests/helpers/outbox-harness';
 
 // The gate holds back a module only the sender imports (not the sender itself: while a mock's
 // factory runs, vitest gives other imports of that path the original, so a second runner would
@@ -38,33 +34,17 @@ vi.mock('@/features/runner/api/get-wheel-events', async (importOriginal) => {
 });
 
 const WHEEL = '9a2e4c6d-3b1f-4e8a-a7c5-0d9e8f7a6b5c';
-const THEO: QueuePerson = { id: '0b6f9a52-56a4-4c6e-8a39-8d3c3f1e0a01', name: 'Theo Tech' };
 const KEY = outboxKey(THEO.id, WHEEL);
 const saved = { ok: true as const, data: { saved: 1, duplicates: 0 } };
-const tap = (bolt: number) => ({ type: 'bolt_confirmed', payload: { pass: 1, bolt } }) as const;
 const held = async () => ((await get(KEY)) as { pending: { clientId: string }[] }).pending;
-
-let online = true;
-function network(up: boolean) {
-  online = up;
-  window.dispatchEvent(new Event(up ? 'online' : 'offline'));
-}
 const mount = (action: SaveEvents) => renderHook(() => useRunQueue(WHEEL, [], action, THEO));
 
 describe('the outbox before its sender has loaded', () => {
   beforeEach(async () => {
     await clear();
-    Object.defineProperty(window.navigator, 'onLine', { configurable: true, get: () => online });
-    network(true);
-    vi.stubGlobal(
-      'fetch',
-      vi.fn(async () => Response.json({ data: { events: [] } })),
-    );
+    stubPhone();
   });
-  afterEach(() => {
-    network(true);
-    vi.unstubAllGlobals();
-  });
+  afterEach(unstubPhone);
 
   // One test: the module loads once per file, so the gate opens once.
   it('keeps taps on the phone, across a reload and offline, and sends each once when it arrives', async () => {

@@ -6,15 +6,10 @@ import { act, renderHook, waitFor } from '@testing-library/react';
 import { clear, get } from 'idb-keyval';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import type { ClientEvent } from '@/features/runner/events';
-import {
-  outboxKey,
-  useRunQueue,
-  type QueuePerson,
-  type SaveEvents,
-} from '@/features/runner/api/use-run-queue';
+import { outboxKey, useRunQueue, type SaveEvents } from '@/features/runner/api/use-run-queue';
+import { network, stubPhone, THEO, unstubPhone } from '@/tests/helpers/outbox-harness';
 
 const WHEEL = '3f1c2b7a-8d4e-4a6b-9c0d-1e2f3a4b5c6d';
-const THEO: QueuePerson = { id: '0b6f9a52-56a4-4c6e-8a39-8d3c3f1e0a01', name: 'Theo Tech' };
 const KEY = outboxKey(THEO.id, WHEEL);
 const confirm = { type: 'bolt_confirmed', payload: { pass: 1, bolt: 1 } } as const;
 const saved = { ok: true as const, data: { saved: 1, duplicates: 0 } };
@@ -25,27 +20,12 @@ function setUp(save: SaveEvents) {
   return { action, hook };
 }
 
-// The browser's network state as the phone reports it (navigator.onLine and its events).
-let online = true;
-function network(up: boolean) {
-  online = up;
-  window.dispatchEvent(new Event(up ? 'online' : 'offline'));
-}
-
 describe('the runner outbox on the network', () => {
   beforeEach(async () => {
     await clear();
-    Object.defineProperty(window.navigator, 'onLine', { configurable: true, get: () => online });
-    network(true);
-    vi.stubGlobal(
-      'fetch',
-      vi.fn(async () => Response.json({ data: { events: [] } })),
-    );
+    stubPhone();
   });
-  afterEach(() => {
-    network(true);
-    vi.unstubAllGlobals();
-  });
+  afterEach(unstubPhone);
 
   it('offline, a confirmation waits on the phone and nothing is sent; back online it goes by itself', async () => {
     network(false);

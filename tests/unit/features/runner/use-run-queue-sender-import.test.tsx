@@ -6,11 +6,8 @@ import 'fake-indexeddb/auto';
 import { act, renderHook, waitFor } from '@testing-library/react';
 import { clear } from 'idb-keyval';
 import { afterEach, beforeEach, expect, it, vi } from 'vitest';
-import {
-  useRunQueue,
-  type QueuePerson,
-  type SaveEvents,
-} from '@/features/runner/api/use-run-queue';
+import { useRunQueue, type SaveEvents } from '@/features/runner/api/use-run-queue';
+import { stubPollFetch, tap, THEO } from '@/tests/helpers/outbox-harness';
 
 const loads = vi.hoisted(() => ({ count: 0 }));
 vi.mock('@/features/runner/api/run-sender', async (importOriginal) => {
@@ -19,14 +16,10 @@ vi.mock('@/features/runner/api/run-sender', async (importOriginal) => {
 });
 
 const WHEEL = '5b7d9f1a-3c5e-4a7b-8d9f-1a3c5e7a9b1d';
-const THEO: QueuePerson = { id: '0b6f9a52-56a4-4c6e-8a39-8d3c3f1e0a01', name: 'Theo Tech' };
 
 beforeEach(async () => {
   await clear();
-  vi.stubGlobal(
-    'fetch',
-    vi.fn(async () => Response.json({ data: { events: [] } })),
-  );
+  stubPollFetch();
 });
 afterEach(() => vi.unstubAllGlobals());
 
@@ -37,9 +30,7 @@ it('when the sender fails to load twice, it is fetched again and the waiting tap
   }));
   const hook = renderHook(() => useRunQueue(WHEEL, [], save, THEO));
   await waitFor(() => expect(hook.result.current.status.ready).toBe(true));
-  await act(() =>
-    hook.result.current.record({ type: 'bolt_confirmed', payload: { pass: 1, bolt: 1 } }),
-  );
+  await act(() => hook.result.current.record(tap(1)));
   await waitFor(() => expect(loads.count).toBe(1));
   expect(hook.result.current.status.waiting).toBe(1);
   expect(save).not.toHaveBeenCalled();

@@ -4,16 +4,20 @@
 // keep the queue from sending through the new one.
 import 'fake-indexeddb/auto';
 import { act, renderHook, waitFor } from '@testing-library/react';
-import { clear, get } from 'idb-keyval';
+import { clear } from 'idb-keyval';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-import {
-  outboxKey,
-  useRunQueue,
-  type QueuePerson,
-  type SaveEvents,
-} from '@/features/runner/api/use-run-queue';
-import type { ClientEvent } from '@/features/runner/events';
+import { outboxKey, useRunQueue, type SaveEvents } from '@/features/runner/api/use-run-queue';
 import type * as RunSender from '@/features/runner/api/run-sender';
+import {
+  boltOf,
+  heldBolts as heldOn,
+  network,
+  savedAll,
+  stubPhone,
+  tap,
+  THEO,
+  unstubPhone,
+} from '@/tests/helpers/outbox-harness';
 
 // Counts the senders started and the sends asked of them, to know a send is under way.
 const seen = vi.hoisted(() => ({ starts: 0, sends: 0 }));
@@ -36,39 +40,17 @@ vi.mock('@/features/runner/api/run-sender', async (importOriginal) => {
 });
 
 const WHEEL = '2c4e6a8b-0d1f-4a3c-9e5b-7d9f1b3d5f7a';
-const THEO: QueuePerson = { id: '0b6f9a52-56a4-4c6e-8a39-8d3c3f1e0a01', name: 'Theo Tech' };
 const KEY = outboxKey(THEO.id, WHEEL);
-const tap = (bolt: number) => ({ type: 'bolt_confirmed', payload: { pass: 1, bolt } }) as const;
-const boltOf = (e: ClientEvent) => (e.payload as { bolt: number }).bolt;
-const heldBolts = async () =>
-  (((await get(KEY)) as { pending: ClientEvent[] } | undefined)?.pending ?? []).map(boltOf);
-const savedAll = (events: ClientEvent[]) => ({
-  ok: true as const,
-  data: { saved: events.length, duplicates: 0 },
-});
-
-let online = true;
-function network(up: boolean) {
-  online = up;
-  window.dispatchEvent(new Event(up ? 'online' : 'offline'));
-}
+const heldBolts = () => heldOn(KEY);
 
 describe('the outbox when its sender stops mid-send', () => {
   beforeEach(async () => {
     await clear();
     seen.starts = 0;
     seen.sends = 0;
-    Object.defineProperty(window.navigator, 'onLine', { configurable: true, get: () => online });
-    network(true);
-    vi.stubGlobal(
-      'fetch',
-      vi.fn(async () => Response.json({ data: { events: [] } })),
-    );
+    stubPhone();
   });
-  afterEach(() => {
-    network(true);
-    vi.unstubAllGlobals();
-  });
+  afterEach(unstubPhone);
 
   it('a late answer to a closed runner leaves the newer runner’s taps on the phone', async () => {
     let answerLate = () => {};
