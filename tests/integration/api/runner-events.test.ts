@@ -5,11 +5,12 @@ import { postToWheelEvents } from '@/tests/helpers/wheel-events-route';
 import { GET } from '@/app/api/wheels/[wheelId]/events/route';
 import { POST as SUBMIT } from '@/app/api/wheels/[wheelId]/submit/route';
 import { getDb } from '@/db';
-import { users, wheelRunEvents } from '@/db/schema';
+import { wheelRunEvents } from '@/db/schema';
 import { getJob } from '@/features/jobs/server/jobs';
 import { apiRequest, cookieFor, createTestShop, params } from '@/tests/helpers/factories';
 import { actAs, resetNextRequest } from '@/tests/helpers/next-request';
 import { createRecords } from '@/tests/helpers/records';
+import { addTechnician } from '@/tests/helpers/wheel-events-fixtures';
 
 type Shop = Awaited<ReturnType<typeof createTestShop>>;
 let shop: Shop, wheelId: string, jobId: string;
@@ -187,17 +188,8 @@ describe('the runner save path (POST /api/wheels/:id/events)', () => {
       message: 'That wheel was not found.',
     });
     // A technician of the same shop who is not the assignee.
-    const [tech2] = await getDb()
-      .insert(users)
-      .values({
-        shopId: shop.shopId,
-        email: `t2-${randomUUID()}@shop.test`,
-        name: 'Tess Two',
-        role: 'technician',
-        passwordHash: 'x',
-      })
-      .returning({ id: users.id });
-    expect(await post(tech2!.id, [confirm(1)])).toMatchObject({
+    const tech2 = await addTechnician(shop.shopId);
+    expect(await post(tech2, [confirm(1)])).toMatchObject({
       ok: false,
       code: 'forbidden',
       message: expect.stringMatching(/assigned to someone else/),

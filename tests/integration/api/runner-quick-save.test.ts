@@ -1,4 +1,3 @@
-import { randomUUID } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import { beforeEach, describe, expect, it } from 'vitest';
 import { postToWheelEvents } from '@/tests/helpers/wheel-events-route';
@@ -9,6 +8,7 @@ import { sessionIdOf } from '@/server/auth/session-token';
 import { createTestShop } from '@/tests/helpers/factories';
 import { actAs, cookieValue } from '@/tests/helpers/next-request';
 import { createRecords } from '@/tests/helpers/records';
+import { addTechnician, clockedConfirmations } from '@/tests/helpers/wheel-events-fixtures';
 
 /**
  * Once a wheel has started, a plain bolt confirmation is saved by one statement that also checks
@@ -19,14 +19,7 @@ import { createRecords } from '@/tests/helpers/records';
 type Shop = Awaited<ReturnType<typeof createTestShop>>;
 let shop: Shop, wheelId: string, jobId: string;
 
-let t = 0;
-const base = Date.now() - 60 * 60 * 1000;
-const confirm = (bolt: number) => ({
-  type: 'bolt_confirmed',
-  payload: { pass: 1, bolt },
-  clientId: randomUUID(),
-  clientAt: new Date(base + 1000 * t++).toISOString(),
-});
+const confirm = clockedConfirmations();
 /** Signs in as `userId` (a fresh session) and returns that session's row id. */
 const signIn = async (userId: string) => {
   await actAs(userId);
@@ -105,17 +98,8 @@ describe('the one-statement save checks the session itself', () => {
   });
 
   it("another technician, another shop's lead, an apprentice not cleared: nothing stored", async () => {
-    const [tech2] = await getDb()
-      .insert(users)
-      .values({
-        shopId: shop.shopId,
-        email: `t2-${randomUUID()}@shop.test`,
-        name: 'Tess Two',
-        role: 'technician',
-        passwordHash: 'x',
-      })
-      .returning({ id: users.id });
-    await signIn(tech2!.id);
+    const tech2 = await addTechnician(shop.shopId);
+    await signIn(tech2);
     expect(await send([confirm(2)])).toMatchObject({
       ok: false,
       code: 'forbidden',

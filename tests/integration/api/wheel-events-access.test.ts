@@ -7,6 +7,7 @@ import { jobs, practiceClearances, users, wheelRunEvents } from '@/db/schema';
 import { getJob } from '@/features/jobs/server/jobs';
 import { apiRequest, cookieFor, createTestShop, params } from '@/tests/helpers/factories';
 import { createRecords } from '@/tests/helpers/records';
+import { addTechnician } from '@/tests/helpers/wheel-events-fixtures';
 
 /**
  * Who may save a wheel's events (POST /api/wheels/:id/events), beyond the role table in
@@ -70,17 +71,8 @@ beforeEach(async () => {
 
 describe('POST /api/wheels/:id/events: who may save', () => {
   it('a technician of the same shop not assigned to the card: 403 on both paths, nothing stored', async () => {
-    const [other] = await getDb()
-      .insert(users)
-      .values({
-        shopId: shop.shopId,
-        email: `t2-${randomUUID()}@shop.test`,
-        name: 'Tess Two',
-        role: 'technician',
-        passwordHash: 'x',
-      })
-      .returning({ id: users.id });
-    expect(await onBoth(await cookieFor(other!.id))).toEqual({
+    const other = await addTechnician(shop.shopId);
+    expect(await onBoth(await cookieFor(other))).toEqual({
       full: 403,
       quick: 403,
       codes: ['forbidden', 'forbidden'],

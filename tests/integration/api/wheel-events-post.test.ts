@@ -1,4 +1,3 @@
-import { randomUUID } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import { beforeEach, describe, expect, it, vi } from 'vitest';
 import { POST } from '@/app/api/wheels/[wheelId]/events/route';
@@ -11,6 +10,7 @@ import type * as SaveEvents from '@/features/runner/server/save-events';
 import { saveWheelBatch } from '@/features/runner/server/save-events';
 import { apiRequest, cookieFor, createTestShop, params } from '@/tests/helpers/factories';
 import { createRecords } from '@/tests/helpers/records';
+import { clockedConfirmations } from '@/tests/helpers/wheel-events-fixtures';
 
 // Both save paths stay real; the spies only say which one answered.
 vi.mock('@/features/runner/server/save-events', async (importOriginal) => {
@@ -35,14 +35,7 @@ beforeEach(async () => {
   vi.mocked(saveWheelBatchForSession).mockClear();
 });
 
-let t = 0;
-const base = Date.now() - 60 * 60 * 1000;
-const confirm = (bolt: number) => ({
-  type: 'bolt_confirmed',
-  payload: { pass: 1, bolt },
-  clientId: randomUUID(),
-  clientAt: new Date(base + 1000 * t++).toISOString(),
-});
+const confirm = clockedConfirmations();
 const post = (
   body: unknown,
   init: { cookie?: string; origin?: string | null; wheel?: string } = {},
