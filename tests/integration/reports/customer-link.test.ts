@@ -18,6 +18,7 @@ import {
   tokenHashOf,
 } from '@/features/reports/server/report-links';
 import { apiRequest, params } from '@/tests/helpers/factories';
+import { withGarbledToken } from '@/tests/helpers/garbled-store';
 import { signedOffJob } from '@/tests/helpers/report-work';
 import type * as StoreConfigModule from '@/server/storage/store-config';
 
@@ -26,13 +27,9 @@ import type * as StoreConfigModule from '@/server/storage/store-config';
 let JPEG: Buffer;
 let storeUrl = () => `data:image/jpeg;base64,${JPEG.toString('base64')}`;
 vi.mock('@/server/storage/signed-url', () => ({ signedFileUrl: async () => storeUrl() }));
-/** A garbled UPLOADTHING_TOKEN while set: the real check then refuses it, as in a server. */
-let garbledToken = false;
 vi.mock('@/server/storage/store-config', async (load) => {
-  const real = await load<typeof StoreConfigModule>();
-  const storeConfig = () =>
-    garbledToken ? real.storeConfigFrom({ UPLOADTHING_TOKEN: 'sk_live!' }) : real.storeConfig();
-  return { ...real, storeConfig };
+  const { garbleable } = await import('@/tests/helpers/garbled-store');
+  return garbleable(await load<typeof StoreConfigModule>());
 });
 beforeAll(async () => {
   JPEG = await sharp({
@@ -256,12 +253,9 @@ describe("the customer's photos from a store that fails", () => {
   it('fails loudly (Next logs it, answers 500) when the store is misconfigured, not as a missing photo', async () => {
     const { link, job } = await linked();
     const id = await firstPhoto(job.id);
-    garbledToken = true;
-    try {
-      await expect(photo(link.token, id)).rejects.toThrow('UPLOADTHING_TOKEN is not base64');
-    } finally {
-      garbledToken = false;
-    }
+    await withGarbledToken(() =>
+      expect(photo(link.token, id)).rejects.toThrow('UPLOADTHING_TOKEN is not base64'),
+    );
   });
 });
 

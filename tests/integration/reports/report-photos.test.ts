@@ -8,16 +8,13 @@ import { getDb } from '@/db';
 import { wheelPhotos } from '@/db/schema';
 import { loadReportImages } from '@/features/reports/server/report-photos';
 import { startUploadFake, type UploadFake } from '@/server/dev/upload-fake';
+import { withGarbledToken } from '@/tests/helpers/garbled-store';
 import { signedOffJob } from '@/tests/helpers/report-work';
 import type * as StoreConfigModule from '@/server/storage/store-config';
 
-/** A garbled UPLOADTHING_TOKEN while set: the real check then refuses it, as in a server. */
-let garbledToken = false;
 vi.mock('@/server/storage/store-config', async (load) => {
-  const real = await load<typeof StoreConfigModule>();
-  const storeConfig = () =>
-    garbledToken ? real.storeConfigFrom({ UPLOADTHING_TOKEN: 'sk_live!' }) : real.storeConfig();
-  return { ...real, storeConfig };
+  const { garbleable } = await import('@/tests/helpers/garbled-store');
+  return garbleable(await load<typeof StoreConfigModule>());
 });
 
 // The report reads the private store through URLs signed without UTApi (server/storage/): the
@@ -83,17 +80,14 @@ describe("the report's photos", () => {
       .select({ id: wheelPhotos.id })
       .from(wheelPhotos)
       .where(eq(wheelPhotos.jobId, job.id));
-    garbledToken = true;
-    try {
-      await expect(
+    await withGarbledToken(() =>
+      expect(
         loadReportImages(
           shop.shopId,
           job.id,
           ids.map((r) => r.id),
         ),
-      ).rejects.toThrow('UPLOADTHING_TOKEN is not base64');
-    } finally {
-      garbledToken = false;
-    }
+      ).rejects.toThrow('UPLOADTHING_TOKEN is not base64'),
+    );
   });
 });
