@@ -1,63 +1,20 @@
 'use client';
 
 import Link from 'next/link';
+import { RouteErrorBody, type RouteErrorProps } from './route-error-body';
 
-export type RouteErrorProps = {
-  error: Error & { digest?: string };
-  /** Next 16: re-fetches the segment's server data and renders it again. */
-  retry?: () => void;
-  /** Clears the boundary only (older Next, or a boundary without retry). */
-  reset?: () => void;
-};
+export type { RouteErrorProps } from './route-error-body';
 
-/**
- * What a page shows when it failed on our side: a plain sentence, a way to try again, and the
- * error's reference (digest) to read to whoever looks at the server's log. Never the message or
- * stack: a server error's text can hold details that are not for the shop floor.
- */
-export function RouteError({
-  error,
-  retry,
-  reset,
-  home = '/',
-}: RouteErrorProps & { home?: string }) {
-  const again = retry ?? reset;
+/** The route groups' error page: RouteErrorBody with a link to the start page. */
+export function RouteError({ home = '/', ...props }: RouteErrorProps & { home?: string }) {
   return (
-    <section
-      role="alert"
-      aria-labelledby="route-error-title"
-      className="border-danger bg-danger-tint flex flex-col gap-3 rounded-xl border-2 p-4"
-    >
-      <h1 id="route-error-title" className="text-danger text-xl font-bold">
-        This page could not be shown
-      </h1>
-      <p>
-        Something went wrong on our side. Nothing you entered before this page was lost. Try again;
-        if it keeps happening, tell a lead.
-      </p>
-      {error.digest ? (
-        <p className="text-sm">
-          Reference for the shop&apos;s support:{' '}
-          <code className="font-mono font-semibold">{error.digest}</code>
-        </p>
-      ) : null}
-      <div className="flex flex-wrap gap-3">
-        {again ? (
-          <button
-            type="button"
-            onClick={() => again()}
-            className="min-h-touch bg-work hover:bg-work-dark inline-flex items-center rounded-lg px-5 font-semibold text-white"
-          >
-            Try again
-          </button>
-        ) : null}
-        <Link
-          href={home}
-          className="min-h-touch text-work inline-flex items-center font-semibold underline"
-        >
-          Start page
-        </Link>
-      </div>
-    </section>
+    <RouteErrorBody {...props}>
+      <Link
+        href={home}
+        className="min-h-touch text-work inline-flex items-center font-semibold underline"
+      >
+        Start page
+      </Link>
+    </RouteErrorBody>
   );
 }
