@@ -6,7 +6,7 @@
  * (server/dev/ holds processes, not app modules, so these files do not import 'server-only'.)
  */
 import { randomUUID } from 'node:crypto';
-import { mkdirSync, writeFileSync } from 'node:fs';
+import { mkdirSync, renameSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { simpleParser } from 'mailparser';
 import { SMTPServer } from 'smtp-server';
@@ -54,7 +54,11 @@ export async function startMailSink(options: {
           };
           // Name sorts by time so the Mailbox can list newest first without reading every file.
           const name = `${receivedAt.replace(/[:.]/g, '-')}-${id}.json`;
-          writeFileSync(path.join(options.dir, name), JSON.stringify(record, null, 2));
+          // Written aside and renamed into place: a reader (the Mailbox page, a test) listing the
+          // folder meanwhile never opens a half-written message.
+          const file = path.join(options.dir, name);
+          writeFileSync(`${file}.part`, JSON.stringify(record, null, 2));
+          renameSync(`${file}.part`, file);
           if (!record.shopId) options.onUnowned?.(record);
           callback();
         })
