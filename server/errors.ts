@@ -2,7 +2,15 @@ import 'server-only';
 import { notFound as nextNotFound } from 'next/navigation';
 
 export type DomainErrorCode =
-  'invalid' | 'unauthenticated' | 'forbidden' | 'not_found' | 'conflict' | 'rate_limited';
+  | 'invalid'
+  | 'unauthenticated'
+  | 'forbidden'
+  // A write from an Origin the app does not know: it says nothing about the request's content
+  // (a proxy may have rewritten the header), so the runner's outbox keeps such events and retries.
+  | 'cross_origin'
+  | 'not_found'
+  | 'conflict'
+  | 'rate_limited';
 
 /**
  * An expected failure with a message fit to show the user. Actions and route handlers turn it

@@ -6,7 +6,6 @@ import type { Permission } from '@/server/auth/permissions';
 import type { Member } from '@/server/auth/session';
 import { env } from '@/server/env.mjs';
 import { DomainError, type DomainErrorCode } from '@/server/errors';
-import { CROSS_ORIGIN_CODE } from './api-codes';
 import { BodyTooLarge, readLimitedText } from './body-limit';
 
 /** The one error shape of the JSON API. */
@@ -18,30 +17,14 @@ const STATUS: Record<DomainErrorCode, number> = {
   invalid: 400,
   unauthenticated: 401,
   forbidden: 403,
+  cross_origin: 403,
   not_found: 404,
   conflict: 409,
   rate_limited: 429,
 };
 
-/**
- * A write from an Origin this app does not know. Its own code, not `forbidden`: the runner's
- * outbox sets a forbidden batch aside for good, but this says nothing about the events (a proxy
- * may have rewritten the Origin, or the app is reached under another address), so it keeps them
- * and retries while showing the message.
- */
-export class CrossOriginRefused extends DomainError {
-  constructor() {
-    super(
-      'forbidden',
-      'Cross-origin request refused: send it from the Ringpass app (Origin header).',
-    );
-    this.name = 'CrossOriginRefused';
-  }
-}
-
 export function errorResponse(error: DomainError): Response {
-  const code = error instanceof CrossOriginRefused ? CROSS_ORIGIN_CODE : error.code;
-  const body: ApiError = { error: { code, message: error.message } };
+  const body: ApiError = { error: { code: error.code, message: error.message } };
   if (error.fields) body.error.fields = error.fields;
   return Response.json(body, { status: STATUS[error.code] });
 }
@@ -62,7 +45,12 @@ export function assertSameOrigin(request: Request) {
       request.headers.get('x-forwarded-proto') ?? new URL(request.url).protocol.replace(':', '');
     allowed.add(`${proto}://${host}`);
   }
-  if (!origin || !allowed.has(origin)) throw new CrossOriginRefused();
+  if (!origin || !allowed.has(origin)) {
+    throw new DomainError(
+      'cross_origin',
+      'Cross-origin request refused: send it from the Ringpass app (Origin header).',
+    );
+  }
 }
 
 async function readJson(request: Request): Promise<unknown> {

@@ -1,5 +1,4 @@
 import type { FailureCode } from '@/server/action';
-import { CROSS_ORIGIN_CODE } from '@/server/http/api-codes';
 import type { EventRefusal } from '../events';
 import { KeptForRetry, type SaveEvents } from './send-outcome';
 
@@ -11,6 +10,7 @@ const FAILURE_CODES = {
   invalid: true,
   unauthenticated: true,
   forbidden: true,
+  cross_origin: true,
   not_found: true,
   conflict: true,
   rate_limited: true,
@@ -65,7 +65,8 @@ export async function readSaveAnswer(res: Response, sent: number): Promise<SaveA
   }
   const error = isRecord(body) && isRecord(body.error) ? body.error : null;
   if (!res.ok && error && typeof error.message === 'string') {
-    if (error.code === CROSS_ORIGIN_CODE) throw new KeptForRetry(error.message, false);
+    if (error.code === ('cross_origin' satisfies FailureCode))
+      throw new KeptForRetry(error.message, false);
     if (isFailureCode(error.code)) {
       return {
         ok: false,
